@@ -1,0 +1,90 @@
+package dev.tare.cli;
+
+import dev.tare.TareException;
+import dev.tare.report.CountReport;
+import dev.tare.source.SafeReader;
+import dev.tare.source.SourceText;
+import dev.tare.tokenize.Tokenizer;
+import dev.tare.tokenize.TokenizerRegistry;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+/** {@code tare count}: raw token counts of whole files. */
+@Command(name = "count", mixinStandardHelpOptions = true,
+        description = {"Counts the tokens of whole files exactly as the tokenizer sees them: no template parsing,"
+                + " front matter included, a leading byte-order mark left out, special-token strings counted as text.",
+                "A file that cannot be read is reported and the others are still counted; the exit code is then 2."})
+final class CountCommand implements Callable<Integer> {
+    /** The largest file count reads; larger files are refused. */
+    static final long MAX_BYTES = 64L * 1024 * 1024;
+
+    enum Format { text, json }
+
+    @Spec
+    private CommandSpec spec;
+
+    @Mixin
+    private CommonOptions common;
+
+    @Parameters(paramLabel = "FILE", arity = "1..*", description = "Files to count; - reads standard input.")
+    private List<String> files = new ArrayList<>();
+
+    @Option(names = "--tokenizer", paramLabel = "NAME|PATH",
+            description = "A built-in encoding (o200k_base, cl100k_base, p50k_base, r50k_base) or a tokenizer.json path. Default: " + TokenizerRegistry.DEFAULT + ".")
+    private String tokenizer = TokenizerRegistry.DEFAULT;
+
+    @Option(names = "--format", paramLabel = "FORMAT", description = "Output format: ${COMPLETION-CANDIDATES}. Default: ${DEFAULT-VALUE}.")
+    private Format format = Format.text;
+
+    @Override
+    public Integer call() {
+        Tokenizer counter = new TokenizerRegistry().get(tokenizer, Path.of("."));
+        SafeReader reader = new SafeReader(MAX_BYTES);
+        PrintWriter err = spec.commandLine().getErr();
+        List<CountReport.Entry> entries = new ArrayList<>();
+        int failures = 0;
+        for (String name : files) {
+            try {
+                SourceText text = read(reader, name);
+                entries.add(new CountReport.Entry(text.path(), counter.count(text.text()), text.text().length()));
+            } catch (TareException e) {
+                err.println("tare: " + name + ": " + e.getMessage());
+                failures++;
+            }
+        }
+        String report = format == Format.json ? CountReport.json(counter.name(), entries) : CountReport.text(counter.name(), entries);
+        spec.commandLine().getOut().print(report);
+        spec.commandLine().getOut().flush();
+        err.flush();
+        return failures == 0 ? ExitCodes.OK : ExitCodes.USAGE;
+    }
+
+    private static SourceText read(SafeReader reader, String name) {
+        if (name.equals("-")) {
+            try {
+                return reader.decode("-", Path.of("-"), System.in.readNBytes((int) MAX_BYTES + 1));
+            } catch (IOException e) {
+                throw new TareException("standard input cannot be read (" + e.getMessage() + ")", e);
+            }
+        }
+        Path file = Path.of(name);
+        if (Files.isDirectory(file)) {
+            throw new TareException("is a folder; count takes files (use 'tare scan' for a folder of templates)");
+        }
+        if (!Files.exists(file)) {
+            throw new TareException("no such file");
+        }
+        return reader.read(file.normalize().toString().replace('\\', '/'), file);
+    }
+}

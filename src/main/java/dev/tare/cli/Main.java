@@ -1,0 +1,22 @@
+package dev.tare.cli;
+
+import java.io.FileDescriptor;
+import java.io.FileOutputStream;
+import java.io.OutputStreamWriter;
+import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+
+/** The {@code tare} program: parses the command line, runs one command, exits with its code. */
+public final class Main {
+    private Main() {
+    }
+
+    public static void main(String[] args) {
+        PrintWriter out = new PrintWriter(new OutputStreamWriter(new FileOutputStream(FileDescriptor.out), StandardCharsets.UTF_8), true);
+        PrintWriter err = new PrintWriter(new OutputStreamWriter(new FileOutputStream(FileDescriptor.err), StandardCharsets.UTF_8), true);
+        int code = TareCommand.commandLine(out, err).execute(args);
+        out.flush();
+        err.flush();
+        System.exit(code);
+    }
+}

@@ -1,0 +1,67 @@
+package dev.tare.cli;
+
+import dev.tare.report.ScanReport;
+import dev.tare.scan.ScanOptions;
+import dev.tare.scan.ScanResult;
+import dev.tare.scan.TemplateScan;
+import dev.tare.scan.Workspace;
+import dev.tare.tokenize.TokenizerRegistry;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+/** {@code tare scan}: the token footprint of every template in a repository. */
+@Command(name = "scan", mixinStandardHelpOptions = true,
+        description = {"Counts the tokens of every template in a repository: static tokens (every variable empty),"
+                + " estimated tokens (variables filled with their declared samples or sizes) and input tokens on each target.",
+                "Files that cannot be read or parsed are listed with the reason and never stop the scan."})
+final class ScanCommand implements Callable<Integer> {
+    enum Format { text, json }
+
+    enum Sort { tokens, cost, path }
+
+    @Spec
+    private CommandSpec spec;
+
+    @Mixin
+    private CommonOptions common;
+
+    @Parameters(paramLabel = "PATH", arity = "0..*",
+            description = "Folders or files to scan, inside one repository. Default: the current folder.")
+    private List<Path> paths = new ArrayList<>();
+
+    @Option(names = "--target", paramLabel = "NAME", split = ",",
+            description = "Measure on these configured targets only (repeat or separate with commas). Default: all.")
+    private List<String> targets = new ArrayList<>();
+
+    @Option(names = "--tokenizer", paramLabel = "NAME|PATH",
+            description = "The tokenizer of the STATIC and ESTIMATED columns. Default: the first target's, else "
+                    + TokenizerRegistry.DEFAULT + ".")
+    private String tokenizer;
+
+    @Option(names = "--format", paramLabel = "FORMAT", description = "Output format: ${COMPLETION-CANDIDATES}. Default: ${DEFAULT-VALUE}.")
+    private Format format = Format.text;
+
+    @Option(names = "--sort", paramLabel = "KEY", description = "Row order: ${COMPLETION-CANDIDATES}. Default: ${DEFAULT-VALUE}.")
+    private Sort sort = Sort.path;
+
+    @Override
+    public Integer call() {
+        Workspace workspace = Workspace.open(paths, common.configFile());
+        ScanResult result = new TemplateScan(workspace, new TokenizerRegistry())
+                .run(new ScanOptions(targets, Optional.ofNullable(tokenizer)));
+        ScanResult.Order order = ScanResult.Order.valueOf(sort.name().toUpperCase(java.util.Locale.ROOT));
+        String report = format == Format.json ? ScanReport.json(result, order) : ScanReport.text(result, order);
+        spec.commandLine().getOut().print(report);
+        spec.commandLine().getOut().flush();
+        return ExitCodes.OK;
+    }
+}

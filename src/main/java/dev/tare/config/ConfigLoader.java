@@ -1,0 +1,231 @@
+package dev.tare.config;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import dev.tare.TareException;
+import dev.tare.source.Glob;
+import dev.tare.source.SafeReader;
+import dev.tare.source.SourceText;
+import dev.tare.source.YamlDocument;
+import dev.tare.template.PlaceholderSyntax;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.HashSet;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import java.util.OptionalInt;
+import java.util.Set;
+
+/** Finds and loads {@code tare.yaml}, refusing anything it does not understand with the file, line and key. */
+public final class ConfigLoader {
+    /** The configuration file's name. */
+    public static final String FILE_NAME = "tare.yaml";
+
+    private static final Set<String> TOP = Set.of("templates", "targets", "budgets", "baseline", "rules", "hook");
+    private static final Set<String> TEMPLATES = Set.of("include", "exclude", "placeholder", "partials", "max_file_bytes");
+    private static final Set<String> TARGET = Set.of("name", "tokenizer", "price", "prefix_cache_min_tokens",
+            "message_overhead_tokens", "reply_overhead_tokens", "calls_per_day", "output_tokens");
+    private static final Set<String> PRICE = Set.of("input", "cached_input", "output", "currency");
+    private static final Set<String> BASELINE = Set.of("file", "tolerance_percent");
+    private static final Set<String> RULES = Set.of("disable", "severity", "packs");
+    private static final Set<String> HOOK = Set.of("fix");
+
+    private ConfigLoader() {
+    }
+
+    /** The {@code tare.yaml} in {@code folder}, when there is one. */
+    public static Optional<Path> find(Path folder) {
+        Path file = folder.resolve(FILE_NAME);
+        return Files.isRegularFile(file) ? Optional.of(file) : Optional.empty();
+    }
+
+    /** Loads {@code file}; the root is the folder it stands in. */
+    public static TareConfig load(Path file) {
+        Path absolute = file.toAbsolutePath().normalize();
+        if (!Files.isRegularFile(absolute)) {
+            throw new TareException(file + ": no such configuration file; check --config, or run 'tare init' to write one");
+        }
+        SourceText text;
+        try {
+            text = new SafeReader(SafeReader.DEFAULT_MAX_BYTES).read(file.toString(), absolute);
+        } catch (TareException e) {
+            throw new TareException(file + ": " + e.getMessage(), e);
+        }
+        YamlDocument document;
+        try {
+            document = YamlDocument.parseYaml(text.text());
+        } catch (TareException e) {
+            throw new TareException(file + ", " + e.getMessage() + "; fix the YAML syntax", e);
+        }
+        return read(absolute.getParent(), Optional.of(absolute), new ConfigReader(file.toString(), document), document.root());
+    }
+
+    private static TareConfig read(Path root, Optional<Path> file, ConfigReader in, JsonNode top) {
+        if (top.isMissingNode() || top.isNull()) {
+            return new TareConfig(root, file, TemplatesConfig.defaults(), List.of(), Budgets.NONE,
+                    BaselineConfig.DEFAULT, RulesConfig.DEFAULT, false);
+        }
+        if (!top.isObject()) {
+            throw in.problem("", "the file must be a mapping with keys such as templates, targets and budgets");
+        }
+        in.onlyKeys(top, "", TOP);
+        JsonNode hook = in.object(top, "hook", "hook");
+        boolean hookFix = false;
+        if (hook != null) {
+            in.onlyKeys(hook, "hook", HOOK);
+            hookFix = in.bool(hook, "fix", "hook.fix").orElse(false);
+        }
+        return new TareConfig(root, file, templates(in, top), targets(in, top), budgets(in, top), baseline(in, top),
+                rules(in, top), hookFix);
+    }
+
+    private static TemplatesConfig templates(ConfigReader in, JsonNode top) {
+        TemplatesConfig defaults = TemplatesConfig.defaults();
+        JsonNode node = in.object(top, "templates", "templates");
+        if (node == null) {
+            return defaults;
+        }
+        in.onlyKeys(node, "templates", TEMPLATES);
+        List<String> include = node.has("include") ? in.texts(node, "include", "templates.include") : defaults.include();
+        List<String> exclude = node.has("exclude") ? in.texts(node, "exclude", "templates.exclude") : defaults.exclude();
+        checkGlobs(in, include, "templates.include");
+        checkGlobs(in, exclude, "templates.exclude");
+        PlaceholderSyntax syntax = defaults.placeholder();
+        Optional<String> placeholder = in.text(node, "placeholder", "templates.placeholder");
+        if (placeholder.isPresent()) {
+            try {
+                syntax = PlaceholderSyntax.fromLabel(placeholder.get());
+            } catch (TareException e) {
+                throw in.problem("templates.placeholder", e.getMessage());
+            }
+        }
+        String partials = in.text(node, "partials", "templates.partials").orElse(defaults.partials());
+        if (partials.startsWith("/") || partials.startsWith("..")) {
+            throw in.problem("templates.partials", "must be a folder inside the repository, relative to tare.yaml");
+        }
+        long maxBytes = in.wholeNumber(node, "max_file_bytes", "templates.max_file_bytes", 1)
+                .orElse((int) defaults.maxFileBytes());
+        return new TemplatesConfig(include, exclude, syntax, partials, maxBytes);
+    }
+
+    private static void checkGlobs(ConfigReader in, List<String> globs, String path) {
+        for (int i = 0; i < globs.size(); i++) {
+            try {
+                Glob.of(globs.get(i));
+            } catch (TareException e) {
+                throw in.problem(path + "[" + i + "]", e.getMessage());
+            }
+        }
+    }
+
+    private static List<TargetConfig> targets(ConfigReader in, JsonNode top) {
+        JsonNode node = top.get("targets");
+        List<TargetConfig> targets = new ArrayList<>();
+        if (node == null || node.isNull()) {
+            return targets;
+        }
+        if (!node.isArray()) {
+            throw in.problem("targets", "must be a list of targets, each with a name and a tokenizer");
+        }
+        Set<String> names = new HashSet<>();
+        for (int i = 0; i < node.size(); i++) {
+            String path = "targets[" + i + "]";
+            JsonNode target = node.get(i);
+            if (!target.isObject()) {
+                throw in.problem(path, "must be a mapping with at least name and tokenizer");
+            }
+            in.onlyKeys(target, path, TARGET);
+            String name = in.text(target, "name", path + ".name")
+                    .orElseThrow(() -> in.problem(path, "has no name"));
+            if (!names.add(name)) {
+                throw in.problem(path + ".name", "target '" + name + "' is configured twice");
+            }
+            String tokenizer = in.text(target, "tokenizer", path + ".tokenizer")
+                    .orElseThrow(() -> in.problem(path, "target '" + name + "' names no tokenizer"));
+            targets.add(new TargetConfig(name, tokenizer, price(in, target, path),
+                    in.wholeNumber(target, "prefix_cache_min_tokens", path + ".prefix_cache_min_tokens", 0),
+                    in.wholeNumber(target, "message_overhead_tokens", path + ".message_overhead_tokens", 0).orElse(0),
+                    in.wholeNumber(target, "reply_overhead_tokens", path + ".reply_overhead_tokens", 0).orElse(0),
+                    in.number(target, "calls_per_day", path + ".calls_per_day", 0),
+                    in.wholeNumber(target, "output_tokens", path + ".output_tokens", 0)));
+        }
+        return targets;
+    }
+
+    private static Optional<Price> price(ConfigReader in, JsonNode target, String path) {
+        String at = path + ".price";
+        JsonNode node = in.object(target, "price", at);
+        if (node == null) {
+            return Optional.empty();
+        }
+        in.onlyKeys(node, at, PRICE);
+        double input = in.number(node, "input", at + ".input", 0)
+                .orElseThrow(() -> in.problem(at, "has no input price (per million tokens)"));
+        double output = in.number(node, "output", at + ".output", 0)
+                .orElseThrow(() -> in.problem(at, "has no output price (per million tokens)"));
+        OptionalDouble cached = in.number(node, "cached_input", at + ".cached_input", 0);
+        String currency = in.text(node, "currency", at + ".currency").orElse("USD");
+        return Optional.of(new Price(input, cached, output, currency));
+    }
+
+    private static Budgets budgets(ConfigReader in, JsonNode top) {
+        JsonNode node = in.object(top, "budgets", "budgets");
+        if (node == null) {
+            return Budgets.NONE;
+        }
+        OptionalInt fallback = OptionalInt.empty();
+        Map<String, Integer> byGlob = new LinkedHashMap<>();
+        for (Map.Entry<String, JsonNode> entry : ConfigReader.fields(node)) {
+            String key = entry.getKey();
+            OptionalInt budget = in.wholeNumber(node, key, "budgets." + key, 1);
+            if (budget.isEmpty()) {
+                continue;
+            }
+            if (key.equals("default")) {
+                fallback = budget;
+            } else {
+                try {
+                    Glob.of(key);
+                } catch (TareException e) {
+                    throw in.problem("budgets." + key, e.getMessage());
+                }
+                byGlob.put(key, budget.getAsInt());
+            }
+        }
+        return new Budgets(fallback, byGlob);
+    }
+
+    private static BaselineConfig baseline(ConfigReader in, JsonNode top) {
+        JsonNode node = in.object(top, "baseline", "baseline");
+        if (node == null) {
+            return BaselineConfig.DEFAULT;
+        }
+        in.onlyKeys(node, "baseline", BASELINE);
+        return new BaselineConfig(
+                in.text(node, "file", "baseline.file").orElse(BaselineConfig.DEFAULT.file()),
+                in.number(node, "tolerance_percent", "baseline.tolerance_percent", 0)
+                        .orElse(BaselineConfig.DEFAULT.tolerancePercent()));
+    }
+
+    private static RulesConfig rules(ConfigReader in, JsonNode top) {
+        JsonNode node = in.object(top, "rules", "rules");
+        if (node == null) {
+            return RulesConfig.DEFAULT;
+        }
+        in.onlyKeys(node, "rules", RULES);
+        Map<String, String> severity = new LinkedHashMap<>();
+        JsonNode severities = in.object(node, "severity", "rules.severity");
+        if (severities != null) {
+            for (Map.Entry<String, JsonNode> entry : ConfigReader.fields(severities)) {
+                String at = "rules.severity." + entry.getKey();
+                severity.put(entry.getKey(), in.text(severities, entry.getKey(), at)
+                        .orElseThrow(() -> in.problem(at, "must be error, warning or info")));
+            }
+        }
+        return new RulesConfig(in.texts(node, "disable", "rules.disable"), severity,
+                in.texts(node, "packs", "rules.packs"));
+    }
+}

@@ -1,0 +1,56 @@
+package dev.tare.config;
+
+import dev.tare.TareException;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Optional;
+import java.util.stream.Collectors;
+
+/**
+ * The whole of a repository's {@code tare.yaml}, validated.
+ *
+ * @param root      the folder the configuration applies to (where {@code tare.yaml} stands)
+ * @param file      the configuration file, when there is one
+ * @param templates where templates live and how they are written
+ * @param targets   deployment targets, in file order
+ * @param budgets   token budgets
+ * @param baseline  the baseline file and growth tolerance
+ * @param rules     rule selection and severities
+ * @param hookFix   whether the pre-commit hook applies safe rewrites before checking
+ */
+public record TareConfig(Path root, Optional<Path> file, TemplatesConfig templates, List<TargetConfig> targets,
+                         Budgets budgets, BaselineConfig baseline, RulesConfig rules, boolean hookFix) {
+    public TareConfig {
+        targets = List.copyOf(targets);
+    }
+
+    /** The configuration of a repository without {@code tare.yaml}. */
+    public static TareConfig defaults(Path root) {
+        return new TareConfig(root, Optional.empty(), TemplatesConfig.defaults(), List.of(), Budgets.NONE,
+                BaselineConfig.DEFAULT, RulesConfig.DEFAULT, false);
+    }
+
+    /**
+     * The targets called {@code names}, in the order given; all targets when none are named.
+     *
+     * @throws TareException naming the configured targets when a name is unknown
+     */
+    public List<TargetConfig> selectTargets(List<String> names) {
+        if (names.isEmpty()) {
+            return targets;
+        }
+        return names.stream().map(this::target).toList();
+    }
+
+    /** The target called {@code name}. */
+    public TargetConfig target(String name) {
+        return targets.stream().filter(t -> t.name().equals(name)).findFirst()
+                .orElseThrow(() -> new TareException("unknown target '" + name + "'"
+                        + (targets.isEmpty() ? "; " + describeFile() + " configures no targets"
+                        : "; configured targets: " + targets.stream().map(TargetConfig::name).collect(Collectors.joining(", ")))));
+    }
+
+    private String describeFile() {
+        return file.map(Path::toString).orElse("there is no tare.yaml, so the repository");
+    }
+}

@@ -1,0 +1,20 @@
+package dev.tare.footprint;
+
+import dev.tare.config.TargetConfig;
+
+/** The tokens a target's chat format adds around a chat template's messages. */
+public final class Framing {
+    private Framing() {
+    }
+
+    /**
+     * Framing tokens for a call: {@code messages × message_overhead_tokens + reply_overhead_tokens}
+     * for a chat template, none for a text template (whose wrapping the application decides).
+     */
+    public static int tokens(TargetConfig target, boolean chat, int messages) {
+        if (!chat) {
+            return 0;
+        }
+        return messages * target.messageOverheadTokens() + target.replyOverheadTokens();
+    }
+}

@@ -1,0 +1,52 @@
+package dev.tare.report;
+
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.util.List;
+
+/** Renders whole-file token counts. */
+public final class CountReport {
+    private CountReport() {
+    }
+
+    /**
+     * One counted file.
+     *
+     * @param path   the path as given (or {@code -} for standard input), with {@code /}
+     * @param tokens tokens of the file's text
+     * @param chars  characters of the file's text
+     */
+    public record Entry(String path, int tokens, int chars) {
+    }
+
+    /** One line per file, then a total when there is more than one. */
+    public static String text(String tokenizer, List<Entry> entries) {
+        TextTable table = new TextTable(List.of("TOKENS", "CHARS", "PATH"), true, true, false);
+        long total = 0;
+        long chars = 0;
+        for (Entry entry : entries) {
+            table.row(List.of(TextTable.number(entry.tokens()), TextTable.number(entry.chars()), entry.path()));
+            total += entry.tokens();
+            chars += entry.chars();
+        }
+        if (entries.size() > 1) {
+            table.rule();
+            table.row(List.of(TextTable.number(total), TextTable.number(chars), "total"));
+        }
+        return "Tokens on " + tokenizer + "\n\n" + table.render();
+    }
+
+    /** The JSON document of the design contract. */
+    public static String json(String tokenizer, List<Entry> entries) {
+        ObjectNode root = Json.report();
+        root.put("tokenizer", tokenizer);
+        ArrayNode files = root.putArray("files");
+        long total = 0;
+        for (Entry entry : entries) {
+            files.addObject().put("path", entry.path()).put("tokens", entry.tokens()).put("chars", entry.chars());
+            total += entry.tokens();
+        }
+        root.putObject("total").put("tokens", total);
+        return Json.write(root);
+    }
+}

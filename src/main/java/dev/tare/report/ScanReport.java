@@ -1,0 +1,132 @@
+package dev.tare.report;
+
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.tare.footprint.Footprint;
+import dev.tare.scan.ScanResult;
+import dev.tare.scan.ScannedTemplate;
+import dev.tare.source.SkippedFile;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+
+/** Renders a {@link ScanResult} as a text table or as the JSON document of the design contract. */
+public final class ScanReport {
+    private static final int MAX_VARIABLES_SHOWN = 3;
+
+    private ScanReport() {
+    }
+
+    /** The table a person reads in a terminal. */
+    public static String text(ScanResult result, ScanResult.Order order) {
+        List<String> headers = new ArrayList<>(List.of("PATH", "KIND", "STATIC", "ESTIMATED"));
+        result.targets().forEach(name -> headers.add(name));
+        headers.add("VARIABLES");
+        boolean[] numeric = new boolean[headers.size()];
+        for (int c = 2; c < headers.size() - 1; c++) {
+            numeric[c] = true;
+        }
+        TextTable table = new TextTable(headers, numeric);
+        for (ScannedTemplate template : result.templatesIn(order)) {
+            List<String> row = new ArrayList<>(List.of(template.path(), template.kind().label(),
+                    TextTable.number(template.staticTokens()), TextTable.number(template.estimatedTokens())));
+            for (String target : result.targets()) {
+                Footprint footprint = template.targets().get(target);
+                row.add(footprint == null ? "-" : TextTable.number(footprint.inputTokens()));
+            }
+            row.add(variables(template.variables()));
+            table.row(row);
+        }
+        ScanResult.Totals totals = result.totals();
+        table.rule();
+        List<String> total = new ArrayList<>(List.of("total (" + totals.templates() + " templates)", "",
+                TextTable.number(totals.staticTokens()), TextTable.number(totals.estimatedTokens())));
+        result.targets().forEach(name -> total.add(TextTable.number(totals.inputTokensByTarget().get(name))));
+        total.add("");
+        table.row(total);
+
+        StringBuilder out = new StringBuilder();
+        out.append("Tare scan of ").append(result.root()).append(": tokens on ").append(result.tokenizer());
+        if (!result.targets().isEmpty()) {
+            out.append("; target columns are input tokens per call on each target's tokenizer");
+        }
+        out.append("\n\n").append(table.render()).append('\n');
+        out.append(notes(result, totals));
+        return out.toString();
+    }
+
+    private static String notes(ScanResult result, ScanResult.Totals totals) {
+        StringBuilder out = new StringBuilder();
+        out.append("Static: every variable empty. Estimated: variables filled with declared samples or sizes.\n");
+        if (totals.partials() > 0) {
+            out.append(totals.partials()).append(totals.partials() == 1 ? " partial is" : " partials are")
+                    .append(" listed but left out of the total; their tokens count inside each template that includes them.\n");
+        }
+        long unsized = result.templates().stream().filter(t -> !t.unsizedVariables().isEmpty()).count();
+        if (unsized > 0) {
+            out.append(unsized).append(unsized == 1 ? " template has" : " templates have")
+                    .append(" variables with neither a sample nor a token size; their estimates leave those out.\n");
+        }
+        if (!result.skipped().isEmpty()) {
+            out.append("\nSkipped ").append(result.skipped().size()).append(result.skipped().size() == 1 ? " file:\n" : " files:\n");
+            for (SkippedFile skipped : result.skipped()) {
+                out.append("  ").append(skipped.path()).append(": ").append(skipped.reason()).append('\n');
+            }
+        }
+        return out.toString();
+    }
+
+    private static String variables(List<String> names) {
+        if (names.size() <= MAX_VARIABLES_SHOWN) {
+            return String.join(", ", names);
+        }
+        return String.join(", ", names.subList(0, MAX_VARIABLES_SHOWN)) + " (+" + (names.size() - MAX_VARIABLES_SHOWN) + ")";
+    }
+
+    /** The JSON document of the design contract. */
+    public static String json(ScanResult result, ScanResult.Order order) {
+        ObjectNode root = Json.report();
+        root.put("root", result.root());
+        root.put("tokenizer", result.tokenizer());
+        root.putPOJO("targets_selected", result.targets());
+        ArrayNode templates = root.putArray("templates");
+        for (ScannedTemplate template : result.templatesIn(order)) {
+            ObjectNode node = templates.addObject();
+            node.put("path", template.path());
+            node.put("kind", template.kind().label());
+            node.put("chars", template.characters());
+            node.put("static_tokens", template.staticTokens());
+            node.put("estimated_tokens", template.estimatedTokens());
+            ArrayNode variables = node.putArray("variables");
+            template.variables().forEach(variables::add);
+            ArrayNode unsized = node.putArray("unsized_variables");
+            template.unsizedVariables().forEach(unsized::add);
+            ArrayNode includes = node.putArray("includes");
+            template.includes().forEach(includes::add);
+            ObjectNode targets = node.putObject("targets");
+            for (Map.Entry<String, Footprint> entry : template.targets().entrySet()) {
+                targets.set(entry.getKey(), footprint(entry.getValue()));
+            }
+        }
+        ScanResult.Totals totals = result.totals();
+        ObjectNode totalNode = root.putObject("totals");
+        totalNode.put("templates", totals.templates());
+        totalNode.put("partials", totals.partials());
+        totalNode.put("static_tokens", totals.staticTokens());
+        totalNode.put("estimated_tokens", totals.estimatedTokens());
+        ObjectNode byTarget = totalNode.putObject("targets");
+        totals.inputTokensByTarget().forEach((name, tokens) -> byTarget.putObject(name).put("input_tokens", tokens));
+        ArrayNode skipped = root.putArray("skipped");
+        for (SkippedFile file : result.skipped()) {
+            skipped.addObject().put("path", file.path()).put("reason", file.reason());
+        }
+        return Json.write(root);
+    }
+
+    static ObjectNode footprint(Footprint footprint) {
+        ObjectNode node = Json.MAPPER.createObjectNode();
+        node.put("input_tokens", footprint.inputTokens());
+        node.put("framing_tokens", footprint.framingTokens());
+        return node;
+    }
+}

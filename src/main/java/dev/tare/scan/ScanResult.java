@@ -1,0 +1,86 @@
+package dev.tare.scan;
+
+import dev.tare.source.SkippedFile;
+import java.util.Comparator;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * Everything a scan found, ready for a report.
+ *
+ * @param root      the scanned root, as the user named it
+ * @param tokenizer the primary tokenizer, which the top-level static and estimated counts use
+ * @param targets   the selected target names, in order
+ * @param templates every template measured, sorted by path
+ * @param skipped   every file found but not measured, with its reason, sorted by path
+ */
+public record ScanResult(String root, String tokenizer, List<String> targets, List<ScannedTemplate> templates,
+                         List<SkippedFile> skipped) {
+    public ScanResult {
+        targets = List.copyOf(targets);
+        templates = List.copyOf(templates);
+        skipped = List.copyOf(skipped);
+    }
+
+    /** How templates may be ordered in a report. */
+    public enum Order {
+        /** Most estimated tokens first. */
+        TOKENS,
+        /** Most input tokens on the first target first (the cost driver); by tokens without targets. */
+        COST,
+        /** By path. */
+        PATH
+    }
+
+    /** The templates in the given order; ties by path. */
+    public List<ScannedTemplate> templatesIn(Order order) {
+        Comparator<ScannedTemplate> byPath = Comparator.comparing(ScannedTemplate::path);
+        Comparator<ScannedTemplate> comparator = switch (order) {
+            case PATH -> byPath;
+            case TOKENS -> Comparator.comparingInt(ScannedTemplate::estimatedTokens).reversed().thenComparing(byPath);
+            case COST -> Comparator.comparingLong(this::costDriver).reversed().thenComparing(byPath);
+        };
+        return templates.stream().sorted(comparator).toList();
+    }
+
+    private long costDriver(ScannedTemplate template) {
+        if (targets.isEmpty()) {
+            return template.estimatedTokens();
+        }
+        var footprint = template.targets().get(targets.get(0));
+        return footprint == null ? 0 : footprint.inputTokens();
+    }
+
+    /** Sums over the templates that count toward totals (not partials). */
+    public Totals totals() {
+        int count = 0;
+        long staticTokens = 0;
+        long estimatedTokens = 0;
+        Map<String, Long> inputByTarget = new LinkedHashMap<>();
+        targets.forEach(name -> inputByTarget.put(name, 0L));
+        for (ScannedTemplate template : templates) {
+            if (!template.countsInTotals()) {
+                continue;
+            }
+            count++;
+            staticTokens += template.staticTokens();
+            estimatedTokens += template.estimatedTokens();
+            template.targets().forEach((name, footprint) -> inputByTarget.merge(name, (long) footprint.inputTokens(), Long::sum));
+        }
+        return new Totals(count, templates.size() - count, staticTokens, estimatedTokens, inputByTarget);
+    }
+
+    /**
+     * Repository totals.
+     *
+     * @param templates       templates counted (partials excluded)
+     * @param partials        partials found (their tokens are inside their includers' counts)
+     * @param staticTokens    sum of static tokens on the primary tokenizer
+     * @param estimatedTokens sum of estimated tokens on the primary tokenizer
+     * @param inputTokensByTarget sum of input tokens per target, over the templates on that target
+     */
+    public record Totals(int templates, int partials, long staticTokens, long estimatedTokens,
+                         Map<String, Long> inputTokensByTarget) {
+    }
+}

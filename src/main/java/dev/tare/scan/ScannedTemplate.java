@@ -1,0 +1,36 @@
+package dev.tare.scan;
+
+import dev.tare.footprint.Footprint;
+import dev.tare.template.TemplateKind;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * One template's measurements.
+ *
+ * @param path             path relative to the root, with {@code /}
+ * @param kind             text, chat or partial
+ * @param characters       characters of the file's text
+ * @param staticTokens     tokens with every variable empty, on the scan's primary tokenizer
+ * @param estimatedTokens  tokens with samples and declared sizes, on the primary tokenizer
+ * @param variables        distinct variable names in order of first use, includes' variables too
+ * @param unsizedVariables the variables with neither a sample nor a token size: the estimate leaves them out
+ * @param includes         the distinct templates pasted in, in order of first use
+ * @param targets          footprint per target name, for the targets this template runs on
+ */
+public record ScannedTemplate(String path, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
+                              List<String> variables, List<String> unsizedVariables, List<String> includes,
+                              Map<String, Footprint> targets) {
+    public ScannedTemplate {
+        variables = List.copyOf(variables);
+        unsizedVariables = List.copyOf(unsizedVariables);
+        includes = List.copyOf(includes);
+        targets = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(targets));
+    }
+
+    /** Whether this template counts toward totals (partials are counted inside their includers). */
+    public boolean countsInTotals() {
+        return kind != TemplateKind.PARTIAL;
+    }
+}

@@ -1,0 +1,125 @@
+package dev.tare.source;
+
+import dev.tare.TareException;
+import java.io.IOException;
+import java.io.InputStream;
+import java.nio.ByteBuffer;
+import java.nio.charset.CharsetDecoder;
+import java.nio.charset.CoderResult;
+import java.nio.charset.CodingErrorAction;
+import java.nio.charset.StandardCharsets;
+import java.nio.CharBuffer;
+import java.nio.file.Files;
+import java.nio.file.Path;
+
+/**
+ * The one way Tare reads a template file: UTF-8 only, a leading byte-order mark stripped and
+ * remembered, and anything that is not a UTF-8 text file of a sane size refused with a reason.
+ */
+public final class SafeReader {
+    /** The default largest file read, in bytes (2 MiB); larger files are skipped. */
+    public static final long DEFAULT_MAX_BYTES = 2L * 1024 * 1024;
+
+    private final long maxBytes;
+
+    public SafeReader(long maxBytes) {
+        if (maxBytes <= 0) {
+            throw new IllegalArgumentException("maxBytes must be positive: " + maxBytes);
+        }
+        this.maxBytes = maxBytes;
+    }
+
+    /**
+     * Reads {@code file}, shown to users as {@code path}.
+     *
+     * @throws TareException with the reason the file cannot be used (not prefixed with its path)
+     */
+    public SourceText read(String path, Path file) {
+        byte[] bytes = readBounded(file);
+        return decode(path, file, bytes);
+    }
+
+    /**
+     * Decodes bytes that came from somewhere other than the file system (standard input, the git
+     * index) under the same rules as {@link #read}.
+     */
+    public SourceText decode(String path, Path file, byte[] bytes) {
+        if (bytes.length > maxBytes) {
+            throw new TareException(tooLarge(bytes.length));
+        }
+        String bomProblem = foreignByteOrderMark(bytes);
+        if (bomProblem != null) {
+            throw new TareException(bomProblem + "; save the file as UTF-8");
+        }
+        boolean bom = bytes.length >= 3 && (bytes[0] & 0xFF) == 0xEF && (bytes[1] & 0xFF) == 0xBB && (bytes[2] & 0xFF) == 0xBF;
+        int start = bom ? 3 : 0;
+        for (int i = start; i < bytes.length; i++) {
+            if (bytes[i] == 0) {
+                throw new TareException("binary file (NUL byte at offset " + i + ")");
+            }
+        }
+        return new SourceText(path, file, decodeUtf8(bytes, start), bom, bytes.length);
+    }
+
+    private byte[] readBounded(Path file) {
+        try (InputStream in = Files.newInputStream(file)) {
+            byte[] bytes = in.readNBytes((int) Math.min(Integer.MAX_VALUE - 8, maxBytes + 1));
+            if (bytes.length > maxBytes) {
+                throw new TareException(tooLarge(Files.size(file)));
+            }
+            return bytes;
+        } catch (IOException e) {
+            throw new TareException("cannot be read (" + e.getClass().getSimpleName() + ": " + e.getMessage() + ")", e);
+        }
+    }
+
+    private String tooLarge(long size) {
+        return "larger than the size limit (" + size + " bytes > " + maxBytes
+                + "); raise templates.max_file_bytes in tare.yaml or exclude the file";
+    }
+
+    private static String foreignByteOrderMark(byte[] b) {
+        if (b.length >= 4 && (b[0] & 0xFF) == 0xFF && (b[1] & 0xFF) == 0xFE && b[2] == 0 && b[3] == 0) {
+            return "UTF-32 encoded (byte-order mark FF FE 00 00)";
+        }
+        if (b.length >= 4 && b[0] == 0 && b[1] == 0 && (b[2] & 0xFF) == 0xFE && (b[3] & 0xFF) == 0xFF) {
+            return "UTF-32 encoded (byte-order mark 00 00 FE FF)";
+        }
+        if (b.length >= 2 && (b[0] & 0xFF) == 0xFF && (b[1] & 0xFF) == 0xFE) {
+            return "UTF-16 encoded (byte-order mark FF FE)";
+        }
+        if (b.length >= 2 && (b[0] & 0xFF) == 0xFE && (b[1] & 0xFF) == 0xFF) {
+            return "UTF-16 encoded (byte-order mark FE FF)";
+        }
+        return null;
+    }
+
+    private static String decodeUtf8(byte[] bytes, int start) {
+        CharsetDecoder decoder = StandardCharsets.UTF_8.newDecoder()
+                .onMalformedInput(CodingErrorAction.REPORT)
+                .onUnmappableCharacter(CodingErrorAction.REPORT);
+        ByteBuffer in = ByteBuffer.wrap(bytes, start, bytes.length - start);
+        CharBuffer out = CharBuffer.allocate(bytes.length - start);
+        CoderResult result = decoder.decode(in, out, true);
+        if (result.isError()) {
+            throw new TareException(invalidUtf8(bytes, in.position()));
+        }
+        result = decoder.flush(out);
+        if (result.isError()) {
+            throw new TareException(invalidUtf8(bytes, in.position()));
+        }
+        out.flip();
+        return out.toString();
+    }
+
+    private static String invalidUtf8(byte[] bytes, int offset) {
+        int line = 1;
+        for (int i = 0; i < offset && i < bytes.length; i++) {
+            if (bytes[i] == '\n') {
+                line++;
+            }
+        }
+        return "not valid UTF-8 (bad byte sequence at offset " + offset + ", line " + line
+                + "); save the file as UTF-8";
+    }
+}

@@ -1,0 +1,59 @@
+package dev.tare.template;
+
+import java.util.Arrays;
+
+/**
+ * Line starts of a text, for turning offsets into 1-based lines and columns. A line ends at
+ * {@code \n}; a {@code \r} before it belongs to the line, and a lone {@code \r} also ends one.
+ */
+final class LineIndex implements Locator {
+    private final int[] starts;
+    private final int lineBase;
+    private final int firstColumnBase;
+
+    private LineIndex(int[] starts, int lineBase, int firstColumnBase) {
+        this.starts = starts;
+        this.lineBase = lineBase;
+        this.firstColumnBase = firstColumnBase;
+    }
+
+    /** An index of {@code text} where offset 0 is line 1, column 1. */
+    static LineIndex of(String text) {
+        return of(text, 1, 1);
+    }
+
+    /** An index of {@code text} whose first character stands at {@code line}, {@code column} of a file. */
+    static LineIndex of(String text, int line, int column) {
+        int[] starts = new int[16];
+        int count = 0;
+        starts[count++] = 0;
+        for (int i = 0; i < text.length(); i++) {
+            char c = text.charAt(i);
+            boolean ends = c == '\n' || (c == '\r' && (i + 1 == text.length() || text.charAt(i + 1) != '\n'));
+            if (ends) {
+                if (count == starts.length) {
+                    starts = Arrays.copyOf(starts, count * 2);
+                }
+                starts[count++] = i + 1;
+            }
+        }
+        return new LineIndex(Arrays.copyOf(starts, count), line, column);
+    }
+
+    private int lineIndex(int offset) {
+        int found = Arrays.binarySearch(starts, offset);
+        return found >= 0 ? found : -found - 2;
+    }
+
+    @Override
+    public int line(int offset) {
+        return lineBase + lineIndex(offset);
+    }
+
+    @Override
+    public int column(int offset) {
+        int index = lineIndex(offset);
+        int column = offset - starts[index] + 1;
+        return index == 0 ? column + firstColumnBase - 1 : column;
+    }
+}

@@ -1,0 +1,20 @@
+package dev.tare.template;
+
+import java.util.List;
+
+/**
+ * One message of a template: for a chat file, one entry of {@code messages}; for a text template,
+ * the whole body after front matter, with role {@value #TEXT_ROLE}.
+ *
+ * @param role     the chat role ({@code system}, {@code user}, ...) or {@value #TEXT_ROLE}
+ * @param content  the text the segments were parsed from
+ * @param segments the parsed segments, in order, covering all of {@code content}
+ */
+public record Message(String role, String content, List<Segment> segments) {
+    /** The role of a text template's single message. */
+    public static final String TEXT_ROLE = "text";
+
+    public Message {
+        segments = List.copyOf(segments);
+    }
+}

@@ -1,0 +1,99 @@
+package dev.tare.template;
+
+import dev.tare.TareException;
+import java.util.ArrayDeque;
+import java.util.ArrayList;
+import java.util.Deque;
+import java.util.List;
+import java.util.Optional;
+import java.util.stream.Collectors;
+
+/**
+ * Renders templates as Tare measures them: tags render to nothing, includes are pasted in
+ * (refusing cycles and runaway depth), and each variable becomes either nothing ({@link #renderStatic})
+ * or its declared sample ({@link #renderWithSamples}).
+ */
+public final class Renderer {
+    /** Includes nested deeper than this are refused as runaway. */
+    public static final int MAX_INCLUDE_DEPTH = 32;
+
+    private final IncludeResolver includes;
+
+    public Renderer(IncludeResolver includes) {
+        this.includes = includes;
+    }
+
+    /** The template with every variable empty: what the template itself costs. */
+    public Rendering renderStatic(Template template) {
+        return render(template, false);
+    }
+
+    /** The template with each variable replaced by its declared sample, or empty when it has none. */
+    public Rendering renderWithSamples(Template template) {
+        return render(template, true);
+    }
+
+    private Rendering render(Template template, boolean samples) {
+        List<String> texts = new ArrayList<>();
+        List<Rendering.Occurrence> variables = new ArrayList<>();
+        List<String> included = new ArrayList<>();
+        Deque<String> stack = new ArrayDeque<>();
+        stack.push(template.path());
+        for (Message message : template.messages()) {
+            StringBuilder out = new StringBuilder(message.content().length());
+            append(template, template, message.segments(), samples, out, variables, included, stack);
+            texts.add(out.toString());
+        }
+        return new Rendering(texts, variables, included);
+    }
+
+    private void append(Template root, Template owner, List<Segment> segments, boolean samples, StringBuilder out,
+                        List<Rendering.Occurrence> variables, List<String> included, Deque<String> stack) {
+        for (Segment segment : segments) {
+            if (segment instanceof Segment.Text text) {
+                out.append(text.text());
+            } else if (segment instanceof Segment.Variable variable) {
+                Optional<VariableSpec> spec = root.meta().variable(variable).or(() -> owner.meta().variable(variable));
+                variables.add(new Rendering.Occurrence(variable, owner.path(), spec));
+                if (samples) {
+                    spec.flatMap(VariableSpec::sample).ifPresent(out::append);
+                }
+            } else if (segment instanceof Segment.Include include) {
+                Template partial;
+                try {
+                    partial = includes.resolve(include, owner);
+                } catch (TareException e) {
+                    throw within(owner, root, e);
+                }
+                if (stack.contains(partial.path())) {
+                    throw new TareException("include cycle: " + chain(stack, partial.path())
+                            + " (line " + include.span().line() + " of " + owner.path() + ")");
+                }
+                if (stack.size() > MAX_INCLUDE_DEPTH) {
+                    throw new TareException("includes nested deeper than " + MAX_INCLUDE_DEPTH + " levels at line "
+                            + include.span().line() + " of " + owner.path());
+                }
+                included.add(partial.path());
+                stack.push(partial.path());
+                for (Message message : partial.messages()) {
+                    append(root, partial, message.segments(), samples, out, variables, included, stack);
+                }
+                stack.pop();
+            }
+        }
+    }
+
+    private static TareException within(Template owner, Template root, TareException e) {
+        if (owner == root) {
+            return e;
+        }
+        return new TareException(owner.path() + ", " + e.getMessage(), e);
+    }
+
+    private static String chain(Deque<String> stack, String repeated) {
+        List<String> order = new ArrayList<>(stack);
+        java.util.Collections.reverse(order);
+        order.add(repeated);
+        return order.stream().collect(Collectors.joining(" -> "));
+    }
+}

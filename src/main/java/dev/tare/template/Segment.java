@@ -1,0 +1,38 @@
+package dev.tare.template;
+
+/**
+ * One piece of a template: literal text, a variable, an include of another template, or a tag
+ * (control flow, comments and anything else that renders to no text of its own).
+ */
+public sealed interface Segment {
+
+    /** Where this segment stands in its source. */
+    Span span();
+
+    /**
+     * Literal text. {@code text} is what it renders to, which differs from the source for escaped
+     * braces ({@code {{} renders as {@code {} in single-brace templates).
+     */
+    record Text(String text, Span span) implements Segment {
+    }
+
+    /**
+     * A placeholder filled in per call. {@code name} is its dotted path ({@code account.id}); the
+     * source is the placeholder as written.
+     */
+    record Variable(String name, String source, Span span) implements Segment {
+        /** The first part of the dotted name: what a front matter declaration usually names. */
+        public String rootName() {
+            int dot = name.indexOf('.');
+            return dot < 0 ? name : name.substring(0, dot);
+        }
+    }
+
+    /** A reference to another template pasted in when rendering. */
+    record Include(String name, String source, Span span) implements Segment {
+    }
+
+    /** Control flow, a comment, or an expression with no variable: renders to nothing here. */
+    record Tag(String source, Span span) implements Segment {
+    }
+}

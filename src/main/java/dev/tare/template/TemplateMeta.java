@@ -1,0 +1,35 @@
+package dev.tare.template;
+
+import java.util.LinkedHashMap;
+import java.util.Map;
+import java.util.Optional;
+import java.util.OptionalInt;
+
+/**
+ * What a template says about itself in front matter (text templates) or beside its messages (chat
+ * files). Unknown keys are left to their owners and ignored here.
+ *
+ * @param target       the name of the target it runs on, when it names one
+ * @param budget       its token budget, overriding the configured ones
+ * @param outputTokens the output tokens expected per call, overriding the target's
+ * @param variables    declared variables in declaration order
+ */
+public record TemplateMeta(Optional<String> target, OptionalInt budget, OptionalInt outputTokens,
+                           Map<String, VariableSpec> variables) {
+    /** The meta of a template that declares nothing. */
+    public static final TemplateMeta EMPTY =
+            new TemplateMeta(Optional.empty(), OptionalInt.empty(), OptionalInt.empty(), Map.of());
+
+    public TemplateMeta {
+        variables = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(variables));
+    }
+
+    /** The declaration for a variable, by its full dotted name or else by its first part. */
+    public Optional<VariableSpec> variable(Segment.Variable variable) {
+        VariableSpec spec = variables.get(variable.name());
+        if (spec == null) {
+            spec = variables.get(variable.rootName());
+        }
+        return Optional.ofNullable(spec);
+    }
+}

@@ -1,0 +1,18 @@
+package dev.tare.tokenize;
+
+/**
+ * Turns text into the token ids a model sees. Implementations are thread-safe and treat
+ * special-token strings such as {@code <|endoftext|>} as ordinary text: a template that mentions one
+ * is counted, never rejected.
+ */
+public interface Tokenizer {
+
+    /** The name this tokenizer was asked for by: a built-in encoding name or a file path. */
+    String name();
+
+    /** The number of tokens in {@code text}; the same as {@code encode(text).length}, often faster. */
+    int count(String text);
+
+    /** The token ids of {@code text}, in order. */
+    int[] encode(String text);
+}

@@ -1,0 +1,61 @@
+package dev.tare.tokenize;
+
+import com.knuddels.jtokkit.Encodings;
+import com.knuddels.jtokkit.api.EncodingRegistry;
+import com.knuddels.jtokkit.api.EncodingType;
+import dev.tare.TareException;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.concurrent.ConcurrentHashMap;
+
+/**
+ * The one place tokenizers come from. A tokenizer is named either by a built-in encoding name
+ * ({@link #BUILT_IN}) or by the path of a {@code tokenizer.json} file; each is loaded once, on first
+ * use, and shared by every thread afterwards.
+ */
+public final class TokenizerRegistry {
+    /** The encoding used when neither a target nor {@code --tokenizer} names one. */
+    public static final String DEFAULT = "o200k_base";
+    /** Built-in encoding names, in the order they are listed to users. */
+    public static final List<String> BUILT_IN = List.of("o200k_base", "cl100k_base", "p50k_base", "r50k_base");
+
+    private static final Map<String, EncodingType> TYPES = Map.of(
+            "o200k_base", EncodingType.O200K_BASE,
+            "cl100k_base", EncodingType.CL100K_BASE,
+            "p50k_base", EncodingType.P50K_BASE,
+            "r50k_base", EncodingType.R50K_BASE);
+
+    private final EncodingRegistry encodings = Encodings.newLazyEncodingRegistry();
+    private final Map<String, Tokenizer> loaded = new ConcurrentHashMap<>();
+
+    /**
+     * The tokenizer for {@code spec}: a built-in name, or a path to a {@code tokenizer.json} file,
+     * resolved against {@code baseDir} when relative.
+     *
+     * @throws TareException when the name is unknown or the file cannot be used
+     */
+    public Tokenizer get(String spec, Path baseDir) {
+        Optional<EncodingType> type = Optional.ofNullable(TYPES.get(spec));
+        if (type.isPresent()) {
+            return loaded.computeIfAbsent(spec, name -> new BuiltInEncoding(encodings.getEncoding(type.get())));
+        }
+        if (!looksLikePath(spec)) {
+            throw new TareException("unknown tokenizer '" + spec + "': use one of " + String.join(", ", BUILT_IN)
+                    + ", or the path of a tokenizer.json file");
+        }
+        Path file = baseDir.resolve(spec).normalize();
+        throw new TareException("tokenizer file " + file + ": tokenizer.json files are not supported by this build;"
+                + " use one of " + String.join(", ", BUILT_IN));
+    }
+
+    /** The built-in default tokenizer. */
+    public Tokenizer defaultTokenizer() {
+        return get(DEFAULT, Path.of("."));
+    }
+
+    private static boolean looksLikePath(String spec) {
+        return spec.contains("/") || spec.contains("\\") || spec.endsWith(".json");
+    }
+}
