@@ -6,16 +6,10 @@ import dev.tare.config.TargetConfig;
 import dev.tare.footprint.Footprint;
 import dev.tare.footprint.Framing;
 import dev.tare.source.FileSelection;
-import dev.tare.source.Glob;
-import dev.tare.source.SafeReader;
 import dev.tare.source.SkippedFile;
 import dev.tare.source.SourceText;
-import dev.tare.source.TemplateFinder;
-import dev.tare.template.PartialDirectory;
-import dev.tare.template.Renderer;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
-import dev.tare.template.TemplateParser;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.util.ArrayList;
@@ -54,14 +48,9 @@ public final class TemplateScan {
             byTarget.put(target.name(), tokenizers.get(target.tokenizer(), workspace.root()));
         }
 
-        TemplateFinder finder = new TemplateFinder(workspace.root(), Glob.all(config.templates().include()),
-                Glob.all(config.templates().exclude()));
-        FileSelection selection = finder.find(workspace.starts());
-        SafeReader reader = new SafeReader(config.templates().maxFileBytes());
-        TemplateParser parser = new TemplateParser(config.templates().placeholder());
-        PartialCache partials = new PartialCache(workspace.root(), config.templates(), reader, parser);
-        Renderer renderer = new Renderer(new PartialDirectory(config.templates().partials(), partials::load));
-        Measurer measurer = new Measurer(config, targets, primary, byTarget, reader, parser, renderer);
+        TemplateLoader loader = new TemplateLoader(workspace);
+        FileSelection selection = loader.find();
+        Measurer measurer = new Measurer(config, targets, primary, byTarget, loader);
 
         List<Outcome> outcomes = selection.paths().parallelStream().map(measurer::measure).toList();
         List<ScannedTemplate> templates = new ArrayList<>();
@@ -88,22 +77,20 @@ public final class TemplateScan {
 
     /** The per-file work, shared read-only by the scanning threads. */
     private record Measurer(TareConfig config, List<TargetConfig> targets, Tokenizer primary,
-                            Map<String, Tokenizer> byTarget, SafeReader reader, TemplateParser parser,
-                            Renderer renderer) {
+                            Map<String, Tokenizer> byTarget, TemplateLoader loader) {
 
         Outcome measure(String path) {
             try {
-                SourceText text = reader.read(path, config.root().resolve(path));
-                Template template = parser.parse(text, config.templates().isPartial(path));
-                return Outcome.of(measure(template, text.text().length()));
+                SourceText text = loader.read(path);
+                return Outcome.of(measure(loader.parse(text), text.text().length()));
             } catch (TareException e) {
                 return Outcome.of(new SkippedFile(path, e.getMessage()));
             }
         }
 
         private ScannedTemplate measure(Template template, int characters) {
-            Rendering empty = renderer.renderStatic(template);
-            Rendering samples = renderer.renderWithSamples(template);
+            Rendering empty = loader.renderer().renderStatic(template);
+            Rendering samples = loader.renderer().renderWithSamples(template);
             int declared = declaredTokens(samples);
             Map<String, Footprint> footprints = new LinkedHashMap<>();
             for (TargetConfig target : targetsOf(template)) {

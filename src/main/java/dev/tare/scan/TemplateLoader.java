@@ -1,0 +1,71 @@
+package dev.tare.scan;
+
+import dev.tare.TareException;
+import dev.tare.config.TareConfig;
+import dev.tare.source.FileSelection;
+import dev.tare.source.Glob;
+import dev.tare.source.SafeReader;
+import dev.tare.source.SourceText;
+import dev.tare.source.TemplateFinder;
+import dev.tare.template.PartialDirectory;
+import dev.tare.template.Renderer;
+import dev.tare.template.Template;
+import dev.tare.template.TemplateParser;
+
+/**
+ * The one pipeline from a workspace to parsed templates, shared by every command that reads
+ * templates: find the files, read each safely, parse it with the configured syntax, and render it
+ * with includes resolved in the partials folder (each partial parsed once per loader). Thread-safe.
+ */
+public final class TemplateLoader {
+    private final Workspace workspace;
+    private final SafeReader reader;
+    private final TemplateParser parser;
+    private final Renderer renderer;
+
+    public TemplateLoader(Workspace workspace) {
+        this.workspace = workspace;
+        TareConfig config = workspace.config();
+        this.reader = new SafeReader(config.templates().maxFileBytes());
+        this.parser = new TemplateParser(config.templates().placeholder());
+        PartialCache partials = new PartialCache(workspace.root(), config.templates(), reader, parser);
+        this.renderer = new Renderer(new PartialDirectory(config.templates().partials(), partials::load));
+    }
+
+    /** The template files the workspace's configuration selects, and the links it would not follow. */
+    public FileSelection find() {
+        TareConfig config = workspace.config();
+        TemplateFinder finder = new TemplateFinder(workspace.root(), Glob.all(config.templates().include()),
+                Glob.all(config.templates().exclude()));
+        return finder.find(workspace.starts());
+    }
+
+    /** Reads the file at a root-relative path, as the loader would before parsing it. */
+    public SourceText read(String path) {
+        return reader.read(path, workspace.root().resolve(path));
+    }
+
+    /**
+     * Reads and parses the template at a root-relative path.
+     *
+     * @throws TareException with the reason (not prefixed with the path) when it cannot be used
+     */
+    public Template load(String path) {
+        return parse(read(path));
+    }
+
+    /** Parses already-read text (for example the staged version of a file). */
+    public Template parse(SourceText text) {
+        return parser.parse(text, workspace.config().templates().isPartial(text.path()));
+    }
+
+    /** The renderer that resolves this workspace's includes. */
+    public Renderer renderer() {
+        return renderer;
+    }
+
+    /** The workspace this loader reads. */
+    public Workspace workspace() {
+        return workspace;
+    }
+}
