@@ -46,7 +46,7 @@ public final class ConfigLoader {
     public static TareConfig load(Path file) {
         Path absolute = file.toAbsolutePath().normalize();
         if (!Files.isRegularFile(absolute)) {
-            throw new TareException(file + ": no such configuration file; check --config, or run 'tare init' to write one");
+            throw new TareException(file + ": no such configuration file; check --config, or run 'tare init' to write a starter file");
         }
         SourceText text;
         try {

@@ -26,7 +26,7 @@ public record Workspace(Path root, TareConfig config, List<Path> starts) {
      * Opens the workspace for {@code paths} (the current folder when empty). With {@code --config}
      * the root is that file's folder. Otherwise the root is the nearest folder at or above the first
      * path holding {@code tare.yaml}, looking no higher than the git work tree's top; failing that,
-     * the first path itself (or its folder, for a file).
+     * the git work tree's top, or outside git the first path itself (or its folder, for a file).
      */
     public static Workspace open(List<Path> paths, Optional<Path> configFile) {
         List<Path> absolute = new ArrayList<>();
@@ -44,7 +44,8 @@ public record Workspace(Path root, TareConfig config, List<Path> starts) {
             config = ConfigLoader.load(configFile.get());
         } else {
             Optional<Path> found = findUpwards(firstFolder);
-            config = found.map(ConfigLoader::load).orElseGet(() -> TareConfig.defaults(firstFolder));
+            config = found.map(ConfigLoader::load)
+                    .orElseGet(() -> TareConfig.defaults(gitTop(firstFolder).orElse(firstFolder)));
         }
         Path root = config.root();
         List<Path> starts = new ArrayList<>();
@@ -56,6 +57,15 @@ public record Workspace(Path root, TareConfig config, List<Path> starts) {
             starts.add(path);
         }
         return new Workspace(root, config, starts.contains(root) ? List.of() : starts);
+    }
+
+    private static Optional<Path> gitTop(Path folder) {
+        for (Path dir = folder; dir != null; dir = dir.getParent()) {
+            if (Files.exists(dir.resolve(".git"))) {
+                return Optional.of(dir);
+            }
+        }
+        return Optional.empty();
     }
 
     private static Optional<Path> findUpwards(Path folder) {

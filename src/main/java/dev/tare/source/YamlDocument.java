@@ -169,6 +169,7 @@ public final class YamlDocument {
         options.setCodePointLimit(8 * 1024 * 1024);
         return YAMLFactory.builder()
                 .loaderOptions(options)
+                .enable(YAMLParser.Feature.EMPTY_STRING_AS_NULL)
                 .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
                 .build();
     }

@@ -1,0 +1,60 @@
+package dev.tare.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.TimeUnit;
+import org.junit.jupiter.api.Test;
+
+/** The real {@code ./tare} launcher and packaged jar, as a newcomer runs them (after {@code mvn package}). */
+class LauncherIT {
+    private record Result(int exitCode, String out, String err) {
+    }
+
+    private static Result launch(String... args) throws IOException, InterruptedException {
+        List<String> command = new ArrayList<>(List.of("bash", "./tare"));
+        command.addAll(List.of(args));
+        Path dir = Cli.projectDir();
+        Process process = new ProcessBuilder(command).directory(dir.toFile()).start();
+        process.getOutputStream().close();
+        byte[] out = process.getInputStream().readAllBytes();
+        byte[] err = process.getErrorStream().readAllBytes();
+        assertTrue(process.waitFor(5, TimeUnit.MINUTES), "the launcher finished");
+        return new Result(process.exitValue(), new String(out, StandardCharsets.UTF_8), new String(err, StandardCharsets.UTF_8));
+    }
+
+    @Test
+    void scansTheDemoLikeTheInProcessCommand() throws Exception {
+        Result launched = launch("scan", "corpora/demo", "--format", "json");
+        assertEquals(0, launched.exitCode(), launched.err());
+        assertFalse(launched.err().contains("building"), "a fresh jar is not rebuilt: " + launched.err());
+        JsonNode viaLauncher = new ObjectMapper().readTree(launched.out());
+        JsonNode inProcess = new ObjectMapper().readTree(
+                Cli.run("scan", Cli.projectDir().resolve("corpora/demo").toString(), "--format", "json").out());
+        assertEquals(inProcess.get("templates"), viaLauncher.get("templates"));
+        assertEquals(inProcess.get("totals"), viaLauncher.get("totals"));
+    }
+
+    @Test
+    void usageErrorsExitTwoThroughTheRealProcess() throws Exception {
+        Result launched = launch("scan", "--no-such-flag");
+        assertEquals(2, launched.exitCode());
+        assertTrue(launched.err().startsWith("tare: Unknown option: '--no-such-flag'"), launched.err());
+        assertEquals("", launched.out());
+    }
+
+    @Test
+    void printsUnicodeAsUtf8WhateverTheLocale() throws Exception {
+        Result launched = launch("scan", "corpora/hostile/weird-names");
+        assertEquals(0, launched.exitCode(), launched.err());
+        assertTrue(launched.out().contains("café prompt.md"), launched.out());
+    }
+}

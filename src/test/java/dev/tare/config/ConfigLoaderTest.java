@@ -1,0 +1,116 @@
+package dev.tare.config;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.tare.TareException;
+import dev.tare.template.PlaceholderSyntax;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.OptionalInt;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+class ConfigLoaderTest {
+    @TempDir
+    Path dir;
+
+    private TareConfig load(String yaml) throws IOException {
+        return ConfigLoader.load(Files.writeString(dir.resolve("tare.yaml"), yaml));
+    }
+
+    private String problem(String yaml) throws IOException {
+        Path file = Files.writeString(dir.resolve("tare.yaml"), yaml);
+        return assertThrows(TareException.class, () -> ConfigLoader.load(file)).getMessage();
+    }
+
+    @Test
+    void readsEverySection() throws IOException {
+        TareConfig config = load("""
+                templates:
+                  include: ["prompts/**/*.md"]
+                  exclude: ["**/drafts/**"]
+                  placeholder: single-brace
+                  partials: prompts/partials/
+                  max_file_bytes: 4096
+                targets:
+                  - name: hosted
+                    tokenizer: o200k_base
+                    price: {input: 2.0, cached_input: 0.5, output: 8.0}
+                    prefix_cache_min_tokens: 1024
+                    message_overhead_tokens: 4
+                    reply_overhead_tokens: 3
+                    calls_per_day: 20000
+                    output_tokens: 300
+                budgets: {default: 2000, "prompts/agents/**": 6000}
+                baseline: {file: base.json, tolerance_percent: 2.5}
+                rules: {disable: [a], severity: {b: warning}, packs: [rules, more]}
+                hook: {fix: true}
+                """);
+        assertEquals(PlaceholderSyntax.SINGLE_BRACE, config.templates().placeholder());
+        assertEquals("prompts/partials", config.templates().partials());
+        assertEquals(4096, config.templates().maxFileBytes());
+        TargetConfig hosted = config.target("hosted");
+        assertEquals(4, hosted.messageOverheadTokens());
+        assertEquals(0.5, hosted.price().orElseThrow().cachedInputPerMillion().getAsDouble());
+        assertEquals("USD", hosted.price().orElseThrow().currency());
+        assertEquals(OptionalInt.of(6000), config.budgets().budgetFor("prompts/agents/x/y.md"));
+        assertEquals(OptionalInt.of(2000), config.budgets().budgetFor("prompts/a.md"));
+        assertEquals(2.5, config.baseline().tolerancePercent());
+        assertEquals(List.of("rules", "more"), config.rules().packs());
+        assertTrue(config.hookFix());
+        assertEquals(dir.toAbsolutePath().normalize(), config.root());
+    }
+
+    @Test
+    void anEmptyFileMeansDefaults() throws IOException {
+        TareConfig config = load("# nothing yet\n");
+        assertEquals(TemplatesConfig.DEFAULT_INCLUDE, config.templates().include());
+        assertEquals(List.of(), config.targets());
+    }
+
+    @Test
+    void unknownKeysNameTheLineAndTheNearestKnownKey() throws IOException {
+        assertEquals("tare.yaml, line 2: templates.placholder: unknown key; did you mean 'placeholder'?",
+                problem("templates:\n  placholder: none\n").replace(dir.resolve("tare.yaml").toString(), "tare.yaml"));
+        assertTrue(problem("colours: 3\n").contains("known keys here: baseline, budgets, hook, rules, targets, templates"));
+    }
+
+    @Test
+    void badValuesNameTheKeyAndWhatIsAccepted() throws IOException {
+        assertTrue(problem("templates: {placeholder: curly}\n").contains("templates.placeholder: unknown placeholder syntax 'curly'"));
+        assertTrue(problem("templates: {include: [\"a[b\"]}\n").contains("templates.include[0]"));
+        assertTrue(problem("targets:\n  - name: a\n").contains("target 'a' names no tokenizer"));
+        assertTrue(problem("targets:\n  - {name: a, tokenizer: x}\n  - {name: a, tokenizer: y}\n")
+                .contains("line 3: targets[1].name: target 'a' is configured twice"));
+        assertTrue(problem("targets:\n  - {name: a, tokenizer: x, price: {input: -1, output: 1}}\n")
+                .contains("targets[0].price.input: must be a number of at least 0"));
+        assertTrue(problem("budgets: {default: many}\n").contains("budgets.default: must be a whole number"));
+        assertTrue(problem("templates: {partials: ../elsewhere}\n").contains("must be a folder inside the repository"));
+        assertTrue(problem("hook: {fix: maybe}\n").contains("hook.fix: must be true or false"));
+    }
+
+    @Test
+    void brokenYamlIsOneLineNamingTheFile() throws IOException {
+        String message = problem("templates:\n  include: [\"a\"\n");
+        assertTrue(message.startsWith(dir.resolve("tare.yaml").toString() + ", line "), message);
+        assertTrue(message.endsWith("fix the YAML syntax"), message);
+        assertTrue(problem("a: 1\na: 2\n").contains("Duplicate"), "duplicate keys refused");
+    }
+
+    @Test
+    void unknownTargetsListTheConfiguredOnes() throws IOException {
+        TareConfig config = load("targets:\n  - {name: a, tokenizer: o200k_base}\n  - {name: b, tokenizer: cl100k_base}\n");
+        TareException e = assertThrows(TareException.class, () -> config.selectTargets(List.of("c")));
+        assertEquals("unknown target 'c'; configured targets: a, b", e.getMessage());
+    }
+
+    @Test
+    void aMissingFileSaysHowToMakeOne() {
+        TareException e = assertThrows(TareException.class, () -> ConfigLoader.load(dir.resolve("nope.yaml")));
+        assertTrue(e.getMessage().contains("tare init"), e.getMessage());
+    }
+}
