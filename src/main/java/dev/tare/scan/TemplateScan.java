@@ -60,7 +60,7 @@ public final class TemplateScan {
             outcome.skipped().ifPresent(skipped::add);
         }
         skipped.sort(null);
-        return new ScanResult(workspace.root().toString(), primary.name(),
+        return new ScanResult(workspace.displayName(), primary.name(),
                 targets.stream().map(TargetConfig::name).toList(), templates, skipped);
     }
 

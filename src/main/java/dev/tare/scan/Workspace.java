@@ -59,6 +59,15 @@ public record Workspace(Path root, TareConfig config, List<Path> starts) {
         return new Workspace(root, config, starts.contains(root) ? List.of() : starts);
     }
 
+    /** The root as a person would name it: relative to the current folder when inside it. */
+    public String displayName() {
+        Path here = Path.of("").toAbsolutePath().normalize();
+        if (root.equals(here)) {
+            return ".";
+        }
+        return root.startsWith(here) ? here.relativize(root).toString().replace('\\', '/') : root.toString();
+    }
+
     private static Optional<Path> gitTop(Path folder) {
         for (Path dir = folder; dir != null; dir = dir.getParent()) {
             if (Files.exists(dir.resolve(".git"))) {
