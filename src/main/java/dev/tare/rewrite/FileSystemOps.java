@@ -1,0 +1,64 @@
+package dev.tare.rewrite;
+
+import java.io.IOException;
+import java.nio.channels.FileChannel;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.nio.file.StandardOpenOption;
+import java.nio.file.attribute.PosixFileAttributeView;
+import java.nio.file.attribute.PosixFilePermission;
+import java.util.Optional;
+import java.util.Set;
+
+/**
+ * The file-system steps a crash-safe write is made of, behind one seam so that tests can make any
+ * step fail. {@link #DEFAULT} is the real file system.
+ */
+public interface FileSystemOps {
+    /** The real file system. */
+    FileSystemOps DEFAULT = new FileSystemOps() {
+    };
+
+    /** Reads a file whole. */
+    default byte[] read(Path file) throws IOException {
+        return Files.readAllBytes(file);
+    }
+
+    /** Creates a new, empty temporary file in {@code folder}. */
+    default Path createTemp(Path folder, String prefix) throws IOException {
+        return Files.createTempFile(folder, prefix, ".tmp");
+    }
+
+    /** Writes {@code bytes} to {@code file} and forces them to the storage device. */
+    default void writeAndSync(Path file, byte[] bytes) throws IOException {
+        try (FileChannel channel = FileChannel.open(file, StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING)) {
+            java.nio.ByteBuffer buffer = java.nio.ByteBuffer.wrap(bytes);
+            while (buffer.hasRemaining()) {
+                channel.write(buffer);
+            }
+            channel.force(true);
+        }
+    }
+
+    /** The POSIX permissions of a file, where the file system has them. */
+    default Optional<Set<PosixFilePermission>> permissions(Path file) throws IOException {
+        PosixFileAttributeView view = Files.getFileAttributeView(file, PosixFileAttributeView.class);
+        return view == null ? Optional.empty() : Optional.of(view.readAttributes().permissions());
+    }
+
+    /** Sets POSIX permissions. */
+    default void setPermissions(Path file, Set<PosixFilePermission> permissions) throws IOException {
+        Files.setPosixFilePermissions(file, permissions);
+    }
+
+    /** Replaces {@code target} with {@code source} in one step. */
+    default void moveAtomically(Path source, Path target) throws IOException {
+        Files.move(source, target, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
+    }
+
+    /** Removes a file if it is there. */
+    default void deleteIfExists(Path file) throws IOException {
+        Files.deleteIfExists(file);
+    }
+}
