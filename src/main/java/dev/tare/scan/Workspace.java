@@ -23,12 +23,16 @@ public record Workspace(Path root, TareConfig config, List<Path> starts) {
     }
 
     /**
-     * Opens the workspace for {@code paths} (the current folder when empty). With {@code --config}
-     * the root is that file's folder. Otherwise the root is the nearest folder at or above the first
+     * Opens the workspace for {@code paths} (the current folder when empty, or the whole root of the
+     * configuration when one is given). With {@code --config} the root is that file's folder. Otherwise the root is the nearest folder at or above the first
      * path holding {@code tare.yaml}, looking no higher than the git work tree's top; failing that,
      * the git work tree's top, or outside git the first path itself (or its folder, for a file).
      */
     public static Workspace open(List<Path> paths, Optional<Path> configFile) {
+        if (paths.isEmpty() && configFile.isPresent()) {
+            TareConfig config = ConfigLoader.load(configFile.get());
+            return new Workspace(config.root(), config, List.of());
+        }
         List<Path> absolute = new ArrayList<>();
         for (Path path : paths.isEmpty() ? List.of(Path.of(".")) : paths) {
             Path normalized = path.toAbsolutePath().normalize();

@@ -100,25 +100,9 @@ public final class TemplateParser {
     }
 
     private static String content(YamlDocument document, String path, JsonNode node) {
-        if (node == null || node.isNull()) {
-            return "";
-        }
-        if (node.isTextual()) {
-            return node.asText();
-        }
-        if (node.isArray()) {
-            StringBuilder text = new StringBuilder();
-            for (JsonNode part : node) {
-                if (part.isTextual()) {
-                    text.append(part.asText());
-                } else if (part.isObject() && part.path("text").isTextual()) {
-                    text.append(part.get("text").asText());
-                }
-            }
-            return text.toString();
-        }
-        throw located(document, path, path + " must be text or a list of {type: text, text} parts (got "
-                + node.getNodeType().name().toLowerCase(Locale.ROOT) + ")");
+        return ChatContent.text(node).orElseThrow(() -> located(document, path, path
+                + " must be text or a list of {type: text, text} parts (got "
+                + node.getNodeType().name().toLowerCase(Locale.ROOT) + ")"));
     }
 
     private static TareException located(YamlDocument document, String path, String message) {
