@@ -1,0 +1,94 @@
+package dev.tare.cli;
+
+import dev.tare.TareException;
+import dev.tare.hook.PreCommitHook;
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+/** {@code tare hook}: the git pre-commit hook. */
+@Command(name = "hook", mixinStandardHelpOptions = true,
+        description = "Installs or removes the git pre-commit hook that checks staged templates before each commit.",
+        subcommands = {HookCommand.Install.class, HookCommand.Uninstall.class})
+final class HookCommand implements Runnable {
+    @Spec
+    private CommandSpec spec;
+
+    @Override
+    public void run() {
+        throw new picocli.CommandLine.ParameterException(spec.commandLine(), "name a hook command: install or uninstall");
+    }
+
+    /** The shell command that runs this very build of Tare, for the hook to call. */
+    static String selfCommand() {
+        String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
+        String location;
+        try {
+            location = Path.of(HookCommand.class.getProtectionDomain().getCodeSource().getLocation().toURI()).toString();
+        } catch (java.net.URISyntaxException e) {
+            throw new IllegalStateException("the running jar's location is not a path", e);
+        }
+        if (location.endsWith(".jar")) {
+            return quote(java) + " -jar " + quote(location);
+        }
+        return quote(java) + " -cp " + quote(System.getProperty("java.class.path")) + " dev.tare.cli.Main";
+    }
+
+    private static String quote(String word) {
+        return "'" + word.replace("'", "'\\''") + "'";
+    }
+
+    @Command(name = "install", mixinStandardHelpOptions = true,
+            description = "Adds a pre-commit hook to the git repository of the current folder. A hook Tare did not write is left"
+                    + " alone unless --chain (keep it and run it first) or --force (replace it, keeping a backup copy).")
+    static final class Install implements Callable<Integer> {
+        @Spec
+        private CommandSpec spec;
+
+        @Option(names = "--chain", description = "Keep an existing hook and run it before Tare's.")
+        private boolean chain;
+
+        @Option(names = "--force", description = "Replace an existing hook Tare did not write (a copy is kept as pre-commit.tare-backup).")
+        private boolean force;
+
+        @Override
+        public Integer call() throws IOException {
+            if (chain && force) {
+                throw new TareException("--chain and --force exclude each other: keep the existing hook, or replace it");
+            }
+            PreCommitHook hook = PreCommitHook.of(Path.of("").toAbsolutePath());
+            PreCommitHook.Installed outcome = hook.install(selfCommand(), chain, force);
+            String what = switch (outcome) {
+                case NEW -> "Installed";
+                case UPDATED -> "Updated";
+                case CHAINED -> "Installed (the existing hook now runs first, from pre-commit.before-tare)";
+                case REPLACED -> "Replaced the existing hook (a copy is in pre-commit.tare-backup); installed";
+            };
+            spec.commandLine().getOut().println(what + " " + hook.file() + ".");
+            return ExitCodes.OK;
+        }
+    }
+
+    @Command(name = "uninstall", mixinStandardHelpOptions = true,
+            description = "Removes Tare's pre-commit hook (only Tare's), putting back a hook it chained.")
+    static final class Uninstall implements Callable<Integer> {
+        @Spec
+        private CommandSpec spec;
+
+        @Override
+        public Integer call() throws IOException {
+            PreCommitHook hook = PreCommitHook.of(Path.of("").toAbsolutePath());
+            String what = switch (hook.uninstall()) {
+                case REMOVED -> "Removed " + hook.file() + ".";
+                case RESTORED_CHAINED -> "Removed Tare's hook; the hook it chained is back at " + hook.file() + ".";
+                case NOTHING_INSTALLED -> "No pre-commit hook is installed at " + hook.file() + ".";
+            };
+            spec.commandLine().getOut().println(what);
+            return ExitCodes.OK;
+        }
+    }
+}

@@ -1,0 +1,69 @@
+package dev.tare.source;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.tare.TareException;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.TimeUnit;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/** The staged content of real repositories made with the git command line. */
+class GitIndexTest {
+    @TempDir
+    Path repo;
+
+    static void git(Path dir, String... args) throws IOException, InterruptedException {
+        List<String> command = new ArrayList<>(List.of("git", "-c", "user.name=Test", "-c", "user.email=test@example.invalid",
+                "-c", "commit.gpgsign=false", "-c", "core.hooksPath=/dev/null"));
+        command.addAll(List.of(args));
+        Process process = new ProcessBuilder(command).directory(dir.toFile()).redirectErrorStream(true).start();
+        String output = new String(process.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+        assertTrue(process.waitFor(60, TimeUnit.SECONDS));
+        assertEquals(0, process.exitValue(), String.join(" ", args) + ": " + output);
+    }
+
+    @Test
+    void listsWhatDiffersFromHeadWithTheStagedBytes() throws Exception {
+        git(repo, "init", "-q");
+        Files.writeString(repo.resolve("a.md"), "committed");
+        git(repo, "add", "a.md");
+        git(repo, "commit", "-q", "-m", "first");
+        Files.writeString(repo.resolve("b.md"), "new and staged");
+        Files.writeString(repo.resolve("c.md"), "staged version");
+        git(repo, "add", "b.md", "c.md");
+        Files.writeString(repo.resolve("c.md"), "edited after staging");
+        Files.writeString(repo.resolve("d.md"), "not staged at all");
+
+        GitIndex index = GitIndex.read(repo);
+        assertEquals(repo.toRealPath(), index.workTree().toRealPath());
+        List<String> paths = index.files().stream().map(StagedFile::path).toList();
+        assertEquals(List.of("b.md", "c.md"), paths);
+        StagedFile c = index.files().get(1);
+        assertEquals("staged version", new String(c.staged(), StandardCharsets.UTF_8), "the index, not the working tree");
+        assertEquals(false, c.matchesWorkTree(), "partially staged");
+        assertEquals(true, index.files().get(0).matchesWorkTree());
+    }
+
+    @Test
+    void beforeTheFirstCommitEveryStagedFileCounts() throws Exception {
+        git(repo, "init", "-q");
+        Files.createDirectories(repo.resolve("prompts"));
+        Files.writeString(repo.resolve("prompts/x.md"), "x");
+        git(repo, "add", ".");
+        assertEquals(List.of("prompts/x.md"), GitIndex.read(repo.resolve("prompts")).files().stream().map(StagedFile::path).toList());
+    }
+
+    @Test
+    void outsideGitIsAClearError(@TempDir Path plain) {
+        TareException e = assertThrows(TareException.class, () -> GitIndex.read(plain));
+        assertTrue(e.getMessage().contains("not inside a git work tree"), e.getMessage());
+    }
+}
