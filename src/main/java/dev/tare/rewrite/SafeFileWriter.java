@@ -68,6 +68,30 @@ public final class SafeFileWriter {
         }
     }
 
+    /**
+     * Creates {@code file} holding {@code bytes}, all at once: it appears whole or not at all.
+     * A file that appeared meanwhile is left alone.
+     *
+     * @throws IOException when a step fails; no temporary file remains
+     */
+    public Outcome create(Path file, byte[] bytes) throws IOException {
+        Path temp = files.createTemp(file.toAbsolutePath().getParent(), "." + file.getFileName() + ".tare-");
+        boolean moved = false;
+        try {
+            files.writeAndSync(temp, bytes);
+            if (java.nio.file.Files.exists(file)) {
+                return Outcome.CHANGED_MEANWHILE;
+            }
+            files.moveAtomically(temp, file);
+            moved = true;
+            return Outcome.WRITTEN;
+        } finally {
+            if (!moved) {
+                files.deleteIfExists(temp);
+            }
+        }
+    }
+
     private static byte[] sha256(byte[] bytes) {
         try {
             return MessageDigest.getInstance("SHA-256").digest(bytes);

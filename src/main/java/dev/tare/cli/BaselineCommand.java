@@ -1,0 +1,52 @@
+package dev.tare.cli;
+
+import dev.tare.baseline.Baseline;
+import dev.tare.baseline.BaselineFile;
+import dev.tare.rewrite.SafeFileWriter;
+import dev.tare.scan.ScanOptions;
+import dev.tare.scan.ScanResult;
+import dev.tare.scan.TemplateScan;
+import dev.tare.scan.Workspace;
+import dev.tare.tokenize.TokenizerRegistry;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+/** {@code tare baseline}: records every template's estimated tokens per target for later comparison. */
+@Command(name = "baseline", mixinStandardHelpOptions = true,
+        description = {"Records each template's estimated tokens on each target in the baseline file"
+                + " (baseline.file in tare.yaml, default tare-baseline.json), sorted and stable for review diffs.",
+                "Commit it; 'tare check' then fails when a template grows beyond baseline.tolerance_percent."})
+final class BaselineCommand implements Callable<Integer> {
+    @Spec
+    private CommandSpec spec;
+
+    @Mixin
+    private CommonOptions common;
+
+    @Parameters(paramLabel = "PATH", arity = "0..*", description = "The repository (default: the current folder).")
+    private List<Path> paths = new ArrayList<>();
+
+    @Override
+    public Integer call() {
+        Workspace workspace = Workspace.open(paths, common.configFile());
+        ScanResult scan = new TemplateScan(workspace, new TokenizerRegistry()).run(ScanOptions.defaults());
+        Baseline baseline = Baseline.of(scan);
+        Path file = workspace.root().resolve(workspace.config().baseline().file());
+        SafeFileWriter.Outcome outcome = BaselineFile.write(file, baseline);
+        String what = switch (outcome) {
+            case WRITTEN -> "Wrote";
+            case UNCHANGED -> "Unchanged:";
+            case CHANGED_MEANWHILE -> "Left alone (it changed while Tare ran):";
+        };
+        spec.commandLine().getOut().println(what + " " + file + " (" + baseline.tokens().size() + " templates"
+                + (scan.skipped().isEmpty() ? "" : ", " + scan.skipped().size() + " files skipped: see 'tare scan'") + ").");
+        return outcome == SafeFileWriter.Outcome.CHANGED_MEANWHILE ? ExitCodes.USAGE : ExitCodes.OK;
+    }
+}
