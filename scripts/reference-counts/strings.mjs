@@ -1,3 +1,4 @@
+import { readFileSync } from "node:fs";
 // Test strings for the tiktoken reference vectors.
 //
 // Everything here is deterministic: no Math.random, no dates, no environment.
@@ -475,6 +476,14 @@ function randomString(rand, length) {
     for (let i = 0; i < 60; i++) s += pools[p][Math.floor(r() * pools[p].length)];
     add("random-class", s);
   }
+}
+
+// ---------------------------------------------------------------- tools
+// Each tool definition of the demo's JSON tool file, minified by JSON.stringify: Tare's own
+// minification must give the same text, and its count the same tokens.
+{
+  const toolFile = new URL("../../corpora/demo/tools/customer-service.tools.json", import.meta.url);
+  for (const tool of JSON.parse(readFileSync(toolFile, "utf8"))) add("tools", JSON.stringify(tool));
 }
 
 export { cases };

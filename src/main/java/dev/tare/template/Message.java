@@ -4,7 +4,8 @@ import java.util.List;
 
 /**
  * One message of a template: for a chat file, one entry of {@code messages}; for a text template,
- * the whole body after front matter, with role {@value #TEXT_ROLE}.
+ * the whole body after front matter, with role {@value #TEXT_ROLE}; for a tool file, one tool
+ * definition as minified JSON, with role {@value #TOOL_ROLE}.
  *
  * @param role     the chat role ({@code system}, {@code user}, ...) or {@value #TEXT_ROLE}
  * @param content  the text the segments were parsed from
@@ -13,6 +14,8 @@ import java.util.List;
 public record Message(String role, String content, List<Segment> segments) {
     /** The role of a text template's single message. */
     public static final String TEXT_ROLE = "text";
+    /** The role of each tool definition of a tool file. */
+    public static final String TOOL_ROLE = "tool";
 
     public Message {
         segments = List.copyOf(segments);

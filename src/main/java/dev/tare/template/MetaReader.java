@@ -13,11 +13,17 @@ import java.util.OptionalInt;
 final class MetaReader {
     private final YamlDocument document;
     private final String where;
+    private final boolean toolsAreFiles;
 
-    /** @param where how messages name the place: "front matter" or "chat file" */
-    MetaReader(YamlDocument document, String where) {
+    /**
+     * @param where         how messages name the place: "front matter", "chat file" or "tool file"
+     * @param toolsAreFiles whether a {@code tools} key names tool files (not so in a tool file, where
+     *                      it holds the definitions themselves)
+     */
+    MetaReader(YamlDocument document, String where, boolean toolsAreFiles) {
         this.document = document;
         this.where = where;
+        this.toolsAreFiles = toolsAreFiles;
     }
 
     TemplateMeta read() {
@@ -32,7 +38,25 @@ final class MetaReader {
                 text(root, "target"),
                 wholeNumber(root, "budget", 1),
                 wholeNumber(root, "output_tokens", 0),
-                variables(root.get("variables")));
+                variables(root.get("variables")),
+                toolsAreFiles ? toolFiles(root.get("tools")) : java.util.List.of());
+    }
+
+    private java.util.List<String> toolFiles(JsonNode node) {
+        java.util.List<String> files = new java.util.ArrayList<>();
+        if (node == null || node.isNull()) {
+            return files;
+        }
+        if (!node.isArray()) {
+            throw problem("tools", "tools must be a list of tool file paths, relative to the repository root");
+        }
+        for (int i = 0; i < node.size(); i++) {
+            if (!node.get(i).isTextual() || node.get(i).asText().isBlank()) {
+                throw problem("tools[" + i + "]", "tools[" + i + "] must be the path of a tool file");
+            }
+            files.add(node.get(i).asText().strip());
+        }
+        return files;
     }
 
     private Optional<String> text(JsonNode root, String key) {

@@ -9,7 +9,9 @@ public enum TemplateKind {
     /** A YAML or JSON file holding a list of chat messages. */
     CHAT,
     /** A text template under the partials folder, pasted into others through includes. */
-    PARTIAL;
+    PARTIAL,
+    /** A YAML or JSON list of tool definitions sent with calls. */
+    TOOLS;
 
     /** The lower-case name used in output. */
     public String label() {

@@ -13,15 +13,17 @@ import java.util.OptionalInt;
  * @param budget       its token budget, overriding the configured ones
  * @param outputTokens the output tokens expected per call, overriding the target's
  * @param variables    declared variables in declaration order
+ * @param tools        root-relative paths of the tool files sent with every call of this template
  */
 public record TemplateMeta(Optional<String> target, OptionalInt budget, OptionalInt outputTokens,
-                           Map<String, VariableSpec> variables) {
+                           Map<String, VariableSpec> variables, java.util.List<String> tools) {
     /** The meta of a template that declares nothing. */
     public static final TemplateMeta EMPTY =
-            new TemplateMeta(Optional.empty(), OptionalInt.empty(), OptionalInt.empty(), Map.of());
+            new TemplateMeta(Optional.empty(), OptionalInt.empty(), OptionalInt.empty(), Map.of(), java.util.List.of());
 
     public TemplateMeta {
         variables = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(variables));
+        tools = java.util.List.copyOf(tools);
     }
 
     /** The declaration for a variable, by its full dotted name or else by its first part. */

@@ -51,7 +51,7 @@ public final class TemplateParser {
             } catch (TareException e) {
                 throw new TareException("front matter: " + e.getMessage(), e);
             }
-            meta = new MetaReader(document, "front matter").read();
+            meta = new MetaReader(document, "front matter", true).read();
         }
         int bodyStart = frontMatter == null ? 0 : frontMatter.bodyStart();
         List<Segment> segments = syntax.parse(text, bodyStart, text.length(), LineIndex.of(text));
@@ -63,8 +63,12 @@ public final class TemplateParser {
         boolean json = source.path().toLowerCase(Locale.ROOT).endsWith(".json");
         YamlDocument document = json ? YamlDocument.parseJson(source.text()) : YamlDocument.parseYaml(source.text());
         JsonNode root = document.root();
+        if (ToolFileParser.isToolFile(root)) {
+            return parseTools(source, document);
+        }
         if (!root.isObject() || !root.has("messages")) {
-            throw new TareException("not a chat file: expected a top-level 'messages' list of {role, content}");
+            throw new TareException("neither a chat file (a top-level 'messages' list of {role, content})"
+                    + " nor a tool file (a list of tools, or a top-level 'tools' list)");
         }
         JsonNode messagesNode = root.get("messages");
         if (!messagesNode.isArray()) {
@@ -74,8 +78,19 @@ public final class TemplateParser {
         for (int i = 0; i < messagesNode.size(); i++) {
             messages.add(message(document, "messages[" + i + "]", messagesNode.get(i)));
         }
-        TemplateMeta meta = new MetaReader(document, "chat file").read();
+        TemplateMeta meta = new MetaReader(document, "chat file", true).read();
         return new Template(source.path(), TemplateKind.CHAT, meta, messages, source.text(), 0, syntax);
+    }
+
+    /** A tool file as a template: one message per tool, its minified JSON, literal text. */
+    private Template parseTools(SourceText source, YamlDocument document) {
+        List<Message> messages = new ArrayList<>();
+        for (ToolDefinition tool : ToolFileParser.definitions(document)) {
+            Span span = new Span(0, tool.json().length(), tool.line(), 1);
+            messages.add(new Message(Message.TOOL_ROLE, tool.json(), List.of(new Segment.Text(tool.json(), span))));
+        }
+        TemplateMeta meta = document.root().isObject() ? new MetaReader(document, "tool file", false).read() : TemplateMeta.EMPTY;
+        return new Template(source.path(), TemplateKind.TOOLS, meta, messages, source.text(), 0, PlaceholderSyntax.NONE);
     }
 
     private Message message(YamlDocument document, String path, JsonNode node) {

@@ -111,7 +111,7 @@ class HostileCorpusTest {
                 Map.entry("alias-bomb.chat.yaml", "YAML aliases"),
                 Map.entry("malformed.chat.json", "line 5"),
                 Map.entry("malformed.chat.yaml", "line "),
-                Map.entry("no-messages.chat.yaml", "not a chat file"),
+                Map.entry("no-messages.chat.yaml", "neither a chat file"),
                 Map.entry("bad-message.chat.json", "messages[1].content must be text"),
                 Map.entry("deep-nesting.chat.json", "nested deeper than"),
                 Map.entry("loop", "symbolic link loop"),

@@ -86,7 +86,7 @@ class TemplateParserTest {
         assertTrue(assertThrows(TareException.class, () -> Templates.parse(DOUBLE_BRACE, "a.chat.json", "{\"messages\": [1]}"))
                 .getMessage().contains("messages[0] must be a mapping"));
         assertTrue(assertThrows(TareException.class, () -> Templates.parse(DOUBLE_BRACE, "a.chat.yaml", "other: 1\n"))
-                .getMessage().startsWith("not a chat file"));
+                .getMessage().startsWith("neither a chat file"));
         assertTrue(assertThrows(TareException.class, () -> Templates.parse(DOUBLE_BRACE, "a.chat.json", "{\"messages\": [{"))
                 .getMessage().startsWith("line 1"));
         TareException content = assertThrows(TareException.class, () -> Templates.parse(DOUBLE_BRACE, "a.chat.yaml",
