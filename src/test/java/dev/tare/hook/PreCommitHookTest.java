@@ -21,14 +21,14 @@ class PreCommitHookTest {
 
     @BeforeEach
     void initRepository() throws Exception {
-        dev.tare.source.GitIndexTest.git(repo, "init", "-q");
+        dev.tare.testing.Git.run(repo, "init", "-q");
         hookFile = repo.resolve(".git/hooks/pre-commit");
     }
 
     @Test
     void installsAnExecutableHookAndRemovesOnlyItsOwn() throws Exception {
         PreCommitHook hook = PreCommitHook.of(repo);
-        assertEquals(hookFile.toRealPath().getParent(), hook.file().getParent().toRealPath());
+        assertEquals(hookFile.getParent().toRealPath(), hook.file().getParent().toRealPath());
         assertEquals(PreCommitHook.Installed.NEW, hook.install("tare", false, false));
         assertTrue(Files.readString(hookFile).contains(PreCommitHook.MARKER));
         assertTrue(Files.readString(hookFile).endsWith("exec tare hook run\n"));

@@ -13,6 +13,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.TimeUnit;
 import org.junit.jupiter.api.Test;
+import dev.tare.testing.Git;
 import org.junit.jupiter.api.io.TempDir;
 
 /** The staged content of real repositories made with the git command line. */
@@ -20,25 +21,15 @@ class GitIndexTest {
     @TempDir
     Path repo;
 
-    static void git(Path dir, String... args) throws IOException, InterruptedException {
-        List<String> command = new ArrayList<>(List.of("git", "-c", "user.name=Test", "-c", "user.email=test@example.invalid",
-                "-c", "commit.gpgsign=false", "-c", "core.hooksPath=/dev/null"));
-        command.addAll(List.of(args));
-        Process process = new ProcessBuilder(command).directory(dir.toFile()).redirectErrorStream(true).start();
-        String output = new String(process.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
-        assertTrue(process.waitFor(60, TimeUnit.SECONDS));
-        assertEquals(0, process.exitValue(), String.join(" ", args) + ": " + output);
-    }
-
     @Test
     void listsWhatDiffersFromHeadWithTheStagedBytes() throws Exception {
-        git(repo, "init", "-q");
+        Git.run(repo, "init", "-q");
         Files.writeString(repo.resolve("a.md"), "committed");
-        git(repo, "add", "a.md");
-        git(repo, "commit", "-q", "-m", "first");
+        Git.run(repo, "add", "a.md");
+        Git.run(repo, "commit", "-q", "-m", "first");
         Files.writeString(repo.resolve("b.md"), "new and staged");
         Files.writeString(repo.resolve("c.md"), "staged version");
-        git(repo, "add", "b.md", "c.md");
+        Git.run(repo, "add", "b.md", "c.md");
         Files.writeString(repo.resolve("c.md"), "edited after staging");
         Files.writeString(repo.resolve("d.md"), "not staged at all");
 
@@ -54,10 +45,10 @@ class GitIndexTest {
 
     @Test
     void beforeTheFirstCommitEveryStagedFileCounts() throws Exception {
-        git(repo, "init", "-q");
+        Git.run(repo, "init", "-q");
         Files.createDirectories(repo.resolve("prompts"));
         Files.writeString(repo.resolve("prompts/x.md"), "x");
-        git(repo, "add", ".");
+        Git.run(repo, "add", ".");
         assertEquals(List.of("prompts/x.md"), GitIndex.read(repo.resolve("prompts")).files().stream().map(StagedFile::path).toList());
     }
 

@@ -57,7 +57,7 @@ class ToolFileParserTest {
         List<ToolDefinition> tools = ToolFileParser.definitions(document);
         assertEquals(List.of("create_work_order", "list_crews", "notify_customers"), tools.stream().map(ToolDefinition::name).toList());
         ToolDefinition first = tools.get(0);
-        assertEquals(4, first.line());
+        assertEquals(3, first.line(), "the line of \"- type: function\"");
         assertEquals(List.of("asset_id", "fault", "priority"), first.parameters().stream().map(ToolDefinition.Parameter::path).toList());
         assertEquals(List.of("emergency", "same_day", "next_day", "planned"), first.parameters().get(2).enumValues());
         ToolDefinition.Parameter streets = tools.get(2).parameters().get(0);
