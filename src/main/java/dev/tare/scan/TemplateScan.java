@@ -91,7 +91,7 @@ public final class TemplateScan {
         private ScannedTemplate measure(Template template, int characters) {
             Rendering empty = loader.renderer().renderStatic(template);
             Rendering samples = loader.renderer().renderWithSamples(template);
-            int declared = declaredTokens(samples);
+            int declared = Estimates.declaredTokens(samples);
             Map<String, Footprint> footprints = new LinkedHashMap<>();
             for (TargetConfig target : targetsOf(template)) {
                 int estimated = count(byTarget.get(target.name()), samples) + declared;
@@ -129,18 +129,6 @@ public final class TemplateScan {
             int total = 0;
             for (String message : rendering.messages()) {
                 total += tokenizer.count(message);
-            }
-            return total;
-        }
-
-        /** Tokens declared for variables without samples, once per occurrence. */
-        private static int declaredTokens(Rendering rendering) {
-            int total = 0;
-            for (Rendering.Occurrence occurrence : rendering.variables()) {
-                var spec = occurrence.spec();
-                if (spec.isPresent() && spec.get().sample().isEmpty() && spec.get().tokens().isPresent()) {
-                    total += spec.get().tokens().getAsInt();
-                }
             }
             return total;
         }

@@ -1,0 +1,159 @@
+package dev.tare.lint;
+
+import dev.tare.TareException;
+import dev.tare.config.TareConfig;
+import dev.tare.config.TargetConfig;
+import dev.tare.template.IncludeResolver;
+import dev.tare.template.Renderer;
+import dev.tare.template.Rendering;
+import dev.tare.template.Template;
+import dev.tare.template.TemplateKind;
+import dev.tare.tokenize.Tokenizer;
+import dev.tare.tokenize.TokenizerRegistry;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.OptionalInt;
+import java.util.Set;
+import java.util.concurrent.ConcurrentHashMap;
+
+/**
+ * What a rule may consult beyond the template in hand: the configuration, the tokenizers of the
+ * template's targets, a renderer that resolves includes, every template of the run (for rules that
+ * look across templates) and the ids of all known rules. Per-template preparation is computed once
+ * and shared by every rule.
+ */
+public final class LintContext {
+    /**
+     * The shortest cacheable prefix assumed when no target says (common practice among hosted
+     * providers, no source).
+     */
+    public static final int DEFAULT_PREFIX_CACHE_MIN_TOKENS = 1024;
+
+    private final TareConfig config;
+    private final TokenizerRegistry tokenizers;
+    private final Renderer renderer;
+    private final List<Template> templates;
+    private final Set<String> ruleIds;
+    private final Map<String, Integer> settings;
+    private final Map<String, TemplateText> texts = new ConcurrentHashMap<>();
+    private final Map<String, Optional<Rendering>> renderings = new ConcurrentHashMap<>();
+
+    /**
+     * @param settings example settings that stand in for target values (see {@link Example#settings()})
+     */
+    public LintContext(TareConfig config, TokenizerRegistry tokenizers, Renderer renderer, List<Template> templates,
+                       Set<String> ruleIds, Map<String, Integer> settings) {
+        this.config = config;
+        this.tokenizers = tokenizers;
+        this.renderer = renderer;
+        this.templates = List.copyOf(templates);
+        this.ruleIds = Set.copyOf(ruleIds);
+        this.settings = Map.copyOf(settings);
+    }
+
+    /** A context for running one rule's examples: default configuration, no includes, no other templates. */
+    public static LintContext forExample(Path root, Example example, Set<String> ruleIds) {
+        return new LintContext(TareConfig.defaults(root), new TokenizerRegistry(), new Renderer(IncludeResolver.NONE),
+                List.of(), ruleIds, example.settings());
+    }
+
+    /** The configuration in force. */
+    public TareConfig config() {
+        return config;
+    }
+
+    /** Every template of the run, sorted by path. */
+    public List<Template> templates() {
+        return templates;
+    }
+
+    /** The ids of every rule known to this run, enabled or not. */
+    public Set<String> ruleIds() {
+        return ruleIds;
+    }
+
+    /** The template prepared for rules. */
+    public TemplateText text(Template template) {
+        return texts.computeIfAbsent(template.path(), path -> new TemplateText(template));
+    }
+
+    /** The targets the template runs on: the one it names, else all configured targets. */
+    public List<TargetConfig> targets(Template template) {
+        Optional<String> named = template.meta().target();
+        if (named.isPresent()) {
+            List<TargetConfig> match = config.targets().stream().filter(t -> t.name().equals(named.get())).toList();
+            if (!match.isEmpty()) {
+                return match;
+            }
+        }
+        return config.targets();
+    }
+
+    /** The template's primary tokenizer: its first target's, else the default encoding. */
+    public Tokenizer tokenizer(Template template) {
+        List<TargetConfig> targets = targets(template);
+        String name = targets.isEmpty() ? TokenizerRegistry.DEFAULT : targets.get(0).tokenizer();
+        try {
+            return tokenizers.get(name, config.root());
+        } catch (TareException e) {
+            return tokenizers.defaultTokenizer();
+        }
+    }
+
+    /** The tokenizers of every target the template runs on (the default encoding when there are none), without repeats. */
+    public List<Tokenizer> targetTokenizers(Template template) {
+        List<TargetConfig> targets = targets(template);
+        if (targets.isEmpty()) {
+            return List.of(tokenizer(template));
+        }
+        java.util.LinkedHashMap<String, Tokenizer> byName = new java.util.LinkedHashMap<>();
+        for (TargetConfig target : targets) {
+            try {
+                Tokenizer tokenizer = tokenizers.get(target.tokenizer(), config.root());
+                byName.putIfAbsent(tokenizer.name(), tokenizer);
+            } catch (TareException e) {
+                byName.putIfAbsent(TokenizerRegistry.DEFAULT, tokenizers.defaultTokenizer());
+            }
+        }
+        return List.copyOf(byName.values());
+    }
+
+    /** The template's token budget: its own, else the first matching glob, else the default; partials only their own. */
+    public OptionalInt budget(Template template) {
+        if (template.meta().budget().isPresent()) {
+            return template.meta().budget();
+        }
+        if (template.kind() == TemplateKind.PARTIAL) {
+            return OptionalInt.empty();
+        }
+        return config.budgets().budgetFor(template.path());
+    }
+
+    /** The shortest prefix the template's targets cache: the smallest configured, else {@value #DEFAULT_PREFIX_CACHE_MIN_TOKENS}. */
+    public int prefixCacheMinTokens(Template template) {
+        Integer setting = settings.get(Example.PREFIX_CACHE_MIN_TOKENS);
+        if (setting != null) {
+            return setting;
+        }
+        return targets(template).stream().map(TargetConfig::prefixCacheMinTokens).filter(OptionalInt::isPresent)
+                .mapToInt(OptionalInt::getAsInt).min().orElse(DEFAULT_PREFIX_CACHE_MIN_TOKENS);
+    }
+
+    /** The renderer that resolves this run's includes. */
+    public Renderer renderer() {
+        return renderer;
+    }
+
+    /** The template rendered with samples, or empty when an include cannot be resolved. */
+    public Optional<Rendering> rendering(Template template) {
+        return renderings.computeIfAbsent(template.path(), path -> {
+            try {
+                return Optional.of(renderer.renderWithSamples(template));
+            } catch (TareException e) {
+                return Optional.empty();
+            }
+        });
+    }
+}

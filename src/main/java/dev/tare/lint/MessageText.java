@@ -1,0 +1,100 @@
+package dev.tare.lint;
+
+import dev.tare.template.Message;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+
+/**
+ * One message of a template as rules see it: its content, the regions prose rules leave alone, its
+ * fenced blocks, and the way back from content offsets to the file.
+ */
+public final class MessageText {
+    private final int index;
+    private final Message message;
+    private final List<Region> regions;
+    private final List<Fence> fences;
+    private final ContentMap map;
+
+    MessageText(int index, Message message, List<Region> regions, List<Fence> fences, ContentMap map) {
+        this.index = index;
+        this.message = message;
+        this.regions = List.copyOf(regions);
+        this.fences = List.copyOf(fences);
+        this.map = map;
+    }
+
+    /** The position of this message in its template, from 0. */
+    public int index() {
+        return index;
+    }
+
+    /** The message as parsed. */
+    public Message message() {
+        return message;
+    }
+
+    /** The text rules read: the body of a text template, or a chat message's content. */
+    public String content() {
+        return message.content();
+    }
+
+    /** The protected regions, sorted by start. */
+    public List<Region> regions() {
+        return regions;
+    }
+
+    /** The fenced code blocks, in order. */
+    public List<Fence> fences() {
+        return fences;
+    }
+
+    /** Whether {@code [start, end)} touches a protected region. */
+    public boolean isProtected(int start, int end) {
+        for (Region region : regions) {
+            if (region.start() >= end && start != end) {
+                break;
+            }
+            if (region.overlaps(start, end)) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    /** Whether {@code [start, end)} touches a protected region of the given kinds. */
+    public boolean touches(int start, int end, Region.Kind... kinds) {
+        for (Region region : regions) {
+            if (region.overlaps(start, end) && List.of(kinds).contains(region.kind())) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    /** The stretches of content outside every protected region, in order, as {@code [start, end)} pairs. */
+    public List<int[]> prose() {
+        List<int[]> ranges = new ArrayList<>();
+        int at = 0;
+        for (Region region : regions) {
+            if (region.start() > at) {
+                ranges.add(new int[] {at, region.start()});
+            }
+            at = Math.max(at, region.end());
+        }
+        if (at < content().length()) {
+            ranges.add(new int[] {at, content().length()});
+        }
+        return ranges;
+    }
+
+    /** The file offset of content offset {@code offset}. */
+    int sourceOffset(int offset) {
+        return map.sourceOffset(offset);
+    }
+
+    /** The content edits moved onto the file, or empty when they cannot be written back exactly. */
+    Optional<List<Edit>> toSource(List<Edit> edits) {
+        return map.toSource(content(), edits);
+    }
+}

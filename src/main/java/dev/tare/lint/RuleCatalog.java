@@ -1,0 +1,163 @@
+package dev.tare.lint;
+
+import dev.tare.TareException;
+import dev.tare.config.RulesConfig;
+import dev.tare.config.TareConfig;
+import dev.tare.lint.rules.BuiltInRules;
+import dev.tare.source.SafeReader;
+import dev.tare.source.YamlDocument;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.OptionalInt;
+import java.util.Set;
+import java.util.TreeMap;
+
+/**
+ * Every rule a run knows: the built-in rules, the packs shipped in the jar, and the pack folders
+ * {@code rules.packs} names; with {@code rules.disable} and {@code rules.severity} applied. Ids are
+ * unique across all of them.
+ */
+public final class RuleCatalog {
+    private final Map<String, Rule> rules;
+    private final Set<String> disabled;
+    private final Map<String, Severity> severities;
+
+    private RuleCatalog(Map<String, Rule> rules, Set<String> disabled, Map<String, Severity> severities) {
+        this.rules = rules;
+        this.disabled = disabled;
+        this.severities = severities;
+    }
+
+    /**
+     * The catalog for {@code config}.
+     *
+     * @throws TareException when a pack is broken, two rules share an id, or the configuration names
+     *                       an unknown rule or severity (naming the file, line and key)
+     */
+    public static RuleCatalog load(TareConfig config) {
+        Map<String, Rule> byId = new TreeMap<>();
+        add(byId, BuiltInRules.all());
+        add(byId, PackLoader.builtIn());
+        RulesConfig settings = config.rules();
+        for (int i = 0; i < settings.packs().size(); i++) {
+            String folder = settings.packs().get(i);
+            Path path = config.root().resolve(folder).normalize();
+            try {
+                add(byId, PackLoader.folder(path, folder));
+            } catch (TareException e) {
+                throw located(config, "rules.packs[" + i + "]", e.getMessage());
+            }
+        }
+        Set<String> disabled = new java.util.TreeSet<>();
+        for (int i = 0; i < settings.disable().size(); i++) {
+            String id = settings.disable().get(i);
+            requireKnown(config, byId, id, "rules.disable[" + i + "]");
+            disabled.add(id);
+        }
+        Map<String, Severity> severities = new LinkedHashMap<>();
+        for (Map.Entry<String, String> entry : settings.severity().entrySet()) {
+            String key = "rules.severity." + entry.getKey();
+            requireKnown(config, byId, entry.getKey(), key);
+            try {
+                severities.put(entry.getKey(), Severity.parse(entry.getValue(), key));
+            } catch (TareException e) {
+                throw located(config, key, "unknown severity '" + entry.getValue() + "'; use error, warning or info");
+            }
+        }
+        return new RuleCatalog(java.util.Collections.unmodifiableMap(byId), Set.copyOf(disabled), Map.copyOf(severities));
+    }
+
+    private static void add(Map<String, Rule> byId, List<Rule> rules) {
+        for (Rule rule : rules) {
+            RuleDescriptor descriptor = rule.descriptor();
+            Rule existing = byId.putIfAbsent(descriptor.id(), rule);
+            if (existing != null) {
+                throw new TareException(descriptor.origin() + ": rule '" + descriptor.id() + "' is already defined in "
+                        + existing.descriptor().origin() + "; give it another id");
+            }
+        }
+    }
+
+    private static void requireKnown(TareConfig config, Map<String, Rule> byId, String id, String key) {
+        if (!byId.containsKey(id)) {
+            throw located(config, key, "unknown rule '" + id + "'" + suggestion(id, byId.keySet())
+                    + "; 'tare rules' lists every rule");
+        }
+    }
+
+    private static TareException located(TareConfig config, String key, String message) {
+        String file = config.file().map(Path::toString).orElse("configuration");
+        OptionalInt line = config.file().flatMap(f -> lineOf(f, key)).map(OptionalInt::of).orElse(OptionalInt.empty());
+        return new TareException(file + (line.isPresent() ? ", line " + line.getAsInt() : "") + ": " + key + ": " + message);
+    }
+
+    private static Optional<Integer> lineOf(Path file, String key) {
+        try {
+            YamlDocument document = YamlDocument.parseYaml(new SafeReader(SafeReader.DEFAULT_MAX_BYTES).read(file.toString(), file).text());
+            OptionalInt line = document.line(key);
+            return line.isPresent() ? Optional.of(line.getAsInt()) : Optional.empty();
+        } catch (TareException e) {
+            return Optional.empty();
+        }
+    }
+
+    /** "; did you mean 'x'?" for the nearest id, or nothing when none is near. */
+    static String suggestion(String id, Set<String> known) {
+        org.apache.commons.text.similarity.LevenshteinDistance distance =
+                org.apache.commons.text.similarity.LevenshteinDistance.getDefaultInstance();
+        return known.stream().min(Comparator.comparingInt((String k) -> distance.apply(id, k)).thenComparing(k -> k))
+                .filter(k -> distance.apply(id, k) <= Math.max(2, id.length() / 3))
+                .map(k -> "; did you mean '" + k + "'?").orElse("");
+    }
+
+    /** Every rule, sorted by id. */
+    public List<Rule> all() {
+        return List.copyOf(rules.values());
+    }
+
+    /** The rules that run, sorted by id. */
+    public List<Rule> enabled() {
+        return rules.values().stream().filter(r -> !disabled.contains(r.descriptor().id())).toList();
+    }
+
+    /** Whether {@code id} is switched off in the configuration. */
+    public boolean isDisabled(String id) {
+        return disabled.contains(id);
+    }
+
+    /** The severity findings of {@code rule} carry: the configured one, else the rule's default. */
+    public Severity severity(RuleDescriptor rule) {
+        return severities.getOrDefault(rule.id(), rule.severity());
+    }
+
+    /** Every id, sorted. */
+    public Set<String> ids() {
+        return rules.keySet();
+    }
+
+    /**
+     * The rule called {@code id}.
+     *
+     * @throws TareException suggesting the nearest id when there is none
+     */
+    public Rule rule(String id) {
+        Rule rule = rules.get(id);
+        if (rule == null) {
+            throw new TareException("unknown rule '" + id + "'" + suggestion(id, rules.keySet())
+                    + "; 'tare rules' lists every rule");
+        }
+        return rule;
+    }
+
+    /** The descriptors of every rule, sorted by id. */
+    public List<RuleDescriptor> descriptors() {
+        List<RuleDescriptor> all = new ArrayList<>();
+        rules.values().forEach(r -> all.add(r.descriptor()));
+        return all;
+    }
+}

@@ -1,0 +1,38 @@
+package dev.tare.lint;
+
+import java.util.List;
+
+/**
+ * Everything a rule says about itself, declared once: the single source for {@code tare rules},
+ * {@code tare explain}, SARIF rule metadata and the example tests.
+ *
+ * @param id             the rule's id, lower-case words joined by hyphens
+ * @param summary        what it flags, in one sentence
+ * @param why            why that costs tokens, money or cache space
+ * @param instead        what to write instead
+ * @param severity       the default severity of its findings
+ * @param rewriteClass   the class of the rewrites it offers
+ * @param examples       worked examples, at least one
+ * @param origin         {@value #BUILT_IN}, or the rule pack file it came from
+ */
+public record RuleDescriptor(String id, String summary, String why, String instead, Severity severity,
+                             RewriteClass rewriteClass, List<Example> examples, String origin) {
+    /** The origin of rules compiled into Tare. */
+    public static final String BUILT_IN = "built-in";
+
+    public RuleDescriptor {
+        examples = List.copyOf(examples);
+        if (!id.matches("[a-z][a-z0-9]*(-[a-z0-9]+)*")) {
+            throw new IllegalArgumentException("rule id must be lower-case words joined by hyphens: " + id);
+        }
+        if (examples.isEmpty()) {
+            throw new IllegalArgumentException("rule " + id + " has no example");
+        }
+    }
+
+    /** A descriptor of a rule compiled into Tare. */
+    public static RuleDescriptor builtIn(String id, Severity severity, RewriteClass rewriteClass, String summary,
+                                         String why, String instead, Example... examples) {
+        return new RuleDescriptor(id, summary, why, instead, severity, rewriteClass, List.of(examples), BUILT_IN);
+    }
+}

@@ -1,0 +1,86 @@
+package dev.tare.lint;
+
+import java.util.HashMap;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+
+/**
+ * The inline directives that silence rules in one file. A directive is the word
+ * {@code tare-ignore}, {@code tare-ignore-next-line} or {@code tare-ignore-file}, then one or more
+ * rule ids separated by commas (or {@code all}). It may stand anywhere in the file; a template comment
+ * (<code>{# ... #}</code>) or a YAML comment in front matter keeps it out of the prompt:
+ *
+ * <pre>
+ * Reply in one line.   {# tare-ignore space-run #}
+ * {# tare-ignore-next-line costly-character #}
+ * # tare-ignore-file blank-lines, trailing-whitespace     (a YAML comment in front matter or a chat file)
+ * </pre>
+ */
+public final class Suppressions {
+    /** A directive and the ids after it. */
+    public static final Pattern DIRECTIVE = Pattern.compile(
+            "tare-ignore(-next-line|-file)?:?[ \\t]+([a-z0-9][a-z0-9-]*(?:[ \\t]*,[ \\t]*[a-z0-9][a-z0-9-]*)*)");
+
+    private static final String ALL = "all";
+
+    private final Set<String> file = new HashSet<>();
+    private final Map<Integer, Set<String>> byLine = new HashMap<>();
+    private final List<Directive> directives = new java.util.ArrayList<>();
+
+    /**
+     * One directive as written.
+     *
+     * @param offset where it starts in the file's text
+     * @param ids    the rule ids it names
+     */
+    public record Directive(int offset, List<String> ids) {
+    }
+
+    private Suppressions() {
+    }
+
+    /** The directives of {@code text}. */
+    public static Suppressions of(TemplateText text) {
+        Suppressions suppressions = new Suppressions();
+        String source = text.template().source();
+        if (!source.contains("tare-ignore")) {
+            return suppressions;
+        }
+        Matcher matcher = DIRECTIVE.matcher(source);
+        while (matcher.find()) {
+            List<String> ids = List.of(matcher.group(2).split("[ \\t]*,[ \\t]*"));
+            suppressions.directives.add(new Directive(matcher.start(), ids));
+            String kind = matcher.group(1) == null ? "" : matcher.group(1);
+            int line = text.lineOfSource(matcher.start());
+            switch (kind) {
+                case "-file" -> suppressions.file.addAll(ids);
+                case "-next-line" -> suppressions.byLine.computeIfAbsent(line + 1, l -> new HashSet<>()).addAll(ids);
+                default -> suppressions.byLine.computeIfAbsent(line, l -> new HashSet<>()).addAll(ids);
+            }
+        }
+        return suppressions;
+    }
+
+    /** Every directive, in file order. */
+    public List<Directive> directives() {
+        return List.copyOf(directives);
+    }
+
+    /** Whether a directive silences {@code finding} (by the line it starts on). */
+    public boolean silences(Finding finding) {
+        if (file.contains(ALL) || file.contains(finding.rule())) {
+            return true;
+        }
+        Set<String> ids = byLine.get(finding.line());
+        return ids != null && (ids.contains(ALL) || ids.contains(finding.rule()));
+    }
+
+    /** Whether {@code id} may appear in a directive: a known rule or {@code all}. */
+    static boolean isKnown(String id, Set<String> ruleIds) {
+        return id.equals(ALL) || ruleIds.contains(id);
+    }
+}

@@ -1,0 +1,144 @@
+package dev.tare.lint;
+
+import dev.tare.template.Message;
+import dev.tare.template.Template;
+import dev.tare.tokenize.Tokenizer;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+
+/**
+ * A template prepared once for every rule: each message's protected regions and fenced blocks, and
+ * the mapping from message offsets to the file's lines and columns. Rules locate findings and build
+ * rewrites through it, so every finding points into the file and every rewrite edits the file.
+ */
+public final class TemplateText {
+    /** Characters of context on each side of an edit when its token saving is measured. */
+    private static final int SAVING_WINDOW = 1000;
+
+    private final Template template;
+    private final SourceLines lines;
+    private final List<MessageText> messages;
+    private Optional<dev.tare.source.YamlDocument> meta;
+
+    TemplateText(Template template) {
+        this.template = template;
+        this.lines = new SourceLines(template.source());
+        List<ContentMap> maps = template.isChat() ? ChatContentMaps.of(template, lines) : List.of();
+        List<MessageText> built = new ArrayList<>();
+        for (int i = 0; i < template.messages().size(); i++) {
+            Message message = template.messages().get(i);
+            int base = template.isChat() ? 0 : template.bodyStart();
+            List<Fence> fences = Regions.fences(message.content());
+            List<Region> regions = Regions.of(message.content(), message.segments(), base, fences);
+            ContentMap map = template.isChat() ? maps.get(i) : ContentMap.shifted(template.bodyStart(), message.content().length());
+            built.add(new MessageText(i, message, regions, fences, map));
+        }
+        this.messages = List.copyOf(built);
+    }
+
+    /**
+     * The 1-based line of a key of the template's metadata (front matter, or the keys beside a chat
+     * file's messages), such as {@code variables.account}, when it is there.
+     */
+    public java.util.OptionalInt metaLine(String key) {
+        if (meta == null) {
+            meta = readMeta();
+        }
+        return meta.isPresent() ? meta.get().line(key) : java.util.OptionalInt.empty();
+    }
+
+    private Optional<dev.tare.source.YamlDocument> readMeta() {
+        String source = template.source();
+        try {
+            if (template.isChat()) {
+                return Optional.of(template.path().toLowerCase(java.util.Locale.ROOT).endsWith(".json")
+                        ? dev.tare.source.YamlDocument.parseJson(source) : dev.tare.source.YamlDocument.parseYaml(source));
+            }
+            if (template.bodyStart() == 0) {
+                return Optional.empty();
+            }
+            return Optional.of(dev.tare.source.YamlDocument.parseYaml(source.substring(0, template.bodyStart())));
+        } catch (dev.tare.TareException e) {
+            return Optional.empty();
+        }
+    }
+
+    /** The offset where 1-based {@code line} of the file starts. */
+    public int lineStart(int line) {
+        return lines.lineStart(line);
+    }
+
+    /** The template. */
+    public Template template() {
+        return template;
+    }
+
+    /** Its messages, in order; one for a text template. */
+    public List<MessageText> messages() {
+        return messages;
+    }
+
+    /** The 1-based line of content offset {@code offset} in {@code message}. */
+    public int line(MessageText message, int offset) {
+        return lines.line(message.sourceOffset(offset));
+    }
+
+    /** The 1-based line of a file offset. */
+    public int lineOfSource(int offset) {
+        return lines.line(offset);
+    }
+
+    /** A finding of {@code rule} over {@code [start, end)} of {@code message}. */
+    public Finding finding(RuleDescriptor rule, MessageText message, int start, int end, String text,
+                           Optional<Rewrite> rewrite, List<Related> related) {
+        int from = message.sourceOffset(start);
+        int to = Math.max(from, end > start ? message.sourceOffset(end - 1) + 1 : from);
+        return new Finding(template.path(), lines.line(from), lines.column(from), lines.line(to), lines.column(to),
+                rule.id(), rule.severity(), text, rule.rewriteClass(), rewrite, related);
+    }
+
+    /** A finding over {@code [start, end)} of the file's text (for front matter and other non-message text). */
+    public Finding findingInSource(RuleDescriptor rule, int start, int end, String text) {
+        return new Finding(template.path(), lines.line(start), lines.column(start), lines.line(end), lines.column(end),
+                rule.id(), rule.severity(), text, rule.rewriteClass(), Optional.empty(), List.of());
+    }
+
+    /** A related place at content offset {@code offset} of {@code message}. */
+    public Related related(MessageText message, int offset, String text) {
+        int at = message.sourceOffset(offset);
+        return new Related(template.path(), lines.line(at), lines.column(at), text);
+    }
+
+    /**
+     * The rewrite made of {@code edits} (content offsets of {@code message}), moved onto the file,
+     * with its saving measured by {@code tokenizer} over the text around the edits; empty when the
+     * edits cannot be written back to the file exactly.
+     */
+    public Optional<Rewrite> rewrite(MessageText message, List<Edit> edits, Tokenizer tokenizer) {
+        List<Edit> sorted = new ArrayList<>(edits);
+        sorted.sort(null);
+        Optional<List<Edit>> moved = message.toSource(sorted);
+        if (moved.isEmpty() || sorted.isEmpty()) {
+            return Optional.empty();
+        }
+        String content = message.content();
+        int from = windowStart(content, sorted.get(0).start());
+        int to = windowEnd(content, sorted.get(sorted.size() - 1).end());
+        String before = content.substring(from, to);
+        List<Edit> local = sorted.stream().map(e -> e.shift(-from)).toList();
+        String after = Rewrite.apply(before, local);
+        return Optional.of(new Rewrite(moved.get(), tokenizer.count(before) - tokenizer.count(after)));
+    }
+
+    private static int windowStart(String content, int offset) {
+        int lineStart = content.lastIndexOf('\n', Math.max(0, offset - 1)) + 1;
+        return Math.max(lineStart, offset - SAVING_WINDOW);
+    }
+
+    private static int windowEnd(String content, int offset) {
+        int lineEnd = content.indexOf('\n', offset);
+        int end = lineEnd < 0 ? content.length() : lineEnd;
+        return Math.min(end, offset + SAVING_WINDOW);
+    }
+}

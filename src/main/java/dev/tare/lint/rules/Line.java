@@ -1,0 +1,55 @@
+package dev.tare.lint.rules;
+
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * One line of a message's content.
+ *
+ * @param start offset of its first character
+ * @param end   offset of its line break (or the end of the content)
+ * @param next  offset of the next line's start
+ */
+record Line(int start, int end, int next) {
+    /** The lines of {@code text}; a line ends at {@code \n}, {@code \r\n} or a lone {@code \r}. */
+    static List<Line> of(String text) {
+        List<Line> lines = new ArrayList<>();
+        int at = 0;
+        while (at < text.length()) {
+            int end = at;
+            while (end < text.length() && text.charAt(end) != '\n' && text.charAt(end) != '\r') {
+                end++;
+            }
+            int next = end;
+            if (next < text.length() && text.charAt(next) == '\r') {
+                next++;
+            }
+            if (next < text.length() && text.charAt(next) == '\n' && (next == end || text.charAt(next - 1) == '\r')) {
+                next++;
+            }
+            lines.add(new Line(at, end, next));
+            at = next;
+        }
+        return lines;
+    }
+
+    /** The line's text without its break. */
+    String text(String content) {
+        return content.substring(start, end);
+    }
+
+    /** Whether the line holds nothing but spaces and tabs. */
+    boolean isBlank(String content) {
+        for (int i = start; i < end; i++) {
+            if (content.charAt(i) != ' ' && content.charAt(i) != '\t') {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /** The line break as written, empty for a last line without one. */
+    String lineBreak(String content) {
+        return content.substring(end, next);
+    }
+}

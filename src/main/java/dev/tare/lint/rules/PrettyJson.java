@@ -1,0 +1,135 @@
+package dev.tare.lint.rules;
+
+import com.fasterxml.jackson.core.StreamReadFeature;
+import com.fasterxml.jackson.databind.DeserializationFeature;
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.json.JsonMapper;
+import com.fasterxml.jackson.databind.node.JsonNodeFactory;
+import dev.tare.lint.Edit;
+import dev.tare.lint.Example;
+import dev.tare.lint.Fence;
+import dev.tare.lint.Finding;
+import dev.tare.lint.LintContext;
+import dev.tare.lint.MessageText;
+import dev.tare.lint.Region;
+import dev.tare.lint.RewriteClass;
+import dev.tare.lint.Rule;
+import dev.tare.lint.RuleDescriptor;
+import dev.tare.lint.Severity;
+import dev.tare.lint.TemplateText;
+import dev.tare.template.Template;
+import java.io.IOException;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+
+/**
+ * Pretty-printed JSON in a fenced {@code json} block, or a message that is nothing but pretty-printed
+ * JSON. The rewrite is the same value minified, and it is offered only after both sides are parsed
+ * (strictly: duplicate keys and trailing text refused, numbers kept exact) and found to be equal JSON
+ * trees, and every placeholder inside is kept in order.
+ */
+final class PrettyJson implements Rule {
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("pretty-json", Severity.WARNING, RewriteClass.SAFE,
+            "JSON written pretty-printed (indented, one member per line) in a fenced json block or as a whole message.",
+            "Indentation and line breaks are tokens; a model reads minified JSON just as well, so the layout"
+                    + " is paid for on every call. Pretty-printed examples often cost a third more than minified ones.",
+            "Write the JSON on one line, without spaces between members.",
+            Example.of("Reply with JSON like this:\n```json\n{\n  \"intent\": \"billing\",\n  \"urgent\": false\n}\n```\n",
+                    "Reply with JSON like this:\n```json\n{\"intent\":\"billing\",\"urgent\":false}\n```\n"));
+
+    private static final JsonMapper JSON = JsonMapper.builder()
+            .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
+            .enable(DeserializationFeature.USE_BIG_DECIMAL_FOR_FLOATS)
+            .enable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
+            .nodeFactory(JsonNodeFactory.withExactBigDecimals(true))
+            .build();
+
+    @Override
+    public RuleDescriptor descriptor() {
+        return DESCRIPTOR;
+    }
+
+    @Override
+    public List<Finding> check(Template template, LintContext context) {
+        TemplateText text = context.text(template);
+        List<Finding> findings = new ArrayList<>();
+        for (MessageText message : text.messages()) {
+            String content = message.content();
+            for (Fence fence : message.fences()) {
+                if (fence.closed() && fence.language().equals("json")) {
+                    String lineBreak = finalLineBreak(content, fence.bodyStart(), fence.bodyEnd());
+                    check(text, message, fence.bodyStart(), fence.bodyEnd(), lineBreak, context, template)
+                            .ifPresent(findings::add);
+                }
+            }
+            String stripped = content.strip();
+            if (message.fences().isEmpty() && (stripped.startsWith("{") || stripped.startsWith("["))) {
+                int start = content.indexOf(stripped.charAt(0));
+                check(text, message, start, start + stripped.length(), "", context, template).ifPresent(findings::add);
+            }
+        }
+        return findings;
+    }
+
+    private Optional<Finding> check(TemplateText text, MessageText message, int start, int end, String lineBreak,
+                                    LintContext context, Template template) {
+        String json = message.content().substring(start, end);
+        if (json.strip().isEmpty() || !json.contains("\n")) {
+            return Optional.empty();
+        }
+        Optional<String> minified = minify(json);
+        if (minified.isEmpty() || !keepsPlaceholders(message, start, end, minified.get())) {
+            return Optional.empty();
+        }
+        String replacement = minified.get() + lineBreak;
+        if (replacement.equals(json)) {
+            return Optional.empty();
+        }
+        int lines = (int) json.chars().filter(c -> c == '\n').count();
+        var rewrite = text.rewrite(message, List.of(new Edit(start, end, replacement)), context.tokenizer(template));
+        return Optional.of(text.finding(DESCRIPTOR, message, start, end,
+                "pretty-printed JSON over " + lines + " lines; the same JSON minified fits on one"
+                        + rewrite.map(r -> " and saves " + r.savingTokens() + " tokens").orElse(""),
+                rewrite, List.of()));
+    }
+
+    /** The minified form of {@code json}, when it parses and the minified text parses to an equal tree. */
+    static Optional<String> minify(String json) {
+        try {
+            JsonNode tree = JSON.readTree(json);
+            if (tree == null || !(tree.isObject() || tree.isArray())) {
+                return Optional.empty();
+            }
+            String minified = JSON.writeValueAsString(tree);
+            return JSON.readTree(minified).equals(tree) ? Optional.of(minified) : Optional.empty();
+        } catch (IOException e) {
+            return Optional.empty();
+        }
+    }
+
+    /** Whether every placeholder inside {@code [start, end)} appears, in order, in the minified text. */
+    private static boolean keepsPlaceholders(MessageText message, int start, int end, String minified) {
+        String content = message.content();
+        int at = 0;
+        for (Region region : message.regions()) {
+            if (region.kind() != Region.Kind.PLACEHOLDER || region.start() < start || region.end() > end) {
+                continue;
+            }
+            int found = minified.indexOf(content.substring(region.start(), region.end()), at);
+            if (found < 0) {
+                return false;
+            }
+            at = found + (region.end() - region.start());
+        }
+        return true;
+    }
+
+    private static String finalLineBreak(String content, int start, int end) {
+        if (end - start >= 2 && content.startsWith("\r\n", end - 2)) {
+            return "\r\n";
+        }
+        return end > start && (content.charAt(end - 1) == '\n' || content.charAt(end - 1) == '\r')
+                ? String.valueOf(content.charAt(end - 1)) : "";
+    }
+}

@@ -1,0 +1,64 @@
+package dev.tare.lint.rules;
+
+import dev.tare.lint.Edit;
+import dev.tare.lint.Example;
+import dev.tare.lint.Finding;
+import dev.tare.lint.LintContext;
+import dev.tare.lint.MessageText;
+import dev.tare.lint.RewriteClass;
+import dev.tare.lint.Rule;
+import dev.tare.lint.RuleDescriptor;
+import dev.tare.lint.Severity;
+import dev.tare.lint.TemplateText;
+import dev.tare.template.Template;
+import java.util.ArrayList;
+import java.util.List;
+
+/** A tab between words of a prose line; leading tabs (indentation) and trailing ones are other matters. */
+final class ProseTab implements Rule {
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("prose-tab", Severity.WARNING, RewriteClass.SAFE,
+            "A tab between words of a line of prose.",
+            "A tab inside prose usually costs a token of its own where a space would merge with the next word.",
+            "Use a single space.",
+            Example.of("Check the meter.\tThen call back.\n", "Check the meter. Then call back.\n"));
+
+    @Override
+    public RuleDescriptor descriptor() {
+        return DESCRIPTOR;
+    }
+
+    @Override
+    public List<Finding> check(Template template, LintContext context) {
+        TemplateText text = context.text(template);
+        List<Finding> findings = new ArrayList<>();
+        for (MessageText message : text.messages()) {
+            String content = message.content();
+            for (Line line : Line.of(content)) {
+                int i = line.start();
+                while (i < line.end() && (content.charAt(i) == ' ' || content.charAt(i) == '\t')) {
+                    i++;
+                }
+                while (i < line.end()) {
+                    char c = content.charAt(i);
+                    if (c != ' ' && c != '\t') {
+                        i++;
+                        continue;
+                    }
+                    int run = i;
+                    boolean tab = false;
+                    while (run < line.end() && (content.charAt(run) == ' ' || content.charAt(run) == '\t')) {
+                        tab |= content.charAt(run) == '\t';
+                        run++;
+                    }
+                    if (tab && run < line.end() && !message.isProtected(i, run)) {
+                        findings.add(text.finding(DESCRIPTOR, message, i, run, "a tab between words; use one space",
+                                text.rewrite(message, List.of(new Edit(i, run, " ")), context.tokenizer(template)),
+                                List.of()));
+                    }
+                    i = run;
+                }
+            }
+        }
+        return findings;
+    }
+}

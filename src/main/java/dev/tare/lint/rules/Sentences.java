@@ -1,0 +1,182 @@
+package dev.tare.lint.rules;
+
+import dev.tare.lint.MessageText;
+import dev.tare.lint.Region;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.regex.Pattern;
+
+/**
+ * The sentences of a message's prose, for the repeated-instruction rules. Text is cut into units
+ * (paragraphs, list items, headings; fenced code and lines that are only a tag end a unit) and units
+ * into sentences at {@code .}, {@code !} or {@code ?} followed by whitespace.
+ */
+final class Sentences {
+    /** Sentences shorter than this (in words) are too common to count as repeated instructions. */
+    static final int MIN_WORDS = 4;
+    private static final Pattern LIST_ITEM = Pattern.compile("^\\s*(?:[-*+]|\\d{1,3}[.)])\\s+");
+    private static final Pattern HEADING = Pattern.compile("^\\s{0,3}#{1,6}\\s");
+
+    private Sentences() {
+    }
+
+    /**
+     * One sentence.
+     *
+     * @param start      offset of its first character in the content
+     * @param end        offset just past its last character
+     * @param text       its text with runs of whitespace made single spaces
+     * @param unit       the unit it belongs to
+     */
+    record Sentence(int start, int end, String text, Unit unit) {
+        int words() {
+            return text.split(" ").length;
+        }
+    }
+
+    /**
+     * A paragraph, list item or heading.
+     *
+     * @param start      offset of its first character (after a list marker)
+     * @param end        offset just past its last character
+     * @param lineStart  offset of the start of its first line
+     * @param next       offset of the line after its last line
+     * @param listItem   whether it is a list item
+     */
+    record Unit(int start, int end, int lineStart, int next, boolean listItem) {
+    }
+
+    static List<Sentence> of(MessageText message) {
+        String content = message.content();
+        List<Unit> units = units(message, content);
+        List<Sentence> sentences = new ArrayList<>();
+        for (Unit unit : units) {
+            split(content, unit, sentences);
+        }
+        return sentences;
+    }
+
+    private static List<Unit> units(MessageText message, String content) {
+        List<Unit> units = new ArrayList<>();
+        int start = -1;
+        int lineStart = -1;
+        int end = -1;
+        int next = -1;
+        boolean listItem = false;
+        for (Line line : Line.of(content)) {
+            String text = line.text(content);
+            boolean breaks = line.isBlank(content) || message.touches(line.start(), line.end(), Region.Kind.FENCED_CODE)
+                    || onlyPlaceholders(message, line, content);
+            var item = LIST_ITEM.matcher(text);
+            boolean startsItem = item.find();
+            boolean heading = HEADING.matcher(text).find();
+            if (start >= 0 && (breaks || startsItem || heading)) {
+                units.add(new Unit(start, end, lineStart, next, listItem));
+                start = -1;
+            }
+            if (breaks) {
+                continue;
+            }
+            if (start < 0) {
+                lineStart = line.start();
+                start = line.start() + (startsItem ? item.end() : text.length() - text.stripLeading().length());
+                listItem = startsItem;
+            }
+            end = line.end();
+            next = line.next();
+            if (heading) {
+                units.add(new Unit(start, end, lineStart, next, false));
+                start = -1;
+            }
+        }
+        if (start >= 0) {
+            units.add(new Unit(start, end, lineStart, next, listItem));
+        }
+        return units;
+    }
+
+    private static boolean onlyPlaceholders(MessageText message, Line line, String content) {
+        for (int i = line.start(); i < line.end(); i++) {
+            char c = content.charAt(i);
+            if (c != ' ' && c != '\t' && !message.touches(i, i + 1, Region.Kind.PLACEHOLDER)) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    private static void split(String content, Unit unit, List<Sentence> out) {
+        int start = unit.start();
+        for (int i = unit.start(); i < unit.end(); i++) {
+            char c = content.charAt(i);
+            boolean ends = (c == '.' || c == '!' || c == '?')
+                    && (i + 1 == unit.end() || Character.isWhitespace(content.charAt(i + 1)));
+            if (ends) {
+                add(content, start, i + 1, unit, out);
+                start = i + 1;
+            }
+        }
+        add(content, start, unit.end(), unit, out);
+    }
+
+    private static void add(String content, int from, int to, Unit unit, List<Sentence> out) {
+        int start = from;
+        while (start < to && Character.isWhitespace(content.charAt(start))) {
+            start++;
+        }
+        int end = to;
+        while (end > start && Character.isWhitespace(content.charAt(end - 1))) {
+            end--;
+        }
+        if (end > start) {
+            out.add(new Sentence(start, end, content.substring(start, end).replaceAll("\\s+", " "), unit));
+        }
+    }
+
+    /**
+     * The text to delete to drop {@code sentence}: its whole unit's lines when it is the whole unit
+     * (with one following blank line when blank lines surround it), else the sentence and the
+     * whitespace that separates it from its neighbour; empty when it is in a list and lists are not allowed.
+     */
+    static java.util.Optional<int[]> removal(String content, Sentence sentence, List<Sentence> all, boolean allowList) {
+        Unit unit = sentence.unit();
+        if (unit.listItem() && !allowList) {
+            return java.util.Optional.empty();
+        }
+        if (sentence.start() == unit.start() && sentence.end() == unit.end()) {
+            int end = unit.next();
+            boolean blankBefore = unit.lineStart() == 0 || isBlankLineBefore(content, unit.lineStart());
+            Line following = end < content.length() ? Line.of(content.substring(end)).get(0) : null;
+            if (blankBefore && following != null && isBlank(content.substring(end, end + following.end()))) {
+                end += following.next();
+            }
+            return java.util.Optional.of(new int[] {unit.lineStart(), end});
+        }
+        int index = all.indexOf(sentence);
+        Sentence previous = index > 0 ? all.get(index - 1) : null;
+        if (previous != null && previous.unit().equals(unit)) {
+            return java.util.Optional.of(new int[] {previous.end(), sentence.end()});
+        }
+        Sentence following = index + 1 < all.size() ? all.get(index + 1) : null;
+        if (following != null && following.unit().equals(unit)) {
+            return java.util.Optional.of(new int[] {sentence.start(), following.start()});
+        }
+        return java.util.Optional.empty();
+    }
+
+    private static boolean isBlankLineBefore(String content, int lineStart) {
+        int end = lineStart - 1;
+        if (end > 0 && content.charAt(end) == '\n' && content.charAt(end - 1) == '\r') {
+            end--;
+        }
+        int start = end;
+        while (start > 0 && content.charAt(start - 1) != '\n' && content.charAt(start - 1) != '\r') {
+            start--;
+        }
+        return isBlank(content.substring(start, end));
+    }
+
+    private static boolean isBlank(String text) {
+        return text.chars().allMatch(c -> c == ' ' || c == '\t');
+    }
+}

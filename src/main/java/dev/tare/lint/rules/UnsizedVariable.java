@@ -1,0 +1,89 @@
+package dev.tare.lint.rules;
+
+import dev.tare.lint.Example;
+import dev.tare.lint.Finding;
+import dev.tare.lint.LintContext;
+import dev.tare.lint.MessageText;
+import dev.tare.lint.RewriteClass;
+import dev.tare.lint.Rule;
+import dev.tare.lint.RuleDescriptor;
+import dev.tare.lint.Severity;
+import dev.tare.lint.TemplateText;
+import dev.tare.template.Segment;
+import dev.tare.template.Template;
+import dev.tare.template.VariableSpec;
+import java.util.ArrayList;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Optional;
+import java.util.Set;
+
+/**
+ * A variable the template reads that is declared with neither a token size nor a sample, so every
+ * estimate leaves it out. Names used only in conditions are reported too when they are not declared
+ * at all; loop variables and names inside sections are local and never reported.
+ */
+final class UnsizedVariable implements Rule {
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("unsized-variable", Severity.INFO, RewriteClass.NONE,
+            "A variable with neither a token size nor a sample value.",
+            "Estimated tokens, budgets and costs count a variable only through its declared size or sample;"
+                    + " without one the estimate silently leaves the variable out and reads low.",
+            "Declare the variable in front matter with {tokens: N} or {sample: \"...\"}.",
+            Example.of("Summarise {{ ticket_text }} in one line.\n",
+                    "---\nvariables:\n  ticket_text: {tokens: 300}\n---\nSummarise {{ ticket_text }} in one line.\n"));
+
+    @Override
+    public RuleDescriptor descriptor() {
+        return DESCRIPTOR;
+    }
+
+    @Override
+    public List<Finding> check(Template template, LintContext context) {
+        TemplateText text = context.text(template);
+        List<Finding> findings = new ArrayList<>();
+        Set<String> reported = new HashSet<>();
+        for (TemplateNames.Use use : TemplateNames.of(template)) {
+            if (use.local() || reported.contains(use.name())) {
+                continue;
+            }
+            Optional<VariableSpec> spec = declaration(template, use.name());
+            String message;
+            if (use.rendered() && (spec.isEmpty() || !spec.get().isSized())) {
+                message = "'" + use.name() + "' has neither a size nor a sample, so estimates leave it out; declare"
+                        + " variables: {" + use.root() + ": {tokens: N}} or {sample: \"...\"}";
+            } else if (!use.rendered() && spec.isEmpty()) {
+                message = "'" + use.name() + "' decides what is sent but is not declared; declare it under variables"
+                        + " (a sample or size documents the input)";
+            } else {
+                continue;
+            }
+            reported.add(use.name());
+            Location at = locate(text, template, use.segment());
+            findings.add(text.finding(DESCRIPTOR, at.message(), at.start(), at.end(), message, Optional.empty(), List.of()));
+        }
+        return findings;
+    }
+
+    private static Optional<VariableSpec> declaration(Template template, String name) {
+        var declared = template.meta().variables();
+        if (declared.containsKey(name)) {
+            return Optional.of(declared.get(name));
+        }
+        int dot = name.indexOf('.');
+        return dot < 0 ? Optional.empty() : Optional.ofNullable(declared.get(name.substring(0, dot)));
+    }
+
+    /** Where a segment stands, as a message and content offsets. */
+    record Location(MessageText message, int start, int end) {
+    }
+
+    static Location locate(TemplateText text, Template template, Segment segment) {
+        int base = template.isChat() ? 0 : template.bodyStart();
+        for (MessageText message : text.messages()) {
+            if (message.message().segments().contains(segment)) {
+                return new Location(message, segment.span().start() - base, segment.span().end() - base);
+            }
+        }
+        return new Location(text.messages().get(0), 0, 0);
+    }
+}

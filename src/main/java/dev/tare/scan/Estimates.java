@@ -1,0 +1,36 @@
+package dev.tare.scan;
+
+import dev.tare.template.Rendering;
+import dev.tare.tokenize.Tokenizer;
+
+/** The estimated-tokens formula of the design, in one place for every command that reports it. */
+public final class Estimates {
+    private Estimates() {
+    }
+
+    /** Estimated tokens: the rendering with samples counted message by message, plus declared sizes. */
+    public static int estimatedTokens(Tokenizer tokenizer, Rendering samples) {
+        return tokens(tokenizer, samples) + declaredTokens(samples);
+    }
+
+    /** The tokens of each rendered message, summed. */
+    public static int tokens(Tokenizer tokenizer, Rendering rendering) {
+        int total = 0;
+        for (String message : rendering.messages()) {
+            total += tokenizer.count(message);
+        }
+        return total;
+    }
+
+    /** Tokens declared for variables without samples, once per occurrence. */
+    public static int declaredTokens(Rendering rendering) {
+        int total = 0;
+        for (Rendering.Occurrence occurrence : rendering.variables()) {
+            var spec = occurrence.spec();
+            if (spec.isPresent() && spec.get().sample().isEmpty() && spec.get().tokens().isPresent()) {
+                total += spec.get().tokens().getAsInt();
+            }
+        }
+        return total;
+    }
+}
