@@ -1,0 +1,65 @@
+package dev.tare.cli;
+
+import dev.tare.lint.Check;
+import dev.tare.lint.CheckOptions;
+import dev.tare.lint.CheckResult;
+import dev.tare.lint.Severity;
+import dev.tare.report.CheckReport;
+import dev.tare.scan.Workspace;
+import dev.tare.tokenize.TokenizerRegistry;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+/** {@code tare check}: runs the rules over every template and fails on findings at or above a severity. */
+@Command(name = "check", mixinStandardHelpOptions = true,
+        description = {"Runs every enabled rule over the templates of a repository and prints the findings"
+                + " (path:line:column, severity, rule, message, and the token saving where a rewrite exists).",
+                "Exits 1 when a finding is at or above --fail-on, 0 otherwise, 2 on a usage or configuration error.",
+                "Silence a rule on one line with {# tare-ignore RULE #}, on the next line with"
+                        + " {# tare-ignore-next-line RULE #}, or in the whole file with tare-ignore-file RULE"
+                        + " (for example as a YAML comment in front matter)."})
+final class CheckCommand implements Callable<Integer> {
+    enum Format { text, json, sarif }
+
+    enum Level { error, warning, info }
+
+    @Spec
+    private CommandSpec spec;
+
+    @Mixin
+    private CommonOptions common;
+
+    @Parameters(paramLabel = "PATH", arity = "0..*",
+            description = "Folders or files to check, inside one repository. Default: the current folder.")
+    private List<Path> paths = new ArrayList<>();
+
+    @Option(names = "--format", paramLabel = "FORMAT", description = "Output format: ${COMPLETION-CANDIDATES}. Default: ${DEFAULT-VALUE}.")
+    private Format format = Format.text;
+
+    @Option(names = "--fail-on", paramLabel = "SEVERITY",
+            description = "Exit 1 when any finding is at or above this severity: ${COMPLETION-CANDIDATES}. Default: ${DEFAULT-VALUE}.")
+    private Level failOn = Level.error;
+
+    @Override
+    public Integer call() {
+        Workspace workspace = Workspace.open(paths, common.configFile());
+        CheckResult result = new Check(workspace, new TokenizerRegistry())
+                .run(new CheckOptions(Severity.parse(failOn.name(), "--fail-on")));
+        String report = switch (format) {
+            case text -> CheckReport.text(result);
+            case json -> CheckReport.json(result);
+            case sarif -> CheckReport.sarif(result);
+        };
+        spec.commandLine().getOut().print(report);
+        spec.commandLine().getOut().flush();
+        return result.failed() ? ExitCodes.FINDINGS : ExitCodes.OK;
+    }
+}

@@ -1,0 +1,61 @@
+package dev.tare.cli;
+
+import dev.tare.lint.ExampleRunner;
+import dev.tare.lint.RuleCatalog;
+import dev.tare.report.RuleReport;
+import dev.tare.scan.Workspace;
+import java.util.List;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+/** {@code tare rules}: lists every rule; {@code tare rules test} runs every rule's examples. */
+@Command(name = "rules", mixinStandardHelpOptions = true,
+        description = {"Lists every rule: the built-in ones, the packs shipped with Tare and the packs named in"
+                + " rules.packs of tare.yaml, with each rule's rewrite class, severity in force and summary."},
+        subcommands = RulesCommand.Test.class)
+final class RulesCommand implements Callable<Integer> {
+    enum Format { text, json }
+
+    @Spec
+    private CommandSpec spec;
+
+    @Mixin
+    private CommonOptions common;
+
+    @Option(names = "--format", paramLabel = "FORMAT", description = "Output format: ${COMPLETION-CANDIDATES}. Default: ${DEFAULT-VALUE}.")
+    private Format format = Format.text;
+
+    @Override
+    public Integer call() {
+        RuleCatalog catalog = RuleCatalog.load(Workspace.open(List.of(), common.configFile()).config());
+        spec.commandLine().getOut().print(format == Format.json ? RuleReport.listJson(catalog) : RuleReport.list(catalog));
+        spec.commandLine().getOut().flush();
+        return ExitCodes.OK;
+    }
+
+    /** {@code tare rules test}: runs every rule's worked examples and reports the ones that fail. */
+    @Command(name = "test", mixinStandardHelpOptions = true,
+            description = {"Runs the worked examples of every rule (rule packs and built-in rules): each rule must"
+                    + " flag its 'before' text, must not flag its 'after' text, and its rewrites must turn one into"
+                    + " the other exactly. Exits 1 when an example fails."})
+    static final class Test implements Callable<Integer> {
+        @Spec
+        private CommandSpec spec;
+
+        @Mixin
+        private CommonOptions common;
+
+        @Override
+        public Integer call() {
+            RuleCatalog catalog = RuleCatalog.load(Workspace.open(List.of(), common.configFile()).config());
+            List<ExampleRunner.Outcome> outcomes = ExampleRunner.runAll(catalog);
+            spec.commandLine().getOut().print(RuleReport.testResults(outcomes));
+            spec.commandLine().getOut().flush();
+            return outcomes.stream().allMatch(ExampleRunner.Outcome::passed) ? ExitCodes.OK : ExitCodes.FINDINGS;
+        }
+    }
+}

@@ -1,0 +1,242 @@
+package dev.tare.report;
+
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.tare.Tare;
+import dev.tare.lint.CheckResult;
+import dev.tare.lint.Edit;
+import dev.tare.lint.Finding;
+import dev.tare.lint.Related;
+import dev.tare.lint.RewriteClass;
+import dev.tare.lint.Rewrite;
+import dev.tare.lint.RuleDescriptor;
+import dev.tare.lint.Severity;
+import dev.tare.source.SkippedFile;
+import java.util.HashMap;
+import java.util.Map;
+
+/** Renders a {@link CheckResult} as text lines, as the JSON document of the design contract, or as SARIF 2.1.0. */
+public final class CheckReport {
+    /** What every output says about token figures. */
+    static final String ESTIMATE_NOTE = "Token savings are planning estimates from the template's tokenizer,"
+            + " not measurements or invoices.";
+    private static final String SARIF_SCHEMA = "https://json.schemastore.org/sarif-2.1.0.json";
+    private static final String ROOT_BASE = "SRCROOT";
+
+    private CheckReport() {
+    }
+
+    /** One line per finding ({@code path:line:col: severity rule: message}), then a summary. */
+    public static String text(CheckResult result) {
+        StringBuilder out = new StringBuilder();
+        for (Finding finding : result.findings()) {
+            out.append(finding.path()).append(':').append(finding.line()).append(':').append(finding.column())
+                    .append(": ").append(finding.severity().label()).append(' ').append(finding.rule()).append(": ")
+                    .append(finding.message());
+            finding.rewrite().ifPresent(rewrite -> out.append(" [").append(finding.rewriteClass().label())
+                    .append(" rewrite, saves ").append(tokens(rewrite.savingTokens())).append(']'));
+            out.append('\n');
+            for (Related related : finding.related()) {
+                out.append("    ").append(related.message()).append(": ").append(related.path()).append(':')
+                        .append(related.line()).append(':').append(related.column()).append('\n');
+            }
+        }
+        if (!result.findings().isEmpty()) {
+            out.append('\n');
+        }
+        out.append("Checked ").append(plural(result.templates(), "template")).append(" with ")
+                .append(plural(result.rules().size(), "rule")).append(": ")
+                .append(plural(result.count(Severity.ERROR), "error")).append(", ")
+                .append(plural(result.count(Severity.WARNING), "warning")).append(", ")
+                .append(plural(result.count(Severity.INFO), "info")).append(" in ")
+                .append(plural(result.filesWithFindings(), "file")).append(".\n");
+        if (result.rewrites() > 0) {
+            out.append(plural(result.rewrites(), "finding")).append(" offer a rewrite; together they save about ")
+                    .append(tokens(result.savingTokens())).append(" per call. ").append(ESTIMATE_NOTE).append('\n');
+        }
+        out.append(result.failed() ? "Failed: findings at or above " + result.failOn().label() + ".\n"
+                : "Passed: no findings at or above " + result.failOn().label() + ".\n");
+        if (!result.skipped().isEmpty()) {
+            out.append("\nSkipped ").append(plural(result.skipped().size(), "file")).append(":\n");
+            for (SkippedFile skipped : result.skipped()) {
+                out.append("  ").append(skipped.path()).append(": ").append(skipped.reason()).append('\n');
+            }
+        }
+        return out.toString();
+    }
+
+    /** The {@code check} JSON document of the design contract. */
+    public static String json(CheckResult result) {
+        ObjectNode root = Json.report();
+        root.put("root", result.root());
+        ArrayNode findings = root.putArray("findings");
+        for (Finding finding : result.findings()) {
+            ObjectNode node = findings.addObject();
+            node.put("path", finding.path());
+            node.put("line", finding.line());
+            node.put("column", finding.column());
+            node.put("end_line", finding.endLine());
+            node.put("end_column", finding.endColumn());
+            node.put("rule", finding.rule());
+            node.put("severity", finding.severity().label());
+            node.put("message", finding.message());
+            node.put("rewrite_class", finding.rewrite().isPresent() ? finding.rewriteClass().label() : RewriteClass.NONE.label());
+            if (finding.rewrite().isPresent()) {
+                node.put("saving_tokens", finding.rewrite().get().savingTokens());
+            } else {
+                node.putNull("saving_tokens");
+            }
+            ArrayNode related = node.putArray("related");
+            for (Related place : finding.related()) {
+                related.addObject().put("path", place.path()).put("line", place.line()).put("column", place.column())
+                        .put("message", place.message());
+            }
+            ArrayNode edits = node.putArray("edits");
+            finding.rewrite().ifPresent(rewrite -> rewrite.edits().forEach(edit -> edits.addObject()
+                    .put("start", edit.start()).put("end", edit.end()).put("replacement", edit.replacement())));
+        }
+        ObjectNode summary = root.putObject("summary");
+        summary.put("templates", result.templates());
+        summary.put("rules", result.rules().size());
+        summary.put("findings", result.findings().size());
+        summary.put("errors", result.count(Severity.ERROR));
+        summary.put("warnings", result.count(Severity.WARNING));
+        summary.put("infos", result.count(Severity.INFO));
+        summary.put("files_with_findings", result.filesWithFindings());
+        summary.put("rewrites", result.rewrites());
+        summary.put("saving_tokens", result.savingTokens());
+        summary.put("fail_on", result.failOn().label());
+        summary.put("failed", result.failed());
+        summary.put("note", ESTIMATE_NOTE);
+        ArrayNode skipped = root.putArray("skipped");
+        for (SkippedFile file : result.skipped()) {
+            skipped.addObject().put("path", file.path()).put("reason", file.reason());
+        }
+        return Json.write(root);
+    }
+
+    /**
+     * A SARIF 2.1.0 log: one run whose driver lists every rule that ran (with its summary, why, help
+     * and default level), one result per finding with its location, related locations and, for a
+     * rewrite, a fix. Columns are Unicode code points; paths are relative to {@value #ROOT_BASE}.
+     */
+    public static String sarif(CheckResult result) {
+        ObjectNode log = Json.MAPPER.createObjectNode();
+        log.put("$schema", SARIF_SCHEMA);
+        log.put("version", "2.1.0");
+        ObjectNode run = log.putArray("runs").addObject();
+        ObjectNode driver = run.putObject("tool").putObject("driver");
+        driver.put("name", "tare");
+        driver.put("version", Tare.version());
+        driver.put("semanticVersion", Tare.version().replace("-SNAPSHOT", ""));
+        ArrayNode rules = driver.putArray("rules");
+        Map<String, Integer> index = new HashMap<>();
+        for (RuleDescriptor rule : result.rules()) {
+            index.put(rule.id(), index.size());
+            ObjectNode node = rules.addObject();
+            node.put("id", rule.id());
+            node.put("name", pascal(rule.id()));
+            node.putObject("shortDescription").put("text", rule.summary());
+            node.putObject("fullDescription").put("text", rule.why());
+            node.putObject("help").put("text", RuleReport.explainText(rule));
+            node.putObject("defaultConfiguration").put("level", level(rule.severity()));
+            ObjectNode properties = node.putObject("properties");
+            properties.put("rewrite_class", rule.rewriteClass().label());
+            properties.put("origin", rule.origin());
+        }
+        run.putObject("originalUriBaseIds").putObject(ROOT_BASE).putObject("description")
+                .put("text", "The checked root: " + result.root());
+        run.put("columnKind", "unicodeCodePoints");
+        ArrayNode results = run.putArray("results");
+        for (Finding finding : result.findings()) {
+            ObjectNode node = results.addObject();
+            node.put("ruleId", finding.rule());
+            Integer ruleIndex = index.get(finding.rule());
+            if (ruleIndex != null) {
+                node.put("ruleIndex", ruleIndex);
+            }
+            node.put("level", level(finding.severity()));
+            node.putObject("message").put("text", finding.message());
+            ObjectNode location = node.putArray("locations").addObject();
+            physical(location.putObject("physicalLocation"), finding.path(), finding.line(), finding.column(),
+                    finding.endLine(), finding.endColumn());
+            if (!finding.related().isEmpty()) {
+                ArrayNode related = node.putArray("relatedLocations");
+                int id = 1;
+                for (Related place : finding.related()) {
+                    ObjectNode item = related.addObject();
+                    item.put("id", id++);
+                    physical(item.putObject("physicalLocation"), place.path(), place.line(), place.column(), place.line(),
+                            place.column());
+                    item.putObject("message").put("text", place.message());
+                }
+            }
+            finding.rewrite().ifPresent(rewrite -> fix(node, finding, rewrite));
+            node.putObject("properties").put("saving_tokens", finding.savingTokens())
+                    .put("rewrite_class", finding.rewriteClass().label());
+        }
+        run.putObject("properties").put("note", ESTIMATE_NOTE);
+        return Json.write(log);
+    }
+
+    private static void fix(ObjectNode result, Finding finding, Rewrite rewrite) {
+        ObjectNode fix = result.putArray("fixes").addObject();
+        fix.putObject("description").put("text", finding.rewriteClass().label() + " rewrite, saves "
+                + tokens(rewrite.savingTokens()) + " (planning estimate)");
+        ObjectNode change = fix.putArray("artifactChanges").addObject();
+        change.putObject("artifactLocation").put("uri", uri(finding.path())).put("uriBaseId", ROOT_BASE);
+        ArrayNode replacements = change.putArray("replacements");
+        for (Edit edit : rewrite.edits()) {
+            ObjectNode replacement = replacements.addObject();
+            replacement.putObject("deletedRegion").put("charOffset", edit.start()).put("charLength", edit.end() - edit.start());
+            replacement.putObject("insertedContent").put("text", edit.replacement());
+        }
+    }
+
+    private static void physical(ObjectNode node, String path, int line, int column, int endLine, int endColumn) {
+        node.putObject("artifactLocation").put("uri", uri(path)).put("uriBaseId", ROOT_BASE);
+        ObjectNode region = node.putObject("region");
+        region.put("startLine", line);
+        region.put("startColumn", column);
+        region.put("endLine", endLine);
+        region.put("endColumn", endColumn);
+    }
+
+    /** A relative URI reference for a root-relative path: each segment percent-encoded as RFC 3986 requires. */
+    static String uri(String path) {
+        StringBuilder out = new StringBuilder();
+        for (byte b : path.getBytes(java.nio.charset.StandardCharsets.UTF_8)) {
+            int c = b & 0xFF;
+            if ((c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z') || (c >= '0' && c <= '9') || "-._~/".indexOf(c) >= 0) {
+                out.append((char) c);
+            } else {
+                out.append('%').append(String.format(java.util.Locale.ROOT, "%02X", c));
+            }
+        }
+        return out.toString();
+    }
+
+    private static String level(Severity severity) {
+        return switch (severity) {
+            case ERROR -> "error";
+            case WARNING -> "warning";
+            case INFO -> "note";
+        };
+    }
+
+    private static String pascal(String id) {
+        StringBuilder out = new StringBuilder();
+        for (String part : id.split("-")) {
+            out.append(Character.toUpperCase(part.charAt(0))).append(part.substring(1));
+        }
+        return out.toString();
+    }
+
+    static String plural(long count, String word) {
+        return TextTable.number(count) + " " + word + (count == 1 ? "" : "s");
+    }
+
+    private static String tokens(long count) {
+        return plural(count, "token");
+    }
+}
