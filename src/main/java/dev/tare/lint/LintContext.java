@@ -31,6 +31,9 @@ public final class LintContext {
      */
     public static final int DEFAULT_PREFIX_CACHE_MIN_TOKENS = 1024;
 
+    /** Shared by every example run, so each encoding is loaded once per process. */
+    private static final TokenizerRegistry EXAMPLE_TOKENIZERS = new TokenizerRegistry();
+
     private final TareConfig config;
     private final TokenizerRegistry tokenizers;
     private final Renderer renderer;
@@ -55,7 +58,7 @@ public final class LintContext {
 
     /** A context for running one rule's examples: default configuration, no includes, no other templates. */
     public static LintContext forExample(Path root, Example example, Set<String> ruleIds) {
-        return new LintContext(TareConfig.defaults(root), new TokenizerRegistry(), new Renderer(IncludeResolver.NONE),
+        return new LintContext(TareConfig.defaults(root), EXAMPLE_TOKENIZERS, new Renderer(IncludeResolver.NONE),
                 List.of(), ruleIds, example.settings());
     }
 

@@ -149,6 +149,8 @@ final class Sentences {
             Line following = end < content.length() ? Line.of(content.substring(end)).get(0) : null;
             if (blankBefore && following != null && isBlank(content.substring(end, end + following.end()))) {
                 end += following.next();
+            } else if (blankBefore && following == null && unit.lineStart() > 0) {
+                return java.util.Optional.of(new int[] {previousLineStart(content, unit.lineStart()), end});
             }
             return java.util.Optional.of(new int[] {unit.lineStart(), end});
         }
@@ -162,6 +164,18 @@ final class Sentences {
             return java.util.Optional.of(new int[] {sentence.start(), following.start()});
         }
         return java.util.Optional.empty();
+    }
+
+    private static int previousLineStart(String content, int lineStart) {
+        int end = lineStart - 1;
+        if (end > 0 && content.charAt(end) == '\n' && content.charAt(end - 1) == '\r') {
+            end--;
+        }
+        int start = end;
+        while (start > 0 && content.charAt(start - 1) != '\n' && content.charAt(start - 1) != '\r') {
+            start--;
+        }
+        return start;
     }
 
     private static boolean isBlankLineBefore(String content, int lineStart) {

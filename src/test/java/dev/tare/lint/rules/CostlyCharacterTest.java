@@ -1,0 +1,56 @@
+package dev.tare.lint.rules;
+
+import static dev.tare.lint.RuleHarness.findings;
+import static dev.tare.lint.RuleHarness.fixed;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.tare.lint.Finding;
+import dev.tare.tokenize.Tokenizer;
+import dev.tare.tokenize.TokenizerRegistry;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+
+/**
+ * Costly characters are decided by measurement. Every expectation here is first checked against
+ * the tokenizer itself (jtokkit 1.1.0's o200k_base, the default encoding), so the test follows the
+ * encoding rather than a list.
+ */
+class CostlyCharacterTest {
+    private final CostlyCharacter rule = new CostlyCharacter();
+    private final Tokenizer o200k = new TokenizerRegistry().get("o200k_base", java.nio.file.Path.of("."));
+
+    @Test
+    void anEmojiThatCostsTokensIsFlaggedAndDroppedForReview() {
+        String text = "Report the leak \uD83D\uDCA7 and call back.\n";
+        assertTrue(o200k.count(text) > o200k.count("Report the leak and call back.\n"), "precondition on o200k_base");
+        List<Finding> found = findings(rule, text);
+        assertEquals(1, found.size());
+        assertEquals(17, found.get(0).column());
+        assertEquals("Report the leak and call back.\n", fixed(rule, text));
+    }
+
+    @Test
+    void aCharacterThatCostsNoMoreThanItsPlainFormIsNotFlagged() {
+        String text = "Press A \u2192 then B.\n";
+        assertEquals(o200k.count(text), o200k.count("Press A -> then B.\n"), "precondition on o200k_base");
+        assertTrue(findings(rule, text).isEmpty());
+    }
+
+    @Test
+    void aCurlyApostropheIsFlaggedOnlyWhereItCostsMore() {
+        String costly = "I haven\u2019t done anything.\n";
+        String plain = "I haven't done anything.\n";
+        boolean costs = o200k.count(costly) > o200k.count(plain);
+        assertEquals(costs, !findings(rule, costly).isEmpty());
+        if (costs) {
+            assertEquals(plain, fixed(rule, costly));
+        }
+    }
+
+    @Test
+    void asciiTextAndCodeAreNeverFlagged() {
+        assertTrue(findings(rule, "Plain ASCII only -> fine.\n").isEmpty());
+        assertTrue(findings(rule, "`\uD83D\uDCA7`\n").isEmpty());
+    }
+}

@@ -1,0 +1,42 @@
+package dev.tare.lint.rules;
+
+import static dev.tare.lint.RuleHarness.findings;
+import static dev.tare.lint.RuleHarness.fixed;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.tare.lint.Finding;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+
+/** Invisible characters; code points as named in The Unicode Standard 15.0, chapter 23 (format characters). */
+class InvisibleCharacterTest {
+    private final InvisibleCharacter rule = new InvisibleCharacter();
+
+    @Test
+    void zeroWidthAndSoftHyphenAreRemovedAndNoBreakSpacesBecomeSpaces() {
+        String text = "ad\u200Bjust ner\u00ADvous 555\u00A00177 word\u2060joined mid\uFEFFline a\u202Fb\n";
+        List<Finding> found = findings(rule, text);
+        assertEquals(6, found.size());
+        assertEquals(3, found.get(0).column());
+        assertEquals("adjust nervous 555 0177 wordjoined midline a b\n", fixed(rule, text));
+    }
+
+    @Test
+    void aJoinerInsideAnEmojiSequenceIsMeaningful() {
+        String family = "\uD83D\uDC69\u200D\uD83D\uDC67";
+        assertTrue(findings(rule, "Family " + family + " here.\n").isEmpty());
+    }
+
+    @Test
+    void aNonJoinerBetweenPersianLettersIsMeaningfulButBetweenLatinLettersIsNot() {
+        assertTrue(findings(rule, "\u0645\u06CC\u200C\u062E\u0648\u0627\u0647\u0645\n").isEmpty());
+        assertEquals("ab\n", fixed(rule, "a\u200Cb\n"));
+    }
+
+    @Test
+    void insideCodeNothingIsTouched() {
+        assertTrue(findings(rule, "`a\u200Bb`\n").isEmpty());
+        assertTrue(findings(rule, "Plain text.\n").isEmpty());
+    }
+}

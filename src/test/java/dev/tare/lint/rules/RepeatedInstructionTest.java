@@ -1,0 +1,68 @@
+package dev.tare.lint.rules;
+
+import static dev.tare.lint.RuleHarness.findings;
+import static dev.tare.lint.RuleHarness.fixed;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.tare.lint.Finding;
+import dev.tare.lint.RewriteClass;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+
+/** Exact and near repeats within one template. */
+class RepeatedInstructionTest {
+    private final RepeatedInstruction exact = new RepeatedInstruction();
+    private final NearDuplicateInstruction near = new NearDuplicateInstruction();
+
+    @Test
+    void theLaterCopyOfARepeatedSentenceIsDroppedWithItsParagraph() {
+        String text = "Greet them. Ask whether the water is clear or discoloured.\n\nCheck the meter.\n\n"
+                + "Ask whether the water is clear or discoloured.\n\nClose politely.\n";
+        List<Finding> found = findings(exact, text);
+        assertEquals(1, found.size());
+        assertEquals(5, found.get(0).line());
+        assertEquals(1, found.get(0).related().get(0).line());
+        assertEquals("Greet them. Ask whether the water is clear or discoloured.\n\nCheck the meter.\n\nClose politely.\n",
+                fixed(exact, text));
+    }
+
+    @Test
+    void aRepeatInsideAParagraphIsCutWithTheSpaceBeforeIt() {
+        String text = "Keep every answer short and plain. Use the account notes. Keep every answer short and plain.\n";
+        assertEquals("Keep every answer short and plain. Use the account notes.\n", fixed(exact, text));
+    }
+
+    @Test
+    void repeatsInListsOrWithPlaceholdersAreFlaggedWithoutARewrite() {
+        String list = "- Never read out a full account number.\n- Check the meter.\n- Never read out a full account number.\n";
+        List<Finding> found = findings(exact, list);
+        assertEquals(1, found.size());
+        assertTrue(found.get(0).rewrite().isEmpty());
+        String variable = "Greet {{ name }} by their first name.\n\nGreet {{ name }} by their first name.\n";
+        assertTrue(findings(exact, variable).get(0).rewrite().isEmpty());
+    }
+
+    @Test
+    void shortPhrasesAndCodeAreNotRepeatedInstructions() {
+        assertTrue(findings(exact, "Thank you.\n\nThank you.\n").isEmpty());
+        assertTrue(findings(exact, "```\nprint the full bill now\n```\n```\nprint the full bill now\n```\n").isEmpty());
+    }
+
+    @Test
+    void aReworderRuleIsANearDuplicateForReview() {
+        String text = "Never agree to a plan longer than twelve months without a supervisor.\n\n"
+                + "Do not agree to any plan longer than 12 months unless a supervisor approves it.\n";
+        List<Finding> found = findings(near, text);
+        assertEquals(1, found.size());
+        assertEquals(3, found.get(0).line());
+        assertEquals(RewriteClass.REVIEW, found.get(0).rewriteClass());
+    }
+
+    @Test
+    void sentencesThatShareOnlyTheirShapeAreNotNearDuplicates() {
+        String text = "Everything from the water main up to and including the meter belongs to Brookmere Water.\n"
+                + "Everything from the meter to the building belongs to the property owner.\n";
+        assertTrue(findings(near, text).isEmpty());
+    }
+}
