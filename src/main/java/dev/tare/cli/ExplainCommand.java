@@ -2,8 +2,6 @@ package dev.tare.cli;
 
 import dev.tare.lint.RuleCatalog;
 import dev.tare.report.RuleReport;
-import dev.tare.scan.Workspace;
-import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -27,7 +25,7 @@ final class ExplainCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        RuleCatalog catalog = RuleCatalog.load(Workspace.open(List.of(), common.configFile()).config());
+        RuleCatalog catalog = RulesCommand.catalog(common);
         spec.commandLine().getOut().print(RuleReport.explainText(catalog.rule(rule).descriptor()));
         spec.commandLine().getOut().flush();
         return ExitCodes.OK;

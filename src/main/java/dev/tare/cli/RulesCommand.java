@@ -4,6 +4,7 @@ import dev.tare.lint.ExampleRunner;
 import dev.tare.lint.RuleCatalog;
 import dev.tare.report.RuleReport;
 import dev.tare.scan.Workspace;
+import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -31,10 +32,16 @@ final class RulesCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        RuleCatalog catalog = RuleCatalog.load(Workspace.open(List.of(), common.configFile()).config());
+        RuleCatalog catalog = catalog(common);
         spec.commandLine().getOut().print(format == Format.json ? RuleReport.listJson(catalog) : RuleReport.list(catalog));
         spec.commandLine().getOut().flush();
         return ExitCodes.OK;
+    }
+
+    /** The rules of the repository in the current folder, or of the one {@code --config} names. */
+    static RuleCatalog catalog(CommonOptions common) {
+        List<Path> start = common.configFile().map(f -> List.of(f.toAbsolutePath().getParent())).orElse(List.of());
+        return RuleCatalog.load(Workspace.open(start, common.configFile()).config());
     }
 
     /** {@code tare rules test}: runs every rule's worked examples and reports the ones that fail. */
@@ -51,7 +58,7 @@ final class RulesCommand implements Callable<Integer> {
 
         @Override
         public Integer call() {
-            RuleCatalog catalog = RuleCatalog.load(Workspace.open(List.of(), common.configFile()).config());
+            RuleCatalog catalog = catalog(common);
             List<ExampleRunner.Outcome> outcomes = ExampleRunner.runAll(catalog);
             spec.commandLine().getOut().print(RuleReport.testResults(outcomes));
             spec.commandLine().getOut().flush();

@@ -1,0 +1,122 @@
+package dev.tare.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/** The check, rules and explain commands, driven as the launcher drives them; exit codes per design.md's contract. */
+class LintCommandsTest {
+    private static final Path ROOT = Path.of(System.getProperty("tare.project.dir", "."));
+
+    @TempDir
+    Path dir;
+
+    private record Run(int code, String out, String err) {
+    }
+
+    private static Run run(String... args) {
+        StringWriter out = new StringWriter();
+        StringWriter err = new StringWriter();
+        int code = TareCommand.commandLine(new PrintWriter(out), new PrintWriter(err)).execute(args);
+        return new Run(code, out.toString(), err.toString());
+    }
+
+    private Path repo(String config, String template) throws IOException {
+        Files.createDirectories(dir.resolve("prompts"));
+        Files.writeString(dir.resolve("tare.yaml"), config);
+        Files.writeString(dir.resolve("prompts/a.md"), template);
+        return dir;
+    }
+
+    @Test
+    void warningsPassByDefaultAndFailWithFailOnWarning() throws IOException {
+        Path repo = repo("templates: {include: [\"prompts/**/*.md\"]}\n", "Be brief.  \n");
+        Run passing = run("check", repo.toString());
+        assertEquals(0, passing.code(), passing.err());
+        assertTrue(passing.out().startsWith("prompts/a.md:1:10: warning trailing-whitespace: "), passing.out());
+        assertEquals(1, run("check", repo.toString(), "--fail-on", "warning").code());
+        assertEquals(0, run("check", repo.toString(), "--fail-on", "error").code());
+    }
+
+    @Test
+    void aCleanRepositoryExitsZeroEvenOnInfo() throws IOException {
+        Path repo = repo("templates: {include: [\"prompts/**/*.md\"]}\n", "Be brief.\n");
+        Run result = run("check", repo.toString(), "--fail-on", "info");
+        assertEquals(0, result.code(), result.out());
+        assertTrue(result.out().contains("Passed"), result.out());
+    }
+
+    @Test
+    void theDemoFailsOnItsBudgetBreach() {
+        Run result = run("check", ROOT.resolve("corpora/demo").toString(), "--format", "json");
+        assertEquals(1, result.code());
+        assertTrue(result.out().contains("\"rule\" : \"over-budget\""), result.out());
+    }
+
+    @Test
+    void configurationAndUsageErrorsExitTwoWithOneLine() throws IOException {
+        Path repo = repo("rules: {disable: [no-such-rule]}\n", "Text.\n");
+        Run bad = run("check", repo.toString());
+        assertEquals(2, bad.code());
+        assertTrue(bad.err().startsWith("tare: ") && bad.err().contains("rules.disable[0]: unknown rule 'no-such-rule'"), bad.err());
+        assertEquals(1, bad.err().strip().lines().count(), bad.err());
+        assertEquals(2, run("check", repo.toString(), "--fail-on", "loud").code());
+        assertEquals(2, run("check", repo.toString(), "--format", "xml").code());
+    }
+
+    @Test
+    void inlineDirectivesSilenceFindings() throws IOException {
+        Path repo = repo("templates: {include: [\"prompts/**/*.md\"]}\n",
+                "---\n# tare-ignore-file blank-lines\n---\nBe brief.\t{# tare-ignore prose-tab #}\n\n\n\nEnd.\n");
+        Run result = run("check", repo.toString(), "--fail-on", "info");
+        assertEquals(0, result.code(), result.out());
+    }
+
+    @Test
+    void rulesListsEveryRuleAndExplainShowsTheFourParts() {
+        Run rules = run("rules");
+        assertEquals(0, rules.code(), rules.err());
+        assertTrue(rules.out().contains("trailing-whitespace") && rules.out().contains("in-order-to"), rules.out());
+        Run json = run("rules", "--format", "json");
+        assertTrue(json.out().contains("\"id\" : \"pretty-json\""), json.out());
+        Run explain = run("explain", "pretty-json");
+        assertEquals(0, explain.code());
+        String text = explain.out();
+        assertTrue(text.indexOf("What it flags") < text.indexOf("Why it costs"), text);
+        assertTrue(text.indexOf("Why it costs") < text.indexOf("Example"), text);
+        assertTrue(text.indexOf("Example") < text.indexOf("What to write instead"), text);
+    }
+
+    @Test
+    void explainingAnUnknownRuleSuggestsTheNearestOne() {
+        Run result = run("explain", "pretty-jsn");
+        assertEquals(2, result.code());
+        assertTrue(result.err().contains("did you mean 'pretty-json'?"), result.err());
+    }
+
+    @Test
+    void rulesTestRunsEveryExample() {
+        Run result = run("rules", "test");
+        assertEquals(0, result.code(), result.out());
+        assertTrue(result.out().matches("(?s).*\\d+ passed, 0 failed.*"), result.out());
+    }
+
+    @Test
+    void rulesTestFailsOnABrokenPackExample() throws IOException {
+        Files.createDirectories(dir.resolve("house"));
+        Files.writeString(dir.resolve("house/p.yaml"), "rules:\n  - id: broken-example\n    summary: s\n    why: w\n"
+                + "    class: review\n    severity: info\n    scope: prose\n    find: 'colour'\n    replace: 'color'\n"
+                + "    examples: [{before: 'the colour', after: 'the colours'}]\n");
+        Files.writeString(dir.resolve("tare.yaml"), "rules: {packs: [house]}\n");
+        Run result = run("rules", "test", "--config", dir.resolve("tare.yaml").toString());
+        assertEquals(1, result.code(), result.out() + result.err());
+        assertTrue(result.out().contains("FAIL broken-example example 1 (house/p.yaml)"), result.out());
+    }
+}
