@@ -48,14 +48,16 @@ public final class Check {
         List<Finding> findings = new ArrayList<>();
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
         for (String path : selection.paths()) {
+            SourceText text = null;
             try {
-                templates.add(loader.parse(reader.apply(path)));
+                text = reader.apply(path);
+                templates.add(loader.parse(text));
             } catch (TareException e) {
                 Optional<TemplateSyntaxException> syntax = syntaxError(e);
-                if (syntax.isPresent()) {
+                if (syntax.isPresent() && text != null) {
                     for (Rule rule : rules) {
                         if (rule instanceof SyntaxErrorRule parseRule) {
-                            findings.addAll(parseRule.onSyntaxError(path, syntax.get()));
+                            findings.addAll(parseRule.onSyntaxError(path, text.text(), syntax.get()));
                         }
                     }
                 } else {

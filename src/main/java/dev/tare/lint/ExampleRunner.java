@@ -98,7 +98,7 @@ public final class ExampleRunner {
         } catch (TareException e) {
             for (Throwable t = e; t != null; t = t.getCause()) {
                 if (t instanceof TemplateSyntaxException syntax && rule instanceof SyntaxErrorRule parseRule) {
-                    return parseRule.onSyntaxError(path, syntax);
+                    return parseRule.onSyntaxError(path, text, syntax);
                 }
             }
             throw e;

@@ -78,9 +78,4 @@ public final class Suppressions {
         Set<String> ids = byLine.get(finding.line());
         return ids != null && (ids.contains(ALL) || ids.contains(finding.rule()));
     }
-
-    /** Whether {@code id} may appear in a directive: a known rule or {@code all}. */
-    static boolean isKnown(String id, Set<String> ruleIds) {
-        return id.equals(ALL) || ruleIds.contains(id);
-    }
 }

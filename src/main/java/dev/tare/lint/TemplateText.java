@@ -41,7 +41,7 @@ public final class TemplateText {
      * The 1-based line of a key of the template's metadata (front matter, or the keys beside a chat
      * file's messages), such as {@code variables.account}, when it is there.
      */
-    public java.util.OptionalInt metaLine(String key) {
+    public synchronized java.util.OptionalInt metaLine(String key) {
         if (meta == null) {
             meta = readMeta();
         }

@@ -20,7 +20,7 @@ public final class CheckReport {
     /** What every output says about token figures. */
     static final String ESTIMATE_NOTE = "Token savings are planning estimates from the template's tokenizer,"
             + " not measurements or invoices.";
-    private static final String SARIF_SCHEMA = "https://json.schemastore.org/sarif-2.1.0.json";
+    private static final String SARIF_SCHEMA = "https://docs.oasis-open.org/sarif/sarif/v2.1.0/errata01/os/schemas/sarif-schema-2.1.0.json";
     private static final String ROOT_BASE = "SRCROOT";
 
     private CheckReport() {

@@ -25,8 +25,8 @@ final class InvisibleCharacter implements Rule {
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("invisible-character", Severity.WARNING,
             RewriteClass.SAFE,
             "Invisible characters: zero-width spaces and joiners, soft hyphens, stray byte-order marks and no-break spaces.",
-            "They are invisible in an editor but each is a token (often several bytes of one) sent on every call;"
-                    + " inside a word they also split it into rarer, costlier tokens.",
+            "They are invisible in an editor, yet each costs tokens on every call, and inside a word it splits"
+                    + " the word into rarer, costlier pieces.",
             "Delete the invisible character, or type a plain space for a no-break space.",
             Example.of("Confirm the ad\u200Bjustment with the cus\u00ADtomer.\u00A0Then close.\n",
                     "Confirm the adjustment with the customer. Then close.\n"));

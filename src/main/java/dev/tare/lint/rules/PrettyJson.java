@@ -33,7 +33,7 @@ final class PrettyJson implements Rule {
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("pretty-json", Severity.WARNING, RewriteClass.SAFE,
             "JSON written pretty-printed (indented, one member per line) in a fenced json block or as a whole message.",
             "Indentation and line breaks are tokens; a model reads minified JSON just as well, so the layout"
-                    + " is paid for on every call. Pretty-printed examples often cost a third more than minified ones.",
+                    + " is paid for on every call.",
             "Write the JSON on one line, without spaces between members.",
             Example.of("Reply with JSON like this:\n```json\n{\n  \"intent\": \"billing\",\n  \"urgent\": false\n}\n```\n",
                     "Reply with JSON like this:\n```json\n{\"intent\":\"billing\",\"urgent\":false}\n```\n"));

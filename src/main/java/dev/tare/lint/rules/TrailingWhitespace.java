@@ -19,8 +19,8 @@ final class TrailingWhitespace implements Rule {
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("trailing-whitespace", Severity.WARNING,
             RewriteClass.SAFE,
             "Spaces or tabs at the end of a line of prose.",
-            "The model never needs them, yet they are sent and paid for on every call, and they often split"
-                    + " the following line break into a token of its own.",
+            "The model never needs them, yet they are sent and paid for on every call, and they can keep the"
+                    + " line break after them from merging with neighbouring text into one token.",
             "End the line at its last visible character.",
             Example.of("Answer in one short paragraph.  \nThen stop.\t\n", "Answer in one short paragraph.\nThen stop.\n"));
 

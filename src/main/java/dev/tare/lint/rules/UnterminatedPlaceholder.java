@@ -38,9 +38,10 @@ final class UnterminatedPlaceholder implements SyntaxErrorRule {
     }
 
     @Override
-    public List<Finding> onSyntaxError(String path, TemplateSyntaxException error) {
+    public List<Finding> onSyntaxError(String path, String source, TemplateSyntaxException error) {
         String problem = error.getMessage().replaceFirst("^line \\d+, column \\d+: ", "");
-        return List.of(new Finding(path, error.line(), error.column(), error.line(), error.column() + 1,
+        int column = SyntaxErrorRule.codePointColumn(source, error.line(), error.column());
+        return List.of(new Finding(path, error.line(), column, error.line(), column + 1,
                 DESCRIPTOR.id(), DESCRIPTOR.severity(), problem, RewriteClass.NONE, Optional.empty(), List.of()));
     }
 }

@@ -61,7 +61,7 @@ class TemplateLevelRulesTest {
             dev.tare.lint.RuleHarness.template("x.md", "Fine {{ a }}\nBroken {{ b\n");
             throw new AssertionError("the parser accepted an unterminated placeholder");
         } catch (dev.tare.template.TemplateSyntaxException e) {
-            List<Finding> found = rule.onSyntaxError("x.md", e);
+            List<Finding> found = rule.onSyntaxError("x.md", "Fine {{ a }}\nBroken {{ b\n", e);
             assertEquals(1, found.size());
             assertEquals(2, found.get(0).line());
             assertEquals(8, found.get(0).column());
