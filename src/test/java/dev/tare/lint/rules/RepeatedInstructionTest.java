@@ -57,6 +57,15 @@ class RepeatedInstructionTest {
         assertEquals(1, found.size());
         assertEquals(3, found.get(0).line());
         assertEquals(RewriteClass.REVIEW, found.get(0).rewriteClass());
+        assertEquals("Never agree to a plan longer than twelve months without a supervisor.\n", fixed(near, text));
+    }
+
+    @Test
+    void aNearDuplicateListItemIsOfferedForReviewAsAWholeItem() {
+        String text = "- Never agree to a plan longer than twelve months without a supervisor.\n- Check the meter.\n"
+                + "- Do not agree to any plan longer than 12 months unless a supervisor approves it.\n- Close.\n";
+        assertEquals("- Never agree to a plan longer than twelve months without a supervisor.\n- Check the meter.\n- Close.\n",
+                fixed(near, text));
     }
 
     @Test

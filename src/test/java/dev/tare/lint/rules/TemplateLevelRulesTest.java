@@ -75,4 +75,18 @@ class TemplateLevelRulesTest {
         assertEquals(2, found.get(0).line());
         assertTrue(findings(new UnresolvedInclude(), "No includes.\n").isEmpty());
     }
+
+    @Test
+    void aDirectiveNamingAnUnknownRuleIsReported() {
+        java.util.Set<String> known = java.util.Set.of("space-run");
+        dev.tare.lint.Rule rule = new UnknownSuppression();
+        dev.tare.template.Template template = dev.tare.lint.RuleHarness.template("a.md",
+                "Text. {# tare-ignore space-runs #}\nMore. {# tare-ignore space-run #}\n");
+        dev.tare.lint.LintContext context = dev.tare.lint.LintContext.forExample(Path.of("."),
+                Example.of("", ""), known);
+        List<Finding> found = rule.check(template, context);
+        assertEquals(1, found.size());
+        assertEquals(1, found.get(0).line());
+        assertTrue(found.get(0).message().contains("'space-runs'"));
+    }
 }
