@@ -61,6 +61,11 @@ class WhitespaceRulesTest {
     }
 
     @Test
+    void blankLinesKeepCrlfLineEndings() {
+        assertEquals("A.\r\n\r\nB.\r\n", fixed(blank, "A.\r\n\r\n\r\n\r\nB.\r\n"));
+    }
+
+    @Test
     void oneBlankLineAndFencedBlankLinesAreFine() {
         assertTrue(findings(blank, "A.\n\nB.\n").isEmpty());
         assertTrue(findings(blank, "```\na\n\n\n\nb\n```\n").isEmpty());
