@@ -12,8 +12,8 @@ import java.util.concurrent.ConcurrentHashMap;
 
 /**
  * The one place tokenizers come from. A tokenizer is named either by a built-in encoding name
- * ({@link #BUILT_IN}) or by the path of a {@code tokenizer.json} file; each is loaded once, on first
- * use, and shared by every thread afterwards.
+ * ({@link #BUILT_IN}) or by the path of a {@code tokenizer.json} file, counted through DJL's tokenizers
+ * library; each is loaded once, on first use, and shared by every thread afterwards.
  */
 public final class TokenizerRegistry {
     /** The encoding used when neither a target nor {@code --tokenizer} names one. */
@@ -41,13 +41,12 @@ public final class TokenizerRegistry {
         if (type.isPresent()) {
             return loaded.computeIfAbsent(spec, name -> new BuiltInEncoding(encodings.getEncoding(type.get())));
         }
-        if (!looksLikePath(spec)) {
+        if (!namesFile(spec)) {
             throw new TareException("unknown tokenizer '" + spec + "': use one of " + String.join(", ", BUILT_IN)
                     + ", or the path of a tokenizer.json file");
         }
-        Path file = baseDir.resolve(spec).normalize();
-        throw new TareException("tokenizer file " + file + ": tokenizer.json files are not supported by this build;"
-                + " use one of " + String.join(", ", BUILT_IN));
+        Path file = baseDir.resolve(spec).toAbsolutePath().normalize();
+        return loaded.computeIfAbsent(file.toString(), key -> TokenizerFile.load(spec, file));
     }
 
     /** The built-in default tokenizer. */
@@ -55,7 +54,8 @@ public final class TokenizerRegistry {
         return get(DEFAULT, Path.of("."));
     }
 
-    private static boolean looksLikePath(String spec) {
+    /** Whether {@code spec} names a tokenizer file rather than a built-in encoding. */
+    public static boolean namesFile(String spec) {
         return spec.contains("/") || spec.contains("\\") || spec.endsWith(".json");
     }
 }
