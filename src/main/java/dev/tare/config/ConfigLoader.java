@@ -7,6 +7,7 @@ import dev.tare.source.SafeReader;
 import dev.tare.source.SourceText;
 import dev.tare.source.YamlDocument;
 import dev.tare.template.PlaceholderSyntax;
+import dev.tare.tokenize.TokenizerRegistry;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -27,7 +28,8 @@ public final class ConfigLoader {
     private static final Set<String> TOP = Set.of("templates", "targets", "budgets", "baseline", "rules", "hook");
     private static final Set<String> TEMPLATES = Set.of("include", "exclude", "placeholder", "partials", "max_file_bytes");
     private static final Set<String> TARGET = Set.of("name", "tokenizer", "price", "prefix_cache_min_tokens",
-            "message_overhead_tokens", "reply_overhead_tokens", "calls_per_day", "output_tokens");
+            "message_overhead_tokens", "reply_overhead_tokens", "calls_per_day", "output_tokens", "model", "weight_bits",
+            "kv_bits", "device");
     private static final Set<String> PRICE = Set.of("input", "cached_input", "output", "currency");
     private static final Set<String> BASELINE = Set.of("file", "tolerance_percent");
     private static final Set<String> RULES = Set.of("disable", "severity", "packs");
@@ -78,7 +80,7 @@ public final class ConfigLoader {
             in.onlyKeys(hook, "hook", HOOK);
             hookFix = in.bool(hook, "fix", "hook.fix").orElse(false);
         }
-        return new TareConfig(root, file, templates(in, top), targets(in, top), budgets(in, top), baseline(in, top),
+        return new TareConfig(root, file, templates(in, top), targets(in, top, root), budgets(in, top), baseline(in, top),
                 rules(in, top), hookFix);
     }
 
@@ -121,7 +123,8 @@ public final class ConfigLoader {
         }
     }
 
-    private static List<TargetConfig> targets(ConfigReader in, JsonNode top) {
+    private static List<TargetConfig> targets(ConfigReader in, JsonNode top, Path root) {
+        DeploymentReader deployment = new DeploymentReader(in, root);
         JsonNode node = top.get("targets");
         List<TargetConfig> targets = new ArrayList<>();
         if (node == null || node.isNull()) {
@@ -145,12 +148,19 @@ public final class ConfigLoader {
             }
             String tokenizer = in.text(target, "tokenizer", path + ".tokenizer")
                     .orElseThrow(() -> in.problem(path, "target '" + name + "' names no tokenizer"));
+            if (TokenizerRegistry.namesFile(tokenizer) && !Files.isRegularFile(root.resolve(tokenizer))) {
+                throw in.problem(path + ".tokenizer", "no such file " + root.resolve(tokenizer).normalize()
+                        + "; give the path of a tokenizer.json relative to tare.yaml, or one of "
+                        + String.join(", ", TokenizerRegistry.BUILT_IN));
+            }
             targets.add(new TargetConfig(name, tokenizer, price(in, target, path),
                     in.wholeNumber(target, "prefix_cache_min_tokens", path + ".prefix_cache_min_tokens", 0),
                     in.wholeNumber(target, "message_overhead_tokens", path + ".message_overhead_tokens", 0).orElse(0),
                     in.wholeNumber(target, "reply_overhead_tokens", path + ".reply_overhead_tokens", 0).orElse(0),
                     in.number(target, "calls_per_day", path + ".calls_per_day", 0),
-                    in.wholeNumber(target, "output_tokens", path + ".output_tokens", 0)));
+                    in.wholeNumber(target, "output_tokens", path + ".output_tokens", 0),
+                    deployment.model(target, path), deployment.bits(target, "weight_bits", path),
+                    deployment.bits(target, "kv_bits", path), deployment.device(target, path)));
         }
         return targets;
     }

@@ -51,6 +51,7 @@ public record TareConfig(Path root, Optional<Path> file, TemplatesConfig templat
     }
 
     private String describeFile() {
-        return file.map(Path::toString).orElse("there is no tare.yaml, so the repository");
+        return file.map(Path::toString).orElse("no tare.yaml was found here or above (give --config FILE), so the"
+                + " repository");
     }
 }

@@ -1,0 +1,104 @@
+package dev.tare.footprint;
+
+import dev.tare.config.TargetConfig;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * Which footprint figures a target can estimate and, for each one it cannot, the configuration keys
+ * it lacks, so that a missing input is named instead of shown as a zero.
+ *
+ * @param computes         the footprint keys (as in JSON) the target fills, in contract order
+ * @param missing          for each footprint key it cannot fill, the missing target keys
+ * @param outputConfigured whether the target sets {@code output_tokens}; without it calls assume none
+ */
+public record Coverage(List<String> computes, Map<String, List<String>> missing, boolean outputConfigured) {
+    /** The FOOTPRINT keys of the JSON contract, in order. */
+    public static final List<String> KEYS = List.of("input_tokens", "framing_tokens", "cached_input_tokens",
+            "cost_per_call", "cost_per_month", "currency", "prefill_flops", "prefill_ms", "decode_ms_per_token",
+            "weight_bytes", "kv_bytes_per_token", "kv_cache_bytes", "max_concurrent");
+
+    public Coverage {
+        computes = List.copyOf(computes);
+        missing = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(missing));
+    }
+
+    /** What {@code target} can and cannot estimate. */
+    public static Coverage of(TargetConfig target) {
+        Map<String, List<String>> needs = new LinkedHashMap<>();
+        needs.put("input_tokens", List.of());
+        needs.put("framing_tokens", List.of());
+        needs.put("cached_input_tokens", absent(target.prefixCacheMinTokens().isEmpty(), "prefix_cache_min_tokens"));
+        List<String> price = absent(target.price().isEmpty(), "price");
+        needs.put("cost_per_call", price);
+        needs.put("cost_per_month", join(price, absent(target.callsPerDay().isEmpty(), "calls_per_day")));
+        needs.put("currency", price);
+        List<String> model = absent(target.model().isEmpty(), "model");
+        List<String> weights = join(model, absent(target.weightBits().isEmpty(), "weight_bits"));
+        List<String> cache = join(model, absent(target.kvBits().isEmpty(), "kv_bits"));
+        needs.put("prefill_flops", model);
+        needs.put("prefill_ms", join(weights, device(target, "peak_tflops", "efficiency", "bandwidth_gbps")));
+        needs.put("decode_ms_per_token", join(join(weights, absent(target.kvBits().isEmpty(), "kv_bits")),
+                device(target, "bandwidth_gbps")));
+        needs.put("weight_bytes", weights);
+        needs.put("kv_bytes_per_token", cache);
+        needs.put("kv_cache_bytes", cache);
+        needs.put("max_concurrent", join(join(weights, absent(target.kvBits().isEmpty(), "kv_bits")),
+                device(target, "memory_gib", "usable_fraction")));
+        List<String> computes = new ArrayList<>();
+        Map<String, List<String>> missing = new LinkedHashMap<>();
+        for (String key : KEYS) {
+            List<String> lacking = needs.get(key);
+            if (lacking.isEmpty()) {
+                computes.add(key);
+            } else {
+                missing.put(key, lacking);
+            }
+        }
+        return new Coverage(computes, missing, target.outputTokens().isPresent());
+    }
+
+    /** Whether the target estimates any cost figure. */
+    public boolean hasCost() {
+        return computes.contains("cost_per_call");
+    }
+
+    /** Whether the target estimates any memory or time figure. */
+    public boolean hasDeviceFigures() {
+        return computes.contains("prefill_flops");
+    }
+
+    private static List<String> device(TargetConfig target, String... keys) {
+        if (target.device().isEmpty()) {
+            return List.of("device");
+        }
+        Device device = target.device().get();
+        List<String> lacking = new ArrayList<>();
+        for (String key : keys) {
+            boolean present = switch (key) {
+                case "memory_gib" -> device.memoryGib().isPresent();
+                case "usable_fraction" -> device.usableFraction().isPresent();
+                case "peak_tflops" -> device.peakTflops().isPresent();
+                case "bandwidth_gbps" -> device.bandwidthGbps().isPresent();
+                case "efficiency" -> device.efficiency().isPresent();
+                default -> throw new IllegalArgumentException("not a device key: " + key);
+            };
+            if (!present) {
+                lacking.add("device." + key);
+            }
+        }
+        return lacking;
+    }
+
+    private static List<String> absent(boolean isAbsent, String key) {
+        return isAbsent ? List.of(key) : List.of();
+    }
+
+    private static List<String> join(List<String> first, List<String> second) {
+        List<String> all = new ArrayList<>(first);
+        second.stream().filter(k -> !all.contains(k)).forEach(all::add);
+        return List.copyOf(all);
+    }
+}

@@ -1,0 +1,106 @@
+package dev.tare.footprint;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.tare.config.TargetConfig;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import java.util.OptionalInt;
+import org.junit.jupiter.api.Test;
+
+/** Footprints of whole targets, against hand-computed values; what a target lacks is named, never zero. */
+class FootprintsTest {
+    private static final double EXACT = 1e-9;
+
+    /** The prefix cache counts only from prefix_cache_min_tokens (the design's cost formula). */
+    @Test
+    void cachedPrefixCountsOnlyFromTheMinimum() {
+        TargetConfig hosted = Targets.priced(2.50, 0.60, 10.00, 1024, 20_000);
+        // 1,000 shared tokens are under the 1,024 minimum: nothing cached, (2000 × 2.5 + 300 × 10) / 1e6 = 0.008.
+        Footprint below = Footprints.estimate(hosted, new CallSize(2000, 0, 300, 1000));
+        assertEquals(0, below.cachedInputTokens().getAsInt());
+        assertEquals(0.008, below.costPerCall().getAsDouble(), EXACT);
+        // 1,200 shared: (800 × 2.5 + 1200 × 0.6 + 300 × 10) / 1e6 = 0.00572; a month 0.00572 × 20,000 × 30 = 3,432.
+        Footprint above = Footprints.estimate(hosted, new CallSize(2000, 0, 300, 1200));
+        assertEquals(1200, above.cachedInputTokens().getAsInt());
+        assertEquals(0.00572, above.costPerCall().getAsDouble(), EXACT);
+        assertEquals(3432, above.costPerMonth().getAsDouble(), 1e-6);
+        assertEquals("USD", above.currency().orElseThrow());
+    }
+
+    @Test
+    void targetWithoutAPrefixCacheHasNoCachedTokens() {
+        TargetConfig hosted = Targets.priced(2.50, 0.60, 10.00, null, 20_000);
+        Footprint f = Footprints.estimate(hosted, new CallSize(2000, 0, 300, 1500));
+        assertTrue(f.cachedInputTokens().isEmpty());
+        assertEquals(0.008, f.costPerCall().getAsDouble(), EXACT);
+    }
+
+    @Test
+    void deviceTargetFillsEveryDeviceFigure() {
+        // 7e9 params at 4 bits = 3.5e9 bytes; 32 layers, 8 KV heads of 128 at 16 bits:
+        // 2 × 32 × 8 × 128 × 2 = 131,072 bytes per token; 1,000 + 24 tokens -> 134,217,728 bytes.
+        TargetConfig target = Targets.device(Targets.model(7e9, 32, 32, 8, 128), 4, 16,
+                Targets.device(16, 0.75, 25, 120, 0.4));
+        Footprint f = Footprints.estimate(target, CallSize.of(1000, 24));
+        assertEquals(3_500_000_000L, f.weightBytes().getAsLong());
+        assertEquals(131_072, f.kvBytesPerToken().getAsLong());
+        assertEquals(134_217_728, f.kvCacheBytes().getAsLong());
+        // Prefill: 2 × 7e9 × 1000 + 2 × 32 × 1000² × 4096 = 1.4e13 + 2.62144e11 = 14,262,144,000,000 FLOPs;
+        // at 25e12 × 0.4 = 1e13 FLOP/s that is 1,426.2144 ms (more than the 29.17 ms of weight reads).
+        assertEquals(14_262_144_000_000.0, f.prefillFlops().getAsDouble(), EXACT);
+        assertEquals(1426.2144, f.prefillMillis().getAsDouble(), 1e-9);
+        // Decode: (3.5e9 + 134,217,728) / 120e9 × 1000 = 30.2851477... ms.
+        assertEquals((3.5e9 + 134_217_728) / 120e9 * 1000, f.decodeMillisPerToken().getAsDouble(), 1e-9);
+        // Concurrency: (12,884,901,888 − 3.5e9) / 134,217,728 = 69.92... -> 69.
+        assertEquals(69, f.maxConcurrent().getAsLong());
+        assertTrue(f.costPerCall().isEmpty());
+    }
+
+    /** Every key present in a footprint is one Coverage says the target computes, and no other. */
+    @Test
+    void coverageNamesExactlyTheFiguresAFootprintHas() {
+        List<TargetConfig> targets = new ArrayList<>();
+        targets.add(TargetConfig.ofTokenizer("tokens", "o200k_base"));
+        targets.add(Targets.priced(1, 0.5, 2, 1024, 100));
+        targets.add(Targets.device(Targets.model(1e9, 16, 8, 4, 64), 8, 8, Targets.device(4, 0.5, 10, 50, 0.5)));
+        targets.add(new TargetConfig("partial", "o200k_base", Optional.empty(), OptionalInt.empty(), 0, 0,
+                OptionalDouble.empty(), OptionalInt.of(10), Optional.of(Targets.model(1e9, 16, 8, 4, 64)),
+                OptionalDouble.empty(), OptionalDouble.of(16),
+                Optional.of(new Device("memory only", OptionalDouble.of(8), OptionalDouble.empty(),
+                        OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty()))));
+        for (TargetConfig target : targets) {
+            Footprint f = Footprints.estimate(target, CallSize.of(100, 10));
+            List<String> present = new ArrayList<>(List.of("input_tokens", "framing_tokens"));
+            addIf(present, "cached_input_tokens", f.cachedInputTokens().isPresent());
+            addIf(present, "cost_per_call", f.costPerCall().isPresent());
+            addIf(present, "cost_per_month", f.costPerMonth().isPresent());
+            addIf(present, "currency", f.currency().isPresent());
+            addIf(present, "prefill_flops", f.prefillFlops().isPresent());
+            addIf(present, "prefill_ms", f.prefillMillis().isPresent());
+            addIf(present, "decode_ms_per_token", f.decodeMillisPerToken().isPresent());
+            addIf(present, "weight_bytes", f.weightBytes().isPresent());
+            addIf(present, "kv_bytes_per_token", f.kvBytesPerToken().isPresent());
+            addIf(present, "kv_cache_bytes", f.kvCacheBytes().isPresent());
+            addIf(present, "max_concurrent", f.maxConcurrent().isPresent());
+            assertEquals(Coverage.of(target).computes(), present, target.name());
+        }
+        Coverage partial = Coverage.of(targets.get(3));
+        assertEquals(List.of("weight_bits"), partial.missing().get("weight_bytes"));
+        assertEquals(List.of("weight_bits", "device.usable_fraction"),
+                partial.missing().get("max_concurrent"));
+        assertEquals(List.of("weight_bits", "device.peak_tflops", "device.efficiency", "device.bandwidth_gbps"),
+                partial.missing().get("prefill_ms"));
+        assertFalse(Coverage.of(targets.get(0)).outputConfigured());
+    }
+
+    private static void addIf(List<String> keys, String key, boolean present) {
+        if (present) {
+            keys.add(key);
+        }
+    }
+}
