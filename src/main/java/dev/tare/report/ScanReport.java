@@ -52,6 +52,7 @@ public final class ScanReport {
         }
         out.append("\n\n").append(table.render()).append('\n');
         out.append(notes(result, totals));
+        out.append(TargetSections.render(result, order));
         return out.toString();
     }
 
@@ -89,6 +90,7 @@ public final class ScanReport {
         root.put("root", result.root());
         root.put("tokenizer", result.tokenizer());
         root.putPOJO("targets_selected", result.targets());
+        root.put("estimate_note", Figures.ESTIMATE_NOTE);
         ArrayNode templates = root.putArray("templates");
         for (ScannedTemplate template : result.templatesIn(order)) {
             ObjectNode node = templates.addObject();
@@ -124,9 +126,6 @@ public final class ScanReport {
     }
 
     static ObjectNode footprint(Footprint footprint) {
-        ObjectNode node = Json.MAPPER.createObjectNode();
-        node.put("input_tokens", footprint.inputTokens());
-        node.put("framing_tokens", footprint.framingTokens());
-        return node;
+        return Figures.json(footprint);
     }
 }

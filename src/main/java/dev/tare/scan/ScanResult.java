@@ -1,5 +1,6 @@
 package dev.tare.scan;
 
+import dev.tare.config.TargetConfig;
 import dev.tare.source.SkippedFile;
 import java.util.Comparator;
 import java.util.LinkedHashMap;
@@ -14,13 +15,21 @@ import java.util.Map;
  * @param targets   the selected target names, in order
  * @param templates every template measured, sorted by path
  * @param skipped   every file found but not measured, with its reason, sorted by path
+ * @param targetConfigs the selected targets' configurations, in the order of {@code targets}
  */
 public record ScanResult(String root, String tokenizer, List<String> targets, List<ScannedTemplate> templates,
-                         List<SkippedFile> skipped) {
+                         List<SkippedFile> skipped, List<TargetConfig> targetConfigs) {
     public ScanResult {
         targets = List.copyOf(targets);
         templates = List.copyOf(templates);
         skipped = List.copyOf(skipped);
+        targetConfigs = List.copyOf(targetConfigs);
+    }
+
+    /** A result whose targets are known by name only. */
+    public ScanResult(String root, String tokenizer, List<String> targets, List<ScannedTemplate> templates,
+                      List<SkippedFile> skipped) {
+        this(root, tokenizer, targets, templates, skipped, List.of());
     }
 
     /** How templates may be ordered in a report. */

@@ -3,13 +3,16 @@ package dev.tare.scan;
 import dev.tare.TareException;
 import dev.tare.config.TareConfig;
 import dev.tare.config.TargetConfig;
+import dev.tare.footprint.CallSize;
 import dev.tare.footprint.Footprint;
+import dev.tare.footprint.Footprints;
 import dev.tare.footprint.Framing;
 import dev.tare.source.FileSelection;
 import dev.tare.source.SkippedFile;
 import dev.tare.source.SourceText;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
+import dev.tare.template.TemplateKind;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.util.ArrayList;
@@ -23,7 +26,9 @@ import java.util.stream.Collectors;
 
 /**
  * Measures every template of a workspace: finds the files, reads and parses each, renders it with
- * variables empty and with samples, and counts tokens on the primary tokenizer and on each target.
+ * variables empty and with samples, and counts tokens on the primary tokenizer and on each target,
+ * whose footprints it then estimates (with the prefix each template shares with others, on targets
+ * with a prefix cache).
  * Files are processed in parallel and one at a time each, so memory stays bounded by the files in
  * flight; a file that cannot be used is skipped with its reason and never stops the scan.
  */
@@ -60,18 +65,63 @@ public final class TemplateScan {
             outcome.skipped().ifPresent(skipped::add);
         }
         skipped.sort(null);
+        for (TargetConfig target : targets) {
+            if (target.prefixCacheMinTokens().isPresent()) {
+                applySharedPrefixes(target, templates, outcomes);
+            }
+        }
         return new ScanResult(workspace.displayName(), primary.name(),
-                targets.stream().map(TargetConfig::name).toList(), templates, skipped);
+                targets.stream().map(TargetConfig::name).toList(), templates, skipped, targets);
     }
 
-    /** What became of one file: measured, or skipped with a reason. */
-    private record Outcome(Optional<ScannedTemplate> template, Optional<SkippedFile> skipped) {
-        static Outcome of(ScannedTemplate template) {
-            return new Outcome(Optional.of(template), Optional.empty());
+    /** The most leading token ids kept per template and target: enough for any cache threshold in use. */
+    static final int MAX_LEADING_IDS = 16_384;
+
+    /** Re-estimates the footprints on {@code target} of templates that share a prefix with another. */
+    private static void applySharedPrefixes(TargetConfig target, List<ScannedTemplate> templates, List<Outcome> outcomes) {
+        List<String> paths = new ArrayList<>();
+        List<int[]> leading = new ArrayList<>();
+        for (Outcome outcome : outcomes) {
+            int[] ids = outcome.leadingIds().get(target.name());
+            if (ids != null) {
+                paths.add(outcome.template().orElseThrow().path());
+                leading.add(ids);
+            }
+        }
+        int[] shared = SharedPrefixes.lengths(leading);
+        Map<String, Integer> byPath = new LinkedHashMap<>();
+        for (int i = 0; i < shared.length; i++) {
+            if (shared[i] > 0) {
+                byPath.put(paths.get(i), shared[i]);
+            }
+        }
+        for (int i = 0; i < templates.size(); i++) {
+            ScannedTemplate t = templates.get(i);
+            Integer tokens = byPath.get(t.path());
+            if (tokens == null) {
+                continue;
+            }
+            Footprint before = t.targets().get(target.name());
+            Map<String, Footprint> footprints = new LinkedHashMap<>(t.targets());
+            footprints.put(target.name(), Footprints.estimate(target, new CallSize(before.inputTokens(),
+                    before.framingTokens(), before.outputTokens(), tokens)));
+            templates.set(i, new ScannedTemplate(t.path(), t.kind(), t.characters(), t.staticTokens(),
+                    t.estimatedTokens(), t.variables(), t.unsizedVariables(), t.includes(), footprints));
+        }
+    }
+
+    /**
+     * What became of one file: measured, or skipped with a reason. A measured template carries, per
+     * target with a prefix cache, its leading static token ids when there are enough to be cached.
+     */
+    private record Outcome(Optional<ScannedTemplate> template, Optional<SkippedFile> skipped,
+                           Map<String, int[]> leadingIds) {
+        static Outcome of(ScannedTemplate template, Map<String, int[]> leadingIds) {
+            return new Outcome(Optional.of(template), Optional.empty(), leadingIds);
         }
 
         static Outcome of(SkippedFile skipped) {
-            return new Outcome(Optional.empty(), Optional.of(skipped));
+            return new Outcome(Optional.empty(), Optional.of(skipped), Map.of());
         }
     }
 
@@ -82,7 +132,9 @@ public final class TemplateScan {
         Outcome measure(String path) {
             try {
                 SourceText text = loader.read(path);
-                return Outcome.of(measure(loader.parse(text), text.text().length()));
+                Template template = loader.parse(text);
+                ScannedTemplate measured = measure(template, text.text().length());
+                return Outcome.of(measured, leadingIds(template, measured));
             } catch (TareException e) {
                 return Outcome.of(new SkippedFile(path, e.getMessage()));
             }
@@ -96,7 +148,9 @@ public final class TemplateScan {
             for (TargetConfig target : targetsOf(template)) {
                 int estimated = count(byTarget.get(target.name()), samples) + declared;
                 int framing = Framing.tokens(target, template.isChat(), template.messages().size());
-                footprints.put(target.name(), new Footprint(estimated + framing, framing));
+                int output = template.meta().outputTokens().orElse(target.outputTokens().orElse(0));
+                footprints.put(target.name(), Footprints.estimate(target,
+                        new CallSize(estimated + framing, framing, output, 0)));
             }
             Set<String> variables = new LinkedHashSet<>();
             Set<String> unsized = new LinkedHashSet<>();
@@ -109,6 +163,46 @@ public final class TemplateScan {
             return new ScannedTemplate(template.path(), template.kind(), characters, count(primary, empty),
                     count(primary, samples) + declared, new ArrayList<>(variables), new ArrayList<>(unsized),
                     new ArrayList<>(new LinkedHashSet<>(samples.includes())), footprints);
+        }
+
+        /**
+         * Leading static token ids per target with a prefix cache, kept only when there are at least
+         * the cache's minimum (shorter runs can never count), and at most {@link #MAX_LEADING_IDS}.
+         */
+        private Map<String, int[]> leadingIds(Template template, ScannedTemplate measured) {
+            if (template.kind() == TemplateKind.PARTIAL) {
+                return Map.of();
+            }
+            Map<String, int[]> ids = new LinkedHashMap<>();
+            List<String> leading = null;
+            for (TargetConfig target : targets) {
+                if (target.prefixCacheMinTokens().isEmpty() || !measured.targets().containsKey(target.name())) {
+                    continue;
+                }
+                if (leading == null) {
+                    leading = LeadingText.of(template, loader.renderer(), loader.renderer().renderWithSamples(template));
+                }
+                int[] kept = leadingIds(byTarget.get(target.name()), leading);
+                if (kept.length > 0 && kept.length >= target.prefixCacheMinTokens().getAsInt()) {
+                    ids.put(target.name(), kept);
+                }
+            }
+            return ids;
+        }
+
+        private static int[] leadingIds(Tokenizer tokenizer, List<String> messages) {
+            int[] kept = new int[0];
+            for (String message : messages) {
+                int[] ids = tokenizer.encode(message);
+                int take = Math.min(ids.length, MAX_LEADING_IDS - kept.length);
+                int[] joined = java.util.Arrays.copyOf(kept, kept.length + take);
+                System.arraycopy(ids, 0, joined, kept.length, take);
+                kept = joined;
+                if (kept.length == MAX_LEADING_IDS) {
+                    break;
+                }
+            }
+            return kept;
         }
 
         private List<TargetConfig> targetsOf(Template template) {

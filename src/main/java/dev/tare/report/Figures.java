@@ -1,0 +1,177 @@
+package dev.tare.report;
+
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.tare.config.Price;
+import dev.tare.config.TargetConfig;
+import dev.tare.footprint.Coverage;
+import dev.tare.footprint.Device;
+import dev.tare.footprint.Footprint;
+import dev.tare.footprint.ModelShape;
+import dev.tare.footprint.Precision;
+import java.math.BigDecimal;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.OptionalDouble;
+
+/** How footprint figures are written, in text and in JSON, by every report that shows them. */
+final class Figures {
+    /** Said by every output that shows cost, time or memory. */
+    static final String ESTIMATE_NOTE = "Cost, time and memory figures are planning estimates from Tare's formulas,"
+            + " not measurements or invoices.";
+
+    private Figures() {
+    }
+
+    /** The FOOTPRINT object of the JSON contract: the keys the target has inputs for. */
+    static ObjectNode json(Footprint f) {
+        ObjectNode node = Json.MAPPER.createObjectNode();
+        node.put("input_tokens", f.inputTokens());
+        node.put("framing_tokens", f.framingTokens());
+        f.cachedInputTokens().ifPresent(v -> node.put("cached_input_tokens", v));
+        f.costPerCall().ifPresent(v -> node.put("cost_per_call", v));
+        f.costPerMonth().ifPresent(v -> node.put("cost_per_month", v));
+        f.currency().ifPresent(v -> node.put("currency", v));
+        f.prefillFlops().ifPresent(v -> node.put("prefill_flops", BigDecimal.valueOf(Math.rint(v)).toBigInteger()));
+        f.prefillMillis().ifPresent(v -> node.put("prefill_ms", v));
+        f.decodeMillisPerToken().ifPresent(v -> node.put("decode_ms_per_token", v));
+        f.weightBytes().ifPresent(v -> node.put("weight_bytes", v));
+        f.kvBytesPerToken().ifPresent(v -> node.put("kv_bytes_per_token", v));
+        f.kvCacheBytes().ifPresent(v -> node.put("kv_cache_bytes", v));
+        f.maxConcurrent().ifPresent(v -> node.put("max_concurrent", v));
+        return node;
+    }
+
+    static String money(double amount, String currency, int decimals) {
+        return currency + " " + String.format(Locale.ROOT, "%,." + decimals + "f", amount);
+    }
+
+    static String perCall(Footprint f) {
+        return f.costPerCall().isPresent() ? money(f.costPerCall().getAsDouble(), f.currency().orElse(""), 6) : "-";
+    }
+
+    static String perMonth(Footprint f) {
+        return f.costPerMonth().isPresent() ? money(f.costPerMonth().getAsDouble(), f.currency().orElse(""), 2) : "-";
+    }
+
+    /** Bytes in binary units with three significant digits: {@code 800 KiB}, {@code 1.56 GiB}. */
+    static String bytes(double bytes) {
+        String[] units = {"B", "KiB", "MiB", "GiB", "TiB", "PiB"};
+        double value = bytes;
+        int unit = 0;
+        while (Math.abs(value) >= 1024 && unit < units.length - 1) {
+            value /= 1024;
+            unit++;
+        }
+        return unit == 0 ? String.format(Locale.ROOT, "%,d B", Math.round(value)) : significant(value) + " " + units[unit];
+    }
+
+    static String millis(double ms) {
+        return significant(ms) + " ms";
+    }
+
+    /** FLOPs in decimal units: {@code 12.3 TFLOP}. */
+    static String flops(double flops) {
+        String[] units = {"FLOP", "kFLOP", "MFLOP", "GFLOP", "TFLOP", "PFLOP", "EFLOP"};
+        double value = flops;
+        int unit = 0;
+        while (Math.abs(value) >= 1000 && unit < units.length - 1) {
+            value /= 1000;
+            unit++;
+        }
+        return significant(value) + " " + units[unit];
+    }
+
+    static String count(long value) {
+        return TextTable.number(value);
+    }
+
+    /** A number with three significant digits, or as a whole number when larger. */
+    static String significant(double value) {
+        double magnitude = Math.abs(value);
+        if (magnitude >= 100 || magnitude == 0) {
+            return String.format(Locale.ROOT, "%,.0f", value);
+        }
+        if (magnitude >= 10) {
+            return String.format(Locale.ROOT, "%.1f", value);
+        }
+        if (magnitude >= 1) {
+            return String.format(Locale.ROOT, "%.2f", value);
+        }
+        return String.format(Locale.ROOT, "%.3g", value);
+    }
+
+    /** A configured number as written: {@code 16}, {@code 0.6}, {@code 2.5}. */
+    static String plain(double value) {
+        return BigDecimal.valueOf(value).stripTrailingZeros().toPlainString();
+    }
+
+    /** A parameter count as people write it: {@code 1.54e9}. */
+    static String params(double params) {
+        return String.format(Locale.ROOT, "%.3g", params).replace("e+0", "e").replace("e+", "e");
+    }
+
+    static String bits(OptionalDouble bits) {
+        return bits.isPresent() ? Precision.label(bits.getAsDouble()) + " bits" : "not set";
+    }
+
+    /** One line describing a model shape and where it came from. */
+    static String model(ModelShape m) {
+        return m.origin() + ": " + params(m.params()) + " params" + (m.paramsComputed() ? " (computed from the shape)" : "")
+                + ", " + m.layers() + " layers, " + m.heads() + " heads, " + m.kvHeads() + " KV heads, head size "
+                + m.headDim();
+    }
+
+    /** One line describing a device and where its numbers came from. */
+    static String device(Device d) {
+        List<String> parts = new ArrayList<>();
+        d.memoryGib().ifPresent(v -> parts.add(plain(v) + " GiB"));
+        d.usableFraction().ifPresent(v -> parts.add(plain(v * 100) + "% usable"));
+        d.peakTflops().ifPresent(v -> parts.add(plain(v) + " TFLOPS peak"));
+        d.efficiency().ifPresent(v -> parts.add(plain(v * 100) + "% of peak in prefill"));
+        d.bandwidthGbps().ifPresent(v -> parts.add(plain(v) + " GB/s"));
+        return d.origin() + ": " + (parts.isEmpty() ? "no numbers" : String.join(", ", parts));
+    }
+
+    /** One line describing a price. */
+    static String price(Price p) {
+        return p.currency() + " " + plain(p.inputPerMillion()) + " input"
+                + p.cachedInputPerMillion().stream().mapToObj(v -> ", " + plain(v) + " cached input").findFirst().orElse("")
+                + ", " + plain(p.outputPerMillion()) + " output, per million tokens";
+    }
+
+    /**
+     * Lines naming the figures a target cannot estimate and the keys it lacks, one line per set of
+     * missing keys. Cost gaps are named for a priced target and device gaps for a target with any
+     * model or device setting; a target with neither gets one line saying what to set.
+     */
+    static List<String> missing(TargetConfig target, Coverage coverage) {
+        boolean deviceSet = target.model().isPresent() || target.device().isPresent() || target.weightBits().isPresent()
+                || target.kvBits().isPresent();
+        List<String> lines = new ArrayList<>();
+        if (!deviceSet && target.price().isEmpty()) {
+            lines.add(target.name() + ": estimates tokens only; set price (and calls_per_day, prefix_cache_min_tokens)"
+                    + " for cost, or model, weight_bits, kv_bits and device for memory and time");
+            return lines;
+        }
+        boolean costWanted = target.price().isPresent();
+        Map<List<String>, List<String>> figuresByKeys = new LinkedHashMap<>();
+        for (Map.Entry<String, List<String>> entry : coverage.missing().entrySet()) {
+            String figure = entry.getKey();
+            boolean cost = figure.startsWith("cost") || figure.equals("cached_input_tokens");
+            if (figure.equals("currency") || (cost ? !costWanted : !deviceSet)) {
+                continue;
+            }
+            figuresByKeys.computeIfAbsent(entry.getValue(), k -> new ArrayList<>()).add(figure);
+        }
+        figuresByKeys.forEach((keys, figures) -> lines.add(target.name() + ": " + String.join(", ", figures)
+                + " not estimated; set " + String.join(", ", keys)));
+        if (!coverage.outputConfigured()) {
+            lines.add(target.name() + ": no output_tokens set; calls are taken to produce no output tokens"
+                    + " (set output_tokens on the target or in front matter)");
+        }
+        return lines;
+    }
+}

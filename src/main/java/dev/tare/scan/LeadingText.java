@@ -1,0 +1,52 @@
+package dev.tare.scan;
+
+import dev.tare.template.Renderer;
+import dev.tare.template.Rendering;
+import dev.tare.template.Template;
+import dev.tare.template.TemplateMeta;
+import dev.tare.template.VariableSpec;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.OptionalInt;
+
+/**
+ * The text of a template before its first variable, message by message: the part that is the same
+ * on every call, and so the only part a prefix cache can serve. Includes are pasted in as usual.
+ */
+final class LeadingText {
+    /** Marks where a variable stands; template files cannot contain it, as reading refuses NUL bytes. */
+    private static final String MARK = "\u0000";
+
+    private LeadingText() {
+    }
+
+    /**
+     * The messages up to the first variable, the last one cut where that variable stands.
+     *
+     * @param samples the template's rendering with samples, which lists every variable occurrence
+     */
+    static List<String> of(Template template, Renderer renderer, Rendering samples) {
+        // Rendering each variable as a mark finds the first one across messages and includes alike.
+        Map<String, VariableSpec> marks = new LinkedHashMap<>();
+        for (Rendering.Occurrence occurrence : samples.variables()) {
+            marks.put(occurrence.variable().name(), new VariableSpec(OptionalInt.empty(), Optional.of(MARK)));
+        }
+        TemplateMeta meta = template.meta();
+        Template marked = new Template(template.path(), template.kind(),
+                new TemplateMeta(meta.target(), meta.budget(), meta.outputTokens(), marks), template.messages(),
+                template.source(), template.bodyStart(), template.syntax());
+        List<String> leading = new ArrayList<>();
+        for (String message : renderer.renderWithSamples(marked).messages()) {
+            int mark = message.indexOf(MARK);
+            if (mark >= 0) {
+                leading.add(message.substring(0, mark));
+                break;
+            }
+            leading.add(message);
+        }
+        return leading;
+    }
+}
