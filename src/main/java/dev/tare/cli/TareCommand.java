@@ -11,8 +11,9 @@ import picocli.CommandLine.Command;
         mixinStandardHelpOptions = true,
         versionProvider = TareCommand.Version.class,
         description = "Measures and shrinks the token footprint of the prompt templates in a repository.",
-        subcommands = {ScanCommand.class, CheckCommand.class, CountCommand.class, RulesCommand.class, ExplainCommand.class,
-                BaselineCommand.class, CalibrateCommand.class, HookCommand.class, InitCommand.class,
+        subcommands = {ScanCommand.class, CheckCommand.class, CountCommand.class, CostCommand.class, TargetsCommand.class,
+                RulesCommand.class, ExplainCommand.class, BaselineCommand.class, CalibrateCommand.class,
+                HookCommand.class, InitCommand.class,
                 CommandLine.HelpCommand.class},
         footer = {"", "Exit codes: 0 ok, 1 findings or a budget breach, 2 usage, configuration or input error,"
                 + " 3 internal error (add --debug for the stack trace)."})

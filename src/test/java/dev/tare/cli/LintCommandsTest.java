@@ -39,24 +39,24 @@ class LintCommandsTest {
     void warningsPassByDefaultAndFailWithFailOnWarning() throws IOException {
         Path repo = repo("templates: {include: [\"prompts/**/*.md\"]}\n", "Be brief.  \n");
         Run passing = run("check", repo.toString());
-        assertEquals(0, passing.code(), passing.err());
+        assertEquals(0, passing.exitCode(), passing.err());
         assertTrue(passing.out().startsWith("prompts/a.md:1:10: warning trailing-whitespace: "), passing.out());
-        assertEquals(1, run("check", repo.toString(), "--fail-on", "warning").code());
-        assertEquals(0, run("check", repo.toString(), "--fail-on", "error").code());
+        assertEquals(1, run("check", repo.toString(), "--fail-on", "warning").exitCode());
+        assertEquals(0, run("check", repo.toString(), "--fail-on", "error").exitCode());
     }
 
     @Test
     void aCleanRepositoryExitsZeroEvenOnInfo() throws IOException {
         Path repo = repo("templates: {include: [\"prompts/**/*.md\"]}\n", "Be brief.\n");
         Run result = run("check", repo.toString(), "--fail-on", "info");
-        assertEquals(0, result.code(), result.out());
+        assertEquals(0, result.exitCode(), result.out());
         assertTrue(result.out().contains("Passed"), result.out());
     }
 
     @Test
     void theDemoFailsOnItsBudgetBreach() {
         Run result = run("check", ROOT.resolve("corpora/demo").toString(), "--format", "json");
-        assertEquals(1, result.code());
+        assertEquals(1, result.exitCode());
         assertTrue(result.out().contains("\"rule\" : \"over-budget\""), result.out());
     }
 
@@ -64,11 +64,11 @@ class LintCommandsTest {
     void configurationAndUsageErrorsExitTwoWithOneLine() throws IOException {
         Path repo = repo("rules: {disable: [no-such-rule]}\n", "Text.\n");
         Run bad = run("check", repo.toString());
-        assertEquals(2, bad.code());
+        assertEquals(2, bad.exitCode());
         assertTrue(bad.err().startsWith("tare: ") && bad.err().contains("rules.disable[0]: unknown rule 'no-such-rule'"), bad.err());
         assertEquals(1, bad.err().strip().lines().count(), bad.err());
-        assertEquals(2, run("check", repo.toString(), "--fail-on", "loud").code());
-        assertEquals(2, run("check", repo.toString(), "--format", "xml").code());
+        assertEquals(2, run("check", repo.toString(), "--fail-on", "loud").exitCode());
+        assertEquals(2, run("check", repo.toString(), "--format", "xml").exitCode());
     }
 
     @Test
@@ -76,18 +76,18 @@ class LintCommandsTest {
         Path repo = repo("templates: {include: [\"prompts/**/*.md\"]}\n",
                 "---\n# tare-ignore-file blank-lines\n---\nBe brief.\t{# tare-ignore prose-tab #}\n\n\n\nEnd.\n");
         Run result = run("check", repo.toString(), "--fail-on", "info");
-        assertEquals(0, result.code(), result.out());
+        assertEquals(0, result.exitCode(), result.out());
     }
 
     @Test
     void rulesListsEveryRuleAndExplainShowsTheFourParts() {
         Run rules = run("rules");
-        assertEquals(0, rules.code(), rules.err());
+        assertEquals(0, rules.exitCode(), rules.err());
         assertTrue(rules.out().contains("trailing-whitespace") && rules.out().contains("in-order-to"), rules.out());
         Run json = run("rules", "--format", "json");
         assertTrue(json.out().contains("\"id\" : \"pretty-json\""), json.out());
         Run explain = run("explain", "pretty-json");
-        assertEquals(0, explain.code());
+        assertEquals(0, explain.exitCode());
         String text = explain.out();
         assertTrue(text.indexOf("What it flags") < text.indexOf("Why it costs"), text);
         assertTrue(text.indexOf("Why it costs") < text.indexOf("Example"), text);
@@ -97,14 +97,14 @@ class LintCommandsTest {
     @Test
     void explainingAnUnknownRuleSuggestsTheNearestOne() {
         Run result = run("explain", "pretty-jsn");
-        assertEquals(2, result.code());
+        assertEquals(2, result.exitCode());
         assertTrue(result.err().contains("did you mean 'pretty-json'?"), result.err());
     }
 
     @Test
     void rulesTestRunsEveryExample() {
         Run result = run("rules", "test");
-        assertEquals(0, result.code(), result.out());
+        assertEquals(0, result.exitCode(), result.out());
         assertTrue(result.out().matches("(?s).*\\d+ passed, 0 failed.*"), result.out());
     }
 
@@ -116,7 +116,7 @@ class LintCommandsTest {
                 + "    examples: [{before: 'the colour', after: 'the colours'}]\n");
         Files.writeString(dir.resolve("tare.yaml"), "rules: {packs: [house]}\n");
         Run result = run("rules", "test", "--config", dir.resolve("tare.yaml").toString());
-        assertEquals(1, result.code(), result.out() + result.err());
+        assertEquals(1, result.exitCode(), result.out() + result.err());
         assertTrue(result.out().contains("FAIL broken-example example 1 (house/p.yaml)"), result.out());
     }
 }

@@ -1,0 +1,154 @@
+package dev.tare.report;
+
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.tare.config.TargetConfig;
+import dev.tare.footprint.CallSize;
+import dev.tare.footprint.Footprint;
+import dev.tare.footprint.Precision;
+import dev.tare.footprint.Sweep;
+import dev.tare.scan.CostEstimate;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.function.Function;
+
+/** Renders the footprint of one prompt size on one target, and sweep tables across settings. */
+public final class CostReport {
+    private CostReport() {
+    }
+
+    /** The footprint as a list of figures, or the sweep table when settings were swept. */
+    public static String text(CostEstimate.Result result) {
+        TargetConfig target = result.target();
+        StringBuilder out = new StringBuilder();
+        out.append(result.rows().isEmpty() ? "Footprint on target " : "Sweep on target ").append(target.name())
+                .append(": ").append(describe(result)).append('\n');
+        out.append(Figures.ESTIMATE_NOTE).append("\n\n");
+        out.append(setup(target));
+        out.append('\n').append(result.rows().isEmpty() ? figures(result.footprint()) : sweep(result));
+        List<String> missing = Figures.missing(target, result.coverage());
+        if (!missing.isEmpty()) {
+            out.append('\n');
+            missing.forEach(line -> out.append(line).append('\n'));
+        }
+        return out.toString();
+    }
+
+    /** The {@code cost} JSON document of the design contract, with the sweep's rows when there are any. */
+    public static String json(CostEstimate.Result result) {
+        ObjectNode root = Json.report();
+        root.put("target", result.target().name());
+        result.file().ifPresent(file -> root.put("path", file));
+        root.put("input_tokens", result.call().inputTokens());
+        root.put("output_tokens", result.call().outputTokens());
+        root.set("footprint", Figures.json(result.footprint()));
+        root.put("estimate_note", Figures.ESTIMATE_NOTE);
+        if (!result.rows().isEmpty()) {
+            ArrayNode rows = root.putArray("sweep");
+            for (Sweep.Row row : result.rows()) {
+                ObjectNode node = rows.addObject();
+                ObjectNode settings = node.putObject("settings");
+                for (int i = 0; i < result.sweep().size(); i++) {
+                    String key = result.sweep().get(i).key();
+                    double value = row.settings().get(i);
+                    if (key.endsWith("_tokens")) {
+                        settings.put(key, (long) value);
+                    } else {
+                        settings.put(key, value);
+                    }
+                }
+                node.set("footprint", Figures.json(row.footprint()));
+            }
+        }
+        return Json.write(root);
+    }
+
+    private static String describe(CostEstimate.Result result) {
+        CallSize call = result.call();
+        String size = Figures.count(call.inputTokens()) + " input tokens"
+                + (call.framingTokens() > 0 ? " (" + Figures.count(call.framingTokens()) + " of them framing)" : "")
+                + ", " + Figures.count(call.outputTokens()) + " output tokens";
+        return result.file().map(file -> file + ", " + size).orElse(size);
+    }
+
+    private static String setup(TargetConfig target) {
+        TextTable table = new TextTable(List.of("SETTING", "VALUE"), false, false);
+        table.row(List.of("tokenizer", target.tokenizer()));
+        target.price().ifPresent(p -> table.row(List.of("price", Figures.price(p))));
+        target.callsPerDay().ifPresent(c -> table.row(List.of("calls per day", Figures.significant(c))));
+        target.prefixCacheMinTokens().ifPresent(m -> table.row(List.of("prefix cache", "from " + Figures.count(m) + " tokens")));
+        target.model().ifPresent(m -> table.row(List.of("model", Figures.model(m))));
+        if (target.model().isPresent()) {
+            table.row(List.of("weights", Figures.bits(target.weightBits())));
+            table.row(List.of("KV cache", Figures.bits(target.kvBits())));
+        }
+        target.device().ifPresent(d -> table.row(List.of("device", Figures.device(d))));
+        return table.render();
+    }
+
+    private static String figures(Footprint f) {
+        TextTable table = new TextTable(List.of("FIGURE", "ESTIMATE"), false, false);
+        table.row(List.of("input tokens", Figures.count(f.inputTokens())));
+        f.cachedInputTokens().ifPresent(c -> table.row(List.of("cached input tokens", Figures.count(c))));
+        table.row(List.of("output tokens", Figures.count(f.outputTokens())));
+        if (f.hasCost()) {
+            table.row(List.of("cost per call", Figures.perCall(f)));
+        }
+        if (f.costPerMonth().isPresent()) {
+            table.row(List.of("cost per month", Figures.perMonth(f)));
+        }
+        f.prefillFlops().ifPresent(v -> table.row(List.of("prefill compute", Figures.flops(v))));
+        f.prefillMillis().ifPresent(v -> table.row(List.of("prefill time", Figures.millis(v) + " before the first output token")));
+        f.decodeMillisPerToken().ifPresent(v -> table.row(List.of("decode time", Figures.millis(v) + " per output token")));
+        f.weightBytes().ifPresent(v -> table.row(List.of("weight memory", Figures.bytes(v))));
+        f.kvBytesPerToken().ifPresent(v -> table.row(List.of("KV cache per token", Figures.bytes(v))));
+        f.kvCacheBytes().ifPresent(v -> table.row(List.of("KV cache per request",
+                Figures.bytes(v) + " for " + Figures.count((long) f.inputTokens() + f.outputTokens()) + " tokens")));
+        f.maxConcurrent().ifPresent(v -> table.row(List.of("max concurrent", Figures.count(v) + " requests of this size")));
+        return table.render();
+    }
+
+    private static String sweep(CostEstimate.Result result) {
+        List<String> headers = new ArrayList<>();
+        result.sweep().forEach(axis -> headers.add(axis.key().toUpperCase(java.util.Locale.ROOT)));
+        List<Column> columns = columns(result);
+        columns.forEach(c -> headers.add(c.header()));
+        boolean[] numeric = new boolean[headers.size()];
+        java.util.Arrays.fill(numeric, true);
+        TextTable table = new TextTable(headers, numeric);
+        for (Sweep.Row row : result.rows()) {
+            List<String> cells = new ArrayList<>();
+            row.settings().forEach(v -> cells.add(Precision.label(v)));
+            columns.forEach(c -> cells.add(c.cell().apply(row.footprint())));
+            table.row(cells);
+        }
+        return table.render();
+    }
+
+    private record Column(String header, Function<Footprint, String> cell) {
+    }
+
+    /** The columns any row has a value for, so that a priced target shows cost and a device target memory and time. */
+    private static List<Column> columns(CostEstimate.Result result) {
+        List<Column> all = List.of(
+                new Column("INPUT", f -> Figures.count(f.inputTokens())),
+                new Column("OUTPUT", f -> Figures.count(f.outputTokens())),
+                new Column("COST/CALL", f -> f.hasCost() ? Figures.perCall(f) : ""),
+                new Column("WEIGHTS", f -> f.weightBytes().isPresent() ? Figures.bytes(f.weightBytes().getAsLong()) : ""),
+                new Column("KV/TOKEN", f -> f.kvBytesPerToken().isPresent() ? Figures.bytes(f.kvBytesPerToken().getAsLong()) : ""),
+                new Column("KV CACHE", f -> f.kvCacheBytes().isPresent() ? Figures.bytes(f.kvCacheBytes().getAsLong()) : ""),
+                new Column("MAX CONCURRENT", f -> f.maxConcurrent().isPresent() ? Figures.count(f.maxConcurrent().getAsLong()) : ""),
+                new Column("PREFILL MS", f -> f.prefillMillis().isPresent() ? Figures.significant(f.prefillMillis().getAsDouble()) : ""),
+                new Column("DECODE MS/TOKEN", f -> f.decodeMillisPerToken().isPresent()
+                        ? Figures.significant(f.decodeMillisPerToken().getAsDouble()) : ""));
+        boolean swepTokens = result.sweep().stream().anyMatch(a -> a.key().endsWith("_tokens"));
+        List<Column> shown = new ArrayList<>();
+        for (Column column : all) {
+            boolean tokens = column.header().equals("INPUT") || column.header().equals("OUTPUT");
+            if (tokens ? swepTokens : result.rows().stream().anyMatch(r -> !column.cell().apply(r.footprint()).isEmpty())) {
+                shown.add(column);
+            }
+        }
+        return shown;
+    }
+}
