@@ -36,7 +36,7 @@ final class LeadingText {
         }
         TemplateMeta meta = template.meta();
         Template marked = new Template(template.path(), template.kind(),
-                new TemplateMeta(meta.target(), meta.budget(), meta.outputTokens(), marks), template.messages(),
+                new TemplateMeta(meta.target(), meta.budget(), meta.outputTokens(), marks, meta.tools()), template.messages(),
                 template.source(), template.bodyStart(), template.syntax());
         List<String> leading = new ArrayList<>();
         for (String message : renderer.renderWithSamples(marked).messages()) {

@@ -4,8 +4,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
@@ -13,19 +11,13 @@ import org.junit.jupiter.api.io.TempDir;
 
 /** The check, rules and explain commands, driven as the launcher drives them; exit codes per design.md's contract. */
 class LintCommandsTest {
-    private static final Path ROOT = Path.of(System.getProperty("tare.project.dir", "."));
+    private static final Path ROOT = Cli.projectDir();
 
     @TempDir
     Path dir;
 
-    private record Run(int code, String out, String err) {
-    }
-
-    private static Run run(String... args) {
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        int code = TareCommand.commandLine(new PrintWriter(out), new PrintWriter(err)).execute(args);
-        return new Run(code, out.toString(), err.toString());
+    private static Cli.Run run(String... args) {
+        return Cli.run(args);
     }
 
     private Path repo(String config, String template) throws IOException {
@@ -38,7 +30,7 @@ class LintCommandsTest {
     @Test
     void warningsPassByDefaultAndFailWithFailOnWarning() throws IOException {
         Path repo = repo("templates: {include: [\"prompts/**/*.md\"]}\n", "Be brief.  \n");
-        Run passing = run("check", repo.toString());
+        Cli.Run passing = run("check", repo.toString());
         assertEquals(0, passing.exitCode(), passing.err());
         assertTrue(passing.out().startsWith("prompts/a.md:1:10: warning trailing-whitespace: "), passing.out());
         assertEquals(1, run("check", repo.toString(), "--fail-on", "warning").exitCode());
@@ -48,14 +40,14 @@ class LintCommandsTest {
     @Test
     void aCleanRepositoryExitsZeroEvenOnInfo() throws IOException {
         Path repo = repo("templates: {include: [\"prompts/**/*.md\"]}\n", "Be brief.\n");
-        Run result = run("check", repo.toString(), "--fail-on", "info");
+        Cli.Run result = run("check", repo.toString(), "--fail-on", "info");
         assertEquals(0, result.exitCode(), result.out());
         assertTrue(result.out().contains("Passed"), result.out());
     }
 
     @Test
     void theDemoFailsOnItsBudgetBreach() {
-        Run result = run("check", ROOT.resolve("corpora/demo").toString(), "--format", "json");
+        Cli.Run result = run("check", ROOT.resolve("corpora/demo").toString(), "--format", "json");
         assertEquals(1, result.exitCode());
         assertTrue(result.out().contains("\"rule\" : \"over-budget\""), result.out());
     }
@@ -63,7 +55,7 @@ class LintCommandsTest {
     @Test
     void configurationAndUsageErrorsExitTwoWithOneLine() throws IOException {
         Path repo = repo("rules: {disable: [no-such-rule]}\n", "Text.\n");
-        Run bad = run("check", repo.toString());
+        Cli.Run bad = run("check", repo.toString());
         assertEquals(2, bad.exitCode());
         assertTrue(bad.err().startsWith("tare: ") && bad.err().contains("rules.disable[0]: unknown rule 'no-such-rule'"), bad.err());
         assertEquals(1, bad.err().strip().lines().count(), bad.err());
@@ -75,18 +67,18 @@ class LintCommandsTest {
     void inlineDirectivesSilenceFindings() throws IOException {
         Path repo = repo("templates: {include: [\"prompts/**/*.md\"]}\n",
                 "---\n# tare-ignore-file blank-lines\n---\nBe brief.\t{# tare-ignore prose-tab #}\n\n\n\nEnd.\n");
-        Run result = run("check", repo.toString(), "--fail-on", "info");
+        Cli.Run result = run("check", repo.toString(), "--fail-on", "info");
         assertEquals(0, result.exitCode(), result.out());
     }
 
     @Test
     void rulesListsEveryRuleAndExplainShowsTheFourParts() {
-        Run rules = run("rules");
+        Cli.Run rules = run("rules");
         assertEquals(0, rules.exitCode(), rules.err());
         assertTrue(rules.out().contains("trailing-whitespace") && rules.out().contains("in-order-to"), rules.out());
-        Run json = run("rules", "--format", "json");
+        Cli.Run json = run("rules", "--format", "json");
         assertTrue(json.out().contains("\"id\" : \"pretty-json\""), json.out());
-        Run explain = run("explain", "pretty-json");
+        Cli.Run explain = run("explain", "pretty-json");
         assertEquals(0, explain.exitCode());
         String text = explain.out();
         assertTrue(text.indexOf("What it flags") < text.indexOf("Why it costs"), text);
@@ -96,14 +88,14 @@ class LintCommandsTest {
 
     @Test
     void explainingAnUnknownRuleSuggestsTheNearestOne() {
-        Run result = run("explain", "pretty-jsn");
+        Cli.Run result = run("explain", "pretty-jsn");
         assertEquals(2, result.exitCode());
         assertTrue(result.err().contains("did you mean 'pretty-json'?"), result.err());
     }
 
     @Test
     void rulesTestRunsEveryExample() {
-        Run result = run("rules", "test");
+        Cli.Run result = run("rules", "test");
         assertEquals(0, result.exitCode(), result.out());
         assertTrue(result.out().matches("(?s).*\\d+ passed, 0 failed.*"), result.out());
     }
@@ -115,7 +107,7 @@ class LintCommandsTest {
                 + "    class: review\n    severity: info\n    scope: prose\n    find: 'colour'\n    replace: 'color'\n"
                 + "    examples: [{before: 'the colour', after: 'the colours'}]\n");
         Files.writeString(dir.resolve("tare.yaml"), "rules: {packs: [house]}\n");
-        Run result = run("rules", "test", "--config", dir.resolve("tare.yaml").toString());
+        Cli.Run result = run("rules", "test", "--config", dir.resolve("tare.yaml").toString());
         assertEquals(1, result.exitCode(), result.out() + result.err());
         assertTrue(result.out().contains("FAIL broken-example example 1 (house/p.yaml)"), result.out());
     }
