@@ -1,6 +1,8 @@
 package dev.tare.lint;
 
 import dev.tare.TareException;
+import dev.tare.baseline.Baseline;
+import dev.tare.baseline.BaselineFile;
 import dev.tare.config.TareConfig;
 import dev.tare.config.TargetConfig;
 import dev.tare.template.IncludeResolver;
@@ -42,6 +44,7 @@ public final class LintContext {
     private final Map<String, Integer> settings;
     private final Map<String, TemplateText> texts = new ConcurrentHashMap<>();
     private final Map<String, Optional<Rendering>> renderings = new ConcurrentHashMap<>();
+    private Optional<Baseline> baseline;
 
     /**
      * @param settings example settings that stand in for target values (see {@link Example#settings()})
@@ -142,6 +145,30 @@ public final class LintContext {
         }
         return targets(template).stream().map(TargetConfig::prefixCacheMinTokens).filter(OptionalInt::isPresent)
                 .mapToInt(OptionalInt::getAsInt).min().orElse(DEFAULT_PREFIX_CACHE_MIN_TOKENS);
+    }
+
+    /** The tokenizer of one target. */
+    public Tokenizer tokenizer(TargetConfig target) {
+        return tokenizers.get(target.tokenizer(), config.root());
+    }
+
+    /**
+     * The template's recorded counts by target (or tokenizer) name in the committed baseline
+     * ({@code baseline.file}), read once per run; empty when there is no baseline or no entry.
+     */
+    public Optional<Map<String, Integer>> recordedTokens(Template template) {
+        Integer setting = settings.get(Example.BASELINE_TOKENS);
+        if (setting != null) {
+            return Optional.of(Map.of(tokenizer(template).name(), setting));
+        }
+        return baseline().map(b -> b.tokens().get(template.path()));
+    }
+
+    private synchronized Optional<Baseline> baseline() {
+        if (baseline == null) {
+            baseline = BaselineFile.read(config.root().resolve(config.baseline().file()));
+        }
+        return baseline;
     }
 
     /** The renderer that resolves this run's includes. */

@@ -52,6 +52,29 @@ class BaselineTest {
     }
 
     @Test
+    void checkFailsOnGrowthBeyondTheToleranceAndReportsShrinking() throws Exception {
+        Files.createDirectories(dir.resolve("prompts"));
+        Files.writeString(dir.resolve("tare.yaml"), "templates: {include: [\"prompts/*.md\"]}\n"
+                + "targets:\n  - {name: hosted, tokenizer: o200k_base}\nbaseline: {tolerance_percent: 10}\n");
+        Files.writeString(dir.resolve("prompts/grows.md"), "Answer billing questions politely and briefly.\n");
+        Files.writeString(dir.resolve("prompts/shrinks.md"), "Answer billing questions politely, briefly and in plain words.\n");
+        assertEquals(0, Cli.run("baseline", dir.toString()).exitCode());
+        assertEquals(0, Cli.run("check", dir.toString()).exitCode(), "nothing moved yet");
+
+        Files.writeString(dir.resolve("prompts/grows.md"),
+                "You answer billing questions for the city water utility, politely and briefly, in plain words.\n");
+        Files.writeString(dir.resolve("prompts/shrinks.md"), "Answer billing questions.\n");
+        Cli.Run check = Cli.run("check", dir.toString());
+        assertEquals(1, check.exitCode(), check.out());
+        dev.tare.tokenize.Tokenizer o200k = new dev.tare.tokenize.TokenizerRegistry().get("o200k_base", dir);
+        int before = o200k.count("Answer billing questions politely and briefly.\n");
+        int after = o200k.count("You answer billing questions for the city water utility, politely and briefly, in plain words.\n");
+        assertTrue(check.out().contains("prompts/grows.md:1:1: error baseline-growth: grew from " + before + " to " + after
+                + " tokens on hosted"), check.out());
+        assertTrue(check.out().contains("prompts/shrinks.md:1:1: info baseline-shrink: shrank from"), check.out());
+    }
+
+    @Test
     void theCommandRecordsTheDemosEstimatedTokensPerTarget() throws Exception {
         Path demo = Cli.projectDir().resolve("corpora/demo");
         Path copy = dir.resolve("demo");

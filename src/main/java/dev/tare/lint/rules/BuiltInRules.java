@@ -10,7 +10,7 @@ public final class BuiltInRules {
 
     /** A fresh instance of every built-in rule. */
     public static List<Rule> all() {
-        return List.of(new BlankLines(), new CacheOrder(), new CostlyCharacter(), new DecorativeRuler(),
+        return List.of(new BaselineGrowth(), new BaselineShrink(), new BlankLines(), new CacheOrder(), new CostlyCharacter(), new DecorativeRuler(),
                 new InvisibleCharacter(), new NearDuplicateInstruction(), new OverBudget(), new PrettyJson(),
                 new ProseTab(), new RepeatedInstruction(), new SpaceRun(), new TrailingWhitespace(),
                 new UnknownSuppression(), new UnresolvedInclude(), new UnsizedVariable(), new UnterminatedPlaceholder(),
