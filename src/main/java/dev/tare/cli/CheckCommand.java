@@ -48,11 +48,15 @@ final class CheckCommand implements Callable<Integer> {
             description = "Exit 1 when any finding is at or above this severity: ${COMPLETION-CANDIDATES}. Default: ${DEFAULT-VALUE}.")
     private Level failOn = Level.error;
 
+    @Option(names = "--staged", description = "Check the staged content of staged templates (the git index), not the working tree.")
+    private boolean staged;
+
     @Override
     public Integer call() {
         Workspace workspace = Workspace.open(paths, common.configFile());
-        CheckResult result = new Check(workspace, new TokenizerRegistry())
-                .run(new CheckOptions(Severity.parse(failOn.name(), "--fail-on")));
+        CheckOptions options = new CheckOptions(Severity.parse(failOn.name(), "--fail-on"));
+        Check check = new Check(workspace, new TokenizerRegistry());
+        CheckResult result = staged ? check.runStaged(options) : check.run(options);
         String report = switch (format) {
             case text -> CheckReport.text(result);
             case json -> CheckReport.json(result);

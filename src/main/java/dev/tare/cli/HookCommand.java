@@ -2,25 +2,34 @@ package dev.tare.cli;
 
 import dev.tare.TareException;
 import dev.tare.hook.PreCommitHook;
+import dev.tare.lint.Check;
+import dev.tare.lint.CheckOptions;
+import dev.tare.lint.CheckResult;
+import dev.tare.report.CheckReport;
+import dev.tare.scan.Workspace;
+import dev.tare.tokenize.TokenizerRegistry;
+import java.util.List;
+import java.util.Optional;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare hook}: the git pre-commit hook. */
 @Command(name = "hook", mixinStandardHelpOptions = true,
         description = "Installs or removes the git pre-commit hook that checks staged templates before each commit.",
-        subcommands = {HookCommand.Install.class, HookCommand.Uninstall.class})
+        subcommands = {HookCommand.Install.class, HookCommand.Uninstall.class, HookCommand.Run.class})
 final class HookCommand implements Runnable {
     @Spec
     private CommandSpec spec;
 
     @Override
     public void run() {
-        throw new picocli.CommandLine.ParameterException(spec.commandLine(), "name a hook command: install or uninstall");
+        throw new picocli.CommandLine.ParameterException(spec.commandLine(), "name a hook command: install, uninstall or run");
     }
 
     /** The shell command that runs this very build of Tare, for the hook to call. */
@@ -49,6 +58,9 @@ final class HookCommand implements Runnable {
         @Spec
         private CommandSpec spec;
 
+        @Parameters(paramLabel = "FOLDER", arity = "0..1", description = "A folder of the repository. Default: the current folder.")
+        private Path folder = Path.of("");
+
         @Option(names = "--chain", description = "Keep an existing hook and run it before Tare's.")
         private boolean chain;
 
@@ -60,7 +72,7 @@ final class HookCommand implements Runnable {
             if (chain && force) {
                 throw new TareException("--chain and --force exclude each other: keep the existing hook, or replace it");
             }
-            PreCommitHook hook = PreCommitHook.of(Path.of("").toAbsolutePath());
+            PreCommitHook hook = PreCommitHook.of(folder.toAbsolutePath());
             PreCommitHook.Installed outcome = hook.install(selfCommand(), chain, force);
             String what = switch (outcome) {
                 case NEW -> "Installed";
@@ -79,15 +91,43 @@ final class HookCommand implements Runnable {
         @Spec
         private CommandSpec spec;
 
+        @Parameters(paramLabel = "FOLDER", arity = "0..1", description = "A folder of the repository. Default: the current folder.")
+        private Path folder = Path.of("");
+
         @Override
         public Integer call() throws IOException {
-            PreCommitHook hook = PreCommitHook.of(Path.of("").toAbsolutePath());
+            PreCommitHook hook = PreCommitHook.of(folder.toAbsolutePath());
             String what = switch (hook.uninstall()) {
                 case REMOVED -> "Removed " + hook.file() + ".";
                 case RESTORED_CHAINED -> "Removed Tare's hook; the hook it chained is back at " + hook.file() + ".";
                 case NOTHING_INSTALLED -> "No pre-commit hook is installed at " + hook.file() + ".";
             };
             spec.commandLine().getOut().println(what);
+            return ExitCodes.OK;
+        }
+    }
+
+    @Command(name = "run", mixinStandardHelpOptions = true,
+            description = "What the installed hook runs before each commit: checks the staged templates"
+                    + " (their staged content) and stops the commit when a finding is at or above error.")
+    static final class Run implements Callable<Integer> {
+        @Spec
+        private CommandSpec spec;
+
+        @Override
+        public Integer call() {
+            Workspace workspace = Workspace.open(List.of(), Optional.empty());
+            CheckResult result = new Check(workspace, new TokenizerRegistry()).runStaged(CheckOptions.defaults());
+            if (!result.findings().isEmpty()) {
+                spec.commandLine().getOut().print(CheckReport.text(result));
+                spec.commandLine().getOut().flush();
+            }
+            if (result.failed()) {
+                spec.commandLine().getErr().println("tare: commit stopped by the pre-commit hook: fix the errors above"
+                        + " (or record deliberate growth with 'tare baseline'), then commit again");
+                spec.commandLine().getErr().flush();
+                return ExitCodes.FINDINGS;
+            }
             return ExitCodes.OK;
         }
     }

@@ -1,6 +1,7 @@
 package dev.tare.lint;
 
 import dev.tare.TareException;
+import dev.tare.scan.StagedTemplates;
 import dev.tare.scan.TemplateLoader;
 import dev.tare.scan.Workspace;
 import dev.tare.source.FileSelection;
@@ -34,6 +35,13 @@ public final class Check {
     public CheckResult run(CheckOptions options) {
         TemplateLoader loader = new TemplateLoader(workspace);
         return run(options, loader, loader.find(), loader::read);
+    }
+
+    /** Checks the templates staged for the next commit, as the git index holds them. */
+    public CheckResult runStaged(CheckOptions options) {
+        TemplateLoader loader = new TemplateLoader(workspace);
+        StagedTemplates index = loader.staged();
+        return run(options, loader, index.selection(), index::read);
     }
 
     /**

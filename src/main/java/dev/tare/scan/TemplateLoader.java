@@ -34,10 +34,18 @@ public final class TemplateLoader {
 
     /** The template files the workspace's configuration selects, and the links it would not follow. */
     public FileSelection find() {
+        return finder().find(workspace.starts());
+    }
+
+    /** The files staged for the next commit that the configuration selects, read from the git index. */
+    public StagedTemplates staged() {
+        return StagedTemplates.read(workspace, finder(), reader);
+    }
+
+    private TemplateFinder finder() {
         TareConfig config = workspace.config();
-        TemplateFinder finder = new TemplateFinder(workspace.root(), Glob.all(config.templates().include()),
+        return new TemplateFinder(workspace.root(), Glob.all(config.templates().include()),
                 Glob.all(config.templates().exclude()));
-        return finder.find(workspace.starts());
     }
 
     /** Reads the file at a root-relative path, as the loader would before parsing it. */

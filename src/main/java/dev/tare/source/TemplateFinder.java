@@ -82,6 +82,16 @@ public final class TemplateFinder {
         return new FileSelection(new ArrayList<>(paths), skipped);
     }
 
+    /**
+     * Whether a root-relative path would be selected by the globs (for files that come from
+     * somewhere other than a walk, such as the git index). Git's ignore rules are not consulted:
+     * a staged file is tracked whatever they say.
+     */
+    public boolean selects(String relative) {
+        return !OWN_FILES.contains(relative) && Glob.anyMatches(include, relative) && !excluded(relative, false)
+                && !relative.startsWith(".git/") && !relative.startsWith(".tare/");
+    }
+
     private void enterAncestors(GitIgnores ignores, Path start) throws IOException {
         List<Path> chain = new ArrayList<>();
         for (Path dir = start.getParent(); dir != null && dir.startsWith(root); dir = dir.getParent()) {
