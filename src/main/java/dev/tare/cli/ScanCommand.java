@@ -57,7 +57,7 @@ final class ScanCommand implements Callable<Integer> {
     public Integer call() {
         Workspace workspace = Workspace.open(paths, common.configFile());
         ScanResult result = new TemplateScan(workspace, new TokenizerRegistry())
-                .run(new ScanOptions(targets, Optional.ofNullable(tokenizer)));
+                .run(new ScanOptions(targets, Optional.ofNullable(tokenizer)), TerminalProgress.forOutput(format != Format.text));
         ScanResult.Order order = ScanResult.Order.valueOf(sort.name().toUpperCase(java.util.Locale.ROOT));
         String report = format == Format.json ? ScanReport.json(result, order) : ScanReport.text(result, order);
         spec.commandLine().getOut().print(report);

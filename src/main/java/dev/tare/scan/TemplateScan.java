@@ -43,6 +43,11 @@ public final class TemplateScan {
 
     /** Runs the scan. Configuration problems (an unknown target or tokenizer) throw before any file is read. */
     public ScanResult run(ScanOptions options) {
+        return run(options, ScanProgress.NONE);
+    }
+
+    /** Runs the scan, telling {@code progress} how far it has got. */
+    public ScanResult run(ScanOptions options, ScanProgress progress) {
         TareConfig config = workspace.config();
         List<TargetConfig> targets = config.selectTargets(options.targets());
         String primaryName = options.tokenizer()
@@ -57,7 +62,13 @@ public final class TemplateScan {
         FileSelection selection = loader.find();
         Measurer measurer = new Measurer(config, targets, primary, byTarget, loader);
 
-        List<Outcome> outcomes = selection.paths().parallelStream().map(measurer::measure).toList();
+        progress.started(selection.paths().size());
+        List<Outcome> outcomes = selection.paths().parallelStream().map(path -> {
+            Outcome outcome = measurer.measure(path);
+            progress.advanced();
+            return outcome;
+        }).toList();
+        progress.finished();
         List<ScannedTemplate> templates = new ArrayList<>();
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
         for (Outcome outcome : outcomes) {
