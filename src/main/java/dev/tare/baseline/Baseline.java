@@ -1,6 +1,5 @@
 package dev.tare.baseline;
 
-import dev.tare.footprint.Footprint;
 import dev.tare.scan.ScanResult;
 import dev.tare.scan.ScannedTemplate;
 import java.util.Collections;
@@ -32,10 +31,7 @@ public record Baseline(Map<String, Map<String, Integer>> tokens) {
             if (scan.targets().isEmpty()) {
                 byTarget.put(scan.tokenizer(), template.estimatedTokens());
             }
-            for (Map.Entry<String, Footprint> entry : template.targets().entrySet()) {
-                Footprint footprint = entry.getValue();
-                byTarget.put(entry.getKey(), footprint.inputTokens() - footprint.framingTokens());
-            }
+            byTarget.putAll(template.estimatedByTarget());
             tokens.put(template.path(), byTarget);
         }
         return new Baseline(tokens);

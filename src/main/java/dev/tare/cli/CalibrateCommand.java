@@ -55,7 +55,8 @@ final class CalibrateCommand implements Callable<Integer> {
         if (usage.samples().isEmpty()) {
             throw new TareException(log + ": no usable line; each line needs messages and reported_input_tokens");
         }
-        Calibration before = new Calibration(1.0, config.messageOverheadTokens(), config.replyOverheadTokens(), 0);
+        Calibration before = new Calibration(config.scale(), config.messageOverheadTokens(), config.replyOverheadTokens(),
+                config.toolOverheadTokens());
         CalibrationResult result = new Calibrator().fit(target, usage, before);
         spec.commandLine().getOut().print(format == Format.json ? CalibrationReport.json(result) : CalibrationReport.text(result));
         spec.commandLine().getOut().flush();

@@ -29,7 +29,7 @@ public final class ConfigLoader {
     private static final Set<String> TEMPLATES = Set.of("include", "exclude", "placeholder", "partials", "max_file_bytes");
     private static final Set<String> TARGET = Set.of("name", "tokenizer", "price", "prefix_cache_min_tokens",
             "message_overhead_tokens", "reply_overhead_tokens", "calls_per_day", "output_tokens", "model", "weight_bits",
-            "kv_bits", "device");
+            "kv_bits", "device", "scale", "tool_overhead_tokens");
     private static final Set<String> PRICE = Set.of("input", "cached_input", "output", "currency");
     private static final Set<String> BASELINE = Set.of("file", "tolerance_percent");
     private static final Set<String> RULES = Set.of("disable", "severity", "packs");
@@ -160,9 +160,19 @@ public final class ConfigLoader {
                     in.number(target, "calls_per_day", path + ".calls_per_day", 0),
                     in.wholeNumber(target, "output_tokens", path + ".output_tokens", 0),
                     deployment.model(target, path), deployment.bits(target, "weight_bits", path),
-                    deployment.bits(target, "kv_bits", path), deployment.device(target, path)));
+                    deployment.bits(target, "kv_bits", path), deployment.device(target, path),
+                    scale(in, target, path),
+                    in.wholeNumber(target, "tool_overhead_tokens", path + ".tool_overhead_tokens", 0).orElse(0)));
         }
         return targets;
+    }
+
+    private static double scale(ConfigReader in, JsonNode target, String path) {
+        double scale = in.number(target, "scale", path + ".scale", 0).orElse(1.0);
+        if (scale <= 0) {
+            throw in.problem(path + ".scale", "must be above zero (a multiplier on counted tokens, such as 1.08)");
+        }
+        return scale;
     }
 
     private static Optional<Price> price(ConfigReader in, JsonNode target, String path) {

@@ -22,11 +22,39 @@ import java.util.OptionalInt;
  * @param weightBits            bits per weight as served
  * @param kvBits                bits per KV-cache value as served
  * @param device                the hardware the model is served from
+ * @param scale                 multiplier on counted text tokens, for a target whose tokenizer is not
+ *                              public and is counted with a stand-in (1 when not calibrated)
+ * @param toolOverheadTokens    tokens the provider adds per tool definition sent with a call
  */
 public record TargetConfig(String name, String tokenizer, Optional<Price> price, OptionalInt prefixCacheMinTokens,
                            int messageOverheadTokens, int replyOverheadTokens, OptionalDouble callsPerDay,
                            OptionalInt outputTokens, Optional<ModelShape> model, OptionalDouble weightBits,
-                           OptionalDouble kvBits, Optional<Device> device) {
+                           OptionalDouble kvBits, Optional<Device> device, double scale, int toolOverheadTokens) {
+
+    public TargetConfig {
+        if (!(scale > 0) || Double.isInfinite(scale)) {
+            throw new IllegalArgumentException("scale must be positive: " + scale);
+        }
+    }
+
+    /** A target without calibration: scale 1 and no per-tool overhead. */
+    public TargetConfig(String name, String tokenizer, Optional<Price> price, OptionalInt prefixCacheMinTokens,
+                        int messageOverheadTokens, int replyOverheadTokens, OptionalDouble callsPerDay,
+                        OptionalInt outputTokens, Optional<ModelShape> model, OptionalDouble weightBits,
+                        OptionalDouble kvBits, Optional<Device> device) {
+        this(name, tokenizer, price, prefixCacheMinTokens, messageOverheadTokens, replyOverheadTokens, callsPerDay,
+                outputTokens, model, weightBits, kvBits, device, 1.0, 0);
+    }
+
+    /** Whether counts on this target are scaled, so that figures derived from them are calibrated estimates. */
+    public boolean isCalibrated() {
+        return scale != 1.0;
+    }
+
+    /** {@code tokens} counted locally, as this target's provider would count them: scaled and rounded. */
+    public int scaled(int tokens) {
+        return isCalibrated() ? (int) Math.round(tokens * scale) : tokens;
+    }
 
     /** A target without a model or device: priced, or tokens only. */
     public TargetConfig(String name, String tokenizer, Optional<Price> price, OptionalInt prefixCacheMinTokens,

@@ -24,18 +24,20 @@ import java.util.OptionalLong;
  * @param kvBytesPerToken      KV-cache memory per token at the target's KV precision
  * @param kvCacheBytes         KV-cache memory of one request of I + O tokens
  * @param maxConcurrent        requests of this size whose KV caches fit beside the weights
+ * @param calibrated           whether the token counts were scaled by the target's calibration, which
+ *                             makes every figure here a calibrated estimate
  */
 public record Footprint(int inputTokens, int framingTokens, int outputTokens, OptionalInt cachedInputTokens,
                         OptionalDouble costPerCall, OptionalDouble costPerMonth, Optional<String> currency,
                         OptionalDouble prefillFlops, OptionalDouble prefillMillis,
                         OptionalDouble decodeMillisPerToken, OptionalLong weightBytes, OptionalLong kvBytesPerToken,
-                        OptionalLong kvCacheBytes, OptionalLong maxConcurrent) {
+                        OptionalLong kvCacheBytes, OptionalLong maxConcurrent, boolean calibrated) {
 
     /** Token counts only, as for a target that names nothing but a tokenizer. */
     public Footprint(int inputTokens, int framingTokens) {
         this(inputTokens, framingTokens, 0, OptionalInt.empty(), OptionalDouble.empty(), OptionalDouble.empty(),
                 Optional.empty(), OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(),
-                OptionalLong.empty(), OptionalLong.empty(), OptionalLong.empty(), OptionalLong.empty());
+                OptionalLong.empty(), OptionalLong.empty(), OptionalLong.empty(), OptionalLong.empty(), false);
     }
 
     /** Whether a cost was estimated. */

@@ -79,7 +79,7 @@ public final class Footprints {
         }
         return new Footprint(input, call.framingTokens(), output, cached, costPerCall, costPerMonth, currency,
                 prefillFlops, prefillMillis, decodeMillis, bytes(weightBytes), bytes(kvPerToken), bytes(kvCache),
-                maxConcurrent);
+                maxConcurrent, target.isCalibrated());
     }
 
     /** Whole bytes: a fractional precision such as 4.5 bits can leave half a byte. */

@@ -17,4 +17,9 @@ public final class Framing {
         }
         return messages * target.messageOverheadTokens() + target.replyOverheadTokens();
     }
+
+    /** The tokens a provider adds around {@code tools} tool definitions: {@code tools × tool_overhead_tokens}. */
+    public static int toolTokens(TargetConfig target, int tools) {
+        return tools * target.toolOverheadTokens();
+    }
 }

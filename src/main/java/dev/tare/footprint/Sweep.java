@@ -159,7 +159,8 @@ public final class Sweep {
                     key, OptionalDouble.of(value)));
         }
         return new TargetConfig(t.name(), t.tokenizer(), t.price(), t.prefixCacheMinTokens(), t.messageOverheadTokens(),
-                t.replyOverheadTokens(), t.callsPerDay(), t.outputTokens(), t.model(), weightBits, kvBits, device);
+                t.replyOverheadTokens(), t.callsPerDay(), t.outputTokens(), t.model(), weightBits, kvBits, device,
+                t.scale(), t.toolOverheadTokens());
     }
 
     private static Device withDevice(Device d, String key, OptionalDouble value) {

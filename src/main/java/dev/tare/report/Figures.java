@@ -41,6 +41,9 @@ final class Figures {
         f.kvBytesPerToken().ifPresent(v -> node.put("kv_bytes_per_token", v));
         f.kvCacheBytes().ifPresent(v -> node.put("kv_cache_bytes", v));
         f.maxConcurrent().ifPresent(v -> node.put("max_concurrent", v));
+        if (f.calibrated()) {
+            node.put("calibrated", true);
+        }
         return node;
     }
 

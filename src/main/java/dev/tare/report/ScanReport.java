@@ -63,6 +63,11 @@ public final class ScanReport {
             out.append(totals.partials()).append(totals.partials() == 1 ? " partial is" : " partials are")
                     .append(" listed but left out of the total; their tokens count inside each template that includes them.\n");
         }
+        long tools = result.templates().stream().filter(t -> t.kind() == dev.tare.template.TemplateKind.TOOLS).count();
+        if (tools > 0) {
+            out.append(tools).append(tools == 1 ? " tool file is" : " tool files are")
+                    .append(" listed but left out of the total; their tokens count in each template whose front matter names them.\n");
+        }
         long unsized = result.templates().stream().filter(t -> !t.unsizedVariables().isEmpty()).count();
         if (unsized > 0) {
             out.append(unsized).append(unsized == 1 ? " template has" : " templates have")

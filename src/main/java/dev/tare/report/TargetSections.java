@@ -58,7 +58,7 @@ final class TargetSections {
         target.callsPerDay().ifPresent(calls -> head.append("; ").append(Figures.significant(calls)).append(" calls a day"));
         target.prefixCacheMinTokens().ifPresent(min -> head.append("; prefixes of ").append(Figures.count(min))
                 .append("+ tokens shared with another template are cached"));
-        return head.append("):\n").append(table.render()).toString();
+        return head.append(")").append(calibration(target)).append(":\n").append(table.render()).toString();
     }
 
     private static String device(TargetConfig target, List<ScannedTemplate> templates) {
@@ -75,7 +75,8 @@ final class TargetSections {
                         f.maxConcurrent().isPresent() ? Figures.count(f.maxConcurrent().getAsLong()) : "-"));
             }
         }
-        StringBuilder head = new StringBuilder("Device figures on ").append(target.name()).append(":\n");
+        StringBuilder head = new StringBuilder("Device figures on ").append(target.name()).append(calibration(target))
+                .append(":\n");
         head.append("  model   ").append(Figures.model(target.model().orElseThrow())).append('\n');
         head.append("  weights ").append(Figures.bits(target.weightBits()));
         templates.stream().map(t -> t.targets().get(target.name())).filter(f -> f != null && f.weightBytes().isPresent())
@@ -87,5 +88,10 @@ final class TargetSections {
         head.append('\n');
         target.device().ifPresent(d -> head.append("  device  ").append(Figures.device(d)).append('\n'));
         return head.append(table.render()).toString();
+    }
+
+    /** The mark of a calibrated target's figures. */
+    static String calibration(TargetConfig target) {
+        return target.isCalibrated() ? "; calibrated estimate: counts scaled by " + Figures.significant(target.scale()) : "";
     }
 }

@@ -1,5 +1,6 @@
 package dev.tare.scan;
 
+import dev.tare.config.TargetConfig;
 import dev.tare.template.Rendering;
 import dev.tare.tokenize.Tokenizer;
 
@@ -11,6 +12,14 @@ public final class Estimates {
     /** Estimated tokens: the rendering with samples counted message by message, plus declared sizes. */
     public static int estimatedTokens(Tokenizer tokenizer, Rendering samples) {
         return tokens(tokenizer, samples) + declaredTokens(samples);
+    }
+
+    /**
+     * Estimated tokens as {@code target}'s provider would count them: the counted text scaled by the
+     * target's calibration, plus declared sizes (which are not counted, so not scaled).
+     */
+    public static int estimatedTokens(TargetConfig target, Tokenizer tokenizer, Rendering samples) {
+        return target.scaled(tokens(tokenizer, samples)) + declaredTokens(samples);
     }
 
     /** The tokens of each rendered message, summed. */

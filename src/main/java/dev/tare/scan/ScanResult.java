@@ -61,7 +61,7 @@ public record ScanResult(String root, String tokenizer, List<String> targets, Li
         return footprint == null ? 0 : footprint.inputTokens();
     }
 
-    /** Sums over the templates that count toward totals (not partials). */
+    /** Sums over the templates that count toward totals (not partials, not tool files). */
     public Totals totals() {
         int count = 0;
         long staticTokens = 0;
@@ -77,13 +77,14 @@ public record ScanResult(String root, String tokenizer, List<String> targets, Li
             estimatedTokens += template.estimatedTokens();
             template.targets().forEach((name, footprint) -> inputByTarget.merge(name, (long) footprint.inputTokens(), Long::sum));
         }
-        return new Totals(count, templates.size() - count, staticTokens, estimatedTokens, inputByTarget);
+        int partials = (int) templates.stream().filter(t -> t.kind() == dev.tare.template.TemplateKind.PARTIAL).count();
+        return new Totals(count, partials, staticTokens, estimatedTokens, inputByTarget);
     }
 
     /**
      * Repository totals.
      *
-     * @param templates       templates counted (partials excluded)
+     * @param templates       templates counted (partials and tool files excluded)
      * @param partials        partials found (their tokens are inside their includers' counts)
      * @param staticTokens    sum of static tokens on the primary tokenizer
      * @param estimatedTokens sum of estimated tokens on the primary tokenizer

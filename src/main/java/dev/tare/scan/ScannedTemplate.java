@@ -18,19 +18,31 @@ import java.util.Map;
  * @param unsizedVariables the variables with neither a sample nor a token size: the estimate leaves them out
  * @param includes         the distinct templates pasted in, in order of first use
  * @param targets          footprint per target name, for the targets this template runs on
+ * @param estimatedByTarget the template's own estimated tokens on each of its targets: scaled by the
+ *                         target's calibration, without framing or the tool files sent with it
  */
 public record ScannedTemplate(String path, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
                               List<String> variables, List<String> unsizedVariables, List<String> includes,
-                              Map<String, Footprint> targets) {
+                              Map<String, Footprint> targets, Map<String, Integer> estimatedByTarget) {
     public ScannedTemplate {
         variables = List.copyOf(variables);
         unsizedVariables = List.copyOf(unsizedVariables);
         includes = List.copyOf(includes);
         targets = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(targets));
+        estimatedByTarget = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(estimatedByTarget));
     }
 
-    /** Whether this template counts toward totals (partials are counted inside their includers). */
+    /** The same template with other footprints. */
+    public ScannedTemplate withTargets(Map<String, Footprint> footprints) {
+        return new ScannedTemplate(path, kind, characters, staticTokens, estimatedTokens, variables, unsizedVariables,
+                includes, footprints, estimatedByTarget);
+    }
+
+    /**
+     * Whether this template counts toward totals: partials are counted inside their includers, and
+     * tool files inside the templates sent with them.
+     */
     public boolean countsInTotals() {
-        return kind != TemplateKind.PARTIAL;
+        return kind != TemplateKind.PARTIAL && kind != TemplateKind.TOOLS;
     }
 }

@@ -116,8 +116,7 @@ public final class TemplateScan {
             Map<String, Footprint> footprints = new LinkedHashMap<>(t.targets());
             footprints.put(target.name(), Footprints.estimate(target, new CallSize(before.inputTokens(),
                     before.framingTokens(), before.outputTokens(), tokens)));
-            templates.set(i, new ScannedTemplate(t.path(), t.kind(), t.characters(), t.staticTokens(),
-                    t.estimatedTokens(), t.variables(), t.unsizedVariables(), t.includes(), footprints));
+            templates.set(i, t.withTargets(footprints));
         }
     }
 
@@ -138,7 +137,12 @@ public final class TemplateScan {
 
     /** The per-file work, shared read-only by the scanning threads. */
     private record Measurer(TareConfig config, List<TargetConfig> targets, Tokenizer primary,
-                            Map<String, Tokenizer> byTarget, TemplateLoader loader) {
+                            Map<String, Tokenizer> byTarget, TemplateLoader loader, Map<String, Template> toolFiles) {
+
+        Measurer(TareConfig config, List<TargetConfig> targets, Tokenizer primary, Map<String, Tokenizer> byTarget,
+                 TemplateLoader loader) {
+            this(config, targets, primary, byTarget, loader, new java.util.concurrent.ConcurrentHashMap<>());
+        }
 
         Outcome measure(String path) {
             try {
@@ -155,10 +159,20 @@ public final class TemplateScan {
             Rendering empty = loader.renderer().renderStatic(template);
             Rendering samples = loader.renderer().renderWithSamples(template);
             int declared = Estimates.declaredTokens(samples);
+            List<Template> tools = toolsSentWith(template);
             Map<String, Footprint> footprints = new LinkedHashMap<>();
+            Map<String, Integer> estimatedByTarget = new LinkedHashMap<>();
             for (TargetConfig target : targetsOf(template)) {
-                int estimated = count(byTarget.get(target.name()), samples) + declared;
-                int framing = Framing.tokens(target, template.isChat(), template.messages().size());
+                Tokenizer tokenizer = byTarget.get(target.name());
+                int estimated = Estimates.estimatedTokens(target, tokenizer, samples);
+                estimatedByTarget.put(target.name(), estimated);
+                int framing = template.kind() == TemplateKind.TOOLS
+                        ? Framing.toolTokens(target, template.messages().size())
+                        : Framing.tokens(target, template.isChat(), template.messages().size());
+                for (Template toolFile : tools) {
+                    estimated += target.scaled(Estimates.tokens(tokenizer, loader.renderer().renderStatic(toolFile)));
+                    framing += Framing.toolTokens(target, toolFile.messages().size());
+                }
                 int output = template.meta().outputTokens().orElse(target.outputTokens().orElse(0));
                 footprints.put(target.name(), Footprints.estimate(target,
                         new CallSize(estimated + framing, framing, output, 0)));
@@ -171,9 +185,9 @@ public final class TemplateScan {
                     unsized.add(occurrence.variable().name());
                 }
             }
-            return new ScannedTemplate(template.path(), template.kind(), characters, count(primary, empty),
-                    count(primary, samples) + declared, new ArrayList<>(variables), new ArrayList<>(unsized),
-                    new ArrayList<>(new LinkedHashSet<>(samples.includes())), footprints);
+            return new ScannedTemplate(template.path(), template.kind(), characters, Estimates.tokens(primary, empty),
+                    Estimates.estimatedTokens(primary, samples), new ArrayList<>(variables), new ArrayList<>(unsized),
+                    new ArrayList<>(new LinkedHashSet<>(samples.includes())), footprints, estimatedByTarget);
         }
 
         /**
@@ -230,12 +244,31 @@ public final class TemplateScan {
             return targets.stream().filter(t -> t.name().equals(named.get())).toList();
         }
 
-        private static int count(Tokenizer tokenizer, Rendering rendering) {
-            int total = 0;
-            for (String message : rendering.messages()) {
-                total += tokenizer.count(message);
+        /** The tool files the template's front matter says are sent with it, each parsed once per scan. */
+        private List<Template> toolsSentWith(Template template) {
+            List<Template> tools = new ArrayList<>();
+            for (String path : template.meta().tools()) {
+                Template tool = toolFiles.computeIfAbsent(path, this::loadToolFile);
+                tools.add(tool);
             }
-            return total;
+            return tools;
+        }
+
+        private Template loadToolFile(String path) {
+            if (!java.nio.file.Files.isRegularFile(config.root().resolve(path))) {
+                throw new TareException("front matter names tool file '" + path + "', which does not exist"
+                        + " (tool paths are relative to the folder of tare.yaml)");
+            }
+            Template tool;
+            try {
+                tool = loader.load(path);
+            } catch (TareException e) {
+                throw new TareException("tool file " + path + ": " + e.getMessage(), e);
+            }
+            if (tool.kind() != TemplateKind.TOOLS) {
+                throw new TareException("front matter names '" + path + "' as a tool file, but it holds no list of tools");
+            }
+            return tool;
         }
     }
 }

@@ -66,7 +66,7 @@ final class BaselineGrowth implements Rule {
             now.put(context.tokenizer(template).name(), Estimates.estimatedTokens(context.tokenizer(template), rendering.get()));
         }
         for (TargetConfig target : targets) {
-            now.put(target.name(), Estimates.estimatedTokens(context.tokenizer(target), rendering.get()));
+            now.put(target.name(), Estimates.estimatedTokens(target, context.tokenizer(target), rendering.get()));
         }
         return new ArrayList<>(BaselineComparison.compare(new Baseline(Map.of(template.path(), recorded.get())),
                 new Baseline(Map.of(template.path(), now)),

@@ -1,5 +1,6 @@
 package dev.tare.lint.rules;
 
+import dev.tare.config.TargetConfig;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
@@ -47,7 +48,13 @@ final class OverBudget implements Rule {
             return List.of();
         }
         Tokenizer tokenizer = context.tokenizer(template);
-        int estimated = Estimates.estimatedTokens(tokenizer, rendering.get());
+        List<TargetConfig> targets = context.targets(template);
+        Optional<TargetConfig> primary = targets.isEmpty() ? Optional.empty() : Optional.of(targets.get(0));
+        int estimated = primary.map(target -> Estimates.estimatedTokens(target, tokenizer, rendering.get()))
+                .orElseGet(() -> Estimates.estimatedTokens(tokenizer, rendering.get()));
+        String calibrated = primary.filter(TargetConfig::isCalibrated)
+                .map(target -> ", scaled by " + target.scale() + " for " + target.name() + ": a calibrated estimate")
+                .orElse("");
         if (estimated <= budget.getAsInt()) {
             return List.of();
         }
@@ -57,9 +64,9 @@ final class OverBudget implements Rule {
                 .collect(Collectors.joining(", "));
         String message = String.format(Locale.ROOT,
                 "estimated %,d tokens on %s, over the budget of %,d (%s) by %,d; costliest sections: %s"
-                        + " (token counts are planning estimates)",
+                        + " (token counts are planning estimates%s)",
                 estimated, tokenizer.name(), budget.getAsInt(), source(template, context), estimated - budget.getAsInt(),
-                sections);
+                sections, calibrated);
         OptionalInt line = text.metaLine("budget");
         if (line.isPresent()) {
             int start = text.lineStart(line.getAsInt());
