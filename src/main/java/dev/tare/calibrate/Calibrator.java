@@ -14,9 +14,9 @@ import org.apache.commons.math3.linear.SingularValueDecomposition;
  * Fits a {@link Calibration} to reported usage by ordinary least squares over the columns
  * text tokens, messages, one (the per-call reply overhead) and tools. The solve is Commons Math's
  * QR decomposition; an SVD of the column-normalised design tells which constants the samples cannot
- * tell apart, and the fit is then refused naming them. Overheads are rounded to whole tokens (the
- * form {@code tare.yaml} takes) and the scale refitted with them fixed, so the reported error is the
- * error of the values a user pastes.
+ * tell apart, and the fit is then refused naming them. Overheads become whole tokens (the form
+ * {@code tare.yaml} takes): of the roundings down and up of each, the one whose refitted scale leaves
+ * the least squared error is kept, so the reported error is the error of the values a user pastes.
  */
 public final class Calibrator {
     private static final String[] NAMES = {"scale", "message_overhead_tokens", "reply_overhead_tokens", "tool_overhead_tokens"};
@@ -52,13 +52,17 @@ public final class Calibrator {
         double[] solved = new QRDecomposition(design).getSolver().solve(reported).toArray();
 
         List<String> notes = new ArrayList<>();
-        int message = wholeTokens(solved[1], NAMES[1], notes);
-        int reply = wholeTokens(solved[2], NAMES[2], notes);
-        int tool = anyTools ? wholeTokens(solved[3], NAMES[3], notes) : before.toolOverheadTokens();
-        if (!anyTools) {
-            notes.add(NAMES[3] + " kept at " + tool + ": no sample sends tools");
+        double[] overheads = {solved[1], solved[2], anyTools ? solved[3] : before.toolOverheadTokens()};
+        for (int k = 0; k < 3; k++) {
+            if (overheads[k] < -0.5 && (k < 2 || anyTools)) {
+                notes.add(NAMES[k + 1] + " fitted below zero (" + String.format(java.util.Locale.ROOT, "%.2f", overheads[k])
+                        + "), set to 0");
+            }
         }
-        Calibration fit = new Calibration(scaleWith(samples, message, reply, tool), message, reply, tool);
+        if (!anyTools) {
+            notes.add(NAMES[3] + " kept at " + before.toolOverheadTokens() + ": no sample sends tools");
+        }
+        Calibration fit = bestWholeTokens(samples, overheads, anyTools);
         return new CalibrationResult(target, samples.size(), before, fit, ErrorSummary.of(before, samples),
                 ErrorSummary.of(fit, samples), notes);
     }
@@ -96,13 +100,32 @@ public final class Calibrator {
                 + "; add samples that differ in " + (sameMessageCount ? "message count" : "those respects"));
     }
 
-    private static int wholeTokens(double fitted, String name, List<String> notes) {
-        long rounded = Math.round(fitted);
-        if (rounded < 0) {
-            notes.add(name + " fitted below zero (" + String.format(java.util.Locale.ROOT, "%.2f", fitted) + "), set to 0");
-            return 0;
+    /**
+     * Of the whole-token overheads next to the fitted ones (each rounded down or up, never below
+     * zero), the set that, with its own best scale, leaves the least squared error.
+     */
+    private static Calibration bestWholeTokens(List<UsageSample> samples, double[] fitted, boolean fitTools) {
+        Calibration best = null;
+        double bestError = Double.POSITIVE_INFINITY;
+        for (int choice = 0; choice < 8; choice++) {
+            int[] whole = new int[3];
+            for (int k = 0; k < 3; k++) {
+                boolean fixed = k == 2 && !fitTools;
+                double value = fixed ? fitted[k] : ((choice >> k) & 1) == 0 ? Math.floor(fitted[k]) : Math.ceil(fitted[k]);
+                whole[k] = (int) Math.max(0, value);
+            }
+            Calibration candidate = new Calibration(scaleWith(samples, whole[0], whole[1], whole[2]), whole[0], whole[1], whole[2]);
+            double error = 0;
+            for (UsageSample sample : samples) {
+                double residual = candidate.predict(sample) - sample.reportedInputTokens();
+                error += residual * residual;
+            }
+            if (error < bestError) {
+                bestError = error;
+                best = candidate;
+            }
         }
-        return (int) rounded;
+        return best;
     }
 
     /** The least-squares scale once the overheads are fixed: Σ x(y − overheads) / Σ x². */

@@ -32,7 +32,7 @@ public final class ConfigLoader {
             "kv_bits", "device", "scale", "tool_overhead_tokens");
     private static final Set<String> PRICE = Set.of("input", "cached_input", "output", "currency");
     private static final Set<String> BASELINE = Set.of("file", "tolerance_percent");
-    private static final Set<String> RULES = Set.of("disable", "severity", "packs");
+    private static final Set<String> RULES = Set.of("disable", "severity", "packs", "limits");
     private static final Set<String> HOOK = Set.of("fix");
 
     private ConfigLoader() {
@@ -245,7 +245,16 @@ public final class ConfigLoader {
                         .orElseThrow(() -> in.problem(at, "must be error, warning or info")));
             }
         }
+        Map<String, Integer> limits = new LinkedHashMap<>();
+        JsonNode limitNode = in.object(node, "limits", "rules.limits");
+        if (limitNode != null) {
+            in.onlyKeys(limitNode, "rules.limits", RulesConfig.LIMITS);
+            for (Map.Entry<String, JsonNode> entry : ConfigReader.fields(limitNode)) {
+                in.wholeNumber(limitNode, entry.getKey(), "rules.limits." + entry.getKey(), 1)
+                        .ifPresent(value -> limits.put(entry.getKey(), value));
+            }
+        }
         return new RulesConfig(in.texts(node, "disable", "rules.disable"), severity,
-                in.texts(node, "packs", "rules.packs"));
+                in.texts(node, "packs", "rules.packs"), limits);
     }
 }

@@ -8,6 +8,7 @@ import dev.tare.source.FileSelection;
 import dev.tare.source.SkippedFile;
 import dev.tare.source.SourceText;
 import dev.tare.template.Template;
+import dev.tare.template.TemplateKind;
 import dev.tare.template.TemplateSyntaxException;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.util.ArrayList;
@@ -78,6 +79,9 @@ public final class Check {
         for (Template template : templates) {
             Suppressions suppressions = Suppressions.of(context.text(template));
             for (Rule rule : rules) {
+                if (template.kind() == TemplateKind.TOOLS && !(rule instanceof ToolRule)) {
+                    continue;
+                }
                 for (Finding finding : rule.check(template, context)) {
                     if (!suppressions.silences(finding)) {
                         findings.add(finding);

@@ -90,7 +90,9 @@ public final class ExampleRunner {
     }
 
     private static List<Finding> findings(Rule rule, String text, LintContext context) {
-        String path = text.startsWith("messages:") || text.contains("\nmessages:") ? "example.chat.yaml" : "example.md";
+        String path = text.startsWith("[") ? "example.tools.json"
+                : text.startsWith("tools:") ? "example.tools.yaml"
+                : text.startsWith("messages:") || text.contains("\nmessages:") ? "example.chat.yaml" : "example.md";
         Template template;
         try {
             template = new TemplateParser(PlaceholderSyntax.DOUBLE_BRACE)

@@ -9,7 +9,10 @@ import dev.tare.template.IncludeResolver;
 import dev.tare.template.Renderer;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
+import dev.tare.source.YamlDocument;
 import dev.tare.template.TemplateKind;
+import dev.tare.template.ToolDefinition;
+import dev.tare.template.ToolFileParser;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.nio.file.Path;
@@ -45,6 +48,7 @@ public final class LintContext {
     private final Map<String, TemplateText> texts = new ConcurrentHashMap<>();
     private final Map<String, Optional<Rendering>> renderings = new ConcurrentHashMap<>();
     private Optional<Baseline> baseline;
+    private final Map<String, List<ToolDefinition>> tools = new ConcurrentHashMap<>();
 
     /**
      * @param settings example settings that stand in for target values (see {@link Example#settings()})
@@ -169,6 +173,21 @@ public final class LintContext {
             baseline = BaselineFile.read(config.root().resolve(config.baseline().file()));
         }
         return baseline;
+    }
+
+    /** The definitions of a tool file, parsed once per run; empty for other templates. */
+    public List<ToolDefinition> toolDefinitions(Template template) {
+        if (template.kind() != TemplateKind.TOOLS) {
+            return List.of();
+        }
+        return tools.computeIfAbsent(template.path(), path -> ToolFileParser.definitions(
+                path.toLowerCase(java.util.Locale.ROOT).endsWith(".json") ? YamlDocument.parseJson(template.source())
+                        : YamlDocument.parseYaml(template.source())));
+    }
+
+    /** A numeric limit from {@code rules.limits}, else its default. */
+    public int limit(String key, int fallback) {
+        return config.rules().limits().getOrDefault(key, fallback);
     }
 
     /** The renderer that resolves this run's includes. */

@@ -38,7 +38,8 @@ class ScanCommandTest {
             assertFalse(path.startsWith("/") || path.contains("\\"), path);
             assertTrue(Files.isRegularFile(DEMO.resolve(path)), path);
             assertFalse(path.contains("/drafts/"), "drafts are excluded by the demo's tare.yaml");
-            String expectedKind = path.contains("/partials/") ? "partial" : path.matches(".*\\.(yaml|json)$") ? "chat" : "text";
+            String expectedKind = path.contains("/partials/") ? "partial" : path.contains(".tools.") ? "tools"
+                    : path.matches(".*\\.(yaml|json)$") ? "chat" : "text";
             assertEquals(expectedKind, template.get("kind").asText(), path);
             assertTrue(template.get("static_tokens").asInt() <= template.get("estimated_tokens").asInt(), path);
             assertTrue(template.get("variables").isArray() && template.get("targets").isObject(), path);
@@ -55,6 +56,9 @@ class ScanCommandTest {
         for (JsonNode template : root.get("templates")) {
             if (template.get("kind").asText().equals("partial")) {
                 partials++;
+                continue;
+            }
+            if (template.get("kind").asText().equals("tools")) {
                 continue;
             }
             templates++;

@@ -14,6 +14,7 @@ public final class BuiltInRules {
                 new InvisibleCharacter(), new NearDuplicateInstruction(), new OverBudget(), new PrettyJson(),
                 new ProseTab(), new RepeatedInstruction(), new SpaceRun(), new TrailingWhitespace(),
                 new UnknownSuppression(), new UnresolvedInclude(), new UnsizedVariable(), new UnterminatedPlaceholder(),
-                new UnusedVariable());
+                new UnusedVariable(), new PrettyToolFile(), new RepeatedToolDescription(), new LongToolText(),
+                new UndescribedToolParameter(), new ToolCost());
     }
 }
