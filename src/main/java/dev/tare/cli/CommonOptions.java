@@ -13,6 +13,9 @@ final class CommonOptions {
     @Option(names = "--debug", description = "Print the stack trace of an error as well as its message.")
     boolean debug;
 
+    @Option(names = "--timings", description = "Print on standard error where the time went: JVM start, tokenizer loading, the work.")
+    boolean timings;
+
     Optional<Path> configFile() {
         return Optional.ofNullable(config);
     }

@@ -114,9 +114,12 @@ final class HookCommand implements Runnable {
         @Spec
         private CommandSpec spec;
 
+        @picocli.CommandLine.Mixin
+        private CommonOptions common;
+
         @Override
         public Integer call() {
-            Workspace workspace = Workspace.open(List.of(), Optional.empty());
+            Workspace workspace = Workspace.open(List.of(), common.configFile());
             CheckResult result = new Check(workspace, new TokenizerRegistry()).runStaged(CheckOptions.defaults());
             if (!result.findings().isEmpty()) {
                 spec.commandLine().getOut().print(CheckReport.text(result));

@@ -33,13 +33,21 @@ public final class TareCommand implements Runnable {
         commandLine.setErr(err);
         commandLine.setCaseInsensitiveEnumValuesAllowed(true);
         commandLine.setExecutionExceptionHandler(TareCommand::handleExecutionException);
+        commandLine.setExecutionStrategy(parseResult -> {
+            long started = System.nanoTime();
+            int code = new CommandLine.RunLast().execute(parseResult);
+            if (requested(parseResult, "--timings")) {
+                Timings.print(commandLine.getErr(), started);
+            }
+            return code;
+        });
         commandLine.setParameterExceptionHandler(TareCommand::handleParameterException);
         return commandLine;
     }
 
     private static int handleExecutionException(Exception ex, CommandLine commandLine, CommandLine.ParseResult parseResult) {
         PrintWriter err = commandLine.getErr();
-        boolean debug = debugRequested(parseResult);
+        boolean debug = requested(parseResult, "--debug");
         if (ex instanceof TareException) {
             err.println("tare: " + ex.getMessage());
             if (debug) {
@@ -65,9 +73,9 @@ public final class TareCommand implements Runnable {
         return ExitCodes.USAGE;
     }
 
-    private static boolean debugRequested(CommandLine.ParseResult parseResult) {
+    private static boolean requested(CommandLine.ParseResult parseResult, String option) {
         for (CommandLine.ParseResult result = parseResult; result != null; result = result.subcommand()) {
-            if (result.hasMatchedOption("--debug")) {
+            if (result.hasMatchedOption(option)) {
                 return true;
             }
         }

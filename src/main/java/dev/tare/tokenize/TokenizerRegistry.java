@@ -29,6 +29,8 @@ public final class TokenizerRegistry {
 
     private final EncodingRegistry encodings = Encodings.newLazyEncodingRegistry();
     private final Map<String, Tokenizer> loaded = new ConcurrentHashMap<>();
+    /** Time spent loading tokenizers in this process, for {@code --timings}. */
+    private static final java.util.concurrent.atomic.AtomicLong LOAD_NANOS = new java.util.concurrent.atomic.AtomicLong();
 
     /**
      * The tokenizer for {@code spec}: a built-in name, or a path to a {@code tokenizer.json} file,
@@ -39,14 +41,28 @@ public final class TokenizerRegistry {
     public Tokenizer get(String spec, Path baseDir) {
         Optional<EncodingType> type = Optional.ofNullable(TYPES.get(spec));
         if (type.isPresent()) {
-            return loaded.computeIfAbsent(spec, name -> new BuiltInEncoding(encodings.getEncoding(type.get())));
+            return loaded.computeIfAbsent(spec, name -> timed(() -> new BuiltInEncoding(encodings.getEncoding(type.get()))));
         }
         if (!namesFile(spec)) {
             throw new TareException("unknown tokenizer '" + spec + "': use one of " + String.join(", ", BUILT_IN)
                     + ", or the path of a tokenizer.json file");
         }
         Path file = baseDir.resolve(spec).toAbsolutePath().normalize();
-        return loaded.computeIfAbsent(file.toString(), key -> TokenizerFile.load(spec, file));
+        return loaded.computeIfAbsent(file.toString(), key -> timed(() -> TokenizerFile.load(spec, file)));
+    }
+
+    /** Milliseconds this process has spent loading tokenizers, across every registry. */
+    public static double loadMillis() {
+        return LOAD_NANOS.get() / 1e6;
+    }
+
+    private static Tokenizer timed(java.util.function.Supplier<Tokenizer> load) {
+        long start = System.nanoTime();
+        try {
+            return load.get();
+        } finally {
+            LOAD_NANOS.addAndGet(System.nanoTime() - start);
+        }
     }
 
     /** The built-in default tokenizer. */
