@@ -1,5 +1,9 @@
 package dev.tare.cli;
 
+import dev.tare.overview.Overview;
+import dev.tare.overview.OverviewRun;
+import dev.tare.report.HtmlReport;
+import dev.tare.report.MarkdownReport;
 import dev.tare.report.ScanReport;
 import dev.tare.scan.ScanOptions;
 import dev.tare.scan.ScanResult;
@@ -24,7 +28,7 @@ import picocli.CommandLine.Model.CommandSpec;
                 + " estimated tokens (variables filled with their declared samples or sizes) and input tokens on each target.",
                 "Files that cannot be read or parsed are listed with the reason and never stop the scan."})
 final class ScanCommand implements Callable<Integer> {
-    enum Format { text, json }
+    enum Format { text, json, md, html }
 
     enum Sort { tokens, cost, path }
 
@@ -47,7 +51,10 @@ final class ScanCommand implements Callable<Integer> {
                     + TokenizerRegistry.DEFAULT + ".")
     private String tokenizer;
 
-    @Option(names = "--format", paramLabel = "FORMAT", description = "Output format: ${COMPLETION-CANDIDATES}. Default: ${DEFAULT-VALUE}.")
+    @Option(names = "--format", paramLabel = "FORMAT", description = {"Output format: ${COMPLETION-CANDIDATES}."
+            + " Default: ${DEFAULT-VALUE}.", "md and html also run the rules and compare with the baseline file:"
+            + " md is a summary for a pull-request comment, html one self-contained page with charts and every"
+            + " template line by line (tare scan --format html > report.html)."})
     private Format format = Format.text;
 
     @Option(names = "--sort", paramLabel = "KEY", description = "Row order: ${COMPLETION-CANDIDATES}. Default: ${DEFAULT-VALUE}.")
@@ -56,10 +63,17 @@ final class ScanCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         Workspace workspace = Workspace.open(paths, common.configFile());
-        ScanResult result = new TemplateScan(workspace, new TokenizerRegistry())
-                .run(new ScanOptions(targets, Optional.ofNullable(tokenizer)), TerminalProgress.forOutput(format != Format.text));
+        ScanOptions options = new ScanOptions(targets, Optional.ofNullable(tokenizer));
         ScanResult.Order order = ScanResult.Order.valueOf(sort.name().toUpperCase(java.util.Locale.ROOT));
-        String report = format == Format.json ? ScanReport.json(result, order) : ScanReport.text(result, order);
+        String report;
+        if (format == Format.md || format == Format.html) {
+            Overview overview = new OverviewRun(workspace, new TokenizerRegistry()).run(options, format == Format.html);
+            report = format == Format.md ? MarkdownReport.render(overview) : HtmlReport.render(overview, order);
+        } else {
+            ScanResult result = new TemplateScan(workspace, new TokenizerRegistry())
+                    .run(options, TerminalProgress.forOutput(format != Format.text));
+            report = format == Format.json ? ScanReport.json(result, order) : ScanReport.text(result, order);
+        }
         spec.commandLine().getOut().print(report);
         spec.commandLine().getOut().flush();
         return ExitCodes.OK;

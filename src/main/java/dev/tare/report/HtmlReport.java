@@ -1,0 +1,433 @@
+package dev.tare.report;
+
+import dev.tare.Tare;
+import dev.tare.baseline.BaselineChange;
+import dev.tare.config.TargetConfig;
+import dev.tare.footprint.Coverage;
+import dev.tare.footprint.Footprint;
+import dev.tare.lint.CheckResult;
+import dev.tare.lint.Finding;
+import dev.tare.lint.RewriteClass;
+import dev.tare.lint.Severity;
+import dev.tare.overview.BaselineStatus;
+import dev.tare.overview.Overview;
+import dev.tare.overview.RuleTally;
+import dev.tare.overview.TargetTotals;
+import dev.tare.scan.ScanResult;
+import dev.tare.scan.ScannedTemplate;
+import dev.tare.source.SkippedFile;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.function.DoubleFunction;
+import java.util.stream.Collectors;
+
+/**
+ * Renders an {@link Overview} as one self-contained HTML page: inline CSS and SVG, no script and no
+ * request to anywhere (its content security policy forbids both). Key numbers carry {@code data-*}
+ * attributes holding the JSON report's values, so that tools and tests can read them back.
+ */
+public final class HtmlReport {
+    private static final String CSS = stylesheet();
+    private static final String CSP = "default-src 'none'; style-src 'unsafe-inline'; img-src data:";
+
+    private HtmlReport() {
+    }
+
+    /** The page; the per-template views follow {@code order}. */
+    public static String render(Overview overview, ScanResult.Order order) {
+        ScanResult scan = overview.scan();
+        StringBuilder out = new StringBuilder(64 * 1024);
+        out.append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
+                .append("<meta http-equiv=\"Content-Security-Policy\" content=\"").append(CSP).append("\">\n")
+                .append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
+                .append("<title>Tare report: ").append(Html.text(scan.root())).append("</title>\n")
+                .append("<style>\n").append(CSS).append("</style>\n</head>\n<body>\n");
+        header(out, overview);
+        out.append("<main>\n");
+        summary(out, overview);
+        tokens(out, overview);
+        targets(out, overview);
+        templateTable(out, overview, order);
+        savings(out, overview);
+        baseline(out, overview);
+        lines(out, overview, order);
+        skipped(out, overview);
+        out.append("</main>\n<footer><p>Made by tare ").append(Html.text(Tare.version())).append(". ")
+                .append(Html.text(Figures.ESTIMATE_NOTE)).append("</p></footer>\n</body>\n</html>\n");
+        return out.toString();
+    }
+
+    private static void header(StringBuilder out, Overview overview) {
+        ScanResult scan = overview.scan();
+        out.append("<header>\n<p class=\"eyebrow\">Tare report</p>\n<h1>").append(Html.text(scan.root())).append("</h1>\n");
+        out.append("<p class=\"lede\">Token footprint of every prompt template, counted on <code>")
+                .append(Html.text(scan.tokenizer())).append("</code>");
+        if (!scan.targets().isEmpty()) {
+            out.append(" and on ").append(scan.targets().size() == 1 ? "one target" : scan.targets().size() + " targets")
+                    .append(": ").append(scan.targets().stream().map(Html::text).collect(Collectors.joining(", ")));
+        }
+        out.append(".</p>\n<p class=\"note\" role=\"note\"><strong>Estimates.</strong> ")
+                .append(Html.text(Figures.ESTIMATE_NOTE)).append("</p>\n");
+        out.append("<nav aria-label=\"Sections\"><ol><li><a href=\"#tokens\">Tokens per template</a></li>")
+                .append("<li><a href=\"#targets\">Targets</a></li><li><a href=\"#templates\">All templates</a></li>")
+                .append("<li><a href=\"#savings\">Savings</a></li><li><a href=\"#baseline\">Baseline</a></li>")
+                .append("<li><a href=\"#lines\">Line by line</a></li></ol></nav>\n</header>\n");
+    }
+
+    private static void summary(StringBuilder out, Overview overview) {
+        ScanResult.Totals totals = overview.scan().totals();
+        CheckResult check = overview.check();
+        out.append("<section id=\"summary\" aria-label=\"Summary\"><dl class=\"tiles\">\n");
+        tile(out, "Templates", number(totals.templates(), "totals.templates", "count"),
+                totals.partials() == 0 ? "" : "and " + CheckReport.plural(totals.partials(), "partial") + " inside them");
+        tile(out, "Static tokens", number(totals.staticTokens(), "totals.static_tokens", "tokens"),
+                "every variable empty");
+        tile(out, "Estimated tokens", number(totals.estimatedTokens(), "totals.estimated_tokens", "tokens"),
+                "with samples and declared sizes");
+        tile(out, "Findings", number(check.findings().size(), "check.findings", "count"),
+                CheckReport.plural(check.count(Severity.ERROR), "error") + ", "
+                        + CheckReport.plural(check.count(Severity.WARNING), "warning") + ", "
+                        + CheckReport.plural(check.count(Severity.INFO), "info"));
+        tile(out, "Tokens saved by rewrites", number(check.savingTokens(), "check.saving_tokens", "tokens"),
+                "per call: " + Figures.count(overview.savingTokens(RewriteClass.SAFE)) + " safe, "
+                        + Figures.count(overview.savingTokens(RewriteClass.REVIEW)) + " to review");
+        out.append("</dl></section>\n");
+    }
+
+    private static void tile(StringBuilder out, String label, String value, String detail) {
+        out.append("<div class=\"tile\"><dt>").append(Html.text(label)).append("</dt><dd class=\"figure\">").append(value)
+                .append("</dd>");
+        if (!detail.isEmpty()) {
+            out.append("<dd class=\"detail\">").append(Html.text(detail)).append("</dd>");
+        }
+        out.append("</div>\n");
+    }
+
+    private static String number(long value, String total, String unit) {
+        return "<span data-total=\"" + total + "\" data-value=\"" + value + "\" data-unit=\"" + unit + "\">"
+                + Figures.count(value) + "</span>";
+    }
+
+    private static void tokens(StringBuilder out, Overview overview) {
+        ScanResult scan = overview.scan();
+        out.append("<section id=\"tokens\">\n<h2>Tokens per template</h2>\n");
+        List<ScannedTemplate> templates = scan.templates().stream().filter(ScannedTemplate::countsInTotals)
+                .sorted(Comparator.comparingLong(HtmlReport::chartTotal).reversed()
+                        .thenComparing(ScannedTemplate::path)).toList();
+        if (templates.isEmpty()) {
+            out.append("<p>No templates were measured.</p>\n</section>\n");
+            return;
+        }
+        out.append("<p>What each call sends, split into the template's own text (static), what its variables add")
+                .append(" with their samples and declared sizes, and the chat framing of the template's first target.")
+                .append(" Static and variables are counted on <code>").append(Html.text(scan.tokenizer()))
+                .append("</code>. Partials are inside the templates that include them.</p>\n");
+        SvgBarChart chart = new SvgBarChart("tokens", "Tokens per template: static, variables, framing",
+                List.of(new SvgBarChart.Series("static: the template's own text", SvgBarChart.Fill.SOLID),
+                        new SvgBarChart.Series("variables: samples and declared sizes", SvgBarChart.Fill.HATCH),
+                        new SvgBarChart.Series("framing: chat format, per target", SvgBarChart.Fill.DOTS)),
+                tick -> Figures.count(Math.round(tick)));
+        for (ScannedTemplate t : templates) {
+            int framing = framing(t);
+            int variables = t.estimatedTokens() - t.staticTokens();
+            String data = " data-template=\"" + Html.attr(t.path()) + "\" data-static=\"" + t.staticTokens()
+                    + "\" data-variables=\"" + variables + "\" data-framing=\"" + framing + "\"";
+            chart.row(new SvgBarChart.Row(t.path(), List.of((double) t.staticTokens(), (double) variables,
+                    (double) framing), Figures.count(chartTotal(t)), data));
+        }
+        out.append(chart.legend()).append("<div class=\"chart-frame\">").append(chart.render()).append("</div>\n</section>\n");
+    }
+
+    /** Framing tokens on the template's first target, none without targets. */
+    private static int framing(ScannedTemplate template) {
+        return template.targets().values().stream().findFirst().map(Footprint::framingTokens).orElse(0);
+    }
+
+    private static long chartTotal(ScannedTemplate template) {
+        return (long) Math.max(template.staticTokens(), template.estimatedTokens()) + framing(template);
+    }
+
+    private static void targets(StringBuilder out, Overview overview) {
+        out.append("<section id=\"targets\">\n<h2>Targets</h2>\n");
+        if (overview.targets().isEmpty()) {
+            out.append("<p>No targets are configured; set <code>targets</code> in <code>tare.yaml</code> for cost,")
+                    .append(" time and memory estimates.</p>\n</section>\n");
+            return;
+        }
+        out.append("<p>Cost, time and memory below are planning estimates from Tare's formulas, not measurements or")
+                .append(" invoices.</p>\n");
+        for (TargetTotals totals : overview.targets()) {
+            target(out, overview, totals);
+        }
+        out.append("</section>\n");
+    }
+
+    private static void target(StringBuilder out, Overview overview, TargetTotals totals) {
+        TargetConfig target = totals.target();
+        String name = Html.attr(target.name());
+        out.append("<article class=\"target\" data-target=\"").append(name).append("\">\n<h3>").append(Html.text(target.name()))
+                .append("</h3>\n<p class=\"facts\">Tokenizer <code>").append(Html.text(target.tokenizer())).append("</code>");
+        target.price().ifPresent(p -> out.append(" · ").append(Html.text(Figures.price(p))));
+        target.callsPerDay().ifPresent(c -> out.append(" · ").append(Html.text(Figures.significant(c))).append(" calls a day"));
+        target.model().ifPresent(m -> out.append("<br>Model ").append(Html.text(Figures.model(m))));
+        target.device().ifPresent(d -> out.append("<br>Device ").append(Html.text(Figures.device(d))));
+        out.append("</p>\n<dl class=\"tiles small\">\n");
+        tile(out, "Templates on it", targetNumber(name, "templates", totals.templates(), "count"), "");
+        tile(out, "Input tokens per call", targetNumber(name, "input_tokens", totals.inputTokens(), "tokens"),
+                "summed over its templates");
+        totals.costPerMonth().ifPresent(cost -> tile(out, "Cost per month (estimate)",
+                "<span data-target=\"" + name + "\" data-total=\"cost_per_month\" data-value=\"" + Html.value(cost)
+                        + "\" data-unit=\"money\">" + Html.text(Figures.money(cost, totals.currency().orElse(""), 2))
+                        + "</span>", "every template at " + Figures.significant(target.callsPerDay().orElse(0))
+                        + " calls a day"));
+        totals.largestKvCacheBytes().ifPresent(bytes -> tile(out, "KV cache, largest request (estimate)",
+                "<span data-target=\"" + name + "\" data-total=\"max_kv_cache_bytes\" data-value=\"" + bytes
+                        + "\" data-unit=\"bytes\">" + Html.text(Figures.bytes(bytes)) + "</span>",
+                totals.largestRequest().orElse("") + totals.fewestConcurrent().stream()
+                        .mapToObj(n -> "; " + Figures.count(n) + " such requests fit").findFirst().orElse("")));
+        totals.weightBytes().ifPresent(bytes -> tile(out, "Weights (estimate)",
+                "<span data-target=\"" + name + "\" data-total=\"weight_bytes\" data-value=\"" + bytes
+                        + "\" data-unit=\"bytes\">" + Html.text(Figures.bytes(bytes)) + "</span>", ""));
+        out.append("</dl>\n");
+        List<ScannedTemplate> on = overview.scan().templates().stream()
+                .filter(t -> t.countsInTotals() && t.targets().containsKey(target.name())).toList();
+        Coverage coverage = Coverage.of(target);
+        if (coverage.computes().contains("cost_per_month") && !on.isEmpty()) {
+            String currency = totals.currency().orElse("");
+            targetChart(out, target, on, "cost_per_month", "Cost per month per template (estimate)", "money",
+                    f -> f.costPerMonth().orElse(0), v -> Figures.money(v, currency, 2),
+                    tick -> currency + " " + Figures.significant(tick));
+        }
+        if (coverage.computes().contains("kv_cache_bytes") && !on.isEmpty()) {
+            targetChart(out, target, on, "kv_cache_bytes", "KV-cache memory of one request per template (estimate)",
+                    "bytes", f -> f.kvCacheBytes().orElse(0), Figures::bytes, Figures::bytes);
+        }
+        out.append("</article>\n");
+    }
+
+    private static String targetNumber(String name, String total, long value, String unit) {
+        return "<span data-target=\"" + name + "\" data-total=\"" + total + "\" data-value=\"" + value + "\" data-unit=\""
+                + unit + "\">" + Figures.count(value) + "</span>";
+    }
+
+    /** What a target chart plots for one footprint. */
+    private interface Measure {
+        double of(Footprint footprint);
+    }
+
+    private static void targetChart(StringBuilder out, TargetConfig target, List<ScannedTemplate> templates,
+                                     String field, String title, String unit, Measure measure,
+                                     DoubleFunction<String> label, DoubleFunction<String> tick) {
+        SvgBarChart chart = new SvgBarChart(Html.id(field, target.name()), title + " on " + target.name(),
+                List.of(new SvgBarChart.Series(title, SvgBarChart.Fill.SOLID)), tick);
+        List<ScannedTemplate> sorted = templates.stream()
+                .sorted(Comparator.comparingDouble((ScannedTemplate t) -> measure.of(t.targets().get(target.name())))
+                        .reversed().thenComparing(ScannedTemplate::path)).toList();
+        for (ScannedTemplate t : sorted) {
+            Footprint f = t.targets().get(target.name());
+            double value = measure.of(f);
+            String data = " data-template=\"" + Html.attr(t.path()) + "\" data-target=\"" + Html.attr(target.name())
+                    + "\" data-field=\"" + field + "\" data-value=\"" + (unit.equals("bytes") ? Html.value((long) value)
+                    : Html.value(value)) + "\" data-unit=\"" + unit + "\"";
+            chart.row(new SvgBarChart.Row(t.path(), List.of(value), label.apply(value), data));
+        }
+        out.append("<h4>").append(Html.text(title)).append("</h4>\n<div class=\"chart-frame\">").append(chart.render())
+                .append("</div>\n");
+    }
+
+    private static void templateTable(StringBuilder out, Overview overview, ScanResult.Order order) {
+        ScanResult scan = overview.scan();
+        Map<String, List<Finding>> findings = findingsByPath(overview.check());
+        out.append("<section id=\"templates\">\n<h2>All templates</h2>\n<div class=\"table-frame\"><table class=\"figures\">\n")
+                .append("<thead><tr><th scope=\"col\">Template</th><th scope=\"col\">Kind</th>")
+                .append("<th scope=\"col\" class=\"num\">Static</th><th scope=\"col\" class=\"num\">Estimated</th>");
+        for (String target : scan.targets()) {
+            out.append("<th scope=\"col\" class=\"num\">").append(Html.text(target)).append("<br><small>input tokens</small></th>");
+        }
+        out.append("<th scope=\"col\" class=\"num\">Findings</th></tr></thead>\n<tbody>\n");
+        for (ScannedTemplate t : scan.templatesIn(order)) {
+            String path = Html.attr(t.path());
+            out.append("<tr data-template=\"").append(path).append("\"").append(t.countsInTotals() ? "" : " class=\"partial\"")
+                    .append("><th scope=\"row\"><a href=\"#").append(Html.id("t", t.path())).append("\">")
+                    .append(Html.text(t.path())).append("</a></th><td>").append(t.kind().label()).append("</td>");
+            cell(out, t.path(), "", "static_tokens", Html.value(t.staticTokens()), Figures.count(t.staticTokens()), "tokens");
+            cell(out, t.path(), "", "estimated_tokens", Html.value(t.estimatedTokens()), Figures.count(t.estimatedTokens()),
+                    "tokens");
+            for (String target : scan.targets()) {
+                Footprint f = t.targets().get(target);
+                if (f == null) {
+                    out.append("<td class=\"num none\" title=\"does not run on ").append(Html.attr(target)).append("\">–</td>");
+                } else {
+                    cell(out, t.path(), target, "input_tokens", Html.value(f.inputTokens()), Figures.count(f.inputTokens()),
+                            "tokens");
+                }
+            }
+            out.append("<td class=\"num\">").append(findings.getOrDefault(t.path(), List.of()).size()).append("</td></tr>\n");
+        }
+        ScanResult.Totals totals = scan.totals();
+        out.append("</tbody>\n<tfoot><tr><th scope=\"row\">Total (").append(CheckReport.plural(totals.templates(), "template"))
+                .append(", partials left out)</th><td></td><td class=\"num\">").append(Figures.count(totals.staticTokens()))
+                .append("</td><td class=\"num\">").append(Figures.count(totals.estimatedTokens())).append("</td>");
+        for (String target : scan.targets()) {
+            out.append("<td class=\"num\">").append(Figures.count(totals.inputTokensByTarget().get(target))).append("</td>");
+        }
+        out.append("<td class=\"num\">").append(overview.check().findings().size()).append("</td></tr></tfoot>\n</table></div>\n");
+        out.append("<p class=\"aside\">Target columns are input tokens per call on each target's tokenizer, framing")
+                .append(" included; a dash means the template does not run there. Partials are shown in grey: their")
+                .append(" tokens are counted inside every template that includes them. Costs per template are charted")
+                .append(" under <a href=\"#targets\">Targets</a>.</p>\n</section>\n");
+    }
+
+    private static void cell(StringBuilder out, String path, String target, String field, String value, String shown,
+                             String unit) {
+        out.append("<td class=\"num\" data-template=\"").append(Html.attr(path)).append('"');
+        if (!target.isEmpty()) {
+            out.append(" data-target=\"").append(Html.attr(target)).append('"');
+        }
+        out.append(" data-field=\"").append(field).append("\" data-value=\"").append(value).append("\" data-unit=\"")
+                .append(unit).append("\">").append(Html.text(shown)).append("</td>");
+    }
+
+    private static void savings(StringBuilder out, Overview overview) {
+        out.append("<section id=\"savings\">\n<h2>Savings available</h2>\n");
+        List<RuleTally> offering = overview.rules().stream().filter(t -> t.rewrites() > 0).toList();
+        if (offering.isEmpty()) {
+            out.append("<p>No rule offers a rewrite.</p>\n");
+        } else {
+            out.append("<p>Tokens per call that the rules' rewrites would take out, summed by rule. <strong>Safe</strong>")
+                    .append(" rewrites keep the meaning and may be applied unattended; <strong>review</strong> rewrites")
+                    .append(" need a person. ").append(Html.text(CheckReport.ESTIMATE_NOTE)).append("</p>\n");
+            SvgBarChart chart = new SvgBarChart("savings", "Tokens saved per call, by rule",
+                    List.of(new SvgBarChart.Series("safe rewrites", SvgBarChart.Fill.SOLID),
+                            new SvgBarChart.Series("rewrites to review", SvgBarChart.Fill.HATCH)),
+                    tick -> Figures.count(Math.round(tick)));
+            for (RuleTally t : offering.stream().sorted(Comparator.comparingLong(RuleTally::savingTokens).reversed()
+                    .thenComparing(RuleTally::rule)).toList()) {
+                boolean safe = t.rewriteClass() == RewriteClass.SAFE;
+                String data = " data-rule=\"" + Html.attr(t.rule()) + "\" data-field=\"saving_tokens\" data-value=\""
+                        + t.savingTokens() + "\" data-unit=\"tokens\"";
+                chart.row(new SvgBarChart.Row(t.rule(), List.of(safe ? (double) t.savingTokens() : 0,
+                        safe ? 0 : (double) t.savingTokens()), CheckReport.plural(t.savingTokens(), "token")
+                        + " (" + t.rewriteClass().label() + ")", data));
+            }
+            out.append(chart.legend()).append("<div class=\"chart-frame\">").append(chart.render()).append("</div>\n");
+        }
+        out.append("<div class=\"table-frame\"><table class=\"figures\">\n<thead><tr><th scope=\"col\">Rule</th>")
+                .append("<th scope=\"col\">Severity</th><th scope=\"col\" class=\"num\">Findings</th>")
+                .append("<th scope=\"col\" class=\"num\">Files</th><th scope=\"col\">Rewrite</th>")
+                .append("<th scope=\"col\" class=\"num\">Tokens saved per call</th></tr></thead>\n<tbody>\n");
+        for (RuleTally t : overview.rules()) {
+            String rule = Html.attr(t.rule());
+            out.append("<tr data-rule=\"").append(rule).append("\"><th scope=\"row\"><code>").append(Html.text(t.rule()))
+                    .append("</code></th><td><span class=\"severity-label severity-").append(t.severity().label()).append("\">")
+                    .append(t.severity().label()).append("</span></td><td class=\"num\" data-rule=\"").append(rule)
+                    .append("\" data-field=\"findings\" data-value=\"").append(t.findings()).append("\" data-unit=\"count\">")
+                    .append(Figures.count(t.findings())).append("</td><td class=\"num\">").append(Figures.count(t.files()))
+                    .append("</td><td>").append(t.rewrites() == 0 ? "–" : t.rewriteClass().label()).append("</td>")
+                    .append("<td class=\"num\">").append(t.rewrites() == 0 ? "–" : Figures.count(t.savingTokens()))
+                    .append("</td></tr>\n");
+        }
+        long safe = overview.savingTokens(RewriteClass.SAFE);
+        long review = overview.savingTokens(RewriteClass.REVIEW);
+        out.append("</tbody>\n<tfoot><tr><th scope=\"row\">All rules</th><td></td><td class=\"num\">")
+                .append(Figures.count(overview.check().findings().size())).append("</td><td class=\"num\">")
+                .append(Figures.count(overview.check().filesWithFindings())).append("</td><td>")
+                .append(Figures.count(safe)).append(" safe, ").append(Figures.count(review)).append(" review</td>")
+                .append("<td class=\"num\">").append(Figures.count(safe + review)).append("</td></tr></tfoot>\n")
+                .append("</table></div>\n</section>\n");
+    }
+
+    private static void baseline(StringBuilder out, Overview overview) {
+        out.append("<section id=\"baseline\">\n<h2>Since the baseline</h2>\n");
+        if (overview.baseline().isEmpty()) {
+            out.append("<p>No baseline: <code>").append(Html.text(overview.baselineFile()))
+                    .append("</code> does not exist. <code>tare baseline</code> records one.</p>\n</section>\n");
+            return;
+        }
+        BaselineStatus status = overview.baseline().get();
+        out.append("<p>Compared with <code>").append(Html.text(status.file())).append("</code>, tolerance ")
+                .append(Html.text(Figures.plain(status.tolerancePercent()))).append("%: ")
+                .append(CheckReport.plural(status.overTolerance().size(), "count")).append(" grew beyond the tolerance, ")
+                .append(CheckReport.plural(status.grew().size(), "count")).append(" grew in all, ")
+                .append(CheckReport.plural(status.shrank().size(), "count")).append(" shrank, ")
+                .append(CheckReport.plural(status.added().size(), "template")).append(" new, ")
+                .append(CheckReport.plural(status.removed().size(), "template")).append(" gone.</p>\n");
+        if (!status.changes().isEmpty()) {
+            out.append("<div class=\"table-frame\"><table class=\"figures\">\n<thead><tr><th scope=\"col\">Template</th>")
+                    .append("<th scope=\"col\">Target</th><th scope=\"col\" class=\"num\">Recorded</th>")
+                    .append("<th scope=\"col\" class=\"num\">Now</th><th scope=\"col\" class=\"num\">Change</th>")
+                    .append("<th scope=\"col\"></th></tr></thead>\n<tbody>\n");
+            List<BaselineChange> ordered = new ArrayList<>(status.overTolerance());
+            status.changes().stream().filter(c -> !c.overTolerance()).forEach(ordered::add);
+            for (BaselineChange c : ordered) {
+                int delta = c.current() - c.recorded();
+                out.append("<tr").append(c.overTolerance() ? " class=\"over\"" : "").append("><th scope=\"row\">")
+                        .append(Html.text(c.path())).append("</th><td>").append(Html.text(c.target())).append("</td>")
+                        .append("<td class=\"num\">").append(Figures.count(c.recorded())).append("</td><td class=\"num\">")
+                        .append(Figures.count(c.current())).append("</td><td class=\"num\">")
+                        .append(delta > 0 ? "+" : "−").append(Figures.count(Math.abs(delta))).append("</td><td>")
+                        .append(c.overTolerance() ? "<strong>over tolerance</strong>" : c.grew() ? "grew" : "shrank")
+                        .append("</td></tr>\n");
+            }
+            out.append("</tbody></table></div>\n");
+        }
+        out.append("</section>\n");
+    }
+
+    private static void lines(StringBuilder out, Overview overview, ScanResult.Order order) {
+        Map<String, List<Finding>> findings = findingsByPath(overview.check());
+        out.append("<section id=\"lines\">\n<h2>Line by line</h2>\n<p>Each line is shaded by the static tokens it costs")
+                .append(" on <code>").append(Html.text(overview.scan().tokenizer())).append("</code>, with the count and a")
+                .append(" bar beside it; an include's line carries what it pastes in. Findings are shown under their line.")
+                .append(" Open a template to see it.</p>\n").append(LineView.legend());
+        Set<String> shown = new java.util.HashSet<>();
+        for (ScannedTemplate t : overview.scan().templatesIn(order)) {
+            shown.add(t.path());
+            out.append(LineView.render(t, overview.linesOf(t.path()), findings.getOrDefault(t.path(), List.of())));
+        }
+        List<Finding> unmeasured = overview.check().findings().stream().filter(f -> !shown.contains(f.path())).toList();
+        if (!unmeasured.isEmpty()) {
+            out.append("<h3>Findings in files that could not be measured</h3>\n<div class=\"file-findings\">");
+            unmeasured.forEach(f -> out.append("<div class=\"finding-file\">").append(Html.text(f.path())).append("</div>")
+                    .append(LineView.finding(f)));
+            out.append("</div>\n");
+        }
+        out.append("</section>\n");
+    }
+
+    private static void skipped(StringBuilder out, Overview overview) {
+        List<SkippedFile> skipped = overview.scan().skipped();
+        if (skipped.isEmpty()) {
+            return;
+        }
+        out.append("<section id=\"skipped\">\n<h2>Skipped files</h2>\n<ul class=\"skipped\">\n");
+        for (SkippedFile file : skipped) {
+            out.append("<li><code>").append(Html.text(file.path())).append("</code>: ").append(Html.text(file.reason()))
+                    .append("</li>\n");
+        }
+        out.append("</ul>\n</section>\n");
+    }
+
+    private static Map<String, List<Finding>> findingsByPath(CheckResult check) {
+        return check.findings().stream().collect(Collectors.groupingBy(Finding::path, java.util.LinkedHashMap::new,
+                Collectors.toList()));
+    }
+
+    private static String stylesheet() {
+        try (InputStream in = HtmlReport.class.getResourceAsStream("report.css")) {
+            if (in == null) {
+                throw new IllegalStateException("report.css is missing from the build");
+            }
+            return new String(in.readAllBytes(), StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+    }
+}

@@ -1,0 +1,304 @@
+package dev.tare.report;
+
+import dev.tare.baseline.BaselineChange;
+import dev.tare.config.TargetConfig;
+import dev.tare.footprint.Coverage;
+import dev.tare.footprint.Footprint;
+import dev.tare.lint.RewriteClass;
+import dev.tare.lint.Severity;
+import dev.tare.overview.BaselineStatus;
+import dev.tare.overview.Overview;
+import dev.tare.overview.RuleTally;
+import dev.tare.overview.TargetTotals;
+import dev.tare.scan.ScanResult;
+import dev.tare.scan.ScannedTemplate;
+import dev.tare.source.SkippedFile;
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * Renders an {@link Overview} as a Markdown summary short enough for a pull-request comment: totals
+ * per target, the costliest templates, findings and savings by rule, and the change since the baseline.
+ */
+public final class MarkdownReport {
+    /** How many templates the costliest-templates table lists. */
+    static final int COSTLIEST = 10;
+    /** How many baseline changes are listed before the rest are only counted. */
+    static final int MAX_CHANGES = 20;
+
+    private MarkdownReport() {
+    }
+
+    /** The Markdown document. */
+    public static String render(Overview overview) {
+        ScanResult scan = overview.scan();
+        StringBuilder out = new StringBuilder();
+        out.append("## Tare report for ").append(code(scan.root())).append("\n\n");
+        out.append(intro(overview)).append("\n\n");
+        out.append("> ").append(Figures.ESTIMATE_NOTE).append("\n\n");
+        targets(out, overview);
+        costliest(out, overview);
+        findings(out, overview);
+        savings(out, overview);
+        baseline(out, overview);
+        skipped(out, scan);
+        return out.toString();
+    }
+
+    private static String intro(Overview overview) {
+        ScanResult.Totals totals = overview.scan().totals();
+        StringBuilder line = new StringBuilder();
+        line.append(CheckReport.plural(totals.templates(), "template")).append(" measured");
+        if (totals.partials() > 0) {
+            line.append(" (and ").append(CheckReport.plural(totals.partials(), "partial"))
+                    .append(", counted inside the templates that include them)");
+        }
+        line.append(", ").append(Figures.count(totals.staticTokens())).append(" static and ")
+                .append(Figures.count(totals.estimatedTokens())).append(" estimated tokens on ")
+                .append(code(overview.scan().tokenizer())).append(". ");
+        line.append(CheckReport.plural(overview.check().templates(), "template")).append(" checked with ")
+                .append(CheckReport.plural(overview.check().rules().size(), "rule")).append('.');
+        if (!overview.scan().skipped().isEmpty()) {
+            line.append(' ').append(CheckReport.plural(overview.scan().skipped().size(), "file")).append(" skipped.");
+        }
+        return line.toString();
+    }
+
+    private static void targets(StringBuilder out, Overview overview) {
+        if (overview.targets().isEmpty()) {
+            return;
+        }
+        out.append("### Totals per target\n\n");
+        Table table = new Table("Target", "Tokenizer", ">Templates", ">Input tokens per call, summed",
+                ">Cost per month (estimate)", "KV cache, largest request (estimate)");
+        boolean priced = false;
+        for (TargetTotals t : overview.targets()) {
+            String cost = t.costPerMonth().isPresent()
+                    ? Figures.money(t.costPerMonth().getAsDouble(), t.currency().orElse(""), 2) : "–";
+            priced |= t.costPerMonth().isPresent();
+            table.row(text(t.target().name()), code(t.target().tokenizer()), Figures.count(t.templates()),
+                    Figures.count(t.inputTokens()), cost, kvCache(t));
+        }
+        out.append(table.render()).append('\n');
+        if (priced) {
+            out.append("Cost per month adds up every template as if each got the target's `calls_per_day`.\n\n");
+        }
+    }
+
+    private static String kvCache(TargetTotals t) {
+        if (t.largestKvCacheBytes().isEmpty()) {
+            return "–";
+        }
+        StringBuilder cell = new StringBuilder(Figures.bytes(t.largestKvCacheBytes().getAsLong()))
+                .append(" for ").append(code(t.largestRequest().orElse("")));
+        t.fewestConcurrent().ifPresent(n -> cell.append("; ").append(Figures.count(n)).append(" such requests fit"));
+        t.weightBytes().ifPresent(w -> cell.append(" beside ").append(Figures.bytes(w)).append(" of weights"));
+        return cell.toString();
+    }
+
+    private static void costliest(StringBuilder out, Overview overview) {
+        List<ScannedTemplate> costliest = overview.costliest(COSTLIEST);
+        if (costliest.isEmpty()) {
+            return;
+        }
+        List<TargetConfig> priced = new ArrayList<>();
+        List<TargetConfig> devices = new ArrayList<>();
+        for (TargetConfig target : overview.scan().targetConfigs()) {
+            Coverage coverage = Coverage.of(target);
+            if (coverage.computes().contains("cost_per_month")) {
+                priced.add(target);
+            }
+            if (coverage.computes().contains("kv_cache_bytes")) {
+                devices.add(target);
+            }
+        }
+        out.append("### The ").append(costliest.size()).append(" costliest templates\n\n");
+        List<String> headers = new ArrayList<>(List.of(">#", "Template", "Kind", ">Static tokens", ">Estimated tokens"));
+        priced.forEach(t -> headers.add(">" + text(t.name()) + ": cost per month (estimate)"));
+        devices.forEach(t -> headers.add(">" + text(t.name()) + ": KV cache (estimate)"));
+        Table table = new Table(headers.toArray(String[]::new));
+        int rank = 1;
+        for (ScannedTemplate template : costliest) {
+            List<String> row = new ArrayList<>(List.of(String.valueOf(rank++), code(template.path()),
+                    template.kind().label(), Figures.count(template.staticTokens()),
+                    Figures.count(template.estimatedTokens())));
+            for (TargetConfig target : priced) {
+                Footprint f = template.targets().get(target.name());
+                row.add(f == null ? "–" : Figures.perMonth(f));
+            }
+            for (TargetConfig target : devices) {
+                Footprint f = template.targets().get(target.name());
+                row.add(f == null || f.kvCacheBytes().isEmpty() ? "–" : Figures.bytes(f.kvCacheBytes().getAsLong()));
+            }
+            table.row(row.toArray(String[]::new));
+        }
+        out.append(table.render()).append('\n');
+        out.append(priced.isEmpty() ? "Ranked by estimated tokens.\n\n"
+                : "Ranked by cost per month summed over the priced targets, then by estimated tokens."
+                + " A dash: the template does not run on that target.\n\n");
+    }
+
+    private static void findings(StringBuilder out, Overview overview) {
+        var check = overview.check();
+        out.append("### Findings by rule\n\n");
+        if (check.findings().isEmpty()) {
+            out.append("No findings in ").append(CheckReport.plural(check.templates(), "template")).append(".\n\n");
+            return;
+        }
+        out.append("**").append(CheckReport.plural(check.count(Severity.ERROR), "error")).append(", ")
+                .append(CheckReport.plural(check.count(Severity.WARNING), "warning")).append(", ")
+                .append(CheckReport.plural(check.count(Severity.INFO), "info")).append("** in ")
+                .append(CheckReport.plural(check.filesWithFindings(), "file")).append(".\n\n");
+        Table table = new Table("Rule", "Severity", ">Findings", ">Files", "Rewrite", ">Tokens saved per call");
+        for (RuleTally tally : overview.rules()) {
+            table.row(code(tally.rule()), tally.severity().label(), Figures.count(tally.findings()),
+                    Figures.count(tally.files()), tally.rewrites() == 0 ? "–" : tally.rewriteClass().label(),
+                    tally.rewrites() == 0 ? "–" : Figures.count(tally.savingTokens()));
+        }
+        out.append(table.render()).append('\n');
+        out.append("`tare check` lists every finding; `tare explain RULE` says why a rule matters.\n\n");
+    }
+
+    private static void savings(StringBuilder out, Overview overview) {
+        long safe = overview.savingTokens(RewriteClass.SAFE);
+        long review = overview.savingTokens(RewriteClass.REVIEW);
+        out.append("### Savings available\n\n");
+        if (overview.check().rewrites() == 0) {
+            out.append("No rule offers a rewrite.\n\n");
+            return;
+        }
+        Table table = new Table("Rewrites", ">Findings", ">Tokens saved per call");
+        table.row("safe: meaning-preserving, may be applied unattended", Figures.count(rewrites(overview, RewriteClass.SAFE)),
+                Figures.count(safe));
+        table.row("review: a person decides", Figures.count(rewrites(overview, RewriteClass.REVIEW)), Figures.count(review));
+        table.row("**all**", "**" + Figures.count(overview.check().rewrites()) + "**", "**" + Figures.count(safe + review) + "**");
+        out.append(table.render()).append('\n');
+        out.append(CheckReport.ESTIMATE_NOTE).append(" Each rewrite is measured on its own and the savings summed.\n\n");
+    }
+
+    private static long rewrites(Overview overview, RewriteClass rewriteClass) {
+        return overview.rules().stream().filter(t -> t.rewriteClass() == rewriteClass).mapToLong(RuleTally::rewrites).sum();
+    }
+
+    private static void baseline(StringBuilder out, Overview overview) {
+        out.append("### Since the baseline\n\n");
+        if (overview.baseline().isEmpty()) {
+            out.append("No baseline: ").append(code(overview.baselineFile()))
+                    .append(" does not exist. `tare baseline` records one; commit it to see changes here.\n\n");
+            return;
+        }
+        BaselineStatus status = overview.baseline().get();
+        String tolerance = Figures.plain(status.tolerancePercent()) + "%";
+        out.append("Compared with ").append(code(status.file())).append(" (tolerance ").append(tolerance).append("): ");
+        int over = status.overTolerance().size();
+        int grew = status.grew().size();
+        List<String> parts = new ArrayList<>();
+        parts.add(over > 0 ? "**" + plural(over, "count") + " grew beyond the tolerance**" : "nothing grew beyond the tolerance");
+        if (grew > over) {
+            parts.add(plural(grew - over, "count") + " grew within it");
+        }
+        parts.add(plural(status.shrank().size(), "count") + " shrank");
+        if (!status.added().isEmpty()) {
+            parts.add(CheckReport.plural(status.added().size(), "template") + " new");
+        }
+        if (!status.removed().isEmpty()) {
+            parts.add(CheckReport.plural(status.removed().size(), "template") + " gone");
+        }
+        out.append(String.join(", ", parts)).append(".\n\n");
+        if (!status.changes().isEmpty()) {
+            Table table = new Table("Template", "Target", ">Recorded", ">Now", ">Change", "");
+            List<BaselineChange> ordered = new ArrayList<>(status.overTolerance());
+            status.changes().stream().filter(c -> !c.overTolerance()).forEach(ordered::add);
+            for (BaselineChange change : ordered.subList(0, Math.min(MAX_CHANGES, ordered.size()))) {
+                table.row(code(change.path()), text(change.target()), Figures.count(change.recorded()),
+                        Figures.count(change.current()), change(change),
+                        change.overTolerance() ? "**over tolerance**" : change.grew() ? "grew" : "shrank");
+            }
+            out.append(table.render());
+            if (ordered.size() > MAX_CHANGES) {
+                out.append("\n…and ").append(plural(ordered.size() - MAX_CHANGES, "more change")).append(".\n");
+            }
+            out.append('\n');
+        }
+        if (!status.added().isEmpty()) {
+            out.append("New since the baseline: ").append(String.join(", ", status.added().stream().map(MarkdownReport::code)
+                    .toList())).append(".\n\n");
+        }
+        if (!status.removed().isEmpty()) {
+            out.append("Recorded but gone: ").append(String.join(", ", status.removed().stream().map(MarkdownReport::code)
+                    .toList())).append(".\n\n");
+        }
+    }
+
+    private static String change(BaselineChange change) {
+        int delta = change.current() - change.recorded();
+        String sign = delta > 0 ? "+" : "−";
+        String percent = Double.isInfinite(change.percent()) ? "new"
+                : sign + Figures.significant(Math.abs(change.percent())) + "%";
+        return sign + Figures.count(Math.abs(delta)) + " (" + percent + ")";
+    }
+
+    private static void skipped(StringBuilder out, ScanResult scan) {
+        if (scan.skipped().isEmpty()) {
+            return;
+        }
+        out.append("### Skipped\n\n");
+        for (SkippedFile file : scan.skipped()) {
+            out.append("- ").append(code(file.path())).append(": ").append(text(file.reason())).append('\n');
+        }
+        out.append('\n');
+    }
+
+    private static String plural(long count, String word) {
+        return CheckReport.plural(count, word);
+    }
+
+    /** Text as a code span that survives inside a table cell. */
+    static String code(String value) {
+        String cell = value.replace("|", "\\|").replace("\n", " ");
+        String fence = cell.contains("`") ? "``" : "`";
+        String pad = cell.startsWith("`") || cell.endsWith("`") ? " " : "";
+        return fence + pad + cell + pad + fence;
+    }
+
+    /** Plain text with Markdown's special characters escaped, on one line. */
+    static String text(String value) {
+        StringBuilder out = new StringBuilder();
+        for (char c : value.replace('\n', ' ').toCharArray()) {
+            if ("\\`*_[]<>|#".indexOf(c) >= 0) {
+                out.append('\\');
+            }
+            out.append(c);
+        }
+        return out.toString();
+    }
+
+    /** A GitHub-flavoured Markdown table; a header starting with {@code >} is a right-aligned column. */
+    private static final class Table {
+        private final List<String> headers = new ArrayList<>();
+        private final List<Boolean> right = new ArrayList<>();
+        private final List<String[]> rows = new ArrayList<>();
+
+        Table(String... headers) {
+            for (String header : headers) {
+                boolean alignRight = header.startsWith(">");
+                this.headers.add(alignRight ? header.substring(1) : header);
+                this.right.add(alignRight);
+            }
+        }
+
+        void row(String... cells) {
+            rows.add(cells);
+        }
+
+        String render() {
+            StringBuilder out = new StringBuilder("| ").append(String.join(" | ", headers)).append(" |\n|");
+            right.forEach(r -> out.append(r ? " --: |" : " :-- |"));
+            out.append('\n');
+            for (String[] row : rows) {
+                out.append("| ").append(String.join(" | ", row)).append(" |\n");
+            }
+            return out.toString();
+        }
+    }
+}
