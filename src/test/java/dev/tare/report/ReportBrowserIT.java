@@ -179,7 +179,7 @@ class ReportBrowserIT {
             long maxKv = -1;
             for (JsonNode template : scan.get("templates")) {
                 JsonNode f = template.get("targets").get(target);
-                if (f != null && !template.get("kind").asText().equals("partial")) {
+                if (f != null && template.get("kind").asText().matches("text|chat")) {
                     cost += f.path("cost_per_month").asDouble(0);
                     maxKv = Math.max(maxKv, f.path("kv_cache_bytes").asLong(-1));
                 }
