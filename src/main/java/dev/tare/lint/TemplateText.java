@@ -31,10 +31,25 @@ public final class TemplateText {
             int base = template.isChat() ? 0 : template.bodyStart();
             List<Fence> fences = Regions.fences(message.content());
             List<Region> regions = Regions.of(message.content(), message.segments(), base, fences);
-            ContentMap map = template.isChat() ? maps.get(i) : ContentMap.shifted(template.bodyStart(), message.content().length());
+            ContentMap map = switch (template.kind()) {
+                case CHAT -> maps.get(i);
+                // A tool's text is its definition re-serialized as minified JSON, not the file's text:
+                // findings point at the tool's first line and no edit can be written back.
+                case TOOLS -> ContentMap.approximate(lines.lineStart(toolLine(message)), message.content().length());
+                default -> ContentMap.shifted(template.bodyStart(), message.content().length());
+            };
             built.add(new MessageText(i, message, regions, fences, map));
         }
         this.messages = List.copyOf(built);
+    }
+
+    private static int toolLine(Message message) {
+        return message.segments().isEmpty() ? 1 : message.segments().get(0).span().line();
+    }
+
+    /** The template prepared as rules see it, outside any check (for verifying a rewrite's result). */
+    public static TemplateText of(Template template) {
+        return new TemplateText(template);
     }
 
     /**

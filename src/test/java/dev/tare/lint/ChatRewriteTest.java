@@ -62,4 +62,15 @@ class ChatRewriteTest {
         assertEquals(16, found.get(0).column());
         assertTrue(found.get(0).rewrite().isEmpty());
     }
+
+    @Test
+    void aToolFileIsLocatedAtTheToolButNeverRewritten() {
+        // A tool's text is its definition re-serialized, so an offset in it is not an offset in the file.
+        String tools = "[\n  {\n    \"name\": \"lookup\",\n    \"description\": \"Look up  the account.\",\n"
+                + "    \"parameters\": {\"type\": \"object\", \"properties\": {}}\n  }\n]\n";
+        List<Finding> found = RuleHarness.findings(rule("space-run"), "tools/t.json", tools, Map.of());
+        assertEquals(1, found.size());
+        assertEquals(2, found.get(0).line(), "the line where the tool's definition starts");
+        assertTrue(found.get(0).rewrite().isEmpty());
+    }
 }
