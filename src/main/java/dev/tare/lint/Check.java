@@ -26,10 +26,23 @@ import java.util.function.Function;
 public final class Check {
     private final Workspace workspace;
     private final TokenizerRegistry tokenizers;
+    private RuleCatalog catalog;
 
     public Check(Workspace workspace, TokenizerRegistry tokenizers) {
         this.workspace = workspace;
         this.tokenizers = tokenizers;
+    }
+
+    /**
+     * The rules of this workspace, loaded once and shared by every run of this check.
+     *
+     * @throws TareException when a rule pack or the rules configuration is broken
+     */
+    public synchronized RuleCatalog catalog() {
+        if (catalog == null) {
+            catalog = RuleCatalog.load(workspace.config());
+        }
+        return catalog;
     }
 
     /** Checks the files of the workspace as they are on disk. */
@@ -51,7 +64,7 @@ public final class Check {
      */
     public CheckResult run(CheckOptions options, TemplateLoader loader, FileSelection selection,
                            Function<String, SourceText> reader) {
-        RuleCatalog catalog = RuleCatalog.load(workspace.config());
+        RuleCatalog catalog = catalog();
         List<Rule> rules = catalog.enabled();
         List<Template> templates = new ArrayList<>();
         List<Finding> findings = new ArrayList<>();

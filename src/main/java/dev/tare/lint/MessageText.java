@@ -88,8 +88,8 @@ public final class MessageText {
         return ranges;
     }
 
-    /** The file offset of content offset {@code offset}. */
-    int sourceOffset(int offset) {
+    /** The file offset of content offset {@code offset} (the end of the content maps just past its last character). */
+    public int sourceOffset(int offset) {
         return map.sourceOffset(offset);
     }
 

@@ -6,6 +6,7 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.json.JsonMapper;
 import com.fasterxml.jackson.databind.node.JsonNodeFactory;
 import dev.tare.lint.Edit;
+import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Fence;
 import dev.tare.lint.Finding;
@@ -48,6 +49,11 @@ final class PrettyJson implements Rule {
     @Override
     public RuleDescriptor descriptor() {
         return DESCRIPTOR;
+    }
+
+    @Override
+    public EditKind editKind() {
+        return EditKind.JSON_LAYOUT;
     }
 
     @Override

@@ -1,6 +1,7 @@
 package dev.tare.lint.rules;
 
 import dev.tare.lint.Edit;
+import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
@@ -25,6 +26,11 @@ final class ProseTab implements Rule {
     @Override
     public RuleDescriptor descriptor() {
         return DESCRIPTOR;
+    }
+
+    @Override
+    public EditKind editKind() {
+        return EditKind.WHITESPACE;
     }
 
     @Override
