@@ -57,6 +57,18 @@ public interface FileSystemOps {
         Files.move(source, target, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
     }
 
+    /**
+     * Forces a folder's entries to the storage device, so that a rename survives a crash. Best effort:
+     * file systems that cannot open a folder for this are left as they are.
+     */
+    default void syncFolder(Path folder) {
+        try (FileChannel channel = FileChannel.open(folder, StandardOpenOption.READ)) {
+            channel.force(true);
+        } catch (IOException e) {
+            // Some platforms (Windows among them) cannot sync a folder; the rename itself is still atomic.
+        }
+    }
+
     /** Removes a file if it is there. */
     default void deleteIfExists(Path file) throws IOException {
         Files.deleteIfExists(file);

@@ -12,8 +12,9 @@ import java.util.Set;
 /**
  * Replaces a file's content so that it is either fully rewritten or left exactly as it was: the new
  * bytes go to a temporary file in the same folder, are forced to disk, take the original's POSIX
- * permissions, and are renamed over the original in one atomic step, but only if the original
- * still has the bytes the rewrite was computed from. The temporary file never survives a failure.
+ * permissions, and are renamed over the original in one atomic step (the folder then synced), but
+ * only if the original still has the bytes the rewrite was computed from. The temporary file never
+ * survives a failure.
  */
 public final class SafeFileWriter {
     /** What became of one write. */
@@ -60,6 +61,7 @@ public final class SafeFileWriter {
             }
             files.moveAtomically(temp, file);
             moved = true;
+            files.syncFolder(folder);
             return Outcome.WRITTEN;
         } finally {
             if (!moved) {

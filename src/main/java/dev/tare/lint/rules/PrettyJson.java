@@ -1,10 +1,6 @@
 package dev.tare.lint.rules;
 
-import com.fasterxml.jackson.core.StreamReadFeature;
-import com.fasterxml.jackson.databind.DeserializationFeature;
 import com.fasterxml.jackson.databind.JsonNode;
-import com.fasterxml.jackson.databind.json.JsonMapper;
-import com.fasterxml.jackson.databind.node.JsonNodeFactory;
 import dev.tare.lint.Edit;
 import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
@@ -17,9 +13,9 @@ import dev.tare.lint.RewriteClass;
 import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
+import dev.tare.lint.StrictJson;
 import dev.tare.lint.TemplateText;
 import dev.tare.template.Template;
-import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
@@ -38,13 +34,6 @@ final class PrettyJson implements Rule {
             "Write the JSON on one line, without spaces between members.",
             Example.of("Reply with JSON like this:\n```json\n{\n  \"intent\": \"billing\",\n  \"urgent\": false\n}\n```\n",
                     "Reply with JSON like this:\n```json\n{\"intent\":\"billing\",\"urgent\":false}\n```\n"));
-
-    private static final JsonMapper JSON = JsonMapper.builder()
-            .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
-            .enable(DeserializationFeature.USE_BIG_DECIMAL_FOR_FLOATS)
-            .enable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
-            .nodeFactory(JsonNodeFactory.withExactBigDecimals(true))
-            .build();
 
     @Override
     public RuleDescriptor descriptor() {
@@ -102,16 +91,12 @@ final class PrettyJson implements Rule {
 
     /** The minified form of {@code json}, when it parses and the minified text parses to an equal tree. */
     static Optional<String> minify(String json) {
-        try {
-            JsonNode tree = JSON.readTree(json);
-            if (tree == null || !(tree.isObject() || tree.isArray())) {
-                return Optional.empty();
-            }
-            String minified = JSON.writeValueAsString(tree);
-            return JSON.readTree(minified).equals(tree) ? Optional.of(minified) : Optional.empty();
-        } catch (IOException e) {
+        Optional<JsonNode> tree = StrictJson.tree(json);
+        if (tree.isEmpty()) {
             return Optional.empty();
         }
+        String minified = StrictJson.minified(tree.get());
+        return StrictJson.tree(minified).equals(tree) ? Optional.of(minified) : Optional.empty();
     }
 
     /** Whether every placeholder inside {@code [start, end)} appears, in order, in the minified text. */

@@ -1,0 +1,214 @@
+package dev.tare.rewrite;
+
+import dev.tare.TareException;
+import dev.tare.lint.Check;
+import dev.tare.lint.CheckOptions;
+import dev.tare.lint.Edit;
+import dev.tare.lint.Finding;
+import dev.tare.lint.LintContext;
+import dev.tare.lint.Rewrite;
+import dev.tare.lint.RewriteClass;
+import dev.tare.scan.TemplateLoader;
+import dev.tare.source.FileSelection;
+import dev.tare.source.SafeReader;
+import dev.tare.source.SourceText;
+import dev.tare.template.Message;
+import dev.tare.template.Template;
+import dev.tare.tokenize.Tokenizer;
+import dev.tare.tokenize.TokenizerRegistry;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.TreeMap;
+
+/**
+ * Rewrites one file to a fixpoint without writing it: in each round the rules check the current
+ * text, the selected rewrites that do not overlap are applied, and the rules run again, until they
+ * offer nothing more (at most {@value #MAX_ROUNDS} rounds). The final text is then verified against
+ * the original, and the bytes that would be written are read back.
+ */
+final class FilePlanner {
+    /** Rounds after which a file whose rewrites keep changing it is given up on. */
+    static final int MAX_ROUNDS = 8;
+
+    private final Check check;
+    private final TemplateLoader loader;
+    private final RewriteSelection selection;
+    private final TokenizerRegistry tokenizers;
+    private final SafeReader reader;
+
+    /** What planning one file gave: its fix, when there is something to fix, and the review rewrites left out. */
+    record Plan(Optional<FileFix> fix, Map<String, Integer> reviewLeft) {
+    }
+
+    FilePlanner(Check check, TemplateLoader loader, RewriteSelection selection, TokenizerRegistry tokenizers) {
+        this.check = check;
+        this.loader = loader;
+        this.selection = selection;
+        this.tokenizers = tokenizers;
+        this.reader = new SafeReader(loader.workspace().config().templates().maxFileBytes());
+    }
+
+    Plan plan(SourceText original, Template template) {
+        List<Tokenizer> counters = tokenizersFor(template);
+        Trace trace = new Trace(original.text());
+        List<Finding> findings = findings(original, original.text());
+        Map<String, Integer> reviewLeft = selection.reviewLeft(findings);
+        int[] start = tokens(template, counters);
+        int[] current = start.clone();
+        Map<String, Tally> tallies = new TreeMap<>();
+        int rounds = 0;
+        while (true) {
+            List<Candidate> offered = selection.candidates(findings, trace.current());
+            if (offered.isEmpty()) {
+                break;
+            }
+            if (rounds == MAX_ROUNDS) {
+                return new Plan(Optional.of(fix(original, trace, FileFix.Outcome.DROPPED, tallies, counters, start, current,
+                        rounds, List.of("its rewrites still change it after " + MAX_ROUNDS + " rounds (rules "
+                                + String.join(", ", offered.stream().map(Candidate::rule).distinct().sorted().toList())
+                                + " keep offering edits), so applying them twice would not give the same text"))), reviewLeft);
+            }
+            rounds++;
+            String roundText = trace.current();
+            List<Trace.AuthoredEdit> applied = new ArrayList<>();
+            for (List<Candidate> group : byRule(Overlaps.choose(offered))) {
+                Candidate first = group.get(0);
+                for (Candidate candidate : group) {
+                    for (Edit edit : candidate.edits()) {
+                        applied.add(new Trace.AuthoredEdit(edit, new Trace.Author(candidate.rule(), candidate.kind())));
+                    }
+                }
+                applied.sort((a, b) -> a.edit().compareTo(b.edit()));
+                String text = Rewrite.apply(roundText, applied.stream().map(Trace.AuthoredEdit::edit).toList());
+                Optional<Template> parsed = parse(original, text);
+                if (parsed.isEmpty()) {
+                    return new Plan(Optional.of(fix(original, trace, FileFix.Outcome.DROPPED, tallies, counters, start,
+                            current, rounds, List.of("after the edits of " + first.rule() + " the file no longer parses"))),
+                            reviewLeft);
+                }
+                int[] counts = tokens(parsed.get(), counters);
+                Tally tally = tallies.computeIfAbsent(first.rule(), r -> new Tally(first.rewriteClass(), counters.size()));
+                tally.add(group.size(), current, counts);
+                current = counts;
+            }
+            trace.apply(applied);
+            findings = findings(original, trace.current());
+        }
+        if (rounds == 0) {
+            return new Plan(Optional.empty(), reviewLeft);
+        }
+        List<String> problems = new ArrayList<>(verify(original, template, trace));
+        if (!problems.isEmpty()) {
+            problems.add("the edits came from " + String.join(", ", tallies.keySet())
+                    + "; please report this, and fix the file by hand");
+        }
+        FileFix.Outcome outcome = problems.isEmpty() ? FileFix.Outcome.PLANNED : FileFix.Outcome.DROPPED;
+        return new Plan(Optional.of(fix(original, trace, outcome, tallies, counters, start, current, rounds, problems)),
+                reviewLeft);
+    }
+
+    private List<String> verify(SourceText original, Template before, Trace trace) {
+        Optional<Template> after = parse(original, trace.current());
+        if (after.isEmpty()) {
+            return List.of("the rewritten file no longer parses");
+        }
+        List<String> problems = new ArrayList<>(Invariants.violations(before, after.get(), trace));
+        byte[] bytes = FileBytes.encode(trace.current(), original.hadBom());
+        try {
+            SourceText reread = reader.decode(original.path(), original.file(), bytes);
+            if (!reread.text().equals(trace.current()) || reread.hadBom() != original.hadBom()) {
+                problems.add("the bytes to be written do not read back as the rewritten text");
+            }
+        } catch (TareException e) {
+            problems.add("the bytes to be written would not read back: " + e.getMessage());
+        }
+        return problems;
+    }
+
+    private FileFix fix(SourceText original, Trace trace, FileFix.Outcome outcome, Map<String, Tally> tallies,
+                        List<Tokenizer> counters, int[] start, int[] current, int rounds, List<String> problems) {
+        List<RuleSaving> rules = new ArrayList<>();
+        tallies.forEach((rule, tally) -> rules.add(tally.saving(rule, counters)));
+        List<TokenChange> tokens = new ArrayList<>();
+        for (int k = 0; k < counters.size(); k++) {
+            tokens.add(new TokenChange(counters.get(k).name(), start[k], current[k]));
+        }
+        return new FileFix(original.path(), outcome, original.text(), trace.current(), rules, tokens, rounds, problems);
+    }
+
+    /** The findings of every rule in {@code text}, read as the file {@code original}. */
+    private List<Finding> findings(SourceText original, String text) {
+        SourceText version = version(original, text);
+        return check.run(CheckOptions.defaults(), loader, new FileSelection(List.of(original.path()), List.of()),
+                path -> version).findings();
+    }
+
+    private Optional<Template> parse(SourceText original, String text) {
+        try {
+            return Optional.of(loader.parse(version(original, text)));
+        } catch (TareException e) {
+            return Optional.empty();
+        }
+    }
+
+    private static SourceText version(SourceText original, String text) {
+        return new SourceText(original.path(), original.file(), text, original.hadBom(),
+                FileBytes.encode(text, original.hadBom()).length);
+    }
+
+    private List<Tokenizer> tokenizersFor(Template template) {
+        LintContext context = new LintContext(loader.workspace().config(), tokenizers, loader.renderer(),
+                List.of(template), java.util.Set.of(), Map.of());
+        return context.targetTokenizers(template);
+    }
+
+    /** Tokens of the prompt text the template itself holds: its messages as written, includes not expanded. */
+    private static int[] tokens(Template template, List<Tokenizer> counters) {
+        int[] counts = new int[counters.size()];
+        for (int k = 0; k < counters.size(); k++) {
+            for (Message message : template.messages()) {
+                counts[k] += counters.get(k).count(message.content());
+            }
+        }
+        return counts;
+    }
+
+    /** The chosen rewrites grouped by rule, in priority order. */
+    private static List<List<Candidate>> byRule(List<Candidate> chosen) {
+        Map<String, List<Candidate>> groups = new LinkedHashMap<>();
+        for (Candidate candidate : chosen) {
+            groups.computeIfAbsent(candidate.rule(), r -> new ArrayList<>()).add(candidate);
+        }
+        return List.copyOf(groups.values());
+    }
+
+    /** One rule's rewrites and savings in one file, summed over rounds. */
+    private static final class Tally {
+        private final RewriteClass rewriteClass;
+        private final int[] saved;
+        private int rewrites;
+
+        Tally(RewriteClass rewriteClass, int tokenizers) {
+            this.rewriteClass = rewriteClass;
+            this.saved = new int[tokenizers];
+        }
+
+        void add(int count, int[] before, int[] after) {
+            rewrites += count;
+            for (int k = 0; k < saved.length; k++) {
+                saved[k] += before[k] - after[k];
+            }
+        }
+
+        RuleSaving saving(String rule, List<Tokenizer> counters) {
+            Map<String, Integer> byTokenizer = new LinkedHashMap<>();
+            for (int k = 0; k < counters.size(); k++) {
+                byTokenizer.put(counters.get(k).name(), saved[k]);
+            }
+            return new RuleSaving(rule, rewriteClass, rewrites, 1, byTokenizer);
+        }
+    }
+}

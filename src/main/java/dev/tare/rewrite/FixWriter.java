@@ -1,0 +1,51 @@
+package dev.tare.rewrite;
+
+import dev.tare.source.SourceText;
+import java.io.IOException;
+import java.nio.file.Path;
+import java.nio.file.attribute.PosixFilePermission;
+import java.util.Optional;
+import java.util.Set;
+
+/**
+ * Writes verified rewrites through {@link SafeFileWriter}: each file is fully rewritten or left as it
+ * was. A file that changed since it was read, a read-only file and a failed write are reported on the
+ * file's fix and leave the file untouched.
+ */
+final class FixWriter {
+    private final FileSystemOps files;
+
+    FixWriter(FileSystemOps files) {
+        this.files = files;
+    }
+
+    /** The fix after writing it to the file {@code original} was read from. */
+    FileFix write(FileFix fix, SourceText original) {
+        if (fix.outcome() != FileFix.Outcome.PLANNED) {
+            return fix;
+        }
+        try {
+            Path target = target(original.file());
+            Optional<Set<PosixFilePermission>> permissions = files.permissions(target);
+            if (permissions.isPresent() && !permissions.get().contains(PosixFilePermission.OWNER_WRITE)) {
+                return fix.with(FileFix.Outcome.NOT_WRITTEN, "it is read-only, so it was left as it is;"
+                        + " make it writable to fix it, or apply the diff by hand");
+            }
+            SafeFileWriter.Outcome outcome = new SafeFileWriter(files).replace(target,
+                    FileBytes.encode(original.text(), original.hadBom()), FileBytes.encode(fix.after(), original.hadBom()));
+            return switch (outcome) {
+                case WRITTEN, UNCHANGED -> fix.with(FileFix.Outcome.WRITTEN, "");
+                case CHANGED_MEANWHILE -> fix.with(FileFix.Outcome.CHANGED_MEANWHILE,
+                        "it changed on disk after it was read, so it was left as it is; run the fix again");
+            };
+        } catch (IOException e) {
+            return fix.with(FileFix.Outcome.NOT_WRITTEN, "writing it failed (" + e.getClass().getSimpleName() + ": "
+                    + e.getMessage() + "); the file is as it was");
+        }
+    }
+
+    /** The file a path names, through symbolic links, so that a link stays a link. */
+    private static Path target(Path file) throws IOException {
+        return file.toRealPath();
+    }
+}
