@@ -11,7 +11,7 @@ import picocli.CommandLine.Command;
         mixinStandardHelpOptions = true,
         versionProvider = TareCommand.Version.class,
         description = "Measures and shrinks the token footprint of the prompt templates in a repository.",
-        subcommands = {ScanCommand.class, CheckCommand.class, CountCommand.class, CostCommand.class, TargetsCommand.class,
+        subcommands = {ScanCommand.class, CheckCommand.class, FixCommand.class, CountCommand.class, CostCommand.class, TargetsCommand.class,
                 RulesCommand.class, ExplainCommand.class, BaselineCommand.class, CalibrateCommand.class,
                 HookCommand.class, InitCommand.class,
                 CommandLine.HelpCommand.class},
