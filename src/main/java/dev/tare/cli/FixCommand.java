@@ -62,11 +62,16 @@ final class FixCommand implements Callable<Integer> {
     @Option(names = "--format", paramLabel = "FORMAT", description = "Output format: ${COMPLETION-CANDIDATES}. Default: ${DEFAULT-VALUE}.")
     private Format format = Format.text;
 
+    @Option(names = "--staged", description = "Fix the staged templates whose working tree equals the index, then stage"
+            + " them; a partially staged file is reported and left alone.")
+    private boolean staged;
+
     @Override
     public Integer call() {
         Workspace workspace = Workspace.open(paths, common.configFile());
-        FixResult result = new Fix(workspace, new TokenizerRegistry(), fileSystem)
-                .run(new FixOptions(includeReview, Set.copyOf(only), dryRun));
+        Fix fix = new Fix(workspace, new TokenizerRegistry(), fileSystem);
+        FixOptions options = new FixOptions(includeReview, Set.copyOf(only), dryRun);
+        FixResult result = staged ? fix.runStaged(options) : fix.run(options);
         PrintWriter out = spec.commandLine().getOut();
         out.print(format == Format.json ? FixReport.json(result) : FixReport.text(result, colourful()));
         out.flush();

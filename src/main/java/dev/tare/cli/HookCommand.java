@@ -108,8 +108,9 @@ final class HookCommand implements Runnable {
     }
 
     @Command(name = "run", mixinStandardHelpOptions = true,
-            description = "What the installed hook runs before each commit: checks the staged templates"
-                    + " (their staged content) and stops the commit when a finding is at or above error.")
+            description = "What the installed hook runs before each commit: with hook.fix set in tare.yaml, applies safe"
+                    + " rewrites to fully staged templates and stages them; then checks the staged templates (their staged"
+                    + " content) and stops the commit when a finding is at or above error.")
     static final class Run implements Callable<Integer> {
         @Spec
         private CommandSpec spec;
@@ -120,6 +121,13 @@ final class HookCommand implements Runnable {
         @Override
         public Integer call() {
             Workspace workspace = Workspace.open(List.of(), common.configFile());
+            if (workspace.config().hookFix()) {
+                dev.tare.rewrite.FixResult fixed = new dev.tare.rewrite.Fix(workspace, new TokenizerRegistry(),
+                        dev.tare.rewrite.FileSystemOps.DEFAULT).runStaged(dev.tare.rewrite.FixOptions.defaults());
+                if (!fixed.files().isEmpty() || !fixed.skipped().isEmpty()) {
+                    spec.commandLine().getOut().print(dev.tare.report.FixReport.text(fixed, false));
+                }
+            }
             CheckResult result = new Check(workspace, new TokenizerRegistry()).runStaged(CheckOptions.defaults());
             if (!result.findings().isEmpty()) {
                 spec.commandLine().getOut().print(CheckReport.text(result));

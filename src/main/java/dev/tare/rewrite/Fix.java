@@ -2,7 +2,9 @@ package dev.tare.rewrite;
 
 import dev.tare.TareException;
 import dev.tare.lint.Check;
+import dev.tare.scan.StagedTemplates;
 import dev.tare.scan.TemplateLoader;
+import dev.tare.source.GitIndex;
 import dev.tare.scan.Workspace;
 import dev.tare.source.FileSelection;
 import dev.tare.source.SkippedFile;
@@ -40,6 +42,27 @@ public final class Fix {
     public FixResult run(FixOptions options) {
         TemplateLoader loader = new TemplateLoader(workspace);
         return run(options, loader, loader.find(), loader::read);
+    }
+
+    /**
+     * Fixes the templates staged for the next commit and stages the result. Only files whose working
+     * tree equals the index are rewritten; a partially staged file is reported and left alone, so
+     * staged and unstaged changes are never mixed.
+     */
+    public FixResult runStaged(FixOptions options) {
+        TemplateLoader loader = new TemplateLoader(workspace);
+        StagedTemplates index = loader.staged();
+        List<String> partial = index.partiallyStaged();
+        List<String> whole = index.selection().paths().stream().filter(p -> !partial.contains(p)).toList();
+        List<SkippedFile> left = partial.stream().map(p -> new SkippedFile(p, "partially staged (the working tree"
+                + " differs from the index), so it is not fixed; stage or stash the rest, then commit again")).toList();
+        FixResult result = run(options, loader, new FileSelection(whole, left), index::read);
+        if (!options.dryRun()) {
+            List<String> written = result.files().stream().filter(f -> f.outcome() == FileFix.Outcome.WRITTEN)
+                    .map(FileFix::path).toList();
+            GitIndex.stage(workspace.root(), written);
+        }
+        return result;
     }
 
     /**

@@ -52,6 +52,28 @@ public final class GitIndex {
         }
     }
 
+    /**
+     * Stages {@code paths} (relative to {@code root}, a folder of the work tree) as they now are on disk.
+     *
+     * @throws TareException when the index cannot be written
+     */
+    public static void stage(Path root, List<String> paths) {
+        if (paths.isEmpty()) {
+            return;
+        }
+        FileRepositoryBuilder builder = new FileRepositoryBuilder().readEnvironment().findGitDir(root.toAbsolutePath().toFile());
+        try (Repository repository = builder.build(); org.eclipse.jgit.api.Git git = org.eclipse.jgit.api.Git.wrap(repository)) {
+            Path top = repository.getWorkTree().toPath().toAbsolutePath().normalize();
+            org.eclipse.jgit.api.AddCommand add = git.add();
+            for (String path : paths) {
+                add.addFilepattern(top.relativize(root.toAbsolutePath().normalize().resolve(path)).toString().replace('\\', '/'));
+            }
+            add.call();
+        } catch (IOException | org.eclipse.jgit.api.errors.GitAPIException e) {
+            throw new TareException("the fixed files cannot be staged (" + e.getMessage() + "); stage them with git add", e);
+        }
+    }
+
     /** The work tree's top folder. */
     public Path workTree() {
         return workTree;

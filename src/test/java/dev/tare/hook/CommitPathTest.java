@@ -84,6 +84,41 @@ class CommitPathTest {
         assertTrue(blocked.output().contains("error baseline-growth: grew from"), blocked.output());
     }
 
+    private static final String PRETTY = "Reply with JSON like this:\n\n```json\n{\n  \"account\": \"BW-1\",\n  \"balance\": 12,\n"
+            + "  \"status\": \"open\"\n}\n```\n";
+
+    @Test
+    void withHookFixACommitPassesAfterSafeRewritesAndTheFixIsStaged() throws Exception {
+        dev.tare.tokenize.Tokenizer o200k = new dev.tare.tokenize.TokenizerRegistry().get("o200k_base", repo);
+        String minified = PRETTY.replace("{\n  \"account\": \"BW-1\",\n  \"balance\": 12,\n  \"status\": \"open\"\n}",
+                "{\"account\":\"BW-1\",\"balance\":12,\"status\":\"open\"}");
+        int budget = (o200k.count(PRETTY) + o200k.count(minified)) / 2;
+        assertTrue(o200k.count(minified) <= budget && budget < o200k.count(PRETTY), "the budget lies between the two");
+        Files.writeString(repo.resolve("tare.yaml"), "templates: {include: [\"prompts/*.md\"]}\nbudgets: {default: "
+                + budget + "}\nhook: {fix: true}\n");
+        Files.writeString(repo.resolve("prompts/a.md"), PRETTY);
+        Git.run(repo, "add", ".");
+        Commit passed = commit("pretty JSON, minified by the hook");
+        assertEquals(0, passed.exitCode(), passed.output());
+        assertEquals(minified, Files.readString(repo.resolve("prompts/a.md")));
+        assertEquals(minified, Git.run(repo, "show", "HEAD:prompts/a.md"), "the committed file is the fixed one");
+    }
+
+    @Test
+    void aPartiallyStagedFileIsReportedAndLeftAlone() throws Exception {
+        Files.writeString(repo.resolve("tare.yaml"), "templates: {include: [\"prompts/*.md\"]}\nhook: {fix: true}\n");
+        Git.run(repo, "add", "tare.yaml");
+        Files.writeString(repo.resolve("prompts/a.md"), "Answer billing questions.   \n");
+        Git.run(repo, "add", "prompts/a.md");
+        String unstaged = "Answer billing questions.   \nAnd one unstaged line.\n";
+        Files.writeString(repo.resolve("prompts/a.md"), unstaged);
+        Commit passed = commit("partially staged");
+        assertEquals(0, passed.exitCode(), passed.output());
+        assertTrue(passed.output().contains("partially staged"), passed.output());
+        assertEquals(unstaged, Files.readString(repo.resolve("prompts/a.md")), "the working tree is untouched");
+        assertEquals("Answer billing questions.   \n", Git.run(repo, "show", "HEAD:prompts/a.md"), "the staged text is committed as it was");
+    }
+
     @Test
     void filesThatAreNotStagedAreNotChecked() throws Exception {
         Files.writeString(repo.resolve("prompts/other.md"), LONG);
