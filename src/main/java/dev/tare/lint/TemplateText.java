@@ -147,7 +147,7 @@ public final class TemplateText {
     }
 
     private static int windowStart(String content, int offset) {
-        int lineStart = content.lastIndexOf('\n', Math.max(0, offset - 1)) + 1;
+        int lineStart = offset == 0 ? 0 : content.lastIndexOf('\n', offset - 1) + 1;
         return Math.max(lineStart, offset - SAVING_WINDOW);
     }
 

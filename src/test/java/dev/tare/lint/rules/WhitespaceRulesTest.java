@@ -61,6 +61,12 @@ class WhitespaceRulesTest {
     }
 
     @Test
+    void blankLinesAtTheVeryStartAreRemoved() {
+        assertEquals("A.\n", fixed(blank, "\n\n\nA.\n"));
+        assertEquals("A.\n", fixed(blank, " \n\n\nA.\n"));
+    }
+
+    @Test
     void blankLinesKeepCrlfLineEndings() {
         assertEquals("A.\r\n\r\nB.\r\n", fixed(blank, "A.\r\n\r\n\r\n\r\nB.\r\n"));
     }
