@@ -147,12 +147,17 @@ final class Sentences {
             int end = unit.next();
             boolean blankBefore = unit.lineStart() == 0 || isBlankLineBefore(content, unit.lineStart());
             Line following = end < content.length() ? Line.of(content.substring(end)).get(0) : null;
+            int start = unit.lineStart();
             if (blankBefore && following != null && isBlank(content.substring(end, end + following.end()))) {
                 end += following.next();
             } else if (blankBefore && following == null && unit.lineStart() > 0) {
-                return java.util.Optional.of(new int[] {previousLineStart(content, unit.lineStart()), end});
+                start = previousLineStart(content, unit.lineStart());
             }
-            return java.util.Optional.of(new int[] {unit.lineStart(), end});
+            if (end == content.length() && unit.end() == content.length() && start > 0) {
+                // The text ends without a line break: take the break before instead, so it still does.
+                start -= content.startsWith("\r\n", start - 2) ? 2 : 1;
+            }
+            return java.util.Optional.of(new int[] {start, end});
         }
         int index = all.indexOf(sentence);
         Sentence previous = index > 0 ? all.get(index - 1) : null;

@@ -28,6 +28,13 @@ class RepeatedInstructionTest {
     }
 
     @Test
+    void aLastParagraphWithoutALineBreakIsDroppedWithTheBreakBeforeIt() {
+        String sentence = "Always confirm the account number before you continue.";
+        assertEquals(sentence + "\nwater", fixed(exact, sentence + "\nwater\n\n" + sentence));
+        assertEquals(sentence + "\r\n# Notes", fixed(exact, sentence + "\r\n# Notes\r\n" + sentence));
+    }
+
+    @Test
     void aRepeatInsideAParagraphIsCutWithTheSpaceBeforeIt() {
         String text = "Keep every answer short and plain. Use the account notes. Keep every answer short and plain.\n";
         assertEquals("Keep every answer short and plain. Use the account notes.\n", fixed(exact, text));
