@@ -135,6 +135,24 @@ public final class TemplateScan {
         }
     }
 
+    /**
+     * Token counts of one template's renderings, each distinct (tokenizer, message) counted once:
+     * without samples the static and estimated texts are the same, and several targets often share
+     * a tokenizer. The sums are those of {@link Estimates#tokens}.
+     */
+    private static final class Counts {
+        private final Map<Tokenizer, Map<String, Integer>> byTokenizer = new java.util.IdentityHashMap<>();
+
+        int of(Tokenizer tokenizer, Rendering rendering) {
+            Map<String, Integer> counted = byTokenizer.computeIfAbsent(tokenizer, t -> new java.util.HashMap<>());
+            int total = 0;
+            for (String message : rendering.messages()) {
+                total += counted.computeIfAbsent(message, tokenizer::count);
+            }
+            return total;
+        }
+    }
+
     /** The per-file work, shared read-only by the scanning threads. */
     private record Measurer(TareConfig config, List<TargetConfig> targets, Tokenizer primary,
                             Map<String, Tokenizer> byTarget, TemplateLoader loader, Map<String, Template> toolFiles) {
@@ -159,12 +177,13 @@ public final class TemplateScan {
             Rendering empty = loader.renderer().renderStatic(template);
             Rendering samples = loader.renderer().renderWithSamples(template);
             int declared = Estimates.declaredTokens(samples);
+            Counts counts = new Counts();
             List<Template> tools = toolsSentWith(template);
             Map<String, Footprint> footprints = new LinkedHashMap<>();
             Map<String, Integer> estimatedByTarget = new LinkedHashMap<>();
             for (TargetConfig target : targetsOf(template)) {
                 Tokenizer tokenizer = byTarget.get(target.name());
-                int estimated = Estimates.estimatedTokens(target, tokenizer, samples);
+                int estimated = target.scaled(counts.of(tokenizer, samples)) + declared;
                 estimatedByTarget.put(target.name(), estimated);
                 int framing = template.kind() == TemplateKind.TOOLS
                         ? Framing.toolTokens(target, template.messages().size())
@@ -185,8 +204,8 @@ public final class TemplateScan {
                     unsized.add(occurrence.variable().name());
                 }
             }
-            return new ScannedTemplate(template.path(), template.kind(), characters, Estimates.tokens(primary, empty),
-                    Estimates.estimatedTokens(primary, samples), new ArrayList<>(variables), new ArrayList<>(unsized),
+            return new ScannedTemplate(template.path(), template.kind(), characters, counts.of(primary, empty),
+                    counts.of(primary, samples) + declared, new ArrayList<>(variables), new ArrayList<>(unsized),
                     new ArrayList<>(new LinkedHashSet<>(samples.includes())), footprints, estimatedByTarget);
         }
 
