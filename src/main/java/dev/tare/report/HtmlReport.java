@@ -2,8 +2,6 @@ package dev.tare.report;
 
 import dev.tare.Tare;
 import dev.tare.baseline.BaselineChange;
-import dev.tare.config.TargetConfig;
-import dev.tare.footprint.Coverage;
 import dev.tare.footprint.Footprint;
 import dev.tare.lint.CheckResult;
 import dev.tare.lint.Finding;
@@ -12,7 +10,6 @@ import dev.tare.lint.Severity;
 import dev.tare.overview.BaselineStatus;
 import dev.tare.overview.Overview;
 import dev.tare.overview.RuleTally;
-import dev.tare.overview.TargetTotals;
 import dev.tare.scan.ScanResult;
 import dev.tare.scan.ScannedTemplate;
 import dev.tare.source.SkippedFile;
@@ -25,7 +22,6 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
-import java.util.function.DoubleFunction;
 import java.util.stream.Collectors;
 
 /**
@@ -53,7 +49,7 @@ public final class HtmlReport {
         out.append("<main>\n");
         summary(out, overview);
         tokens(out, overview);
-        targets(out, overview);
+        HtmlTargets.section(out, overview);
         templateTable(out, overview, order);
         savings(out, overview);
         baseline(out, overview);
@@ -101,7 +97,8 @@ public final class HtmlReport {
         out.append("</dl></section>\n");
     }
 
-    private static void tile(StringBuilder out, String label, String value, String detail) {
+    /** One key figure: a label, the figure (already markup) and an optional line of detail. */
+    static void tile(StringBuilder out, String label, String value, String detail) {
         out.append("<div class=\"tile\"><dt>").append(Html.text(label)).append("</dt><dd class=\"figure\">").append(value)
                 .append("</dd>");
         if (!detail.isEmpty()) {
@@ -152,94 +149,6 @@ public final class HtmlReport {
 
     private static long chartTotal(ScannedTemplate template) {
         return (long) Math.max(template.staticTokens(), template.estimatedTokens()) + framing(template);
-    }
-
-    private static void targets(StringBuilder out, Overview overview) {
-        out.append("<section id=\"targets\">\n<h2>Targets</h2>\n");
-        if (overview.targets().isEmpty()) {
-            out.append("<p>No targets are configured; set <code>targets</code> in <code>tare.yaml</code> for cost,")
-                    .append(" time and memory estimates.</p>\n</section>\n");
-            return;
-        }
-        out.append("<p>Cost, time and memory below are planning estimates from Tare's formulas, not measurements or")
-                .append(" invoices.</p>\n");
-        for (TargetTotals totals : overview.targets()) {
-            target(out, overview, totals);
-        }
-        out.append("</section>\n");
-    }
-
-    private static void target(StringBuilder out, Overview overview, TargetTotals totals) {
-        TargetConfig target = totals.target();
-        String name = Html.attr(target.name());
-        out.append("<article class=\"target\" data-target=\"").append(name).append("\">\n<h3>").append(Html.text(target.name()))
-                .append("</h3>\n<p class=\"facts\">Tokenizer <code>").append(Html.text(target.tokenizer())).append("</code>");
-        target.price().ifPresent(p -> out.append(" · ").append(Html.text(Figures.price(p))));
-        target.callsPerDay().ifPresent(c -> out.append(" · ").append(Html.text(Figures.significant(c))).append(" calls a day"));
-        target.model().ifPresent(m -> out.append("<br>Model ").append(Html.text(Figures.model(m))));
-        target.device().ifPresent(d -> out.append("<br>Device ").append(Html.text(Figures.device(d))));
-        out.append("</p>\n<dl class=\"tiles small\">\n");
-        tile(out, "Templates on it", targetNumber(name, "templates", totals.templates(), "count"), "");
-        tile(out, "Input tokens per call", targetNumber(name, "input_tokens", totals.inputTokens(), "tokens"),
-                "summed over its templates");
-        totals.costPerMonth().ifPresent(cost -> tile(out, "Cost per month (estimate)",
-                "<span data-target=\"" + name + "\" data-total=\"cost_per_month\" data-value=\"" + Html.value(cost)
-                        + "\" data-unit=\"money\">" + Html.text(Figures.money(cost, totals.currency().orElse(""), 2))
-                        + "</span>", "every template at " + Figures.significant(target.callsPerDay().orElse(0))
-                        + " calls a day"));
-        totals.largestKvCacheBytes().ifPresent(bytes -> tile(out, "KV cache, largest request (estimate)",
-                "<span data-target=\"" + name + "\" data-total=\"max_kv_cache_bytes\" data-value=\"" + bytes
-                        + "\" data-unit=\"bytes\">" + Html.text(Figures.bytes(bytes)) + "</span>",
-                totals.largestRequest().orElse("") + totals.fewestConcurrent().stream()
-                        .mapToObj(n -> "; " + Figures.count(n) + " such requests fit").findFirst().orElse("")));
-        totals.weightBytes().ifPresent(bytes -> tile(out, "Weights (estimate)",
-                "<span data-target=\"" + name + "\" data-total=\"weight_bytes\" data-value=\"" + bytes
-                        + "\" data-unit=\"bytes\">" + Html.text(Figures.bytes(bytes)) + "</span>", ""));
-        out.append("</dl>\n");
-        List<ScannedTemplate> on = overview.scan().templates().stream()
-                .filter(t -> t.countsInTotals() && t.targets().containsKey(target.name())).toList();
-        Coverage coverage = Coverage.of(target);
-        if (coverage.computes().contains("cost_per_month") && !on.isEmpty()) {
-            String currency = totals.currency().orElse("");
-            targetChart(out, target, on, "cost_per_month", "Cost per month per template (estimate)", "money",
-                    f -> f.costPerMonth().orElse(0), v -> Figures.money(v, currency, 2),
-                    tick -> currency + " " + Figures.significant(tick));
-        }
-        if (coverage.computes().contains("kv_cache_bytes") && !on.isEmpty()) {
-            targetChart(out, target, on, "kv_cache_bytes", "KV-cache memory of one request per template (estimate)",
-                    "bytes", f -> f.kvCacheBytes().orElse(0), Figures::bytes, Figures::bytes);
-        }
-        out.append("</article>\n");
-    }
-
-    private static String targetNumber(String name, String total, long value, String unit) {
-        return "<span data-target=\"" + name + "\" data-total=\"" + total + "\" data-value=\"" + value + "\" data-unit=\""
-                + unit + "\">" + Figures.count(value) + "</span>";
-    }
-
-    /** What a target chart plots for one footprint. */
-    private interface Measure {
-        double of(Footprint footprint);
-    }
-
-    private static void targetChart(StringBuilder out, TargetConfig target, List<ScannedTemplate> templates,
-                                     String field, String title, String unit, Measure measure,
-                                     DoubleFunction<String> label, DoubleFunction<String> tick) {
-        SvgBarChart chart = new SvgBarChart(Html.id(field, target.name()), title + " on " + target.name(),
-                List.of(new SvgBarChart.Series(title, SvgBarChart.Fill.SOLID)), tick);
-        List<ScannedTemplate> sorted = templates.stream()
-                .sorted(Comparator.comparingDouble((ScannedTemplate t) -> measure.of(t.targets().get(target.name())))
-                        .reversed().thenComparing(ScannedTemplate::path)).toList();
-        for (ScannedTemplate t : sorted) {
-            Footprint f = t.targets().get(target.name());
-            double value = measure.of(f);
-            String data = " data-template=\"" + Html.attr(t.path()) + "\" data-target=\"" + Html.attr(target.name())
-                    + "\" data-field=\"" + field + "\" data-value=\"" + (unit.equals("bytes") ? Html.value((long) value)
-                    : Html.value(value)) + "\" data-unit=\"" + unit + "\"";
-            chart.row(new SvgBarChart.Row(t.path(), List.of(value), label.apply(value), data));
-        }
-        out.append("<h4>").append(Html.text(title)).append("</h4>\n<div class=\"chart-frame\">").append(chart.render())
-                .append("</div>\n");
     }
 
     private static void templateTable(StringBuilder out, Overview overview, ScanResult.Order order) {
