@@ -95,6 +95,18 @@ class MarkdownReportTest {
         assertTrue(markdown(Path.of("corpora/demo")).contains("No baseline: `tare-baseline.json` does not exist."));
     }
 
+    @Test
+    void aBrokenBaselineFileIsAOneLineErrorNamingIt(@org.junit.jupiter.api.io.TempDir Path root) throws IOException {
+        Files.writeString(root.resolve("tare.yaml"), "templates: {include: [\"*.md\"]}\n");
+        Files.writeString(root.resolve("a.md"), "Say hello.\n");
+        Files.writeString(root.resolve("tare-baseline.json"), "{not json");
+        Cli.Run run = Cli.run("scan", root.toString(), "--format", "md");
+        assertEquals(2, run.exitCode());
+        assertTrue(run.err().startsWith("tare: " + root.resolve("tare-baseline.json") + ", line 1"), run.err());
+        assertTrue(run.err().contains("rewrite it with 'tare baseline'"), run.err());
+        assertEquals(1, run.err().strip().lines().count(), "one line, no stack trace");
+    }
+
     private static double monthly(JsonNode template) {
         double sum = 0;
         for (JsonNode footprint : template.get("targets")) {
