@@ -55,6 +55,7 @@ final class RepeatedInstruction implements Rule {
                 }
                 Optional<Rewrite> rewrite = message.isProtected(sentence.start(), sentence.end()) ? Optional.empty()
                         : Sentences.removal(message.content(), sentence, sentences, false)
+                                .filter(r -> !message.isProtected(r[0], r[1]))
                                 .flatMap(r -> text.rewrite(message, List.of(new Edit(r[0], r[1], "")), context.tokenizer(template)));
                 int line = text.line(earlier.message(), earlier.sentence().start());
                 findings.add(text.finding(DESCRIPTOR, message, sentence.start(), sentence.end(),

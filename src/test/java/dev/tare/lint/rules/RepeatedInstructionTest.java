@@ -32,6 +32,9 @@ class RepeatedInstructionTest {
         String sentence = "Always confirm the account number before you continue.";
         assertEquals(sentence + "\nwater", fixed(exact, sentence + "\nwater\n\n" + sentence));
         assertEquals(sentence + "\r\n# Notes", fixed(exact, sentence + "\r\n# Notes\r\n" + sentence));
+        String afterFence = sentence + "\n```\necho hi\n```\n" + sentence;
+        assertEquals(1, findings(exact, afterFence).size());
+        assertEquals(afterFence, fixed(exact, afterFence), "the break before belongs to the fence, so no rewrite is offered");
     }
 
     @Test
