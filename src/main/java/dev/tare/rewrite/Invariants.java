@@ -56,7 +56,7 @@ final class Invariants {
         TemplateText afterText = TemplateText.of(after);
         code(beforeText, afterText, trace.used(EditKind.JSON_LAYOUT), problems);
         nonWhitespace(trace, problems);
-        paragraphs(trace, sourceFences(beforeText), sourceFences(afterText), problems);
+        paragraphs(trace, messageRanges(beforeText), sourceFences(beforeText), sourceFences(afterText), problems);
         finalNewline(original, rewritten, problems);
         lineEndings(original, rewritten, problems);
         return problems;
@@ -201,18 +201,47 @@ final class Invariants {
         return ranges;
     }
 
-    private static void paragraphs(Trace trace, List<int[]> fencesBefore, List<int[]> fencesAfter, List<String> problems) {
+    /** Each message's text as {@code [start, end)} offsets of the file's text. */
+    private static List<int[]> messageRanges(TemplateText text) {
+        List<int[]> ranges = new ArrayList<>();
+        for (MessageText message : text.messages()) {
+            ranges.add(new int[] {message.sourceOffset(0), message.sourceOffset(message.content().length())});
+        }
+        return ranges;
+    }
+
+    /** The index of the range holding {@code offset}, or -1. */
+    private static int rangeOf(List<int[]> ranges, int offset) {
+        for (int i = 0; i < ranges.size(); i++) {
+            if (offset >= ranges.get(i)[0] && offset < ranges.get(i)[1]) {
+                return i;
+            }
+        }
+        return -1;
+    }
+
+    /**
+     * Compares, for every two neighbouring non-whitespace characters that stayed from the original
+     * and stand in the same message, whether a blank line separates them before and after. Breaks
+     * at the edge of a message (after front matter, at the end) are not paragraph breaks.
+     */
+    private static void paragraphs(Trace trace, List<int[]> messages, List<int[]> fencesBefore, List<int[]> fencesAfter,
+                                   List<String> problems) {
         String original = trace.original();
         String rewritten = trace.current();
         int[] blankBefore = blankLineStarts(original, fencesBefore);
         int[] blankAfter = blankLineStarts(rewritten, fencesAfter);
         int previous = -1;
+        int previousMessage = -1;
         for (int j = 0; j < rewritten.length(); j++) {
             int from = trace.originOf(j);
             if (from < 0 || Character.isWhitespace(rewritten.charAt(j))) {
                 continue;
             }
-            if (previous >= 0) {
+            int message = rangeOf(messages, from);
+            boolean sameMessage = message >= 0 && message == previousMessage;
+            previousMessage = message;
+            if (previous >= 0 && sameMessage) {
                 int was = trace.originOf(previous);
                 boolean brokeBefore = blankBefore[from] - blankBefore[was + 1] > 0;
                 boolean breaksAfter = blankAfter[j] - blankAfter[previous + 1] > 0;
@@ -272,18 +301,18 @@ final class Invariants {
         return false;
     }
 
+    /** Whether the file ends with a line break; which break it is follows the line that ends the file now. */
     private static void finalNewline(String original, String rewritten, List<String> problems) {
-        if (!finalBreak(original).equals(finalBreak(rewritten))) {
-            problems.add("the file " + (finalBreak(original).isEmpty() ? "did not end" : "ended") + " with a line break"
-                    + (finalBreak(rewritten).isEmpty() ? " and no longer does" : " and now ends with another"));
+        boolean was = endsWithBreak(original);
+        boolean is = endsWithBreak(rewritten);
+        if (was != is) {
+            problems.add(was ? "the file ended with a line break and no longer does"
+                    : "the file did not end with a line break and now does");
         }
     }
 
-    private static String finalBreak(String text) {
-        if (text.endsWith("\r\n")) {
-            return "\r\n";
-        }
-        return text.endsWith("\n") || text.endsWith("\r") ? text.substring(text.length() - 1) : "";
+    private static boolean endsWithBreak(String text) {
+        return text.endsWith("\n") || text.endsWith("\r");
     }
 
     private static void lineEndings(String original, String rewritten, List<String> problems) {

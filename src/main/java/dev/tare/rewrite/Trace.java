@@ -22,12 +22,12 @@ final class Trace {
     }
 
     /**
-     * A whitespace rule that removed or wrote a character that is not whitespace.
+     * A whitespace rule's edit that did not keep the non-whitespace characters it replaced.
      *
      * @param rule         the rule
-     * @param character    the character
-     * @param originalLine the 1-based line of the original text it stood on (or near)
-     * @param removed      whether it was removed (else written)
+     * @param character    the first character removed, or written in place of another
+     * @param originalLine the 1-based line of the original text the edit stood on (or near)
+     * @param removed      whether that character was removed (else written)
      */
     record Breach(String rule, char character, int originalLine, boolean removed) {
     }
@@ -68,11 +68,12 @@ final class Trace {
                 if (origin[i] >= 0) {
                     removedBy[origin[i]] = author;
                 }
-                noteWhitespaceBreach(authored.author(), current.charAt(i), i, true);
             }
             for (int i = 0; i < edit.replacement().length(); i++) {
                 next[length++] = -1 - author;
-                noteWhitespaceBreach(authored.author(), edit.replacement().charAt(i), edit.start(), false);
+            }
+            if (authored.author().kind() == EditKind.WHITESPACE) {
+                noteWhitespaceBreach(authored.author(), current.substring(edit.start(), edit.end()), edit);
             }
             text.append(edit.replacement());
             at = edit.end();
@@ -95,10 +96,30 @@ final class Trace {
         return index;
     }
 
-    private void noteWhitespaceBreach(Author author, char c, int currentOffset, boolean removed) {
-        if (author.kind() == EditKind.WHITESPACE && !Character.isWhitespace(c)) {
-            breaches.add(new Breach(author.rule(), c, lineOf(original, nearestOriginal(currentOffset)), removed));
+    /** Notes where a whitespace rule's edit does not keep the non-whitespace characters it replaces. */
+    private void noteWhitespaceBreach(Author author, String removed, Edit edit) {
+        String was = nonWhitespace(removed);
+        String is = nonWhitespace(edit.replacement());
+        if (was.equals(is)) {
+            return;
         }
+        int same = 0;
+        while (same < was.length() && same < is.length() && was.charAt(same) == is.charAt(same)) {
+            same++;
+        }
+        boolean removes = same < was.length();
+        char c = removes ? was.charAt(same) : is.charAt(same);
+        breaches.add(new Breach(author.rule(), c, lineOf(original, nearestOriginal(edit.start())), removes));
+    }
+
+    private static String nonWhitespace(String text) {
+        StringBuilder out = new StringBuilder();
+        for (int i = 0; i < text.length(); i++) {
+            if (!Character.isWhitespace(text.charAt(i))) {
+                out.append(text.charAt(i));
+            }
+        }
+        return out.toString();
     }
 
     private int nearestOriginal(int currentOffset) {
@@ -152,7 +173,7 @@ final class Trace {
         return origin[i] < 0 && authors.get(-1 - origin[i]).kind() != EditKind.WHITESPACE;
     }
 
-    /** Every non-whitespace character a whitespace rule removed or wrote, in the order it happened. */
+    /** Every edit of a whitespace rule that changed the non-whitespace characters, in the order they were applied. */
     List<Breach> breaches() {
         return List.copyOf(breaches);
     }
