@@ -98,13 +98,13 @@ class DemoFixTest {
             assertTrue(original(path).contains("\n\n\n\n"));
         }
         // Spaces and tabs inside prose: the original line, collapsed, is now in the file.
-        assertCollapsed("prompts/agents/field-crew-work-order.md", 41);
+        assertCollapsed("prompts/agents/field-crew-work-order.md", 42);
         assertCollapsed("prompts/meters/reading-dispute.md", 15);
         assertCollapsed("prompts/outages/outage-report.chat.yaml", 32);
         assertCollapsed("prompts/outages/outage-report.chat.yaml", 33);
         assertCollapsed("prompts/connections/connection-checklist.chat.json", 3);
         assertCollapsed("prompts/leaks/leak-triage.md", 37);
-        assertCollapsed("prompts/agents/field-crew-work-order.md", 227);
+        assertCollapsed("prompts/agents/field-crew-work-order.md", 228);
     }
 
     private void assertCollapsed(String path, int line) throws IOException {
@@ -175,12 +175,12 @@ class DemoFixTest {
         Cli.Run safe = Cli.run("fix", copy.toString());
         assertTrue(safe.out().contains("Review-class rewrites not applied: costly-character"), safe.out());
         // WASTE.md, "Decorative rulers": review-class, so still there after a safe fix.
-        assertEquals("==========", line(read("prompts/system/assistant.md"), 15));
+        assertEquals("==========", line(read("prompts/system/assistant.md"), 16));
         Cli.Run review = Cli.run("fix", copy.toString(), "--include-review");
         assertEquals(0, review.exitCode(), review.err());
         assertTrue(review.out().contains("Review-class rewrites applied: costly-character"), review.out());
         assertTrue(review.out().contains("evaluate the prompts they change before they ship"), review.out());
-        assertEquals("===", line(read("prompts/system/assistant.md"), 15));
+        assertEquals("===", line(read("prompts/system/assistant.md"), 16));
         assertFalse(read("prompts/system/assistant.md").contains("\u2192"), "WASTE.md, costly characters: the arrows");
     }
 
