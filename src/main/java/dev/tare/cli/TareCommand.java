@@ -15,7 +15,7 @@ import picocli.CommandLine.Command;
                 RulesCommand.class, ExplainCommand.class, BaselineCommand.class, CalibrateCommand.class,
                 HookCommand.class, InitCommand.class,
                 CommandLine.HelpCommand.class},
-        footer = {"", "Exit codes: 0 ok, 1 findings or a budget breach, 2 usage, configuration or input error,"
+        footer = {"", "Exit codes: 0 ok, 1 findings, a budget breach or a file left unfixed by fix, 2 usage, configuration or input error,"
                 + " 3 internal error (add --debug for the stack trace)."})
 public final class TareCommand implements Runnable {
     @CommandLine.Spec
