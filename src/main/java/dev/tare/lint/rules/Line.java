@@ -48,6 +48,37 @@ record Line(int start, int end, int next) {
         return true;
     }
 
+    /**
+     * The runs of spaces and tabs between words of the line, as {@code {start, end}} offsets:
+     * neither the indentation before the first word nor the blanks after the last.
+     */
+    List<int[]> blanksBetweenWords(String content) {
+        List<int[]> runs = new ArrayList<>();
+        int i = start;
+        while (i < end && isBlank(content.charAt(i))) {
+            i++;
+        }
+        while (i < end) {
+            if (!isBlank(content.charAt(i))) {
+                i++;
+                continue;
+            }
+            int run = i;
+            while (run < end && isBlank(content.charAt(run))) {
+                run++;
+            }
+            if (run < end) {
+                runs.add(new int[] {i, run});
+            }
+            i = run;
+        }
+        return runs;
+    }
+
+    private static boolean isBlank(char c) {
+        return c == ' ' || c == '\t';
+    }
+
     /** The line break as written, empty for a last line without one. */
     String lineBreak(String content) {
         return content.substring(end, next);

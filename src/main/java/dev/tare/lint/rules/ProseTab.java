@@ -40,28 +40,13 @@ final class ProseTab implements Rule {
         for (MessageText message : text.messages()) {
             String content = message.content();
             for (Line line : Line.of(content)) {
-                int i = line.start();
-                while (i < line.end() && (content.charAt(i) == ' ' || content.charAt(i) == '\t')) {
-                    i++;
-                }
-                while (i < line.end()) {
-                    char c = content.charAt(i);
-                    if (c != ' ' && c != '\t') {
-                        i++;
-                        continue;
-                    }
-                    int run = i;
-                    boolean tab = false;
-                    while (run < line.end() && (content.charAt(run) == ' ' || content.charAt(run) == '\t')) {
-                        tab |= content.charAt(run) == '\t';
-                        run++;
-                    }
-                    if (tab && run < line.end() && !message.isProtected(i, run)) {
-                        findings.add(text.finding(DESCRIPTOR, message, i, run, "a tab between words; use one space",
-                                text.rewrite(message, List.of(new Edit(i, run, " ")), context.tokenizer(template)),
+                for (int[] run : line.blanksBetweenWords(content)) {
+                    boolean tab = content.substring(run[0], run[1]).indexOf('\t') >= 0;
+                    if (tab && !message.isProtected(run[0], run[1])) {
+                        findings.add(text.finding(DESCRIPTOR, message, run[0], run[1], "a tab between words; use one space",
+                                text.rewrite(message, List.of(new Edit(run[0], run[1], " ")), context.tokenizer(template)),
                                 List.of()));
                     }
-                    i = run;
                 }
             }
         }

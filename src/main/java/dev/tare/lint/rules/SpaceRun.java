@@ -41,27 +41,15 @@ final class SpaceRun implements Rule {
         for (MessageText message : text.messages()) {
             String content = message.content();
             for (Line line : Line.of(content)) {
-                int i = line.start();
-                while (i < line.end() && (content.charAt(i) == ' ' || content.charAt(i) == '\t')) {
-                    i++;
-                }
-                while (i < line.end()) {
-                    if (content.charAt(i) != ' ') {
-                        i++;
-                        continue;
-                    }
-                    int run = i;
-                    while (run < line.end() && content.charAt(run) == ' ') {
-                        run++;
-                    }
-                    boolean inside = run < line.end() && content.charAt(run) != '\t' && content.charAt(i - 1) != '\t';
-                    if (run - i >= 2 && inside && !message.isProtected(i, run)) {
-                        findings.add(text.finding(DESCRIPTOR, message, i, run,
-                                (run - i) + " spaces in a row; one is enough",
-                                text.rewrite(message, List.of(new Edit(i, run, " ")), context.tokenizer(template)),
+                for (int[] run : line.blanksBetweenWords(content)) {
+                    // A run with a tab in it is prose-tab's; this rule takes runs of spaces only.
+                    boolean spacesOnly = content.substring(run[0], run[1]).indexOf('\t') < 0;
+                    if (spacesOnly && run[1] - run[0] >= 2 && !message.isProtected(run[0], run[1])) {
+                        findings.add(text.finding(DESCRIPTOR, message, run[0], run[1],
+                                (run[1] - run[0]) + " spaces in a row; one is enough",
+                                text.rewrite(message, List.of(new Edit(run[0], run[1], " ")), context.tokenizer(template)),
                                 List.of()));
                     }
-                    i = run;
                 }
             }
         }
