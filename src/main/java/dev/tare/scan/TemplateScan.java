@@ -155,27 +155,29 @@ public final class TemplateScan {
 
     /** The per-file work, shared read-only by the scanning threads. */
     private record Measurer(TareConfig config, List<TargetConfig> targets, Tokenizer primary,
-                            Map<String, Tokenizer> byTarget, TemplateLoader loader, Map<String, Template> toolFiles) {
+                            Map<String, Tokenizer> byTarget, TemplateLoader loader, Map<String, Template> toolFiles,
+                            Map<String, Integer> toolTokens) {
 
         Measurer(TareConfig config, List<TargetConfig> targets, Tokenizer primary, Map<String, Tokenizer> byTarget,
                  TemplateLoader loader) {
-            this(config, targets, primary, byTarget, loader, new java.util.concurrent.ConcurrentHashMap<>());
+            this(config, targets, primary, byTarget, loader, new java.util.concurrent.ConcurrentHashMap<>(),
+                    new java.util.concurrent.ConcurrentHashMap<>());
         }
 
         Outcome measure(String path) {
             try {
                 SourceText text = loader.read(path);
                 Template template = loader.parse(text);
-                ScannedTemplate measured = measure(template, text.text().length());
-                return Outcome.of(measured, leadingIds(template, measured));
+                Rendering samples = loader.renderer().renderWithSamples(template);
+                ScannedTemplate measured = measure(template, samples, text.text().length());
+                return Outcome.of(measured, leadingIds(template, samples, measured));
             } catch (TareException e) {
                 return Outcome.of(new SkippedFile(path, e.getMessage()));
             }
         }
 
-        private ScannedTemplate measure(Template template, int characters) {
+        private ScannedTemplate measure(Template template, Rendering samples, int characters) {
             Rendering empty = loader.renderer().renderStatic(template);
-            Rendering samples = loader.renderer().renderWithSamples(template);
             int declared = Estimates.declaredTokens(samples);
             Counts counts = new Counts();
             List<Template> tools = toolsSentWith(template);
@@ -189,7 +191,7 @@ public final class TemplateScan {
                         ? Framing.toolTokens(target, template.messages().size())
                         : Framing.tokens(target, template.isChat(), template.messages().size());
                 for (Template toolFile : tools) {
-                    estimated += target.scaled(Estimates.tokens(tokenizer, loader.renderer().renderStatic(toolFile)));
+                    estimated += target.scaled(toolTokens(toolFile, tokenizer));
                     framing += Framing.toolTokens(target, toolFile.messages().size());
                 }
                 int output = template.meta().outputTokens().orElse(target.outputTokens().orElse(0));
@@ -213,7 +215,7 @@ public final class TemplateScan {
          * Leading static token ids per target with a prefix cache, kept only when there are at least
          * the cache's minimum (shorter runs can never count), and at most {@link #MAX_LEADING_IDS}.
          */
-        private Map<String, int[]> leadingIds(Template template, ScannedTemplate measured) {
+        private Map<String, int[]> leadingIds(Template template, Rendering samples, ScannedTemplate measured) {
             if (template.kind() == TemplateKind.PARTIAL) {
                 return Map.of();
             }
@@ -224,7 +226,7 @@ public final class TemplateScan {
                     continue;
                 }
                 if (leading == null) {
-                    leading = LeadingText.of(template, loader.renderer(), loader.renderer().renderWithSamples(template));
+                    leading = LeadingText.of(template, loader.renderer(), samples);
                 }
                 int[] kept = leadingIds(byTarget.get(target.name()), leading);
                 if (kept.length > 0 && kept.length >= target.prefixCacheMinTokens().getAsInt()) {
@@ -261,6 +263,12 @@ public final class TemplateScan {
                         + config.targets().stream().map(TargetConfig::name).collect(Collectors.joining(", ")) + ")"));
             }
             return targets.stream().filter(t -> t.name().equals(named.get())).toList();
+        }
+
+        /** A tool file's counted tokens on one tokenizer, counted once per scan however many templates send it. */
+        private int toolTokens(Template toolFile, Tokenizer tokenizer) {
+            return toolTokens.computeIfAbsent(toolFile.path() + '\u0000' + tokenizer.name(),
+                    key -> Estimates.tokens(tokenizer, loader.renderer().renderStatic(toolFile)));
         }
 
         /** The tool files the template's front matter says are sent with it, each parsed once per scan. */
