@@ -1,14 +1,12 @@
 package dev.tare.tokenize;
 
-import com.knuddels.jtokkit.Encodings;
-import com.knuddels.jtokkit.api.EncodingRegistry;
-import com.knuddels.jtokkit.api.EncodingType;
 import dev.tare.TareException;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
-import java.util.Optional;
 import java.util.concurrent.ConcurrentHashMap;
+import java.util.concurrent.atomic.AtomicLong;
+import java.util.function.Supplier;
 
 /**
  * The one place tokenizers come from. A tokenizer is named either by a built-in encoding name
@@ -21,16 +19,17 @@ public final class TokenizerRegistry {
     /** Built-in encoding names, in the order they are listed to users. */
     public static final List<String> BUILT_IN = List.of("o200k_base", "cl100k_base", "p50k_base", "r50k_base");
 
-    private static final Map<String, EncodingType> TYPES = Map.of(
-            "o200k_base", EncodingType.O200K_BASE,
-            "cl100k_base", EncodingType.CL100K_BASE,
-            "p50k_base", EncodingType.P50K_BASE,
-            "r50k_base", EncodingType.R50K_BASE);
+    /** Where jtokkit keeps each encoding's ranks, and the splitting pattern each one uses. */
+    private static final String RANKS = "/com/knuddels/jtokkit/%s.tiktoken";
+    private static final Map<String, Supplier<Pretokenizer>> SPLITTERS = Map.of(
+            "o200k_base", O200kPieces::new,
+            "cl100k_base", Cl100kPieces::new,
+            "p50k_base", Gpt2Pieces::new,
+            "r50k_base", Gpt2Pieces::new);
 
-    private final EncodingRegistry encodings = Encodings.newLazyEncodingRegistry();
     private final Map<String, Tokenizer> loaded = new ConcurrentHashMap<>();
     /** Time spent loading tokenizers in this process, for {@code --timings}. */
-    private static final java.util.concurrent.atomic.AtomicLong LOAD_NANOS = new java.util.concurrent.atomic.AtomicLong();
+    private static final AtomicLong LOAD_NANOS = new AtomicLong();
 
     /**
      * The tokenizer for {@code spec}: a built-in name, or a path to a {@code tokenizer.json} file,
@@ -39,9 +38,10 @@ public final class TokenizerRegistry {
      * @throws TareException when the name is unknown or the file cannot be used
      */
     public Tokenizer get(String spec, Path baseDir) {
-        Optional<EncodingType> type = Optional.ofNullable(TYPES.get(spec));
-        if (type.isPresent()) {
-            return loaded.computeIfAbsent(spec, name -> timed(() -> new BuiltInEncoding(encodings.getEncoding(type.get()))));
+        Supplier<Pretokenizer> splitter = SPLITTERS.get(spec);
+        if (splitter != null) {
+            return loaded.computeIfAbsent(spec, name -> timed(() ->
+                    new BytePairEncoding(name, Vocabulary.fromResource(String.format(RANKS, name)), splitter.get())));
         }
         if (!namesFile(spec)) {
             throw new TareException("unknown tokenizer '" + spec + "': use one of " + String.join(", ", BUILT_IN)
@@ -56,7 +56,7 @@ public final class TokenizerRegistry {
         return LOAD_NANOS.get() / 1e6;
     }
 
-    private static Tokenizer timed(java.util.function.Supplier<Tokenizer> load) {
+    private static Tokenizer timed(Supplier<Tokenizer> load) {
         long start = System.nanoTime();
         try {
             return load.get();

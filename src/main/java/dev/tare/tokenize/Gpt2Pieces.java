@@ -1,0 +1,49 @@
+package dev.tare.tokenize;
+
+import static dev.tare.tokenize.CharClass.LETTER;
+import static dev.tare.tokenize.CharClass.NUMBER;
+import static dev.tare.tokenize.CharClass.SPACE;
+import static dev.tare.tokenize.Pretokenizer.Steps.classAt;
+import static dev.tare.tokenize.Pretokenizer.Steps.next;
+import static dev.tare.tokenize.Pretokenizer.Steps.run;
+import static dev.tare.tokenize.Pretokenizer.Steps.runWithout;
+import static dev.tare.tokenize.Pretokenizer.Steps.whitespace;
+
+/** The splitting pattern of {@code r50k_base} and {@code p50k_base}: lower-case contractions, runs of one class. */
+final class Gpt2Pieces implements Pretokenizer {
+    static final String PATTERN = "'(?:[sdmt]|ll|ve|re)| ?\\p{L}+| ?\\p{N}+| ?[^\\s\\p{L}\\p{N}]+|\\s+(?!\\S)|\\s+";
+
+    @Override
+    public String pattern() {
+        return PATTERN;
+    }
+
+    @Override
+    public int pieceEnd(String text, int start) {
+        int n = text.length();
+        if (text.charAt(start) == '\'' && start + 1 < n) {
+            char a = text.charAt(start + 1);
+            if (a == 's' || a == 'd' || a == 'm' || a == 't') {
+                return start + 2;
+            }
+            if (start + 2 < n) {
+                char b = text.charAt(start + 2);
+                if (a == 'l' && b == 'l' || a == 'v' && b == 'e' || a == 'r' && b == 'e') {
+                    return start + 3;
+                }
+            }
+        }
+        int body = text.charAt(start) == ' ' && start + 1 < n ? start + 1 : start;
+        int bits = classAt(text, body);
+        if ((bits & LETTER) != 0) {
+            return run(text, next(text, body), LETTER);
+        }
+        if ((bits & NUMBER) != 0) {
+            return run(text, next(text, body), NUMBER);
+        }
+        if ((bits & SPACE) == 0) {
+            return runWithout(text, body, SPACE | LETTER | NUMBER);
+        }
+        return whitespace(text, start, false);
+    }
+}

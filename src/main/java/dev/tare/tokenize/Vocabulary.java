@@ -1,0 +1,201 @@
+package dev.tare.tokenize;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.UncheckedIOException;
+import java.util.Arrays;
+
+/**
+ * The tokens of a byte-level BPE encoding and their ranks: a token's rank is both its id and its
+ * merge priority. Held as one byte array of every token in rank order, with an open-addressing hash
+ * table from a byte range to its rank, so a lookup allocates nothing.
+ *
+ * <p>Read from the {@code .tiktoken} files jtokkit ships (one token a line, base64 then the rank),
+ * decoded by hand straight from the bytes: building the maps of boxed keys that a general decoder
+ * makes costs most of a second for the largest encoding, which a pre-commit hook cannot afford.
+ */
+final class Vocabulary {
+    private static final int NO_RANK = -1;
+
+    private final byte[] bytes;
+    /** Token {@code r} is {@code bytes[starts[r], starts[r + 1])}; an unused rank is empty. */
+    private final int[] starts;
+    /** Rank + 1 of the token in each slot, 0 for an empty slot; the size is a power of two. */
+    private final int[] slots;
+    private final int mask;
+
+    private Vocabulary(byte[] bytes, int[] starts) {
+        this.bytes = bytes;
+        this.starts = starts;
+        int ranks = starts.length - 1;
+        int size = Integer.highestOneBit(Math.max(ranks, 1) * 3 - 1) << 1;
+        this.slots = new int[size];
+        this.mask = size - 1;
+        for (int rank = 0; rank < ranks; rank++) {
+            int from = starts[rank];
+            int to = starts[rank + 1];
+            if (from == to) {
+                continue;
+            }
+            int slot = hash(bytes, from, to) & mask;
+            while (slots[slot] != 0) {
+                slot = (slot + 1) & mask;
+            }
+            slots[slot] = rank + 1;
+        }
+    }
+
+    /**
+     * Reads a {@code .tiktoken} resource from the class path.
+     *
+     * @throws IllegalStateException when the resource is missing or malformed, which is a packaging bug
+     */
+    static Vocabulary fromResource(String resource) {
+        byte[] file;
+        try (InputStream in = Vocabulary.class.getResourceAsStream(resource)) {
+            if (in == null) {
+                throw new IllegalStateException("encoding resource " + resource + " is not on the class path");
+            }
+            file = in.readAllBytes();
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot read encoding resource " + resource, e);
+        }
+        return parse(resource, file);
+    }
+
+    /** Parses the lines {@code BASE64 RANK}; ranks may leave gaps (a special token's id, say). */
+    static Vocabulary parse(String name, byte[] file) {
+        byte[] tokens = new byte[file.length];
+        int[] tokenStart = new int[1024];
+        int[] tokenRank = new int[1024];
+        int count = 0;
+        int length = 0;
+        int maxRank = -1;
+        int pos = 0;
+        while (pos < file.length) {
+            int space = pos;
+            while (space < file.length && file[space] != ' ') {
+                space++;
+            }
+            int end = space;
+            while (end < file.length && file[end] != '\n') {
+                end++;
+            }
+            if (space >= end) {
+                if (space == pos && end == pos) {
+                    pos = end + 1;
+                    continue;
+                }
+                throw new IllegalStateException(name + ": malformed line at byte " + pos);
+            }
+            int rank = 0;
+            for (int i = space + 1; i < end; i++) {
+                int digit = file[i] - '0';
+                if (digit < 0 || digit > 9) {
+                    if (file[i] == '\r' && i == end - 1) {
+                        break;
+                    }
+                    throw new IllegalStateException(name + ": malformed rank at byte " + i);
+                }
+                rank = rank * 10 + digit;
+            }
+            if (count == tokenStart.length) {
+                tokenStart = Arrays.copyOf(tokenStart, count * 2);
+                tokenRank = Arrays.copyOf(tokenRank, count * 2);
+            }
+            tokenStart[count] = length;
+            tokenRank[count] = rank;
+            count++;
+            length = decodeBase64(file, pos, space, tokens, length, name);
+            maxRank = Math.max(maxRank, rank);
+            pos = end + 1;
+        }
+        // Lay the tokens out in rank order, so that token r is a slice found from its rank alone.
+        int[] lengthOf = new int[maxRank + 1];
+        int[] sourceOf = new int[maxRank + 1];
+        for (int i = 0; i < count; i++) {
+            int to = i + 1 < count ? tokenStart[i + 1] : length;
+            lengthOf[tokenRank[i]] = to - tokenStart[i];
+            sourceOf[tokenRank[i]] = tokenStart[i];
+        }
+        byte[] ordered = new byte[length];
+        int[] starts = new int[maxRank + 2];
+        int at = 0;
+        for (int rank = 0; rank <= maxRank; rank++) {
+            starts[rank] = at;
+            System.arraycopy(tokens, sourceOf[rank], ordered, at, lengthOf[rank]);
+            at += lengthOf[rank];
+        }
+        starts[maxRank + 1] = at;
+        return new Vocabulary(ordered, starts);
+    }
+
+    /** The rank of the token whose bytes are {@code piece[from, to)}, or -1 when there is none. */
+    int rank(byte[] piece, int from, int to) {
+        int slot = hash(piece, from, to) & mask;
+        int length = to - from;
+        while (true) {
+            int entry = slots[slot];
+            if (entry == 0) {
+                return NO_RANK;
+            }
+            int rank = entry - 1;
+            int start = starts[rank];
+            if (starts[rank + 1] - start == length && Arrays.equals(bytes, start, start + length, piece, from, to)) {
+                return rank;
+            }
+            slot = (slot + 1) & mask;
+        }
+    }
+
+    /** The number of rank values, gaps included: every id is below it. */
+    int ranks() {
+        return starts.length - 1;
+    }
+
+    /** The bytes of token {@code rank}. */
+    byte[] token(int rank) {
+        return Arrays.copyOfRange(bytes, starts[rank], starts[rank + 1]);
+    }
+
+    private static final byte[] BASE64 = new byte[128];
+
+    static {
+        Arrays.fill(BASE64, (byte) -1);
+        String alphabet = "ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789+/";
+        for (int i = 0; i < alphabet.length(); i++) {
+            BASE64[alphabet.charAt(i)] = (byte) i;
+        }
+    }
+
+    /** Decodes standard base64 {@code in[from, to)} into {@code out} at {@code at}; returns the end. */
+    private static int decodeBase64(byte[] in, int from, int to, byte[] out, int at, String name) {
+        int bits = 0;
+        int held = 0;
+        for (int i = from; i < to; i++) {
+            int c = in[i];
+            if (c == '=') {
+                break;
+            }
+            int value = c >= 0 ? BASE64[c] : -1;
+            if (value < 0) {
+                throw new IllegalStateException(name + ": not base64 at byte " + i);
+            }
+            bits = (bits << 6) | value;
+            held += 6;
+            if (held >= 8) {
+                held -= 8;
+                out[at++] = (byte) (bits >>> held);
+            }
+        }
+        return at;
+    }
+
+    private static int hash(byte[] data, int from, int to) {
+        int h = 0x9E3779B9 * (to - from);
+        for (int i = from; i < to; i++) {
+            h = (h ^ data[i]) * 0x01000193;
+        }
+        return h ^ (h >>> 15);
+    }
+}
