@@ -14,7 +14,8 @@ final class BytePairEncoding implements Tokenizer {
     private final String name;
     private final Vocabulary vocabulary;
     private final Pretokenizer pretokenizer;
-    private final PieceCache cache = new PieceCache();
+    /** One cache per thread, so lookups need no locks; each fills with the same common pieces. */
+    private final ThreadLocal<PieceCache> caches = ThreadLocal.withInitial(PieceCache::new);
 
     BytePairEncoding(String name, Vocabulary vocabulary, Pretokenizer pretokenizer) {
         this.name = name;
@@ -29,11 +30,12 @@ final class BytePairEncoding implements Tokenizer {
 
     @Override
     public int count(String text) {
+        PieceCache cache = caches.get();
         int total = 0;
         int n = text.length();
         for (int start = 0; start < n; ) {
             int end = pretokenizer.pieceEnd(text, start);
-            total += piece(text.substring(start, end)).length;
+            total += piece(cache, text, start, end).length;
             start = end;
         }
         return total;
@@ -42,11 +44,12 @@ final class BytePairEncoding implements Tokenizer {
     @Override
     public int[] encode(String text) {
         int[] out = new int[Math.max(16, text.length() / 3)];
+        PieceCache cache = caches.get();
         int size = 0;
         int n = text.length();
         for (int start = 0; start < n; ) {
             int end = pretokenizer.pieceEnd(text, start);
-            int[] ids = piece(text.substring(start, end));
+            int[] ids = piece(cache, text, start, end);
             if (size + ids.length > out.length) {
                 out = Arrays.copyOf(out, Math.max(out.length * 2, size + ids.length));
             }
@@ -57,11 +60,11 @@ final class BytePairEncoding implements Tokenizer {
         return Arrays.copyOf(out, size);
     }
 
-    private int[] piece(String piece) {
-        int[] ids = cache.get(piece);
+    private int[] piece(PieceCache cache, String text, int start, int end) {
+        int[] ids = cache.get(text, start, end);
         if (ids == null) {
-            ids = BytePairMerge.encode(vocabulary, piece.getBytes(StandardCharsets.UTF_8));
-            cache.put(piece, ids);
+            ids = BytePairMerge.encode(vocabulary, text.substring(start, end).getBytes(StandardCharsets.UTF_8));
+            cache.put(text, start, end, ids);
         }
         return ids;
     }

@@ -1,31 +1,59 @@
 package dev.tare.tokenize;
 
-import java.util.concurrent.ConcurrentHashMap;
-import java.util.concurrent.atomic.AtomicInteger;
-
 /**
- * The token ids of pieces already encoded, shared by every thread counting with one encoding.
- * Prompt text repeats the same words endlessly, so after the first few files nearly every piece is
- * found here and the merge never runs. Only short pieces are kept, and at most {@link #MAX_ENTRIES}
- * of them, so the memory it takes stays small and fixed; once full, it keeps what it has.
+ * The token ids of pieces already encoded, for one thread counting with one encoding. Prompt text
+ * repeats the same words endlessly, so after the first few files nearly every piece is found here
+ * and the merge never runs. Pieces are looked up by their place in the text being counted, without
+ * copying them out, in an open-addressing table. Only short pieces are kept, and at most
+ * {@link #MAX_ENTRIES} of them, so the memory it takes stays small and fixed; once full, it keeps
+ * what it has. Not thread-safe: each counting thread has its own.
  */
 final class PieceCache {
     /** Longer pieces are rare and unlikely to come again. */
     static final int MAX_PIECE_CHARS = 48;
-    static final int MAX_ENTRIES = 1 << 17;
+    static final int MAX_ENTRIES = 1 << 16;
 
-    private final ConcurrentHashMap<String, int[]> ids = new ConcurrentHashMap<>(1 << 12);
-    private final AtomicInteger size = new AtomicInteger();
+    private static final int SLOTS = MAX_ENTRIES * 2;
+    private final String[] keys = new String[SLOTS];
+    private final int[][] values = new int[SLOTS][];
+    private int size;
 
-    /** The cached ids of {@code piece}, or null. */
-    int[] get(String piece) {
-        return ids.get(piece);
+    /** The cached ids of {@code text[start, end)}, or null. */
+    int[] get(String text, int start, int end) {
+        int length = end - start;
+        if (length > MAX_PIECE_CHARS) {
+            return null;
+        }
+        for (int slot = hash(text, start, end) & (SLOTS - 1); ; slot = (slot + 1) & (SLOTS - 1)) {
+            String key = keys[slot];
+            if (key == null) {
+                return null;
+            }
+            if (key.length() == length && text.regionMatches(start, key, 0, length)) {
+                return values[slot];
+            }
+        }
     }
 
-    /** Remembers the ids of {@code piece} while there is room and the piece is short. */
-    void put(String piece, int[] tokens) {
-        if (piece.length() <= MAX_PIECE_CHARS && size.get() < MAX_ENTRIES && ids.putIfAbsent(piece, tokens) == null) {
-            size.incrementAndGet();
+    /** Remembers the ids of {@code text[start, end)} while there is room and the piece is short. */
+    void put(String text, int start, int end, int[] ids) {
+        if (end - start > MAX_PIECE_CHARS || size >= MAX_ENTRIES) {
+            return;
         }
+        int slot = hash(text, start, end) & (SLOTS - 1);
+        while (keys[slot] != null) {
+            slot = (slot + 1) & (SLOTS - 1);
+        }
+        keys[slot] = text.substring(start, end);
+        values[slot] = ids;
+        size++;
+    }
+
+    private static int hash(String text, int start, int end) {
+        int h = 0;
+        for (int i = start; i < end; i++) {
+            h = 31 * h + text.charAt(i);
+        }
+        return h ^ (h >>> 16) ^ (h >>> 7);
     }
 }
