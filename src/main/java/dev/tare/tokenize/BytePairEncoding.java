@@ -14,8 +14,8 @@ final class BytePairEncoding implements Tokenizer {
     private final String name;
     private final Vocabulary vocabulary;
     private final Pretokenizer pretokenizer;
-    /** One cache per thread, so lookups need no locks; each fills with the same common pieces. */
-    private final ThreadLocal<PieceCache> caches = ThreadLocal.withInitial(PieceCache::new);
+    /** Each thread's piece cache and text buffer, so counting needs no locks. */
+    private final ThreadLocal<Scratch> scratch = ThreadLocal.withInitial(Scratch::new);
 
     BytePairEncoding(String name, Vocabulary vocabulary, Pretokenizer pretokenizer) {
         this.name = name;
@@ -30,12 +30,13 @@ final class BytePairEncoding implements Tokenizer {
 
     @Override
     public int count(String text) {
-        PieceCache cache = caches.get();
+        Scratch own = scratch.get();
+        int length = text.length();
+        char[] chars = own.chars(text);
         int total = 0;
-        int n = text.length();
-        for (int start = 0; start < n; ) {
-            int end = pretokenizer.pieceEnd(text, start);
-            total += piece(cache, text, start, end).length;
+        for (int start = 0; start < length; ) {
+            int end = pretokenizer.pieceEnd(chars, start, length);
+            total += piece(own.cache, chars, start, end).length;
             start = end;
         }
         return total;
@@ -43,13 +44,14 @@ final class BytePairEncoding implements Tokenizer {
 
     @Override
     public int[] encode(String text) {
-        int[] out = new int[Math.max(16, text.length() / 3)];
-        PieceCache cache = caches.get();
+        Scratch own = scratch.get();
+        int length = text.length();
+        char[] chars = own.chars(text);
+        int[] out = new int[Math.max(16, length / 3)];
         int size = 0;
-        int n = text.length();
-        for (int start = 0; start < n; ) {
-            int end = pretokenizer.pieceEnd(text, start);
-            int[] ids = piece(cache, text, start, end);
+        for (int start = 0; start < length; ) {
+            int end = pretokenizer.pieceEnd(chars, start, length);
+            int[] ids = piece(own.cache, chars, start, end);
             if (size + ids.length > out.length) {
                 out = Arrays.copyOf(out, Math.max(out.length * 2, size + ids.length));
             }
@@ -60,10 +62,10 @@ final class BytePairEncoding implements Tokenizer {
         return Arrays.copyOf(out, size);
     }
 
-    private int[] piece(PieceCache cache, String text, int start, int end) {
+    private int[] piece(PieceCache cache, char[] text, int start, int end) {
         int[] ids = cache.get(text, start, end);
         if (ids == null) {
-            ids = BytePairMerge.encode(vocabulary, text.substring(start, end).getBytes(StandardCharsets.UTF_8));
+            ids = BytePairMerge.encode(vocabulary, new String(text, start, end - start).getBytes(StandardCharsets.UTF_8));
             cache.put(text, start, end, ids);
         }
         return ids;
@@ -72,5 +74,26 @@ final class BytePairEncoding implements Tokenizer {
     @Override
     public String toString() {
         return name;
+    }
+
+    /** One thread's working memory. */
+    private static final class Scratch {
+        /** Texts up to this many chars reuse one buffer; a longer one gets its own array. */
+        private static final int KEPT_BUFFER_CHARS = 1 << 20;
+
+        final PieceCache cache = new PieceCache();
+        private char[] buffer = new char[8192];
+
+        char[] chars(String text) {
+            int length = text.length();
+            if (length > buffer.length) {
+                if (length > KEPT_BUFFER_CHARS) {
+                    return text.toCharArray();
+                }
+                buffer = new char[Math.max(length, buffer.length * 2)];
+            }
+            text.getChars(0, length, buffer, 0);
+            return buffer;
+        }
     }
 }

@@ -22,34 +22,34 @@ final class Cl100kPieces implements Pretokenizer {
     }
 
     @Override
-    public int pieceEnd(String text, int start) {
-        int end = contraction(text, start);
+    public int pieceEnd(char[] text, int start, int length) {
+        int end = contraction(text, start, length);
         if (end > start) {
             return end;
         }
-        int bits = classAt(text, start);
-        int after = next(text, start);
-        if ((bits & (NEWLINE | LETTER | NUMBER)) == 0 && after < text.length() && (classAt(text, after) & LETTER) != 0) {
-            return run(text, after, LETTER);
+        int bits = classAt(text, start, length);
+        int after = next(text, start, length);
+        if ((bits & (NEWLINE | LETTER | NUMBER)) == 0 && after < length && (classAt(text, after, length) & LETTER) != 0) {
+            return run(text, after, length, LETTER);
         }
         if ((bits & LETTER) != 0) {
-            return run(text, after, LETTER);
+            return run(text, after, length, LETTER);
         }
         if ((bits & NUMBER) != 0) {
             int digits = after;
-            for (int i = 1; i < 3 && digits < text.length() && (classAt(text, digits) & NUMBER) != 0; i++) {
-                digits = next(text, digits);
+            for (int i = 1; i < 3 && digits < length && (classAt(text, digits, length) & NUMBER) != 0; i++) {
+                digits = next(text, digits, length);
             }
             return digits;
         }
-        int symbols = text.charAt(start) == ' ' && after < text.length() ? after : start;
-        if ((classAt(text, symbols) & (SPACE | LETTER | NUMBER)) == 0) {
-            end = runWithout(text, symbols, SPACE | LETTER | NUMBER);
-            while (end < text.length() && (text.charAt(end) == '\r' || text.charAt(end) == '\n')) {
+        int symbols = text[start] == ' ' && after < length ? after : start;
+        if ((classAt(text, symbols, length) & (SPACE | LETTER | NUMBER)) == 0) {
+            end = runWithout(text, symbols, length, SPACE | LETTER | NUMBER);
+            while (end < length && (text[end] == '\r' || text[end] == '\n')) {
                 end++;
             }
             return end;
         }
-        return whitespace(text, start, true);
+        return whitespace(text, start, length, true);
     }
 }

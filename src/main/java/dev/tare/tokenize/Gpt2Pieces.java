@@ -19,31 +19,30 @@ final class Gpt2Pieces implements Pretokenizer {
     }
 
     @Override
-    public int pieceEnd(String text, int start) {
-        int n = text.length();
-        if (text.charAt(start) == '\'' && start + 1 < n) {
-            char a = text.charAt(start + 1);
+    public int pieceEnd(char[] text, int start, int length) {
+        if (text[start] == '\'' && start + 1 < length) {
+            char a = text[start + 1];
             if (a == 's' || a == 'd' || a == 'm' || a == 't') {
                 return start + 2;
             }
-            if (start + 2 < n) {
-                char b = text.charAt(start + 2);
+            if (start + 2 < length) {
+                char b = text[start + 2];
                 if (a == 'l' && b == 'l' || a == 'v' && b == 'e' || a == 'r' && b == 'e') {
                     return start + 3;
                 }
             }
         }
-        int body = text.charAt(start) == ' ' && start + 1 < n ? start + 1 : start;
-        int bits = classAt(text, body);
+        int body = text[start] == ' ' && start + 1 < length ? start + 1 : start;
+        int bits = classAt(text, body, length);
         if ((bits & LETTER) != 0) {
-            return run(text, next(text, body), LETTER);
+            return run(text, next(text, body, length), length, LETTER);
         }
         if ((bits & NUMBER) != 0) {
-            return run(text, next(text, body), NUMBER);
+            return run(text, next(text, body, length), length, NUMBER);
         }
         if ((bits & SPACE) == 0) {
-            return runWithout(text, body, SPACE | LETTER | NUMBER);
+            return runWithout(text, body, length, SPACE | LETTER | NUMBER);
         }
-        return whitespace(text, start, false);
+        return whitespace(text, start, length, false);
     }
 }

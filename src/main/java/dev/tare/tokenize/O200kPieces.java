@@ -30,66 +30,66 @@ final class O200kPieces implements Pretokenizer {
     }
 
     @Override
-    public int pieceEnd(String text, int start) {
-        int bits = classAt(text, start);
-        int after = next(text, start);
-        boolean prefix = (bits & (NEWLINE | LETTER | NUMBER)) == 0 && after < text.length();
-        int end = prefix ? lowerEnding(text, after) : -1;
+    public int pieceEnd(char[] text, int start, int length) {
+        int bits = classAt(text, start, length);
+        int after = next(text, start, length);
+        boolean prefix = (bits & (NEWLINE | LETTER | NUMBER)) == 0 && after < length;
+        int end = prefix ? lowerEnding(text, after, length) : -1;
         if (end < 0) {
-            end = lowerEnding(text, start);
+            end = lowerEnding(text, start, length);
         }
         if (end < 0 && prefix) {
-            end = upperLed(text, after);
+            end = upperLed(text, after, length);
         }
         if (end < 0) {
-            end = upperLed(text, start);
+            end = upperLed(text, start, length);
         }
         if (end >= 0) {
-            return contraction(text, end);
+            return contraction(text, end, length);
         }
         if ((bits & NUMBER) != 0) {
             int digits = after;
-            for (int i = 1; i < 3 && digits < text.length() && (classAt(text, digits) & NUMBER) != 0; i++) {
-                digits = next(text, digits);
+            for (int i = 1; i < 3 && digits < length && (classAt(text, digits, length) & NUMBER) != 0; i++) {
+                digits = next(text, digits, length);
             }
             return digits;
         }
-        int symbols = text.charAt(start) == ' ' && after < text.length() ? after : start;
-        if ((classAt(text, symbols) & (SPACE | LETTER | NUMBER)) == 0) {
-            end = runWithout(text, symbols, SPACE | LETTER | NUMBER);
-            while (end < text.length() && isBreakOrSlash(text.charAt(end))) {
+        int symbols = text[start] == ' ' && after < length ? after : start;
+        if ((classAt(text, symbols, length) & (SPACE | LETTER | NUMBER)) == 0) {
+            end = runWithout(text, symbols, length, SPACE | LETTER | NUMBER);
+            while (end < length && isBreakOrSlash(text[end])) {
                 end++;
             }
             return end;
         }
-        return whitespace(text, start, true);
+        return whitespace(text, start, length, true);
     }
 
     /**
      * {@code [upper part]*[lower part]+} from {@code at}, with the backtracking it implies: its end,
      * or -1 when it does not match.
      */
-    private static int lowerEnding(String text, int at) {
-        int upper = run(text, at, UPPER_PART);
-        if (upper < text.length() && (classAt(text, upper) & LOWER_PART) != 0) {
-            return run(text, upper, LOWER_PART);
+    private static int lowerEnding(char[] text, int at, int length) {
+        int upper = run(text, at, length, UPPER_PART);
+        if (upper < length && (classAt(text, upper, length) & LOWER_PART) != 0) {
+            return run(text, upper, length, LOWER_PART);
         }
         // Give capitals back one at a time until one of them can stand as the lower-case part.
         for (int i = upper; i > at; ) {
-            i = text.offsetByCodePoints(i, -1);
-            if ((classAt(text, i) & LOWER_PART) != 0) {
-                return next(text, i);
+            i = Character.offsetByCodePoints(text, 0, length, i, -1);
+            if ((classAt(text, i, length) & LOWER_PART) != 0) {
+                return next(text, i, length);
             }
         }
         return -1;
     }
 
     /** {@code [upper part]+[lower part]*} from {@code at}: its end, or -1. */
-    private static int upperLed(String text, int at) {
-        if ((classAt(text, at) & UPPER_PART) == 0) {
+    private static int upperLed(char[] text, int at, int length) {
+        if ((classAt(text, at, length) & UPPER_PART) == 0) {
             return -1;
         }
-        return run(text, run(text, at, UPPER_PART), LOWER_PART);
+        return run(text, run(text, at, length, UPPER_PART), length, LOWER_PART);
     }
 
     private static boolean isBreakOrSlash(char c) {

@@ -1,5 +1,7 @@
 package dev.tare.tokenize;
 
+import java.util.Arrays;
+
 /**
  * The token ids of pieces already encoded, for one thread counting with one encoding. Prompt text
  * repeats the same words endlessly, so after the first few files nearly every piece is found here
@@ -14,46 +16,46 @@ final class PieceCache {
     static final int MAX_ENTRIES = 1 << 16;
 
     private static final int SLOTS = MAX_ENTRIES * 2;
-    private final String[] keys = new String[SLOTS];
+    private final char[][] keys = new char[SLOTS][];
     private final int[][] values = new int[SLOTS][];
     private int size;
 
     /** The cached ids of {@code text[start, end)}, or null. */
-    int[] get(String text, int start, int end) {
-        int length = end - start;
-        if (length > MAX_PIECE_CHARS) {
+    int[] get(char[] text, int start, int end) {
+        if (end - start > MAX_PIECE_CHARS) {
             return null;
         }
-        for (int slot = hash(text, start, end) & (SLOTS - 1); ; slot = (slot + 1) & (SLOTS - 1)) {
-            String key = keys[slot];
+        for (int slot = hash(text, start, end); ; slot = (slot + 1) & (SLOTS - 1)) {
+            char[] key = keys[slot];
             if (key == null) {
                 return null;
             }
-            if (key.length() == length && text.regionMatches(start, key, 0, length)) {
+            if (Arrays.equals(key, 0, key.length, text, start, end)) {
                 return values[slot];
             }
         }
     }
 
     /** Remembers the ids of {@code text[start, end)} while there is room and the piece is short. */
-    void put(String text, int start, int end, int[] ids) {
+    void put(char[] text, int start, int end, int[] ids) {
         if (end - start > MAX_PIECE_CHARS || size >= MAX_ENTRIES) {
             return;
         }
-        int slot = hash(text, start, end) & (SLOTS - 1);
+        int slot = hash(text, start, end);
         while (keys[slot] != null) {
             slot = (slot + 1) & (SLOTS - 1);
         }
-        keys[slot] = text.substring(start, end);
+        keys[slot] = Arrays.copyOfRange(text, start, end);
         values[slot] = ids;
         size++;
     }
 
-    private static int hash(String text, int start, int end) {
-        int h = 0;
+    private static int hash(char[] text, int start, int end) {
+        int h = end - start;
         for (int i = start; i < end; i++) {
-            h = 31 * h + text.charAt(i);
+            h = 31 * h + text[i];
         }
-        return h ^ (h >>> 16) ^ (h >>> 7);
+        h *= 0x9E3779B9;
+        return (h ^ (h >>> 15)) & (SLOTS - 1);
     }
 }

@@ -9,8 +9,8 @@ package dev.tare.tokenize;
  */
 interface Pretokenizer {
 
-    /** Where the piece that starts at {@code start} ends; {@code start < text.length()}. */
-    int pieceEnd(String text, int start);
+    /** Where the piece of {@code text[0, length)} that starts at {@code start < length} ends. */
+    int pieceEnd(char[] text, int start, int length);
 
     /** The published pattern this splitter follows, for differential tests. */
     String pattern();
@@ -20,19 +20,20 @@ interface Pretokenizer {
         private Steps() {
         }
 
-        static int classAt(String text, int at) {
-            return CharClass.of(text.codePointAt(at));
+        static int classAt(char[] text, int at, int length) {
+            char c = text[at];
+            return Character.isHighSurrogate(c) ? CharClass.of(Character.codePointAt(text, at, length)) : CharClass.of(c);
         }
 
-        static int next(String text, int at) {
-            return at + Character.charCount(text.codePointAt(at));
+        static int next(char[] text, int at, int length) {
+            return at + 1 < length && Character.isHighSurrogate(text[at]) && Character.isLowSurrogate(text[at + 1])
+                    ? at + 2 : at + 1;
         }
 
         /** The end of the run of code points having any of {@code bits}, from {@code at}. */
-        static int run(String text, int at, int bits) {
-            int n = text.length();
-            while (at < n) {
-                int cp = text.codePointAt(at);
+        static int run(char[] text, int at, int length, int bits) {
+            while (at < length) {
+                int cp = Character.codePointAt(text, at, length);
                 if ((CharClass.of(cp) & bits) == 0) {
                     break;
                 }
@@ -42,10 +43,9 @@ interface Pretokenizer {
         }
 
         /** The end of the run of code points having none of {@code bits}, from {@code at}. */
-        static int runWithout(String text, int at, int bits) {
-            int n = text.length();
-            while (at < n) {
-                int cp = text.codePointAt(at);
+        static int runWithout(char[] text, int at, int length, int bits) {
+            while (at < length) {
+                int cp = Character.codePointAt(text, at, length);
                 if ((CharClass.of(cp) & bits) != 0) {
                     break;
                 }
@@ -60,17 +60,17 @@ interface Pretokenizer {
          * the run is longer than one; else the run. {@code withLineBreaks} is false for patterns
          * without the first alternative.
          */
-        static int whitespace(String text, int start, boolean withLineBreaks) {
-            int end = run(text, start, CharClass.SPACE);
+        static int whitespace(char[] text, int start, int length, boolean withLineBreaks) {
+            int end = run(text, start, length, CharClass.SPACE);
             if (withLineBreaks) {
                 for (int i = end - 1; i >= start; i--) {
-                    char c = text.charAt(i);
+                    char c = text[i];
                     if (c == '\r' || c == '\n') {
                         return i + 1;
                     }
                 }
             }
-            if (end == text.length() || end - start == 1) {
+            if (end == length || end - start == 1) {
                 return end;
             }
             // Every whitespace character is in the Basic Multilingual Plane: one char back is one code point.
@@ -81,17 +81,16 @@ interface Pretokenizer {
          * {@code (?i:'s|'t|'re|'ve|'m|'ll|'d)} at {@code at}: its end, or {@code at} when it does not
          * match. Case is compared as Java's Unicode-aware case-insensitive matching does.
          */
-        static int contraction(String text, int at) {
-            int n = text.length();
-            if (at + 1 >= n || text.charAt(at) != '\'') {
+        static int contraction(char[] text, int at, int length) {
+            if (at + 1 >= length || text[at] != '\'') {
                 return at;
             }
-            char a = text.charAt(at + 1);
+            char a = text[at + 1];
             if (is(a, 's') || is(a, 't')) {
                 return at + 2;
             }
-            if (at + 2 < n) {
-                char b = text.charAt(at + 2);
+            if (at + 2 < length) {
+                char b = text[at + 2];
                 if ((is(a, 'r') || is(a, 'v')) && is(b, 'e') || is(a, 'l') && is(b, 'l')) {
                     return at + 3;
                 }

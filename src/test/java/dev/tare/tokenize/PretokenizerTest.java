@@ -62,7 +62,7 @@ class PretokenizerTest {
     private static List<String> pieces(Pretokenizer splitter, String text) {
         List<String> pieces = new ArrayList<>();
         for (int start = 0; start < text.length(); ) {
-            int end = splitter.pieceEnd(text, start);
+            int end = splitter.pieceEnd(text.toCharArray(), start, text.length());
             pieces.add(text.substring(start, end));
             start = end;
         }
