@@ -30,7 +30,7 @@ final class PieceCache {
             if (key == null) {
                 return null;
             }
-            if (Arrays.equals(key, 0, key.length, text, start, end)) {
+            if (key.length == end - start && same(key, text, start)) {
                 return values[slot];
             }
         }
@@ -48,6 +48,16 @@ final class PieceCache {
         keys[slot] = Arrays.copyOfRange(text, start, end);
         values[slot] = ids;
         size++;
+    }
+
+    /** A plain loop: pieces are a few chars long, too short for a vectorised compare to pay off. */
+    private static boolean same(char[] key, char[] text, int start) {
+        for (int i = 0; i < key.length; i++) {
+            if (key[i] != text[start + i]) {
+                return false;
+            }
+        }
+        return true;
     }
 
     private static int hash(char[] text, int start, int end) {
