@@ -7,7 +7,8 @@ import java.util.Properties;
 
 /** Facts about this build of Tare that every output carries. */
 public final class Tare {
-    private static final String VERSION = loadVersion();
+    private static final Properties BUILD = load();
+    private static final String VERSION = BUILD.getProperty("version", "unknown");
 
     private Tare() {
     }
@@ -17,14 +18,21 @@ public final class Tare {
         return VERSION;
     }
 
-    private static String loadVersion() {
+    /**
+     * The version and the time this build was made: what a cache of results must match, since two
+     * builds of one development version can count differently.
+     */
+    public static String buildIdentity() {
+        return VERSION + " " + BUILD.getProperty("build", "unknown");
+    }
+
+    private static Properties load() {
+        Properties properties = new Properties();
         try (InputStream in = Tare.class.getResourceAsStream("version.properties")) {
-            if (in == null) {
-                return "unknown";
+            if (in != null) {
+                properties.load(in);
             }
-            Properties properties = new Properties();
-            properties.load(in);
-            return properties.getProperty("version", "unknown");
+            return properties;
         } catch (IOException e) {
             throw new UncheckedIOException(e);
         }

@@ -60,10 +60,16 @@ final class ScanCommand implements Callable<Integer> {
     @Option(names = "--sort", paramLabel = "KEY", description = "Row order: ${COMPLETION-CANDIDATES}. Default: ${DEFAULT-VALUE}.")
     private Sort sort = Sort.path;
 
+    @Option(names = "--no-cache", description = {"Measure every template afresh, and neither read nor write the"
+            + " cache of measurements in the repository's .tare/cache folder.",
+            "By default a template whose file, partials and tool files are unchanged since the last scan with the"
+            + " same configuration and build of Tare is not read or counted again."})
+    private boolean noCache;
+
     @Override
     public Integer call() {
         Workspace workspace = Workspace.open(paths, common.configFile());
-        ScanOptions options = new ScanOptions(targets, Optional.ofNullable(tokenizer));
+        ScanOptions options = new ScanOptions(targets, Optional.ofNullable(tokenizer), !noCache);
         ScanResult.Order order = ScanResult.Order.valueOf(sort.name().toUpperCase(java.util.Locale.ROOT));
         String report;
         if (format == Format.md || format == Format.html) {

@@ -15,6 +15,11 @@ import dev.tare.template.Template;
 import dev.tare.template.TemplateKind;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
+import java.io.File;
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
@@ -22,7 +27,9 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
+import java.util.concurrent.ConcurrentHashMap;
 import java.util.stream.Collectors;
+import java.util.stream.Stream;
 
 /**
  * Measures every template of a workspace: finds the files, reads and parses each, renders it with
@@ -60,7 +67,10 @@ public final class TemplateScan {
 
         TemplateLoader loader = new TemplateLoader(workspace);
         FileSelection selection = loader.find();
-        Measurer measurer = new Measurer(config, targets, primary, byTarget, loader);
+        ScanCache cache = options.cache()
+                ? ScanCache.open(workspace, cacheKey(config, targets, primaryName, options))
+                : ScanCache.disabled(workspace.root());
+        Measurer measurer = new Measurer(config, targets, primary, byTarget, loader, cache);
 
         progress.started(selection.paths().size());
         List<Outcome> outcomes = selection.paths().parallelStream().map(path -> {
@@ -69,6 +79,7 @@ public final class TemplateScan {
             return outcome;
         }).toList();
         progress.finished();
+        cache.save();
         List<ScannedTemplate> templates = new ArrayList<>();
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
         for (Outcome outcome : outcomes) {
@@ -83,6 +94,32 @@ public final class TemplateScan {
         }
         return new ScanResult(workspace.displayName(), primary.name(),
                 targets.stream().map(TargetConfig::name).toList(), templates, skipped, targets);
+    }
+
+    /**
+     * Everything besides the template files that decides a scan's results: the configuration as
+     * loaded (model shapes read from files included), the options, the tokenizer files' sizes and
+     * times, and the names of the partials (a new partial can change what an include resolves to).
+     */
+    private String cacheKey(TareConfig config, List<TargetConfig> targets, String primaryName, ScanOptions options) {
+        StringBuilder key = new StringBuilder(config.toString()).append('\n').append(primaryName).append('\n');
+        for (TargetConfig target : targets) {
+            key.append(target.name()).append(' ').append(target.tokenizer());
+            if (TokenizerRegistry.namesFile(target.tokenizer())) {
+                File file = workspace.root().resolve(target.tokenizer()).toFile();
+                key.append(' ').append(file.length()).append(' ').append(file.lastModified());
+            }
+            key.append('\n');
+        }
+        Path partials = workspace.root().resolve(config.templates().partials());
+        if (!config.templates().partials().isEmpty() && Files.isDirectory(partials)) {
+            try (Stream<Path> files = Files.walk(partials)) {
+                files.map(p -> partials.relativize(p).toString()).sorted().forEach(name -> key.append(name).append('\n'));
+            } catch (IOException | UncheckedIOException e) {
+                key.append("partials unreadable ").append(System.nanoTime());
+            }
+        }
+        return key.toString();
     }
 
     /** The most leading token ids kept per template and target: enough for any cache threshold in use. */
@@ -154,34 +191,42 @@ public final class TemplateScan {
     }
 
     /** The per-file work, shared read-only by the scanning threads. */
-    private record Measurer(TareConfig config, List<TargetConfig> targets, Tokenizer primary,
-                            Map<String, Tokenizer> byTarget, TemplateLoader loader, Map<String, Template> toolFiles,
-                            Map<String, Integer> toolTokens) {
+    private record Measurer(TareConfig config, List<TargetConfig> targets, Map<String, TargetConfig> targetsByName,
+                            Tokenizer primary, Map<String, Tokenizer> byTarget, TemplateLoader loader, ScanCache cache,
+                            Map<String, Template> toolFiles, Map<String, Integer> toolTokens) {
 
         Measurer(TareConfig config, List<TargetConfig> targets, Tokenizer primary, Map<String, Tokenizer> byTarget,
-                 TemplateLoader loader) {
-            this(config, targets, primary, byTarget, loader, new java.util.concurrent.ConcurrentHashMap<>(),
-                    new java.util.concurrent.ConcurrentHashMap<>());
+                 TemplateLoader loader, ScanCache cache) {
+            this(config, targets, targets.stream().collect(Collectors.toMap(TargetConfig::name, t -> t, (a, b) -> a,
+                    LinkedHashMap::new)), primary, byTarget, loader, cache, new ConcurrentHashMap<>(),
+                    new ConcurrentHashMap<>());
         }
 
         Outcome measure(String path) {
+            Optional<Measurement> remembered = cache.find(path);
+            if (remembered.isPresent()) {
+                return Outcome.of(remembered.get().template(targetsByName), remembered.get().leadingIds());
+            }
             try {
                 SourceText text = loader.read(path);
                 Template template = loader.parse(text);
                 Rendering samples = loader.renderer().renderWithSamples(template);
-                ScannedTemplate measured = measure(template, samples, text.text().length());
-                return Outcome.of(measured, leadingIds(template, samples, measured));
+                Measurement measured = measure(template, samples, text.text().length());
+                List<String> dependencies = new ArrayList<>(new LinkedHashSet<>(samples.includes()));
+                dependencies.addAll(template.meta().tools());
+                cache.remember(path, text.text(), dependencies, measured);
+                return Outcome.of(measured.template(targetsByName), measured.leadingIds());
             } catch (TareException e) {
                 return Outcome.of(new SkippedFile(path, e.getMessage()));
             }
         }
 
-        private ScannedTemplate measure(Template template, Rendering samples, int characters) {
+        private Measurement measure(Template template, Rendering samples, int characters) {
             Rendering empty = loader.renderer().renderStatic(template);
             int declared = Estimates.declaredTokens(samples);
             Counts counts = new Counts();
             List<Template> tools = toolsSentWith(template);
-            Map<String, Footprint> footprints = new LinkedHashMap<>();
+            Map<String, CallSize> callSizes = new LinkedHashMap<>();
             Map<String, Integer> estimatedByTarget = new LinkedHashMap<>();
             for (TargetConfig target : targetsOf(template)) {
                 Tokenizer tokenizer = byTarget.get(target.name());
@@ -195,8 +240,7 @@ public final class TemplateScan {
                     framing += Framing.toolTokens(target, toolFile.messages().size());
                 }
                 int output = template.meta().outputTokens().orElse(target.outputTokens().orElse(0));
-                footprints.put(target.name(), Footprints.estimate(target,
-                        new CallSize(estimated + framing, framing, output, 0)));
+                callSizes.put(target.name(), new CallSize(estimated + framing, framing, output, 0));
             }
             Set<String> variables = new LinkedHashSet<>();
             Set<String> unsized = new LinkedHashSet<>();
@@ -206,23 +250,24 @@ public final class TemplateScan {
                     unsized.add(occurrence.variable().name());
                 }
             }
-            return new ScannedTemplate(template.path(), template.kind(), characters, counts.of(primary, empty),
-                    counts.of(primary, samples) + declared, new ArrayList<>(variables), new ArrayList<>(unsized),
-                    new ArrayList<>(new LinkedHashSet<>(samples.includes())), footprints, estimatedByTarget);
+            return new Measurement(template.path(), template.kind(), characters, counts.of(primary, empty),
+                    counts.of(primary, samples) + declared, List.copyOf(variables), List.copyOf(unsized),
+                    List.copyOf(new LinkedHashSet<>(samples.includes())), callSizes, estimatedByTarget,
+                    leadingIds(template, samples, callSizes.keySet()));
         }
 
         /**
          * Leading static token ids per target with a prefix cache, kept only when there are at least
          * the cache's minimum (shorter runs can never count), and at most {@link #MAX_LEADING_IDS}.
          */
-        private Map<String, int[]> leadingIds(Template template, Rendering samples, ScannedTemplate measured) {
+        private Map<String, int[]> leadingIds(Template template, Rendering samples, Set<String> measuredTargets) {
             if (template.kind() == TemplateKind.PARTIAL) {
                 return Map.of();
             }
             Map<String, int[]> ids = new LinkedHashMap<>();
             List<String> leading = null;
             for (TargetConfig target : targets) {
-                if (target.prefixCacheMinTokens().isEmpty() || !measured.targets().containsKey(target.name())) {
+                if (target.prefixCacheMinTokens().isEmpty() || !measuredTargets.contains(target.name())) {
                     continue;
                 }
                 if (leading == null) {

@@ -13,10 +13,17 @@ import java.util.regex.Pattern;
 public final class Glob {
     private final String pattern;
     private final Pattern regex;
+    /** The longest run of plain characters in the pattern: a path without it cannot match. */
+    private final String requiredText;
+    /** The plain characters the pattern ends with: a path not ending so cannot match. */
+    private final String requiredEnd;
 
     private Glob(String pattern, Pattern regex) {
         this.pattern = pattern;
         this.regex = regex;
+        List<String> runs = literalRuns(pattern);
+        this.requiredText = runs.stream().max(java.util.Comparator.comparingInt(String::length)).orElse("");
+        this.requiredEnd = endsWithLiteral(pattern) && !runs.isEmpty() ? runs.get(runs.size() - 1) : "";
     }
 
     /**
@@ -35,7 +42,53 @@ public final class Glob {
 
     /** Whether {@code relativePath} (with {@code /} separators) matches this pattern. */
     public boolean matches(String relativePath) {
-        return regex.matcher(relativePath).matches();
+        // Most paths fail on plain text alone, which is far cheaper than running the expression.
+        return relativePath.endsWith(requiredEnd) && relativePath.contains(requiredText)
+                && regex.matcher(relativePath).matches();
+    }
+
+    /** The runs of plain characters between wildcards, classes and alternatives, escapes undone. */
+    private static List<String> literalRuns(String glob) {
+        List<String> runs = new java.util.ArrayList<>();
+        StringBuilder run = new StringBuilder();
+        int depth = 0;
+        for (int i = 0; i < glob.length(); i++) {
+            char c = glob.charAt(i);
+            if (c == '*' && glob.startsWith("*/", i + 1) && (i == 0 || glob.charAt(i - 1) == '/')) {
+                i += 2; // '**/' may match no folder at all, so its slash is not required either
+            }
+            boolean plain = depth == 0 && c != '*' && c != '?' && c != '[' && c != '{' && c != '}';
+            if (c == '{') {
+                depth++;
+            } else if (c == '}' && depth > 0) {
+                depth--;
+            } else if (c == '[') {
+                int close = glob.indexOf(']', i + 2);
+                i = close < 0 ? glob.length() : close;
+            }
+            if (plain && c == '\\' && i + 1 < glob.length()) {
+                run.append(glob.charAt(++i));
+            } else if (plain) {
+                run.append(c);
+            } else if (run.length() > 0) {
+                runs.add(run.toString());
+                run.setLength(0);
+            }
+        }
+        if (run.length() > 0) {
+            runs.add(run.toString());
+        }
+        return runs;
+    }
+
+    /** Whether the pattern's last character is plain text (not a wildcard, class or alternative). */
+    private static boolean endsWithLiteral(String glob) {
+        if (glob.isEmpty()) {
+            return false;
+        }
+        char last = glob.charAt(glob.length() - 1);
+        boolean escaped = glob.length() >= 2 && glob.charAt(glob.length() - 2) == '\\';
+        return escaped || (last != '*' && last != '?' && last != ']' && last != '}');
     }
 
     /** Whether any of {@code globs} matches {@code relativePath}. */

@@ -2,6 +2,7 @@ package dev.tare.tokenize;
 
 import java.nio.charset.StandardCharsets;
 import java.util.Arrays;
+import java.util.function.Supplier;
 
 /**
  * A built-in byte-level BPE encoding ({@code o200k_base} and the others): the text is split into
@@ -12,14 +13,19 @@ import java.util.Arrays;
  */
 final class BytePairEncoding implements Tokenizer {
     private final String name;
-    private final Vocabulary vocabulary;
+    private final Supplier<Vocabulary> load;
+    private volatile Vocabulary vocabulary;
     private final Pretokenizer pretokenizer;
     /** Each thread's piece cache and text buffer, so counting needs no locks. */
     private final ThreadLocal<Scratch> scratch = ThreadLocal.withInitial(Scratch::new);
 
-    BytePairEncoding(String name, Vocabulary vocabulary, Pretokenizer pretokenizer) {
+    /**
+     * An encoding whose vocabulary is read by {@code load} the first time a piece is not in the
+     * cache, so that a run that counts nothing (a scan answered from its cache) never reads it.
+     */
+    BytePairEncoding(String name, Supplier<Vocabulary> load, Pretokenizer pretokenizer) {
         this.name = name;
-        this.vocabulary = vocabulary;
+        this.load = load;
         this.pretokenizer = pretokenizer;
     }
 
@@ -65,10 +71,24 @@ final class BytePairEncoding implements Tokenizer {
     private int[] piece(PieceCache cache, char[] text, int start, int end) {
         int[] ids = cache.get(text, start, end);
         if (ids == null) {
-            ids = BytePairMerge.encode(vocabulary, new String(text, start, end - start).getBytes(StandardCharsets.UTF_8));
+            ids = BytePairMerge.encode(vocabulary(), new String(text, start, end - start).getBytes(StandardCharsets.UTF_8));
             cache.put(text, start, end, ids);
         }
         return ids;
+    }
+
+    private Vocabulary vocabulary() {
+        Vocabulary loaded = vocabulary;
+        if (loaded == null) {
+            synchronized (this) {
+                loaded = vocabulary;
+                if (loaded == null) {
+                    loaded = load.get();
+                    vocabulary = loaded;
+                }
+            }
+        }
+        return loaded;
     }
 
     @Override

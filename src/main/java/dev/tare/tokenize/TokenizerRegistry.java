@@ -10,8 +10,10 @@ import java.util.function.Supplier;
 
 /**
  * The one place tokenizers come from. A tokenizer is named either by a built-in encoding name
- * ({@link #BUILT_IN}) or by the path of a {@code tokenizer.json} file, counted through DJL's tokenizers
- * library; each is loaded once, on first use, and shared by every thread afterwards.
+ * ({@link #BUILT_IN}), counted by Tare's own byte-pair encoder over the vocabulary jtokkit ships, or
+ * by the path of a {@code tokenizer.json} file, counted through DJL's tokenizers library. Each is
+ * made once and shared by every thread; a built-in encoding reads its vocabulary only when it first
+ * meets a piece it has not cached.
  */
 public final class TokenizerRegistry {
     /** The encoding used when neither a target nor {@code --tokenizer} names one. */
@@ -40,8 +42,8 @@ public final class TokenizerRegistry {
     public Tokenizer get(String spec, Path baseDir) {
         Supplier<Pretokenizer> splitter = SPLITTERS.get(spec);
         if (splitter != null) {
-            return loaded.computeIfAbsent(spec, name -> timed(() ->
-                    new BytePairEncoding(name, Vocabulary.fromResource(String.format(RANKS, name)), splitter.get())));
+            return loaded.computeIfAbsent(spec, name -> new BytePairEncoding(name,
+                    () -> timed(() -> Vocabulary.fromResource(String.format(RANKS, name))), splitter.get()));
         }
         if (!namesFile(spec)) {
             throw new TareException("unknown tokenizer '" + spec + "': use one of " + String.join(", ", BUILT_IN)
@@ -56,7 +58,7 @@ public final class TokenizerRegistry {
         return LOAD_NANOS.get() / 1e6;
     }
 
-    private static Tokenizer timed(Supplier<Tokenizer> load) {
+    private static <T> T timed(Supplier<T> load) {
         long start = System.nanoTime();
         try {
             return load.get();

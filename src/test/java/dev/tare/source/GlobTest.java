@@ -48,6 +48,21 @@ class GlobTest {
         assertFalse(Glob.of("a.md").matches("aXmd"));
     }
 
+    /** The plain-text pre-check must never reject a path the expression would match. */
+    @Test
+    void plainTextShortcutsAgreeWithTheFullMatch() {
+        assertTrue(Glob.of("**/x.md").matches("x.md"));
+        assertTrue(Glob.of("a/**/**/b.md").matches("a/b.md"));
+        assertTrue(Glob.of("**/node_modules/**").matches("node_modules/p/a.md"));
+        assertTrue(Glob.of("notes\\*.md").matches("notes*.md"));
+        assertFalse(Glob.of("notes\\*.md").matches("notesX.md"));
+        assertTrue(Glob.of("{a,b}/c.md").matches("b/c.md"));
+        assertTrue(Glob.of("[ab]x/**").matches("bx/y"));
+        assertTrue(Glob.of("prompts/a,b.md").matches("prompts/a,b.md"));
+        assertFalse(Glob.of("*.md").matches("a.mdx"));
+        assertFalse(Glob.of("**/drafts/**").matches("prompts/draft/a.md"));
+    }
+
     @Test
     void malformedPatternsAreClearErrors() {
         TareException bracket = assertThrows(TareException.class, () -> Glob.of("a[bc.md"));

@@ -1,0 +1,32 @@
+package dev.tare.scan;
+
+import dev.tare.config.TargetConfig;
+import dev.tare.footprint.CallSize;
+import dev.tare.footprint.Footprint;
+import dev.tare.footprint.Footprints;
+import dev.tare.template.TemplateKind;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * What counting one template found, before footprints are estimated from it: the part of a scan
+ * that reads and counts, and so the part {@link ScanCache} keeps. Fields as in {@link ScannedTemplate}.
+ *
+ * @param callSizes  per target the template runs on, the size of one call (tokens, framing, output)
+ * @param leadingIds per target with a prefix cache, the template's leading static token ids, when
+ *                   there are enough of them to be cached
+ */
+record Measurement(String path, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
+                   List<String> variables, List<String> unsizedVariables, List<String> includes,
+                   Map<String, CallSize> callSizes, Map<String, Integer> estimatedByTarget,
+                   Map<String, int[]> leadingIds) {
+
+    /** The template as the scan reports it, with footprints estimated on {@code targets} (by name). */
+    ScannedTemplate template(Map<String, TargetConfig> targets) {
+        Map<String, Footprint> footprints = new LinkedHashMap<>();
+        callSizes.forEach((name, size) -> footprints.put(name, Footprints.estimate(targets.get(name), size)));
+        return new ScannedTemplate(path, kind, characters, staticTokens, estimatedTokens, variables, unsizedVariables,
+                includes, footprints, estimatedByTarget);
+    }
+}
