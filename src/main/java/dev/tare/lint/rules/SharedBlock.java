@@ -101,6 +101,7 @@ final class SharedBlock implements CrossTemplateRule {
         return findings;
     }
 
+    /** One extraction per block the rule can act on, with the copies it leaves; some may replace nothing. */
     @Override
     public List<Extraction> extractions(LintContext context) {
         return plan(context).stream().map(Planned::extraction).flatMap(Optional::stream).toList();
@@ -219,11 +220,20 @@ final class SharedBlock implements CrossTemplateRule {
             copies.add(new Extraction.Copy(place.path(), place.line(), edit.get()));
         }
         if (copies.isEmpty() || created.isPresent() && copies.size() < 2) {
+            // Nothing can be replaced; the fix still hears of every copy it leaves, and why.
+            for (Extraction.Copy lone : copies) {
+                Place place = places.stream().filter(p -> p.path().equals(lone.path()) && p.line() == lone.line())
+                        .findFirst().orElseThrow();
+                refused.add(new Extraction.Refusal(lone.path(), lone.line(), "this copy of the shared block ("
+                        + place.lines() + ") is the only one in its exact form, so it is not moved into a new partial;"
+                        + " make the other copies the same to the character first"));
+            }
             long identical = places.stream().filter(p -> !p.path().equals(partial) && p.copy().equals(canonical)).count();
             String why = identical < (created.isPresent() ? 2 : 1)
                     ? "no two of its copies are the same to the character; make them the same first"
                     : refused.get(0).reason();
-            return new Planned(block, places, Optional.empty(), "it is not moved into a partial: " + why);
+            Extraction none = new Extraction(DESCRIPTOR.id(), partial, created, List.of(), refused, block.tokens());
+            return new Planned(block, places, Optional.of(none), "it is not moved into a partial: " + why);
         }
         if (created.isPresent()) {
             named.add(partial);
