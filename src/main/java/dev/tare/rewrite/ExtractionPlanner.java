@@ -49,12 +49,19 @@ final class ExtractionPlanner {
     private final RuleCatalog catalog;
     private final RewriteSelection selection;
     private final TokenizerRegistry tokenizers;
+    /** Each path's last parse and the text it came from, so that a file is parsed again only when its text changed. */
+    private final Map<String, Template> parses = new HashMap<>();
 
     ExtractionPlanner(TemplateLoader loader, RuleCatalog catalog, RewriteSelection selection, TokenizerRegistry tokenizers) {
         this.loader = loader;
         this.catalog = catalog;
         this.selection = selection;
         this.tokenizers = tokenizers;
+    }
+
+    /** Templates already parsed from their text, which need not be parsed again. */
+    void know(Template template) {
+        parses.put(template.path(), template);
     }
 
     /**
@@ -315,7 +322,6 @@ final class ExtractionPlanner {
     private final class View {
         private final Map<String, String> texts;
         private final Map<String, SourceText> originals;
-        private final Map<String, Template> parsed = new HashMap<>();
         private final Renderer renderer;
 
         View(Map<String, String> texts, Map<String, SourceText> originals) {
@@ -330,13 +336,13 @@ final class ExtractionPlanner {
             if (text == null) {
                 return Optional.empty();
             }
-            Template template = parsed.get(path);
-            if (template == null) {
+            Template template = parses.get(path);
+            if (template == null || !template.source().equals(text)) {
                 SourceText original = originals.get(path);
                 boolean bom = original != null && original.hadBom();
                 template = loader.parse(new SourceText(path, loader.workspace().root().resolve(path), text, bom,
                         FileBytes.encode(text, bom).length));
-                parsed.put(path, template);
+                parses.put(path, template);
             }
             return Optional.of(template);
         }

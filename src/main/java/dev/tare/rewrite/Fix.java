@@ -89,6 +89,7 @@ public final class Fix {
         FilePlanner planner = new FilePlanner(check, loader, rewrites, tokenizers);
         Map<String, FileFix> fixes = new TreeMap<>();
         Map<String, SourceText> originals = new TreeMap<>();
+        ExtractionPlanner across = new ExtractionPlanner(loader, check.catalog(), rewrites, tokenizers);
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
         Map<String, Integer> reviewLeft = new TreeMap<>();
         Map<Path, String> seen = new HashMap<>();
@@ -116,6 +117,7 @@ public final class Fix {
             }
             templates++;
             originals.put(path, original);
+            across.know(template);
             FilePlanner.Plan plan = planner.plan(original, template);
             plan.reviewLeft().forEach((rule, count) -> reviewLeft.merge(rule, count, Integer::sum));
             plan.fix().ifPresent(fix -> fixes.put(path, fix));
@@ -123,7 +125,6 @@ public final class Fix {
         List<NotApplied> refused = List.of();
         Map<String, Set<String>> needs = Map.of();
         if (acrossFiles) {
-            ExtractionPlanner across = new ExtractionPlanner(loader, check.catalog(), rewrites, tokenizers);
             Map<String, String> current = new TreeMap<>();
             Set<String> frozen = new TreeSet<>();
             originals.forEach((path, original) -> {
