@@ -47,8 +47,10 @@ public final class Overlap {
         double loadSeconds = (System.nanoTime() - loadStart) / 1e9;
         Tokenizer tokenizer = new TokenizerRegistry().get(workspace.config().targets().isEmpty()
                 ? TokenizerRegistry.DEFAULT : workspace.config().targets().get(0).tokenizer(), workspace.root());
-        System.out.printf(Locale.ROOT, "templates: %,d (%,d characters), read and parsed in %.2f s%n",
-                templates.size(), chars, loadSeconds);
+        System.gc();
+        Runtime runtime = Runtime.getRuntime();
+        System.out.printf(Locale.ROOT, "templates: %,d (%,d characters), read and parsed in %.2f s; they take %,d MiB"
+                        + " of heap%n", templates.size(), chars, loadSeconds, (runtime.totalMemory() - runtime.freeMemory()) >> 20);
         System.out.printf(Locale.ROOT, "machine: %d cores, Java %s, max heap %,d MiB%n",
                 Runtime.getRuntime().availableProcessors(), System.getProperty("java.version"),
                 Runtime.getRuntime().maxMemory() >> 20);

@@ -52,5 +52,4 @@ cpu="$(awk -F': ' '/User time|System time/ { s += $2 } END { print s }' "$report
 wall="$(awk -F': ' '/Elapsed \(wall clock\)/ { n = split($2, p, ":"); s = 0; for (i = 1; i <= n; i++) s = s * 60 + p[i]; print s }' "$report")"
 awk -v rss="$rss_kb" -v cpu="$cpu" -v wall="$wall" -v busy="$(( after - before ))" -v hz="$(getconf CLK_TCK)" \
   'BEGIN { other = busy / hz - cpu; if (other < 0) other = 0
-           printf "process: %.1f s wall (reading and parsing included), %.1f CPU-s, peak RSS %.0f MiB;"
-           printf " other processes used %.1f CPU-s meanwhile (near 0 on a quiet machine)\n", wall, cpu, rss / 1024, other }'
+           printf "process: %.1f s wall (reading and parsing included), %.1f CPU-s, peak RSS %.0f MiB; other processes used %.1f CPU-s meanwhile (near 0 on a quiet machine)\n", wall, cpu, rss / 1024, other }'

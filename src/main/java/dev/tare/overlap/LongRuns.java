@@ -16,11 +16,27 @@ final class LongRuns {
     final int[] origin;
     /** Prefix sums of estimated tokens: {@code sums[p]} is the estimate of the words before position p. */
     final int[] sums;
+    /** Where each template's words start in the {@link WordStream}, and one more (see {@link WordStream#starts}). */
+    final int[] starts;
+    /** The largest word number. */
+    final int upper;
 
-    private LongRuns(int[] text, int[] origin, int[] sums) {
+    private LongRuns(int[] text, int[] origin, int[] sums, int[] starts, int upper) {
         this.text = text;
         this.origin = origin;
         this.sums = sums;
+        this.starts = starts;
+        this.upper = upper;
+    }
+
+    /** The index of the template whose words include position {@code p} here. */
+    int templateAt(int p) {
+        return WordStream.templateAt(starts, origin[p]);
+    }
+
+    /** The index, among template {@code t}'s words and breaks, of position {@code p} here. */
+    int local(int t, int p) {
+        return origin[p] - starts[t];
     }
 
     /**
@@ -31,40 +47,54 @@ final class LongRuns {
     static LongRuns of(WordStream stream, int[] weight, double minimum) {
         int[] source = stream.text;
         int n = source.length;
-        int[] text = new int[n + 1];
-        int[] origin = new int[n + 1];
-        int size = 0;
-        int p = 0;
-        while (p < n) {
-            if (source[p] == WordStream.SEPARATOR) {
-                p++;
-                continue;
+        // First pass: how much is kept, so that the arrays are made once at their size.
+        int size = 1;
+        for (int p = 0; p < n; ) {
+            int end = runEnd(source, p);
+            if (end > p && estimate(stream, weight, p, end) >= minimum) {
+                size += 1 + end - p;
             }
-            int end = p;
-            long estimate = 0;
-            while (end < n && source[end] != WordStream.SEPARATOR) {
-                estimate += weight[source[end]] + stream.gaps[end];
-                end++;
-            }
-            if (estimate >= minimum) {
-                text[size] = WordStream.SEPARATOR;
-                origin[size++] = p;
+            p = Math.max(end, p + 1);
+        }
+        int[] text = new int[size];
+        int[] origin = new int[size];
+        int k = 0;
+        for (int p = 0; p < n; ) {
+            int end = runEnd(source, p);
+            if (end > p && estimate(stream, weight, p, end) >= minimum) {
+                text[k] = WordStream.SEPARATOR;
+                origin[k++] = p;
                 for (int q = p; q < end; q++) {
-                    text[size] = source[q];
-                    origin[size++] = q;
+                    text[k] = source[q];
+                    origin[k++] = q;
                 }
             }
-            p = end;
+            p = Math.max(end, p + 1);
         }
-        text[size] = WordStream.SEPARATOR;
-        origin[size++] = n;
-        text = Arrays.copyOf(text, size);
-        origin = Arrays.copyOf(origin, size);
+        text[k] = WordStream.SEPARATOR;
+        origin[k] = n;
         int[] sums = new int[size + 1];
-        for (int k = 0; k < size; k++) {
-            int id = text[k];
-            sums[k + 1] = sums[k] + (id == WordStream.SEPARATOR ? 0 : weight[id] + stream.gaps[origin[k]]);
+        for (int q = 0; q < size; q++) {
+            int id = text[q];
+            sums[q + 1] = sums[q] + (id == WordStream.SEPARATOR ? 0 : weight[id] + stream.gaps[origin[q]]);
         }
-        return new LongRuns(text, origin, sums);
+        return new LongRuns(text, origin, sums, stream.starts, stream.table.size());
+    }
+
+    /** The end of the run of words starting at {@code p} ({@code p} itself at a break). */
+    private static int runEnd(int[] source, int p) {
+        int end = p;
+        while (end < source.length && source[end] != WordStream.SEPARATOR) {
+            end++;
+        }
+        return end;
+    }
+
+    private static long estimate(WordStream stream, int[] weight, int from, int to) {
+        long estimate = 0;
+        for (int q = from; q < to; q++) {
+            estimate += weight[stream.text[q]] + stream.gaps[q];
+        }
+        return estimate;
     }
 }

@@ -51,13 +51,17 @@ public final class SharedBlocks {
         if (sorted.size() < 2) {
             return List.of();
         }
-        WordStream stream = WordStream.of(sorted);
-        LongRuns runs = LongRuns.of(stream, weights(stream, tokenizer), minTokens * ESTIMATE_SLACK);
-        int[] sa = SuffixArray.of(runs.text, stream.table.size());
-        int[] lcp = SuffixArray.lcp(runs.text, sa, WordStream.SEPARATOR);
-        Finder finder = new Finder(sorted, stream, runs, sa, tokenizer, minTokens);
-        walkIntervals(stream, runs, sa, lcp, finder);
+        // The word stream is dropped once its long runs are copied out: only they are sorted.
+        LongRuns runs = runs(WordStream.of(sorted), tokenizer, minTokens);
+        int[] sa = SuffixArray.of(runs.text, runs.upper);
+        int[] plcp = SuffixArray.plcp(runs.text, sa, WordStream.SEPARATOR);
+        Finder finder = new Finder(sorted, runs, sa, tokenizer, minTokens);
+        walkIntervals(runs, sa, plcp, finder);
         return finder.blocks();
+    }
+
+    private static LongRuns runs(WordStream stream, Tokenizer tokenizer, int minTokens) {
+        return LongRuns.of(stream, weights(stream, tokenizer), minTokens * ESTIMATE_SLACK);
     }
 
     /** The estimated tokens of each word that occurs more than once, with a space before it. */
@@ -93,7 +97,7 @@ public final class SharedBlocks {
      * carrying up from the children the word before each suffix and the template it lies in, so that
      * each suffix is looked at once.
      */
-    private static void walkIntervals(WordStream stream, LongRuns runs, int[] sa, int[] lcp, IntervalSink sink) {
+    private static void walkIntervals(LongRuns runs, int[] sa, int[] plcp, IntervalSink sink) {
         int n = sa.length;
         int[] text = runs.text;
         int capacity = 64;
@@ -108,8 +112,8 @@ public final class SharedBlocks {
             int suffix = sa[i - 1];
             int before = suffix == 0 ? WordStream.SEPARATOR : text[suffix - 1];
             int left = before == WordStream.SEPARATOR ? MIXED : before;
-            int template = text[suffix] == WordStream.SEPARATOR ? UNSET : stream.templateAt(runs.origin[suffix]);
-            int h = lcp[i];
+            int template = text[suffix] == WordStream.SEPARATOR ? UNSET : runs.templateAt(suffix);
+            int h = i < n ? plcp[sa[i]] : 0;
             int lb = i - 1;
             while (h < stackLength[top]) {
                 stackLeft[top] = merge(stackLeft[top], left);
@@ -160,7 +164,6 @@ public final class SharedBlocks {
      */
     private static final class Finder implements IntervalSink {
         private final List<Template> templates;
-        private final WordStream stream;
         private final LongRuns runs;
         private final int[] sa;
         private final Tokenizer tokenizer;
@@ -168,9 +171,8 @@ public final class SharedBlocks {
         private final int[] sums;
         private final List<Candidate> candidates = new ArrayList<>();
 
-        Finder(List<Template> templates, WordStream stream, LongRuns runs, int[] sa, Tokenizer tokenizer, int minTokens) {
+        Finder(List<Template> templates, LongRuns runs, int[] sa, Tokenizer tokenizer, int minTokens) {
             this.templates = templates;
-            this.stream = stream;
             this.runs = runs;
             this.sa = sa;
             this.tokenizer = tokenizer;
@@ -180,12 +182,12 @@ public final class SharedBlocks {
 
         /** The index of the template holding position {@code p}. */
         private int templateAt(int p) {
-            return stream.templateAt(runs.origin[p]);
+            return runs.templateAt(p);
         }
 
         /** The index, among template {@code t}'s words and breaks, of position {@code p}. */
         private int local(int t, int p) {
-            return runs.origin[p] - stream.starts[t];
+            return runs.local(t, p);
         }
 
         @Override
@@ -230,7 +232,7 @@ public final class SharedBlocks {
         }
 
         private Located locate(int t) {
-            int size = stream.starts[t + 1] - stream.starts[t];
+            int size = runs.starts[t + 1] - runs.starts[t];
             int[] message = new int[size];
             int[] start = new int[size];
             int[] end = new int[size];

@@ -38,35 +38,41 @@ final class SuffixArray {
     }
 
     /**
-     * The longest common prefix of each suffix and the one before it in {@code sa}, stopping at
-     * {@code separator}: {@code lcp[i]} is that length for {@code sa[i - 1]} and {@code sa[i]}, with
-     * {@code lcp[0]} and {@code lcp[n]} 0 so that a walk over the array starts and ends on the root.
-     * Counting stops at a separator, so no common prefix reaches across one; the sorted order is
-     * still right for this, as the separator is an ordinary value there.
+     * The longest common prefix of each suffix and the one before it in {@code sa}, by text position
+     * ({@code plcp[p]} for the suffix at {@code p}; 0 for the first in order), stopping at
+     * {@code separator}, so no common prefix reaches across one; the sorted order is still right for
+     * this, as the separator is an ordinary value there. Computed in text order through the
+     * predecessor array, in place (Kärkkäinen, Manzini and Puglisi, "Permuted Longest-Common-Prefix
+     * Array", CPM 2009): one array of the text's length. The common prefix of {@code sa[i - 1]} and
+     * {@code sa[i]} is then {@code plcp[sa[i]]}.
      */
-    static int[] lcp(int[] text, int[] sa, int separator) {
+    static int[] plcp(int[] text, int[] sa, int separator) {
         int n = text.length;
-        int[] rank = new int[n];
-        for (int i = 0; i < n; i++) {
-            rank[sa[i]] = i;
+        int[] plcp = new int[n];
+        if (n == 0) {
+            return plcp;
         }
-        int[] lcp = new int[n + 1];
+        plcp[sa[0]] = -1;
+        for (int i = 1; i < n; i++) {
+            plcp[sa[i]] = sa[i - 1];
+        }
         int h = 0;
-        for (int i = 0; i < n; i++) {
-            if (rank[i] == 0) {
+        for (int p = 0; p < n; p++) {
+            int before = plcp[p];
+            if (before < 0) {
+                plcp[p] = 0;
                 h = 0;
                 continue;
             }
-            int j = sa[rank[i] - 1];
-            while (i + h < n && j + h < n && text[i + h] == text[j + h] && text[i + h] != separator) {
+            while (p + h < n && before + h < n && text[p + h] == text[before + h] && text[p + h] != separator) {
                 h++;
             }
-            lcp[rank[i]] = h;
+            plcp[p] = h;
             if (h > 0) {
                 h--;
             }
         }
-        return lcp;
+        return plcp;
     }
 
     /** The order by plain comparison of suffixes: for short texts, and as the tests' reference. */

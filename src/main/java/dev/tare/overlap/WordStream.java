@@ -63,6 +63,11 @@ final class WordStream {
 
     /** The index of the template whose words include position {@code position}. */
     int templateAt(int position) {
+        return templateAt(starts, position);
+    }
+
+    /** The index of the template whose words include {@code position}, given where each template starts. */
+    static int templateAt(int[] starts, int position) {
         int found = Arrays.binarySearch(starts, position);
         int t = found >= 0 ? found : -found - 2;
         // A template without messages starts where the next one does; the position belongs to the last of them.
