@@ -90,6 +90,7 @@ public final class Fix {
         Map<String, FileFix> fixes = new TreeMap<>();
         Map<String, SourceText> originals = new TreeMap<>();
         ExtractionPlanner across = new ExtractionPlanner(loader, check.catalog(), rewrites, tokenizers);
+        boolean extracting = acrossFiles && across.hasRulesNamed();
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
         Map<String, Integer> reviewLeft = new TreeMap<>();
         Map<Path, String> seen = new HashMap<>();
@@ -117,14 +118,16 @@ public final class Fix {
             }
             templates++;
             originals.put(path, original);
-            across.know(template);
+            if (extracting) {
+                across.know(template);
+            }
             FilePlanner.Plan plan = planner.plan(original, template);
             plan.reviewLeft().forEach((rule, count) -> reviewLeft.merge(rule, count, Integer::sum));
             plan.fix().ifPresent(fix -> fixes.put(path, fix));
         }
         List<NotApplied> refused = List.of();
         Map<String, Set<String>> needs = Map.of();
-        if (acrossFiles) {
+        if (extracting) {
             Map<String, String> current = new TreeMap<>();
             Set<String> frozen = new TreeSet<>();
             originals.forEach((path, original) -> {
@@ -139,7 +142,7 @@ public final class Fix {
                 new Extracted(loader, planner, check).merge(extracted, originals, fixes);
                 refused = extracted.refused();
                 needs = extracted.needs();
-            } else if (across.hasRulesNamed()) {
+            } else {
                 across.offered(current, originals).forEach((rule, count) -> reviewLeft.merge(rule, count, Integer::sum));
             }
         }
