@@ -29,8 +29,8 @@ import picocli.CommandLine.Spec;
                         + " against its original (variables, includes, code, JSON, paragraph breaks, line endings,"
                         + " final newline, byte-order mark) and written in one atomic step, or not at all.",
                 "Exits 0 when everything was fixed or there was nothing to fix, 1 when a file was not fixed (its"
-                        + " rewrite failed verification, it changed on disk meanwhile, or writing it failed),"
-                        + " 2 on a usage or configuration error."})
+                        + " rewrite failed verification, it changed on disk meanwhile, or writing it failed) or a copy"
+                        + " of a shared block could not be replaced, 2 on a usage or configuration error."})
 final class FixCommand implements Callable<Integer> {
     enum Format { text, json }
 
@@ -52,7 +52,8 @@ final class FixCommand implements Callable<Integer> {
 
     @Option(names = "--include-review",
             description = "Apply review-class rewrites too. They change what the prompt says: evaluate the changed"
-                    + " prompts before they ship.")
+                    + " prompts before they ship. This also moves blocks of text that several templates hold into a"
+                    + " partial and includes it in their place, when every changed template renders exactly as before.")
     private boolean includeReview;
 
     @Option(names = "--only", paramLabel = "RULE", arity = "1..*", split = ",",

@@ -15,7 +15,8 @@ import java.util.Map;
 public record RulesConfig(List<String> disable, Map<String, String> severity, List<String> packs,
                           Map<String, Integer> limits) {
     /** The limits rules understand. */
-    public static final java.util.Set<String> LIMITS = java.util.Set.of("tool_description_tokens", "tool_enum_tokens");
+    public static final java.util.Set<String> LIMITS = java.util.Set.of("tool_description_tokens", "tool_enum_tokens",
+            "shared_block_tokens");
     /** The rule settings when none are configured. */
     public static final RulesConfig DEFAULT = new RulesConfig(List.of(), Map.of(), List.of(), Map.of());
 

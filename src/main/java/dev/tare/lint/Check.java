@@ -20,8 +20,8 @@ import java.util.function.Function;
 /**
  * Runs the enabled rules over every template of a workspace: finds, reads and parses the files
  * through the shared {@link TemplateLoader}, turns a file that fails to parse into the findings of
- * the syntax-error rules, applies configured severities and inline suppressions, and sorts the
- * findings. Files that cannot be read at all are listed as skipped, with the reason.
+ * the syntax-error rules, runs the cross-template rules once over all the templates, applies
+ * configured severities and inline suppressions, and sorts the findings. Files that cannot be read at all are listed as skipped, with the reason.
  */
 public final class Check {
     private final Workspace workspace;
@@ -89,14 +89,27 @@ public final class Check {
         }
         LintContext context = new LintContext(workspace.config(), tokenizers, loader.renderer(), templates,
                 catalog.ids(), Map.of());
+        Map<String, Suppressions> silenced = new java.util.HashMap<>();
         for (Template template : templates) {
             Suppressions suppressions = Suppressions.of(context.text(template));
+            silenced.put(template.path(), suppressions);
             for (Rule rule : rules) {
-                if (template.kind() == TemplateKind.TOOLS && !(rule instanceof ToolRule)) {
+                if (rule instanceof CrossTemplateRule
+                        || template.kind() == TemplateKind.TOOLS && !(rule instanceof ToolRule)) {
                     continue;
                 }
                 for (Finding finding : rule.check(template, context)) {
                     if (!suppressions.silences(finding)) {
+                        findings.add(finding);
+                    }
+                }
+            }
+        }
+        for (Rule rule : rules) {
+            if (rule instanceof CrossTemplateRule across) {
+                for (Finding finding : across.checkAll(context)) {
+                    Suppressions suppressions = silenced.get(finding.path());
+                    if (suppressions == null || !suppressions.silences(finding)) {
                         findings.add(finding);
                     }
                 }

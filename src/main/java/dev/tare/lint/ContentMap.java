@@ -75,6 +75,25 @@ final class ContentMap {
         return Optional.of(moved);
     }
 
+    /**
+     * One edit replacing content {@code [start, end)} as a whole: from the file offset of its first
+     * character to that of the character after it (or just past its last), whatever escapes, folded
+     * breaks or indentation lie between. Empty when either end is not verbatim or the quoting cannot
+     * hold {@code replacement} as written. The caller must check what the file then reads as, since
+     * the text between the ends is not followed character by character.
+     */
+    Optional<Edit> span(int start, int end, String replacement) {
+        if (style == Style.READ_ONLY || start >= end || !holds("", replacement) || replacement.indexOf('\n') >= 0) {
+            return Optional.empty();
+        }
+        int from = start < verbatim.length && verbatim[start] ? offsets[start] : -1;
+        int to = end < verbatim.length && verbatim[end] ? offsets[end] : verbatim[end - 1] ? offsets[end - 1] + 1 : -1;
+        if (from < 0 || to < from) {
+            return Optional.empty();
+        }
+        return Optional.of(new Edit(from, to, replacement));
+    }
+
     private int anchor(int i) {
         if (i < verbatim.length && verbatim[i]) {
             return offsets[i];

@@ -11,18 +11,21 @@ import java.util.TreeMap;
  * @param before   a template the rule flags
  * @param after    what to write instead
  * @param settings target settings the example assumes, by their {@code tare.yaml} key: the keys
- *                 understood are {@value #PREFIX_CACHE_MIN_TOKENS} and {@value #BASELINE_TOKENS}
+ *                 understood are {@value #PREFIX_CACHE_MIN_TOKENS}, {@value #BASELINE_TOKENS} and
+ *                 {@value #SHARED_BLOCK_TOKENS}
  */
 public record Example(String before, String after, Map<String, Integer> settings) {
     /** The setting that stands in for the target's shortest cacheable prefix. */
     public static final String PREFIX_CACHE_MIN_TOKENS = "prefix_cache_min_tokens";
     /** The setting that stands in for the template's count in a committed baseline, on the default tokenizer. */
     public static final String BASELINE_TOKENS = "baseline_tokens";
+    /** The setting that stands in for {@code rules.limits.shared_block_tokens}. */
+    public static final String SHARED_BLOCK_TOKENS = "shared_block_tokens";
 
     public Example {
         settings = java.util.Collections.unmodifiableMap(new TreeMap<>(settings));
         for (String key : settings.keySet()) {
-            if (!key.equals(PREFIX_CACHE_MIN_TOKENS) && !key.equals(BASELINE_TOKENS)) {
+            if (!key.equals(PREFIX_CACHE_MIN_TOKENS) && !key.equals(BASELINE_TOKENS) && !key.equals(SHARED_BLOCK_TOKENS)) {
                 throw new IllegalArgumentException("unknown example setting " + key);
             }
         }

@@ -9,6 +9,7 @@ import dev.tare.template.TemplateSyntaxException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 
@@ -53,6 +54,9 @@ public final class ExampleRunner {
 
     /** What is wrong with {@code example} of {@code rule}; empty when it behaves as written. */
     public static Optional<String> run(Rule rule, Example example, Set<String> ruleIds) {
+        if (rule instanceof CrossTemplateRule across) {
+            return runAcross(across, example, ruleIds);
+        }
         LintContext context = LintContext.forExample(ROOT, example, ruleIds);
         List<Finding> before;
         try {
@@ -87,6 +91,73 @@ public final class ExampleRunner {
             return Optional.of("still flags 'after' at line " + after.get(0).line() + ": " + after.get(0).message());
         }
         return Optional.empty();
+    }
+
+    /**
+     * An example of a rule across templates: {@code before} and {@code after} are sets of files
+     * ({@link ExampleFiles}); the rule must flag {@code before}, its extractions must turn it into
+     * exactly the files of {@code after} (new partials included), and it must flag nothing there.
+     */
+    private static Optional<String> runAcross(CrossTemplateRule rule, Example example, Set<String> ruleIds) {
+        Map<String, String> before;
+        Map<String, String> after;
+        try {
+            before = ExampleFiles.parse(example.before());
+            after = ExampleFiles.parse(example.after());
+        } catch (IllegalArgumentException e) {
+            return Optional.of(e.getMessage());
+        }
+        List<Finding> found;
+        LintContext context;
+        try {
+            context = acrossContext(before, example, ruleIds);
+            found = rule.checkAll(context);
+        } catch (TareException e) {
+            return Optional.of("'before' cannot be read: " + e.getMessage());
+        }
+        if (found.isEmpty()) {
+            return Optional.of("flags nothing in 'before'");
+        }
+        if (rule.descriptor().rewriteClass() != RewriteClass.NONE) {
+            Map<String, String> files = new java.util.TreeMap<>(before);
+            Map<String, List<Edit>> edits = new java.util.TreeMap<>();
+            for (Extraction extraction : rule.extractions(context)) {
+                extraction.created().ifPresent(text -> files.put(extraction.partial(), text));
+                extraction.copies().forEach(c -> edits.computeIfAbsent(c.path(), p -> new ArrayList<>()).add(c.edit()));
+            }
+            try {
+                edits.forEach((path, list) -> files.put(path, new Rewrite(list, 0).applyTo(files.get(path))));
+            } catch (IllegalArgumentException e) {
+                return Optional.of("its extractions overlap: " + e.getMessage());
+            }
+            if (!files.equals(new java.util.TreeMap<>(after))) {
+                return Optional.of("its extractions give " + show(ExampleFiles.format(files)) + " but 'after' is "
+                        + show(ExampleFiles.format(new java.util.TreeMap<>(after))));
+            }
+        }
+        List<Finding> left;
+        try {
+            left = rule.checkAll(acrossContext(after, example, ruleIds));
+        } catch (TareException e) {
+            return Optional.of("'after' cannot be read: " + e.getMessage());
+        }
+        if (!left.isEmpty()) {
+            return Optional.of("still flags 'after' in " + left.get(0).path() + " at line " + left.get(0).line() + ": "
+                    + left.get(0).message());
+        }
+        return Optional.empty();
+    }
+
+    /** A context over the example's files, its includes resolved among them in the default partials folder. */
+    private static LintContext acrossContext(Map<String, String> files, Example example, Set<String> ruleIds) {
+        String partials = dev.tare.config.TemplatesConfig.DEFAULT_PARTIALS;
+        TemplateParser parser = new TemplateParser(PlaceholderSyntax.DOUBLE_BRACE);
+        Map<String, Template> templates = new java.util.LinkedHashMap<>();
+        files.forEach((path, text) -> templates.put(path, parser.parse(
+                new SourceText(path, ROOT.resolve(path), text, false, text.length()), path.startsWith(partials + "/"))));
+        dev.tare.template.Renderer renderer = new dev.tare.template.Renderer(new dev.tare.template.PartialDirectory(
+                partials, path -> Optional.ofNullable(templates.get(path))));
+        return LintContext.forExample(ROOT, example, ruleIds, List.copyOf(templates.values()), renderer);
     }
 
     private static List<Finding> findings(Rule rule, String text, LintContext context) {

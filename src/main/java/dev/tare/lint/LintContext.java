@@ -49,24 +49,57 @@ public final class LintContext {
     private final Map<String, Optional<Rendering>> renderings = new ConcurrentHashMap<>();
     private Optional<Baseline> baseline;
     private final Map<String, List<ToolDefinition>> tools = new ConcurrentHashMap<>();
+    private final Set<String> paths;
+    private final java.util.function.Predicate<String> files;
 
     /**
+     * A context over files on disk: a path names a file when a template of the run has it or a file
+     * is there under the root.
+     *
      * @param settings example settings that stand in for target values (see {@link Example#settings()})
      */
     public LintContext(TareConfig config, TokenizerRegistry tokenizers, Renderer renderer, List<Template> templates,
                        Set<String> ruleIds, Map<String, Integer> settings) {
+        this(config, tokenizers, renderer, templates, ruleIds, settings,
+                path -> java.nio.file.Files.exists(config.root().resolve(path)));
+    }
+
+    /**
+     * @param settings example settings that stand in for target values (see {@link Example#settings()})
+     * @param files    whether a root-relative path names a file besides the run's templates (for a run
+     *                 over text held in memory, such as a fix that has not written yet)
+     */
+    public LintContext(TareConfig config, TokenizerRegistry tokenizers, Renderer renderer, List<Template> templates,
+                       Set<String> ruleIds, Map<String, Integer> settings, java.util.function.Predicate<String> files) {
         this.config = config;
         this.tokenizers = tokenizers;
         this.renderer = renderer;
         this.templates = List.copyOf(templates);
         this.ruleIds = Set.copyOf(ruleIds);
         this.settings = Map.copyOf(settings);
+        this.paths = templates.stream().map(Template::path).collect(java.util.stream.Collectors.toSet());
+        this.files = files;
     }
 
     /** A context for running one rule's examples: default configuration, no includes, no other templates. */
     public static LintContext forExample(Path root, Example example, Set<String> ruleIds) {
         return new LintContext(TareConfig.defaults(root), EXAMPLE_TOKENIZERS, new Renderer(IncludeResolver.NONE),
-                List.of(), ruleIds, example.settings());
+                List.of(), ruleIds, example.settings(), path -> false);
+    }
+
+    /**
+     * A context for running a cross-template rule's example: default configuration, the example's
+     * templates, includes resolved among them, and no file anywhere else.
+     */
+    public static LintContext forExample(Path root, Example example, Set<String> ruleIds, List<Template> templates,
+                                         Renderer renderer) {
+        return new LintContext(TareConfig.defaults(root), EXAMPLE_TOKENIZERS, renderer, templates, ruleIds,
+                example.settings(), path -> false);
+    }
+
+    /** Whether a root-relative path names a file: a template of the run, or another file where the run looks. */
+    public boolean fileExists(String path) {
+        return paths.contains(path) || files.test(path);
     }
 
     /** The configuration in force. */
@@ -105,6 +138,16 @@ public final class LintContext {
     public Tokenizer tokenizer(Template template) {
         List<TargetConfig> targets = targets(template);
         String name = targets.isEmpty() ? TokenizerRegistry.DEFAULT : targets.get(0).tokenizer();
+        try {
+            return tokenizers.get(name, config.root());
+        } catch (TareException e) {
+            return tokenizers.defaultTokenizer();
+        }
+    }
+
+    /** The repository's primary tokenizer: the first target's, else the default encoding. */
+    public Tokenizer primaryTokenizer() {
+        String name = config.targets().isEmpty() ? TokenizerRegistry.DEFAULT : config.targets().get(0).tokenizer();
         try {
             return tokenizers.get(name, config.root());
         } catch (TareException e) {
@@ -185,9 +228,10 @@ public final class LintContext {
                         : YamlDocument.parseYaml(template.source())));
     }
 
-    /** A numeric limit from {@code rules.limits}, else its default. */
+    /** A numeric limit from {@code rules.limits} (or an example's setting of that name), else its default. */
     public int limit(String key, int fallback) {
-        return config.rules().limits().getOrDefault(key, fallback);
+        Integer setting = settings.get(key);
+        return setting != null ? setting : config.rules().limits().getOrDefault(key, fallback);
     }
 
     /** The renderer that resolves this run's includes. */

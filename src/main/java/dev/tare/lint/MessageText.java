@@ -93,6 +93,17 @@ public final class MessageText {
         return map.sourceOffset(offset);
     }
 
+    /**
+     * The edit of the file that replaces content {@code [start, end)} as a whole with
+     * {@code replacement} (which may not hold a line break), or empty when the span's ends cannot be
+     * placed exactly in the file or the quoting there cannot hold the replacement. Inside a chat
+     * file's value the span may cross escapes and indentation; what the file then reads as must be
+     * verified by parsing it again.
+     */
+    public Optional<Edit> replacement(int start, int end, String replacement) {
+        return map.span(start, end, replacement);
+    }
+
     /** The content edits moved onto the file, or empty when they cannot be written back exactly. */
     Optional<List<Edit>> toSource(List<Edit> edits) {
         return map.toSource(content(), edits);

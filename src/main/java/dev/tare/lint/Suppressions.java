@@ -72,10 +72,15 @@ public final class Suppressions {
 
     /** Whether a directive silences {@code finding} (by the line it starts on). */
     public boolean silences(Finding finding) {
-        if (file.contains(ALL) || file.contains(finding.rule())) {
+        return silences(finding.rule(), finding.line());
+    }
+
+    /** Whether a directive silences rule {@code rule} on 1-based line {@code line} of the file. */
+    public boolean silences(String rule, int line) {
+        if (file.contains(ALL) || file.contains(rule)) {
             return true;
         }
-        Set<String> ids = byLine.get(finding.line());
-        return ids != null && (ids.contains(ALL) || ids.contains(finding.rule()));
+        Set<String> ids = byLine.get(line);
+        return ids != null && (ids.contains(ALL) || ids.contains(rule));
     }
 }

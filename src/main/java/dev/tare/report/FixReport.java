@@ -4,6 +4,7 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.tare.rewrite.FileFix;
 import dev.tare.rewrite.FixResult;
+import dev.tare.rewrite.NotApplied;
 import dev.tare.rewrite.RuleSaving;
 import dev.tare.rewrite.TokenChange;
 import dev.tare.rewrite.UnifiedDiff;
@@ -20,6 +21,9 @@ public final class FixReport {
             + " partial's saving is counted once, in the partial.";
     static final String REVIEW_CAUTION = "Review-class rewrites change what the prompt says: evaluate the prompts"
             + " they change before they ship.";
+    /** Said when shared blocks were moved into partials. */
+    static final String EXTRACTION_NOTE = "Every template a shared block was moved out of renders exactly as before,"
+            + " so the tokens sent per call do not change; the counts above are of the text each file holds.";
 
     private FixReport() {
     }
@@ -29,18 +33,22 @@ public final class FixReport {
         StringBuilder out = new StringBuilder();
         for (FileFix file : result.files()) {
             if (file.verified()) {
-                out.append(UnifiedDiff.of(file.path(), file.before(), file.after(), colour));
+                out.append(diff(file, colour));
             }
         }
         if (!result.files().isEmpty()) {
             out.append('\n');
         }
-        if (!result.notFixed().isEmpty()) {
+        if (!result.notFixed().isEmpty() || !result.refused().isEmpty()) {
             out.append("Not fixed:\n");
             for (FileFix file : result.notFixed()) {
                 out.append("  ").append(file.path()).append(": ")
                         .append(file.outcome() == FileFix.Outcome.DROPPED ? "rewrite dropped, nothing written: " : "")
                         .append(String.join("; ", file.problems())).append('\n');
+            }
+            for (NotApplied place : result.refused()) {
+                out.append("  ").append(place.path()).append(':').append(place.line()).append(": ").append(place.rule())
+                        .append(" not applied: ").append(place.reason()).append('\n');
             }
             out.append('\n');
         }
@@ -53,6 +61,9 @@ public final class FixReport {
         if (!result.applied().isEmpty()) {
             out.append(ESTIMATE_NOTE).append('\n');
         }
+        if (!result.created().isEmpty() || result.rules().stream().anyMatch(r -> r.rule().equals("shared-block"))) {
+            out.append(EXTRACTION_NOTE).append('\n');
+        }
         if (!result.skipped().isEmpty()) {
             out.append("\nSkipped ").append(CheckReport.plural(result.skipped().size(), "file")).append(":\n");
             for (SkippedFile skipped : result.skipped()) {
@@ -62,13 +73,23 @@ public final class FixReport {
         return out.toString();
     }
 
+    /** The file's diff; a new file's shows it added whole, as {@code git diff} does. */
+    private static String diff(FileFix file, boolean colour) {
+        String diff = UnifiedDiff.of(file.path(), file.before(), file.after(), colour);
+        if (!file.created()) {
+            return diff;
+        }
+        return diff.replaceFirst("a/" + java.util.regex.Pattern.quote(file.path()), "/dev/null")
+                .replaceFirst("@@ -1,0 ", "@@ -0,0 ");
+    }
+
     private static String fileTable(FixResult result) {
         TextTable table = new TextTable(List.of("file", "tokenizer", "before", "after", "saved"),
                 false, false, true, true, true);
         for (FileFix file : result.applied()) {
             boolean first = true;
             for (TokenChange change : file.tokens()) {
-                table.row(tokenRow(first ? file.path() : "", change));
+                table.row(tokenRow(first ? file.path() + (file.created() ? " (new)" : "") : "", change));
                 first = false;
             }
         }
@@ -128,16 +149,22 @@ public final class FixReport {
         int changed = result.applied().size();
         String of = " of " + CheckReport.plural(result.templates(), "template");
         String line;
-        if (result.files().isEmpty()) {
+        if (result.files().isEmpty() && result.refused().isEmpty()) {
             line = "Nothing to fix in " + CheckReport.plural(result.templates(), "template") + ".";
+        } else if (result.files().isEmpty()) {
+            line = "Nothing fixed in " + CheckReport.plural(result.templates(), "template") + ".";
         } else if (result.options().dryRun()) {
             line = "Dry run: " + TextTable.number(changed) + of + " would change"
                     + "; nothing was written.";
         } else {
             line = "Fixed " + TextTable.number(changed) + of + ".";
         }
-        if (result.failed()) {
+        if (!result.notFixed().isEmpty()) {
             line += " " + CheckReport.plural(result.notFixed().size(), "file") + " not fixed (see above).";
+        }
+        if (!result.refused().isEmpty()) {
+            line += " " + CheckReport.plural(result.refused().size(), "place") + " a rewrite across files had to leave"
+                    + " (see above).";
         }
         return line;
     }
@@ -155,13 +182,14 @@ public final class FixReport {
             ObjectNode node = files.addObject();
             node.put("path", file.path());
             node.put("outcome", file.outcome().label());
+            node.put("created", file.created());
             node.put("rounds", file.rounds());
             ArrayNode problems = node.putArray("problems");
             file.problems().forEach(problems::add);
             tokens(node.putObject("tokens"), file.tokens());
             rules(node.putArray("rules"), file.rules());
             if (file.verified()) {
-                node.put("diff", UnifiedDiff.of(file.path(), file.before(), file.after(), false));
+                node.put("diff", diff(file, false));
             } else {
                 node.putNull("diff");
             }
@@ -170,6 +198,8 @@ public final class FixReport {
         summary.put("templates", result.templates());
         summary.put("files_changed", result.applied().size());
         summary.put("files_not_fixed", result.notFixed().size());
+        summary.put("files_created", result.created().size());
+        summary.put("places_not_applied", result.refused().size());
         tokens(summary.putObject("tokens"), result.totals());
         rules(summary.putArray("rules"), result.rules());
         ObjectNode applied = summary.putObject("review_applied");
@@ -179,6 +209,11 @@ public final class FixReport {
         summary.put("review_caution", REVIEW_CAUTION);
         summary.put("failed", result.failed());
         summary.put("note", ESTIMATE_NOTE);
+        ArrayNode refused = root.putArray("not_applied");
+        for (NotApplied place : result.refused()) {
+            refused.addObject().put("path", place.path()).put("line", place.line()).put("rule", place.rule())
+                    .put("reason", place.reason());
+        }
         ArrayNode skipped = root.putArray("skipped");
         for (SkippedFile file : result.skipped()) {
             skipped.addObject().put("path", file.path()).put("reason", file.reason());

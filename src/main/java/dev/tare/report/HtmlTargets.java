@@ -5,6 +5,7 @@ import dev.tare.footprint.Coverage;
 import dev.tare.footprint.Footprint;
 import dev.tare.overview.Overview;
 import dev.tare.overview.TargetTotals;
+import dev.tare.scan.ScanResult;
 import dev.tare.scan.ScannedTemplate;
 import java.util.Comparator;
 import java.util.List;
@@ -60,6 +61,17 @@ final class HtmlTargets {
         totals.weightBytes().ifPresent(bytes -> HtmlReport.tile(out, "Weights (estimate)",
                 "<span data-target=\"" + name + "\" data-total=\"weight_bytes\" data-value=\"" + bytes
                         + "\" data-unit=\"bytes\">" + Html.text(Figures.bytes(bytes)) + "</span>", ""));
+        ScanResult.CacheTotals cache = overview.scan().cacheTotals().get(target.name());
+        if (cache != null) {
+            HtmlReport.tile(out, "Cacheable tokens per call", targetNumber(name, "cached_input_tokens",
+                    cache.cachedTokens(), "tokens"), "leading static tokens shared with another template, summed");
+            money(out, "Prefix-cache saving per month (estimate)", name, "cache_saving_per_month", cache.savingPerMonth(), cache);
+            HtmlReport.tile(out, "Cacheable if per-call parts came last", targetNumber(name,
+                    "reordered_cached_input_tokens", cache.reorderedCachedTokens(), "tokens"),
+                    "every template's variables after its static text");
+            money(out, "Saving per month then (estimate)", name, "reordered_cache_saving_per_month",
+                    cache.reorderedSavingPerMonth(), cache);
+        }
         out.append("</dl>\n");
         List<ScannedTemplate> on = overview.scan().templates().stream()
                 .filter(t -> t.countsInTotals() && t.targets().containsKey(target.name())).toList();
@@ -75,6 +87,15 @@ final class HtmlTargets {
                     "bytes", f -> f.kvCacheBytes().orElse(0), Figures::bytes, Figures::bytes);
         }
         out.append("</article>\n");
+    }
+
+    /** A tile with a monthly saving, on a priced target with traffic. */
+    private static void money(StringBuilder out, String label, String name, String total, java.util.OptionalDouble amount,
+                              ScanResult.CacheTotals cache) {
+        amount.ifPresent(value -> HtmlReport.tile(out, label, "<span data-target=\"" + name + "\" data-total=\"" + total
+                + "\" data-value=\"" + Html.value(value) + "\" data-unit=\"money\">"
+                + Html.text(Figures.money(value, cache.currency().orElse(""), 2)) + "</span>", "at "
+                + Figures.significant(cache.target().callsPerDay().orElse(0)) + " calls a day"));
     }
 
     private static String targetNumber(String name, String total, long value, String unit) {

@@ -37,6 +37,7 @@ public final class MarkdownReport {
         out.append(intro(overview)).append("\n\n");
         out.append("> ").append(Figures.ESTIMATE_NOTE).append("\n\n");
         targets(out, overview);
+        prefixCaching(out, overview);
         costliest(out, overview);
         findings(out, overview);
         savings(out, overview);
@@ -83,6 +84,27 @@ public final class MarkdownReport {
         if (priced) {
             out.append("Cost per month adds up every template as if each got the target's `calls_per_day`.\n\n");
         }
+    }
+
+    private static void prefixCaching(StringBuilder out, Overview overview) {
+        var caches = overview.scan().cacheTotals();
+        if (caches.isEmpty()) {
+            return;
+        }
+        out.append("### Prefix caching\n\n");
+        Table table = new Table("Target", ">Cacheable tokens per call", ">Saving per month (estimate)",
+                ">If per-call parts came last", ">Saving per month then (estimate)");
+        caches.forEach((name, cache) -> {
+            String currency = cache.currency().orElse("");
+            table.row(text(name), Figures.count(cache.cachedTokens()),
+                    cache.savingPerMonth().isPresent() ? Figures.money(cache.savingPerMonth().getAsDouble(), currency, 2) : "–",
+                    Figures.count(cache.reorderedCachedTokens()), cache.reorderedSavingPerMonth().isPresent()
+                            ? Figures.money(cache.reorderedSavingPerMonth().getAsDouble(), currency, 2) : "–");
+        });
+        out.append(table.render()).append('\n');
+        out.append("A template's leading static tokens count as cached when another template on the target starts with"
+                + " the same ones, at least the target's `prefix_cache_min_tokens`; the last columns move every"
+                + " template's variables after its static text. Savings are at each target's `calls_per_day`.\n\n");
     }
 
     private static String kvCache(TargetTotals t) {

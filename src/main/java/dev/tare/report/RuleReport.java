@@ -57,7 +57,8 @@ public final class RuleReport {
             Example example = examples.get(i);
             out.append(examples.size() == 1 ? "Example" : "Example " + (i + 1)).append('\n');
             for (Map.Entry<String, Integer> setting : example.settings().entrySet()) {
-                out.append("  Given a target with ").append(setting.getKey()).append(": ").append(setting.getValue()).append('\n');
+                out.append(setting.getKey().equals(Example.SHARED_BLOCK_TOKENS) ? "  Given rules.limits."
+                        : "  Given a target with ").append(setting.getKey()).append(": ").append(setting.getValue()).append('\n');
             }
             out.append("  Flagged:\n").append(indent(example.before()));
             out.append("  Instead:\n").append(indent(example.after()));

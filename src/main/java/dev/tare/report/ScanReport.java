@@ -3,6 +3,7 @@ package dev.tare.report;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.tare.footprint.Footprint;
+import dev.tare.overlap.PrefixShare;
 import dev.tare.scan.ScanResult;
 import dev.tare.scan.ScannedTemplate;
 import dev.tare.source.SkippedFile;
@@ -112,7 +113,12 @@ public final class ScanReport {
             template.includes().forEach(includes::add);
             ObjectNode targets = node.putObject("targets");
             for (Map.Entry<String, Footprint> entry : template.targets().entrySet()) {
-                targets.set(entry.getKey(), footprint(entry.getValue()));
+                ObjectNode footprint = footprint(entry.getValue());
+                PrefixShare share = template.prefixes().get(entry.getKey());
+                if (share != null) {
+                    prefix(footprint, share);
+                }
+                targets.set(entry.getKey(), footprint);
             }
         }
         ScanResult.Totals totals = result.totals();
@@ -123,6 +129,14 @@ public final class ScanReport {
         totalNode.put("estimated_tokens", totals.estimatedTokens());
         ObjectNode byTarget = totalNode.putObject("targets");
         totals.inputTokensByTarget().forEach((name, tokens) -> byTarget.putObject(name).put("input_tokens", tokens));
+        result.cacheTotals().forEach((name, cache) -> {
+            ObjectNode target = byTarget.has(name) ? (ObjectNode) byTarget.get(name) : byTarget.putObject(name);
+            target.put("cached_input_tokens", cache.cachedTokens());
+            target.put("reordered_cached_input_tokens", cache.reorderedCachedTokens());
+            cache.savingPerMonth().ifPresent(v -> target.put("cache_saving_per_month", v));
+            cache.reorderedSavingPerMonth().ifPresent(v -> target.put("reordered_cache_saving_per_month", v));
+            cache.currency().filter(c -> cache.savingPerMonth().isPresent()).ifPresent(c -> target.put("currency", c));
+        });
         ArrayNode skipped = root.putArray("skipped");
         for (SkippedFile file : result.skipped()) {
             skipped.addObject().put("path", file.path()).put("reason", file.reason());
@@ -132,5 +146,19 @@ public final class ScanReport {
 
     static ObjectNode footprint(Footprint footprint) {
         return Figures.json(footprint);
+    }
+
+    /**
+     * Prefix sharing beside a template's footprint on a target with a prefix cache: the longest
+     * leading static run it shares with another template (cached_input_tokens is that run from the
+     * cache's minimum on), the same with every template's per-call parts after its static parts, and
+     * what caching saves per month in each case (estimates).
+     */
+    private static void prefix(ObjectNode node, PrefixShare share) {
+        node.put("shared_prefix_tokens", share.sharedTokens());
+        share.savingPerMonth().ifPresent(v -> node.put("cache_saving_per_month", v));
+        node.put("reordered_shared_prefix_tokens", share.reorderedSharedTokens());
+        node.put("reordered_cached_input_tokens", share.reorderedCachedTokens());
+        share.reorderedSavingPerMonth().ifPresent(v -> node.put("reordered_cache_saving_per_month", v));
     }
 }

@@ -3,6 +3,7 @@ package dev.tare.report;
 import dev.tare.config.TargetConfig;
 import dev.tare.footprint.Coverage;
 import dev.tare.footprint.Footprint;
+import dev.tare.overlap.PrefixShare;
 import dev.tare.scan.ScanResult;
 import dev.tare.scan.ScannedTemplate;
 import java.util.ArrayList;
@@ -10,7 +11,9 @@ import java.util.List;
 
 /**
  * The per-target part of a scan's text report: for each priced target, cost per call and per month
- * of every template; for each target with a model, prefill, decode, KV cache and concurrency.
+ * of every template; for each target with a prefix cache, the prefix each template shares with others
+ * and what caching it saves, now and with per-call parts last; for each target with a model, prefill,
+ * decode, KV cache and concurrency.
  */
 final class TargetSections {
     private TargetSections() {
@@ -22,10 +25,14 @@ final class TargetSections {
         List<String> gaps = new ArrayList<>();
         List<ScannedTemplate> templates = result.templatesIn(order).stream().filter(ScannedTemplate::countsInTotals)
                 .toList();
+        java.util.Map<String, ScanResult.CacheTotals> caches = result.cacheTotals();
         for (TargetConfig target : result.targetConfigs()) {
             Coverage coverage = Coverage.of(target);
             if (coverage.hasCost()) {
                 out.append('\n').append(cost(target, templates));
+            }
+            if (caches.containsKey(target.name())) {
+                out.append('\n').append(prefixCache(target, templates, caches.get(target.name())));
             }
             if (coverage.hasDeviceFigures()) {
                 out.append('\n').append(device(target, templates));
@@ -36,6 +43,9 @@ final class TargetSections {
         }
         if (out.length() == 0) {
             return "";
+        }
+        if (!caches.isEmpty()) {
+            out.append('\n').append(cacheSummary(caches));
         }
         out.append('\n').append(Figures.ESTIMATE_NOTE).append('\n');
         gaps.forEach(line -> out.append(line).append('\n'));
@@ -59,6 +69,51 @@ final class TargetSections {
         target.prefixCacheMinTokens().ifPresent(min -> head.append("; prefixes of ").append(Figures.count(min))
                 .append("+ tokens shared with another template are cached"));
         return head.append(")").append(calibration(target)).append(":\n").append(table.render()).toString();
+    }
+
+    /** Each template's shared prefix on a target with a prefix cache, as written and with per-call parts last. */
+    private static String prefixCache(TargetConfig target, List<ScannedTemplate> templates, ScanResult.CacheTotals totals) {
+        TextTable table = new TextTable(List.of("PATH", "SHARED", "CACHED", "SAVES/MONTH", "REORDERED SHARED", "CACHED",
+                "SAVES/MONTH"), false, true, true, true, true, true, true);
+        String currency = totals.currency().orElse("");
+        for (ScannedTemplate template : templates) {
+            PrefixShare share = template.prefixes().get(target.name());
+            if (share != null) {
+                table.row(List.of(template.path(), Figures.count(share.sharedTokens()), Figures.count(share.cachedTokens()),
+                        money(share.savingPerMonth(), currency), Figures.count(share.reorderedSharedTokens()),
+                        Figures.count(share.reorderedCachedTokens()), money(share.reorderedSavingPerMonth(), currency)));
+            }
+        }
+        table.rule();
+        table.row(List.of("total (" + totals.templates() + " templates)", "", Figures.count(totals.cachedTokens()),
+                money(totals.savingPerMonth(), currency), "", Figures.count(totals.reorderedCachedTokens()),
+                money(totals.reorderedSavingPerMonth(), currency)));
+        return "Prefix cache on " + target.name() + " (SHARED: leading static tokens the template shares with another"
+                + " template; CACHED from " + Figures.count(target.prefixCacheMinTokens().orElse(0)) + " on; REORDERED:"
+                + " as if every template's per-call parts came after its static parts)" + calibration(target) + ":\n"
+                + table.render();
+    }
+
+    /** One line per target: the tokens per call cacheable now and with per-call parts last, and the savings. */
+    private static String cacheSummary(java.util.Map<String, ScanResult.CacheTotals> caches) {
+        StringBuilder out = new StringBuilder();
+        caches.forEach((name, totals) -> {
+            String currency = totals.currency().orElse("");
+            out.append("Prefix cache on ").append(name).append(": ").append(Figures.count(totals.cachedTokens()))
+                    .append(" tokens per call cacheable now");
+            totals.savingPerMonth().ifPresent(v -> out.append(", saving ").append(Figures.money(v, currency, 2))
+                    .append(" a month"));
+            out.append("; ").append(Figures.count(totals.reorderedCachedTokens()))
+                    .append(" if each template's per-call parts came after its static parts");
+            totals.reorderedSavingPerMonth().ifPresent(v -> out.append(", saving ").append(Figures.money(v, currency, 2))
+                    .append(" a month"));
+            out.append(" (estimates).\n");
+        });
+        return out.toString();
+    }
+
+    private static String money(java.util.OptionalDouble amount, String currency) {
+        return amount.isPresent() ? Figures.money(amount.getAsDouble(), currency, 2) : "-";
     }
 
     private static String device(TargetConfig target, List<ScannedTemplate> templates) {

@@ -13,9 +13,10 @@ import java.util.List;
  * @param tokens   the file's tokens before and after on each of its targets' tokenizers
  * @param rounds   how many rounds of rewriting it took to reach a text no rule rewrites further
  * @param problems why the rewrite was dropped or not written; empty otherwise
+ * @param created  whether the file is new (a partial a shared block moved into); {@code before} is then empty
  */
 public record FileFix(String path, Outcome outcome, String before, String after, List<RuleSaving> rules,
-                      List<TokenChange> tokens, int rounds, List<String> problems) {
+                      List<TokenChange> tokens, int rounds, List<String> problems, boolean created) {
     /** What became of one file's rewrite. */
     public enum Outcome {
         /** Dry run: the rewrite was verified and would be written. */
@@ -57,6 +58,6 @@ public record FileFix(String path, Outcome outcome, String before, String after,
         if (!problem.isEmpty()) {
             more.add(problem);
         }
-        return new FileFix(path, newOutcome, before, after, rules, tokens, rounds, more);
+        return new FileFix(path, newOutcome, before, after, rules, tokens, rounds, more, created);
     }
 }

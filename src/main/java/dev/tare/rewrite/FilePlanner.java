@@ -136,7 +136,8 @@ final class FilePlanner {
         for (int k = 0; k < counters.size(); k++) {
             tokens.add(new TokenChange(counters.get(k).name(), start[k], current[k]));
         }
-        return new FileFix(original.path(), outcome, original.text(), trace.current(), rules, tokens, rounds, problems);
+        return new FileFix(original.path(), outcome, original.text(), trace.current(), rules, tokens, rounds, problems,
+                false);
     }
 
     /** The findings of every rule in {@code text}, read as the file {@code original}. */
@@ -159,14 +160,14 @@ final class FilePlanner {
                 FileBytes.encode(text, original.hadBom()).length);
     }
 
-    private List<Tokenizer> tokenizersFor(Template template) {
+    List<Tokenizer> tokenizersFor(Template template) {
         LintContext context = new LintContext(loader.workspace().config(), tokenizers, loader.renderer(),
                 List.of(template), java.util.Set.of(), Map.of());
         return context.targetTokenizers(template);
     }
 
     /** Tokens of the prompt text the template itself holds: its messages as written, includes not expanded. */
-    private static int[] tokens(Template template, List<Tokenizer> counters) {
+    static int[] tokens(Template template, List<Tokenizer> counters) {
         int[] counts = new int[counters.size()];
         for (int k = 0; k < counters.size(); k++) {
             for (Message message : template.messages()) {

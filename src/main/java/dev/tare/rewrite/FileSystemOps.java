@@ -69,6 +69,34 @@ public interface FileSystemOps {
         }
     }
 
+    /**
+     * Puts {@code source} at {@code target} in one step, unless a file is there: a hard link, which
+     * the file system refuses when the name is taken, then the temporary name removed. Where links
+     * are not supported, an atomic rename after a check (a narrow window remains there).
+     *
+     * @return whether {@code target} now holds the file; false when a file was there
+     */
+    default boolean moveIfAbsent(Path source, Path target) throws IOException {
+        try {
+            Files.createLink(target, source);
+            Files.delete(source);
+            return true;
+        } catch (java.nio.file.FileAlreadyExistsException e) {
+            return false;
+        } catch (UnsupportedOperationException | java.nio.file.FileSystemException e) {
+            if (Files.exists(target, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+                return false;
+            }
+            Files.move(source, target, StandardCopyOption.ATOMIC_MOVE);
+            return true;
+        }
+    }
+
+    /** Creates a folder and the folders above it that are missing. */
+    default void createFolders(Path folder) throws IOException {
+        Files.createDirectories(folder);
+    }
+
     /** Removes a file if it is there. */
     default void deleteIfExists(Path file) throws IOException {
         Files.deleteIfExists(file);

@@ -17,7 +17,9 @@ import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import java.util.TreeMap;
+import java.util.TreeSet;
 import java.util.function.Function;
 
 /**
@@ -56,7 +58,7 @@ public final class Fix {
         List<String> whole = index.selection().paths().stream().filter(p -> !partial.contains(p)).toList();
         List<SkippedFile> left = partial.stream().map(p -> new SkippedFile(p, "partially staged (the working tree"
                 + " differs from the index), so it is not fixed; stage or stash the rest, then commit again")).toList();
-        FixResult result = run(options, loader, new FileSelection(whole, left), index::read);
+        FixResult result = run(options, loader, new FileSelection(whole, left), index::read, false);
         if (!options.dryRun()) {
             List<String> written = result.files().stream().filter(f -> f.outcome() == FileFix.Outcome.WRITTEN)
                     .map(FileFix::path).toList();
@@ -73,10 +75,22 @@ public final class Fix {
      */
     public FixResult run(FixOptions options, TemplateLoader loader, FileSelection selection,
                          Function<String, SourceText> reader) {
+        return run(options, loader, selection, reader, true);
+    }
+
+    /**
+     * @param acrossFiles whether rewrites across files (a shared block moved into a partial) are made;
+     *                    not for staged files, whose partials would be new files outside the index
+     */
+    private FixResult run(FixOptions options, TemplateLoader loader, FileSelection selection,
+                          Function<String, SourceText> reader, boolean acrossFiles) {
         Check check = new Check(workspace, tokenizers);
-        FilePlanner planner = new FilePlanner(check, loader, RewriteSelection.of(check.catalog(), options), tokenizers);
-        FixWriter writer = new FixWriter(files);
-        List<FileFix> fixes = new ArrayList<>();
+        RewriteSelection rewrites = RewriteSelection.of(check.catalog(), options);
+        FilePlanner planner = new FilePlanner(check, loader, rewrites, tokenizers);
+        Map<String, FileFix> fixes = new TreeMap<>();
+        Map<String, SourceText> originals = new TreeMap<>();
+        ExtractionPlanner across = new ExtractionPlanner(loader, check.catalog(), rewrites, tokenizers);
+        boolean extracting = acrossFiles && across.hasRulesNamed();
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
         Map<String, Integer> reviewLeft = new TreeMap<>();
         Map<Path, String> seen = new HashMap<>();
@@ -103,14 +117,97 @@ public final class Fix {
                 continue;
             }
             templates++;
+            originals.put(path, original);
+            if (extracting) {
+                across.know(template);
+            }
             FilePlanner.Plan plan = planner.plan(original, template);
             plan.reviewLeft().forEach((rule, count) -> reviewLeft.merge(rule, count, Integer::sum));
-            if (plan.fix().isPresent()) {
-                fixes.add(options.dryRun() ? plan.fix().get() : writer.write(plan.fix().get(), original));
+            plan.fix().ifPresent(fix -> fixes.put(path, fix));
+        }
+        List<NotApplied> refused = List.of();
+        Map<String, Set<String>> needs = Map.of();
+        if (extracting) {
+            Map<String, String> current = new TreeMap<>();
+            Set<String> frozen = new TreeSet<>();
+            originals.forEach((path, original) -> {
+                FileFix fix = fixes.get(path);
+                current.put(path, fix != null && fix.verified() ? fix.after() : original.text());
+                if (fix != null && !fix.verified()) {
+                    frozen.add(path);
+                }
+            });
+            if (options.includeReview()) {
+                ExtractionPlanner.Result extracted = across.plan(current, originals, frozen);
+                new Extracted(loader, planner, check).merge(extracted, originals, fixes);
+                refused = extracted.refused();
+                needs = extracted.needs();
+            } else {
+                across.offered(current, originals).forEach((rule, count) -> reviewLeft.merge(rule, count, Integer::sum));
             }
         }
+        List<FileFix> done = options.dryRun() ? new ArrayList<>(fixes.values()) : write(fixes, originals, needs);
         skipped.sort(null);
-        return new FixResult(workspace.displayName(), options, templates, fixes, skipped, reviewLeft);
+        return new FixResult(workspace.displayName(), options, templates, done, skipped, reviewLeft, refused);
+    }
+
+    /**
+     * Writes every verified fix: new partials first, each only once the partials it includes exist,
+     * then the other files, each only if every new partial it includes was written; so no file ever
+     * includes a partial that is not there.
+     */
+    private List<FileFix> write(Map<String, FileFix> fixes, Map<String, SourceText> originals,
+                                Map<String, Set<String>> needs) {
+        FixWriter writer = new FixWriter(files);
+        Map<String, FileFix> done = new TreeMap<>();
+        Set<String> missing = new TreeSet<>();
+        List<FileFix> created = fixes.values().stream().filter(FileFix::created).toList();
+        List<FileFix> waiting = new ArrayList<>(created);
+        while (!waiting.isEmpty()) {
+            boolean progress = false;
+            for (FileFix fix : List.copyOf(waiting)) {
+                Set<String> wanted = needs.getOrDefault(fix.path(), Set.of());
+                if (wanted.stream().anyMatch(missing::contains)) {
+                    done.put(fix.path(), fix.with(FileFix.Outcome.NOT_WRITTEN, "it includes a new partial that could not be created"));
+                    missing.add(fix.path());
+                } else if (wanted.stream().allMatch(done::containsKey)) {
+                    FileFix result = writer.create(fix, workspace.root().resolve(fix.path()), like(fix.path(), needs, originals));
+                    done.put(fix.path(), result);
+                    if (result.outcome() != FileFix.Outcome.WRITTEN) {
+                        missing.add(fix.path());
+                    }
+                } else {
+                    continue;
+                }
+                waiting.remove(fix);
+                progress = true;
+            }
+            if (!progress) {
+                waiting.forEach(fix -> done.put(fix.path(), fix.with(FileFix.Outcome.NOT_WRITTEN,
+                        "its partials include each other, so it was not written")));
+                break;
+            }
+        }
+        for (FileFix fix : fixes.values()) {
+            if (fix.created()) {
+                continue;
+            }
+            List<String> absent = needs.getOrDefault(fix.path(), Set.of()).stream().filter(missing::contains).toList();
+            done.put(fix.path(), absent.isEmpty() ? writer.write(fix, originals.get(fix.path()))
+                    : fix.with(FileFix.Outcome.NOT_WRITTEN, "it would include " + String.join(", ", absent)
+                    + ", which could not be created, so the file is as it was; run the fix again"));
+        }
+        return new ArrayList<>(done.values());
+    }
+
+    /** A file a new partial takes its permissions from: one of the templates it was made from. */
+    private Path like(String partial, Map<String, Set<String>> needs, Map<String, SourceText> originals) {
+        for (Map.Entry<String, Set<String>> entry : needs.entrySet()) {
+            if (entry.getValue().contains(partial) && originals.containsKey(entry.getKey())) {
+                return originals.get(entry.getKey()).file();
+            }
+        }
+        return originals.values().iterator().next().file();
     }
 
     /** The file a path names once links are followed, so that two names of one file are fixed once. */

@@ -18,13 +18,15 @@ import java.util.TreeMap;
  * @param files      the files with rewrites (verified or dropped), sorted by path
  * @param skipped    files found but not fixed, with the reason, sorted by path
  * @param reviewLeft review-class rewrites the rules offered that were not applied, by rule id
+ * @param refused    places a rewrite across files (a shared block's extraction) left as they are, with the reason
  */
 public record FixResult(String root, FixOptions options, int templates, List<FileFix> files, List<SkippedFile> skipped,
-                        Map<String, Integer> reviewLeft) {
+                        Map<String, Integer> reviewLeft, List<NotApplied> refused) {
     public FixResult {
         files = List.copyOf(files);
         skipped = List.copyOf(skipped);
         reviewLeft = java.util.Collections.unmodifiableMap(new TreeMap<>(reviewLeft));
+        refused = List.copyOf(refused);
     }
 
     /** The files whose rewrite is (or in a dry run would be) in the file. */
@@ -37,9 +39,17 @@ public record FixResult(String root, FixOptions options, int templates, List<Fil
         return files.stream().filter(f -> !f.applied()).toList();
     }
 
-    /** Whether some file could not be fixed as planned: a dropped rewrite, a file changed meanwhile, a failed write. */
+    /**
+     * Whether something could not be fixed as planned: a dropped rewrite, a file changed meanwhile, a
+     * failed write, or a place a rewrite across files had to leave.
+     */
     public boolean failed() {
-        return !notFixed().isEmpty();
+        return !notFixed().isEmpty() || !refused.isEmpty();
+    }
+
+    /** The new files (partials) that are, or in a dry run would be, written. */
+    public List<FileFix> created() {
+        return applied().stream().filter(FileFix::created).toList();
     }
 
     /** The names of every tokenizer the applied rewrites were measured on, in the order the targets list them. */

@@ -44,6 +44,33 @@ final class FixWriter {
         }
     }
 
+    /**
+     * The fix after creating its new file at {@code file}, all at once, with the permissions of the
+     * file {@code like} (a template it was made from); a file that is there already (or appears
+     * meanwhile) is never replaced.
+     */
+    FileFix create(FileFix fix, Path file, Path like) {
+        if (fix.outcome() != FileFix.Outcome.PLANNED) {
+            return fix;
+        }
+        try {
+            if (java.nio.file.Files.exists(file, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+                return fix.with(FileFix.Outcome.CHANGED_MEANWHILE, "a file stands at this path already, so the new"
+                        + " partial was not written; run the fix again");
+            }
+            files.createFolders(file.toAbsolutePath().getParent());
+            SafeFileWriter.Outcome outcome = new SafeFileWriter(files).create(file, FileBytes.encode(fix.after(), false),
+                    files.permissions(like));
+            return outcome == SafeFileWriter.Outcome.CHANGED_MEANWHILE
+                    ? fix.with(FileFix.Outcome.CHANGED_MEANWHILE, "a file appeared at this path meanwhile, so the new"
+                    + " partial was not written; run the fix again")
+                    : fix.with(FileFix.Outcome.WRITTEN, "");
+        } catch (IOException e) {
+            return fix.with(FileFix.Outcome.NOT_WRITTEN, "creating it failed (" + e.getClass().getSimpleName() + ": "
+                    + e.getMessage() + "); no file was left there");
+        }
+    }
+
     /** The file a path names, through symbolic links, so that a link stays a link. */
     private static Path target(Path file) throws IOException {
         return file.toRealPath();

@@ -93,8 +93,18 @@ final class RewriteSelection {
     }
 
     private boolean wanted(Finding finding) {
-        boolean byClass = finding.rewriteClass() == RewriteClass.SAFE
-                || (finding.rewriteClass() == RewriteClass.REVIEW && options.includeReview());
-        return byClass && (options.only().isEmpty() || options.only().contains(finding.rule()));
+        return takes(finding.rule(), finding.rewriteClass());
+    }
+
+    /** Whether rewrites of class {@code rewriteClass} by rule {@code rule} are applied. */
+    boolean takes(String rule, RewriteClass rewriteClass) {
+        boolean byClass = rewriteClass == RewriteClass.SAFE
+                || (rewriteClass == RewriteClass.REVIEW && options.includeReview());
+        return byClass && named(rule);
+    }
+
+    /** Whether {@code rule} is among the rules asked for (every rule when none is named). */
+    boolean named(String rule) {
+        return options.only().isEmpty() || options.only().contains(rule);
     }
 }

@@ -72,20 +72,31 @@ public final class SafeFileWriter {
 
     /**
      * Creates {@code file} holding {@code bytes}, all at once: it appears whole or not at all.
-     * A file that appeared meanwhile is left alone.
+     * A file that is there, or appears meanwhile, is left alone: it is never replaced.
      *
      * @throws IOException when a step fails; no temporary file remains
      */
     public Outcome create(Path file, byte[] bytes) throws IOException {
+        return create(file, bytes, Optional.empty());
+    }
+
+    /**
+     * Creates {@code file} as {@link #create(Path, byte[])} does, with the given POSIX permissions
+     * (a temporary file is otherwise readable by its owner only).
+     */
+    public Outcome create(Path file, byte[] bytes, Optional<Set<PosixFilePermission>> permissions) throws IOException {
         Path temp = files.createTemp(file.toAbsolutePath().getParent(), "." + file.getFileName() + ".tare-");
         boolean moved = false;
         try {
             files.writeAndSync(temp, bytes);
-            if (java.nio.file.Files.exists(file)) {
+            if (permissions.isPresent()) {
+                files.setPermissions(temp, permissions.get());
+            }
+            if (!files.moveIfAbsent(temp, file)) {
                 return Outcome.CHANGED_MEANWHILE;
             }
-            files.moveAtomically(temp, file);
             moved = true;
+            files.syncFolder(file.toAbsolutePath().getParent());
             return Outcome.WRITTEN;
         } finally {
             if (!moved) {

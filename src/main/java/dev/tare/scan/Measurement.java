@@ -4,6 +4,7 @@ import dev.tare.config.TargetConfig;
 import dev.tare.footprint.CallSize;
 import dev.tare.footprint.Footprint;
 import dev.tare.footprint.Footprints;
+import dev.tare.overlap.CachePrefixes;
 import dev.tare.template.TemplateKind;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -14,13 +15,13 @@ import java.util.Map;
  * that reads and counts, and so the part {@link ScanCache} keeps. Fields as in {@link ScannedTemplate}.
  *
  * @param callSizes  per target the template runs on, the size of one call (tokens, framing, output)
- * @param leadingIds per target with a prefix cache, the template's leading static token ids, when
- *                   there are enough of them to be cached
+ * @param leadingIds per target with a prefix cache, the template's leading static token ids, as
+ *                   written and with its per-call parts last
  */
 record Measurement(String path, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
                    List<String> variables, List<String> unsizedVariables, List<String> includes,
                    Map<String, CallSize> callSizes, Map<String, Integer> estimatedByTarget,
-                   Map<String, int[]> leadingIds) {
+                   Map<String, CachePrefixes.Leading> leadingIds) {
 
     /** The template as the scan reports it, with footprints estimated on {@code targets} (by name). */
     ScannedTemplate template(Map<String, TargetConfig> targets) {

@@ -2,6 +2,7 @@ package dev.tare.scan;
 
 import dev.tare.Tare;
 import dev.tare.footprint.CallSize;
+import dev.tare.overlap.CachePrefixes;
 import dev.tare.template.TemplateKind;
 import java.io.BufferedInputStream;
 import java.io.BufferedOutputStream;
@@ -21,6 +22,7 @@ import java.nio.file.attribute.BasicFileAttributes;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.HexFormat;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -49,7 +51,7 @@ import java.util.zip.CRC32C;
  */
 final class ScanCache {
     private static final String MAGIC = "tare-scan-cache";
-    private static final int FORMAT = 1;
+    private static final int FORMAT = 2;
     /** How long before a scan a file's modification time must lie for its size and time to vouch for it. */
     private static final long RACY_NANOS = 2_000_000_000L;
 
@@ -325,15 +327,12 @@ final class ScanCache {
                 sizes.put(name, new CallSize(in.readInt(), in.readInt(), in.readInt(), in.readInt()));
                 byTarget.put(name, in.readInt());
             }
-            Map<String, int[]> leading = new LinkedHashMap<>();
+            Map<String, CachePrefixes.Leading> leading = new LinkedHashMap<>();
             int leadingCount = in.readInt();
             for (int t = 0; t < leadingCount; t++) {
                 String name = in.readUTF();
-                int[] ids = new int[in.readInt()];
-                for (int k = 0; k < ids.length; k++) {
-                    ids[k] = in.readInt();
-                }
-                leading.put(name, ids);
+                int[] now = readInts(in);
+                leading.put(name, new CachePrefixes.Leading(now, in.readBoolean() ? now : readInts(in)));
             }
             entries.put(self.path(), new Entry(self, dependencies, new Measurement(self.path(), kind, characters,
                     staticTokens, estimatedTokens, variables, unsized, includes, sizes, byTarget, leading)));
@@ -372,11 +371,14 @@ final class ScanCache {
                 out.writeInt(r.estimatedByTarget().getOrDefault(size.getKey(), 0));
             }
             out.writeInt(r.leadingIds().size());
-            for (Map.Entry<String, int[]> leading : r.leadingIds().entrySet()) {
+            for (Map.Entry<String, CachePrefixes.Leading> leading : r.leadingIds().entrySet()) {
+                CachePrefixes.Leading ids = leading.getValue();
                 out.writeUTF(leading.getKey());
-                out.writeInt(leading.getValue().length);
-                for (int id : leading.getValue()) {
-                    out.writeInt(id);
+                writeInts(out, ids.now());
+                boolean same = Arrays.equals(ids.now(), ids.reordered());
+                out.writeBoolean(same);
+                if (!same) {
+                    writeInts(out, ids.reordered());
                 }
             }
         }
@@ -398,6 +400,21 @@ final class ScanCache {
 
     private static Stamp readStamp(DataInputStream in) throws IOException {
         return new Stamp(in.readUTF(), new FileState(in.readLong(), in.readLong(), in.readLong(), in.readLong()));
+    }
+
+    private static void writeInts(DataOutputStream out, int[] ints) throws IOException {
+        out.writeInt(ints.length);
+        for (int i : ints) {
+            out.writeInt(i);
+        }
+    }
+
+    private static int[] readInts(DataInputStream in) throws IOException {
+        int[] ints = new int[in.readInt()];
+        for (int i = 0; i < ints.length; i++) {
+            ints[i] = in.readInt();
+        }
+        return ints;
     }
 
     private static void writeStrings(DataOutputStream out, List<String> strings) throws IOException {

@@ -82,6 +82,62 @@ public record ScanResult(String root, String tokenizer, List<String> targets, Li
     }
 
     /**
+     * Prefix caching over the templates that count toward totals, for each selected target with a
+     * prefix cache, in target order: the tokens per call cacheable now and with every template's
+     * per-call parts after its static parts, and what caching them saves per month.
+     */
+    public Map<String, CacheTotals> cacheTotals() {
+        Map<String, CacheTotals> totals = new LinkedHashMap<>();
+        for (TargetConfig target : targetConfigs) {
+            if (target.prefixCacheMinTokens().isEmpty()) {
+                continue;
+            }
+            int count = 0;
+            long cached = 0;
+            long reordered = 0;
+            double saving = 0;
+            double reorderedSaving = 0;
+            boolean priced = false;
+            for (ScannedTemplate template : templates) {
+                dev.tare.overlap.PrefixShare share = template.prefixes().get(target.name());
+                if (share == null || !template.countsInTotals()) {
+                    continue;
+                }
+                count++;
+                cached += share.cachedTokens();
+                reordered += share.reorderedCachedTokens();
+                if (share.savingPerMonth().isPresent()) {
+                    priced = true;
+                    saving += share.savingPerMonth().getAsDouble();
+                    reorderedSaving += share.reorderedSavingPerMonth().orElse(0);
+                }
+            }
+            totals.put(target.name(), new CacheTotals(target, count, cached, reordered,
+                    priced ? java.util.OptionalDouble.of(saving) : java.util.OptionalDouble.empty(),
+                    priced ? java.util.OptionalDouble.of(reorderedSaving) : java.util.OptionalDouble.empty()));
+        }
+        return totals;
+    }
+
+    /**
+     * One target's prefix caching, summed over its templates; money is a planning estimate.
+     *
+     * @param target                  the target, which has a prefix cache
+     * @param templates               how many templates run on it
+     * @param cachedTokens            cached input tokens per call, summed: what the cache serves now
+     * @param reorderedCachedTokens   the same with every template's per-call parts after its static parts
+     * @param savingPerMonth          what caching saves per month now, on a priced target with traffic
+     * @param reorderedSavingPerMonth what it would save with the per-call parts last
+     */
+    public record CacheTotals(TargetConfig target, int templates, long cachedTokens, long reorderedCachedTokens,
+                              java.util.OptionalDouble savingPerMonth, java.util.OptionalDouble reorderedSavingPerMonth) {
+        /** The currency of the savings, when the target is priced. */
+        public java.util.Optional<String> currency() {
+            return target.price().map(dev.tare.config.Price::currency);
+        }
+    }
+
+    /**
      * Repository totals.
      *
      * @param templates       templates counted (partials and tool files excluded)

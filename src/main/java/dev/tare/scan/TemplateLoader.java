@@ -11,6 +11,7 @@ import dev.tare.template.PartialDirectory;
 import dev.tare.template.Renderer;
 import dev.tare.template.Template;
 import dev.tare.template.TemplateParser;
+import java.util.Optional;
 
 /**
  * The one pipeline from a workspace to parsed templates, shared by every command that reads
@@ -21,6 +22,7 @@ public final class TemplateLoader {
     private final Workspace workspace;
     private final SafeReader reader;
     private final TemplateParser parser;
+    private final PartialCache partials;
     private final Renderer renderer;
 
     public TemplateLoader(Workspace workspace) {
@@ -28,7 +30,7 @@ public final class TemplateLoader {
         TareConfig config = workspace.config();
         this.reader = new SafeReader(config.templates().maxFileBytes());
         this.parser = new TemplateParser(config.templates().placeholder());
-        PartialCache partials = new PartialCache(workspace.root(), config.templates(), reader, parser);
+        this.partials = new PartialCache(workspace.root(), config.templates(), reader, parser);
         this.renderer = new Renderer(new PartialDirectory(config.templates().partials(), partials::load));
     }
 
@@ -70,6 +72,15 @@ public final class TemplateLoader {
     /** The renderer that resolves this workspace's includes. */
     public Renderer renderer() {
         return renderer;
+    }
+
+    /**
+     * A renderer that resolves includes in {@code texts} (root-relative path to the text a file would
+     * hold) before the files on disk: for rendering files as a rewrite would leave them.
+     */
+    public Renderer renderer(java.util.function.Function<String, Optional<Template>> texts) {
+        return new Renderer(new PartialDirectory(workspace.config().templates().partials(),
+                path -> texts.apply(path).or(() -> partials.load(path))));
     }
 
     /** The workspace this loader reads. */

@@ -7,6 +7,8 @@ import dev.tare.footprint.CallSize;
 import dev.tare.footprint.Footprint;
 import dev.tare.footprint.Footprints;
 import dev.tare.footprint.Framing;
+import dev.tare.overlap.CachePrefixes;
+import dev.tare.overlap.PrefixShare;
 import dev.tare.source.FileSelection;
 import dev.tare.source.SkippedFile;
 import dev.tare.source.SourceText;
@@ -122,48 +124,44 @@ public final class TemplateScan {
         return key.toString();
     }
 
-    /** The most leading token ids kept per template and target: enough for any cache threshold in use. */
-    static final int MAX_LEADING_IDS = 16_384;
-
-    /** Re-estimates the footprints on {@code target} of templates that share a prefix with another. */
+    /** Re-estimates the footprints on {@code target} with the prefix each template shares with others. */
     private static void applySharedPrefixes(TargetConfig target, List<ScannedTemplate> templates, List<Outcome> outcomes) {
-        List<String> paths = new ArrayList<>();
-        List<int[]> leading = new ArrayList<>();
+        Map<String, CachePrefixes.Leading> byPath = new LinkedHashMap<>();
         for (Outcome outcome : outcomes) {
-            int[] ids = outcome.leadingIds().get(target.name());
+            CachePrefixes.Leading ids = outcome.leadingIds().get(target.name());
             if (ids != null) {
-                paths.add(outcome.template().orElseThrow().path());
-                leading.add(ids);
+                byPath.put(outcome.template().orElseThrow().path(), ids);
             }
         }
-        int[] shared = SharedPrefixes.lengths(leading);
-        Map<String, Integer> byPath = new LinkedHashMap<>();
-        for (int i = 0; i < shared.length; i++) {
-            if (shared[i] > 0) {
-                byPath.put(paths.get(i), shared[i]);
-            }
-        }
+        List<Integer> indexes = new ArrayList<>();
+        List<CachePrefixes.Leading> leading = new ArrayList<>();
+        List<CallSize> calls = new ArrayList<>();
         for (int i = 0; i < templates.size(); i++) {
-            ScannedTemplate t = templates.get(i);
-            Integer tokens = byPath.get(t.path());
-            if (tokens == null) {
-                continue;
+            CachePrefixes.Leading ids = byPath.get(templates.get(i).path());
+            if (ids != null) {
+                Footprint f = templates.get(i).targets().get(target.name());
+                indexes.add(i);
+                leading.add(ids);
+                calls.add(new CallSize(f.inputTokens(), f.framingTokens(), f.outputTokens(), 0));
             }
-            Footprint before = t.targets().get(target.name());
-            Map<String, Footprint> footprints = new LinkedHashMap<>(t.targets());
-            footprints.put(target.name(), Footprints.estimate(target, new CallSize(before.inputTokens(),
-                    before.framingTokens(), before.outputTokens(), tokens)));
-            templates.set(i, t.withTargets(footprints));
+        }
+        List<PrefixShare> shares = CachePrefixes.share(target, leading, calls);
+        for (int k = 0; k < indexes.size(); k++) {
+            CallSize call = calls.get(k);
+            PrefixShare share = shares.get(k);
+            Footprint cached = Footprints.estimate(target, new CallSize(call.inputTokens(), call.framingTokens(),
+                    call.outputTokens(), share.cachedTokens()));
+            templates.set(indexes.get(k), templates.get(indexes.get(k)).withPrefix(target.name(), cached, share));
         }
     }
 
     /**
      * What became of one file: measured, or skipped with a reason. A measured template carries, per
-     * target with a prefix cache, its leading static token ids when there are enough to be cached.
+     * target with a prefix cache, its leading static token ids.
      */
     private record Outcome(Optional<ScannedTemplate> template, Optional<SkippedFile> skipped,
-                           Map<String, int[]> leadingIds) {
-        static Outcome of(ScannedTemplate template, Map<String, int[]> leadingIds) {
+                           Map<String, CachePrefixes.Leading> leadingIds) {
+        static Outcome of(ScannedTemplate template, Map<String, CachePrefixes.Leading> leadingIds) {
             return new Outcome(Optional.of(template), Optional.empty(), leadingIds);
         }
 
@@ -256,44 +254,23 @@ public final class TemplateScan {
                     leadingIds(template, samples, callSizes.keySet()));
         }
 
-        /**
-         * Leading static token ids per target with a prefix cache, kept only when there are at least
-         * the cache's minimum (shorter runs can never count), and at most {@link #MAX_LEADING_IDS}.
-         */
-        private Map<String, int[]> leadingIds(Template template, Rendering samples, Set<String> measuredTargets) {
-            if (template.kind() == TemplateKind.PARTIAL) {
+        /** Leading static token ids per target with a prefix cache; none for partials and tool files, which are never sent alone. */
+        private Map<String, CachePrefixes.Leading> leadingIds(Template template, Rendering samples, Set<String> measuredTargets) {
+            if (template.kind() == TemplateKind.PARTIAL || template.kind() == TemplateKind.TOOLS) {
                 return Map.of();
             }
-            Map<String, int[]> ids = new LinkedHashMap<>();
-            List<String> leading = null;
+            Map<String, CachePrefixes.Leading> ids = new LinkedHashMap<>();
+            CachePrefixes.Texts texts = null;
             for (TargetConfig target : targets) {
                 if (target.prefixCacheMinTokens().isEmpty() || !measuredTargets.contains(target.name())) {
                     continue;
                 }
-                if (leading == null) {
-                    leading = LeadingText.of(template, loader.renderer(), samples);
+                if (texts == null) {
+                    texts = CachePrefixes.texts(template, loader.renderer(), samples);
                 }
-                int[] kept = leadingIds(byTarget.get(target.name()), leading);
-                if (kept.length > 0 && kept.length >= target.prefixCacheMinTokens().getAsInt()) {
-                    ids.put(target.name(), kept);
-                }
+                ids.put(target.name(), CachePrefixes.leading(texts, byTarget.get(target.name())));
             }
             return ids;
-        }
-
-        private static int[] leadingIds(Tokenizer tokenizer, List<String> messages) {
-            int[] kept = new int[0];
-            for (String message : messages) {
-                int[] ids = tokenizer.encode(message);
-                int take = Math.min(ids.length, MAX_LEADING_IDS - kept.length);
-                int[] joined = java.util.Arrays.copyOf(kept, kept.length + take);
-                System.arraycopy(ids, 0, joined, kept.length, take);
-                kept = joined;
-                if (kept.length == MAX_LEADING_IDS) {
-                    break;
-                }
-            }
-            return kept;
         }
 
         private List<TargetConfig> targetsOf(Template template) {

@@ -33,6 +33,10 @@ class DemoFixTest {
     private static final Path DEMO = Cli.projectDir().resolve("corpora/demo");
     private static final Path GOLDEN = Cli.projectDir().resolve("src/test/resources/dev/tare/cli/demo-fix-dry-run.txt");
     private static final Pattern PLACEHOLDER = Pattern.compile("\\{\\{.*?\\}\\}|\\{%.*?%\\}|\\{#.*?#\\}", Pattern.DOTALL);
+    /** WASTE.md, "Pasted safety preamble": the copies identical to the partial (after YAML parsing for the chat file). */
+    private static final List<String> BYTE_IDENTICAL_PREAMBLE = List.of("prompts/billing/explain-bill.md",
+            "prompts/outages/outage-status.md", "prompts/quality/quality-notice.md", "prompts/connections/new-service.md",
+            "prompts/billing/payment-plan.chat.yaml");
 
     @TempDir
     Path copy;
@@ -158,10 +162,15 @@ class DemoFixTest {
             Files.setLastModifiedTime(copy.resolve(path), old);
         }
         Map<String, byte[]> before = snapshot();
-        assertEquals(0, Cli.run("fix", copy.toString(), "--include-review").exitCode());
+        // Exit 1: the two copies of the pasted preamble that differ in whitespace are left (WASTE.md).
+        assertEquals(1, Cli.run("fix", copy.toString(), "--include-review").exitCode());
         for (String path : before.keySet()) {
             if (path.startsWith("prompts/")) {
-                assertEquals(placeholders(new String(before.get(path), StandardCharsets.UTF_8)), placeholders(read(path)), path);
+                Map<String, Integer> expected = placeholders(new String(before.get(path), StandardCharsets.UTF_8));
+                if (BYTE_IDENTICAL_PREAMBLE.contains(path)) {
+                    expected.merge("{{> safety-preamble }}", 1, Integer::sum);
+                }
+                assertEquals(expected, placeholders(read(path)), path);
             }
         }
         for (String path : clean) {
@@ -176,8 +185,9 @@ class DemoFixTest {
         assertTrue(safe.out().contains("Review-class rewrites not applied: costly-character"), safe.out());
         // WASTE.md, "Decorative rulers": review-class, so still there after a safe fix.
         assertEquals("==========", line(read("prompts/system/assistant.md"), 16));
+        assertTrue(safe.out().contains("shared-block (1)"), "the preamble's extraction waits too: " + safe.out());
         Cli.Run review = Cli.run("fix", copy.toString(), "--include-review");
-        assertEquals(0, review.exitCode(), review.err());
+        assertEquals(1, review.exitCode(), "the preamble copies that differ in whitespace stay: " + review.out());
         assertTrue(review.out().contains("Review-class rewrites applied: costly-character"), review.out());
         assertTrue(review.out().contains("evaluate the prompts they change before they ship"), review.out());
         assertEquals("===", line(read("prompts/system/assistant.md"), 16));
@@ -206,12 +216,33 @@ class DemoFixTest {
     }
 
     @Test
+    void thePastedPreambleIsIncludedWhereItIsByteIdenticalAndLeftWhereItIsNot() throws IOException {
+        String preamble = original("prompts/partials/safety-preamble.md");
+        Cli.Run run = Cli.run("fix", copy.toString(), "--include-review", "--only", "shared-block");
+        assertEquals(1, run.exitCode(), run.out());
+        // WASTE.md, "Pasted safety preamble": the byte-identical copies become includes of the partial
+        // that already holds the text; the two that differ only in whitespace stay, each named with its line.
+        for (String path : BYTE_IDENTICAL_PREAMBLE) {
+            assertFalse(read(path).contains("Never ask a customer to open a meter pit"), path);
+            assertTrue(read(path).contains("{{> safety-preamble }}"), path);
+        }
+        assertTrue(read("prompts/billing/payment-plan.chat.yaml").contains("\n      {{> safety-preamble }}\n"));
+        assertTrue(run.out().contains("prompts/leaks/leak-triage.md:14: shared-block not applied"), run.out());
+        assertTrue(run.out().contains("prompts/meters/reading-dispute.md:15: shared-block not applied"), run.out());
+        assertEquals(original("prompts/leaks/leak-triage.md"), read("prompts/leaks/leak-triage.md"));
+        assertEquals(preamble, read("prompts/partials/safety-preamble.md"), "the partial itself is not touched");
+        assertFalse(Files.list(copy.resolve("prompts/partials")).anyMatch(p -> !List.of("account-lookup-notes.md",
+                "brand-voice.md", "escalation-policy.md", "safety-preamble.md").contains(p.getFileName().toString())),
+                "no new partial: the existing one holds the text");
+    }
+
+    @Test
     void aSecondFixChangesNothing() throws IOException {
-        assertEquals(0, Cli.run("fix", copy.toString(), "--include-review").exitCode());
+        assertEquals(1, Cli.run("fix", copy.toString(), "--include-review").exitCode());
         Map<String, byte[]> once = snapshot();
         Cli.Run again = Cli.run("fix", copy.toString(), "--include-review");
-        assertEquals(0, again.exitCode());
-        assertTrue(again.out().contains("Nothing to fix in"), again.out());
+        assertEquals(1, again.exitCode(), "the preamble copies that differ in whitespace are reported again");
+        assertTrue(again.out().contains("Nothing fixed in"), again.out());
         Map<String, byte[]> twice = snapshot();
         once.forEach((path, bytes) -> assertArrayEquals(bytes, twice.get(path), path));
     }

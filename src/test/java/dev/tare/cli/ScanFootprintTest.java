@@ -53,8 +53,11 @@ class ScanFootprintTest {
         assertTrue(doc.get("estimate_note").asText().contains("planning estimates"));
         for (JsonNode template : doc.get("templates")) {
             JsonNode hosted = template.get("targets").get("hosted");
+            // The FOOTPRINT keys, then prefix sharing on this target with a prefix cache.
             assertEquals(List.of("input_tokens", "framing_tokens", "cached_input_tokens", "cost_per_call",
-                    "cost_per_month", "currency"), keys(hosted));
+                    "cost_per_month", "currency", "shared_prefix_tokens", "cache_saving_per_month",
+                    "reordered_shared_prefix_tokens", "reordered_cached_input_tokens", "reordered_cache_saving_per_month"),
+                    keys(hosted));
             // The design's cost formula on the template's own counts (nothing cached below 1,024 tokens).
             assertEquals((hosted.get("input_tokens").asInt() * 2.50 + 300 * 10.00) / 1e6,
                     hosted.get("cost_per_call").asDouble(), 1e-12);

@@ -101,6 +101,8 @@ class DemoCorpusTest {
                 Arguments.of("prompts/outages/outage-report.chat.yaml", 24, 7, "costly-character"),
                 Arguments.of("prompts/outages/outage-report.chat.yaml", 27, 7, "costly-character"),
                 Arguments.of("prompts/outages/outage-report.chat.yaml", 45, 29, "costly-character"),
+                // "Pasted safety preamble": one finding, at the first copy outside the partials folder
+                Arguments.of("prompts/billing/explain-bill.md", 17, 1, "shared-block"),
                 // "Cache-hostile prefix", "Budgets", "Variables"
                 Arguments.of("prompts/system/assistant.md", 10, 10, "cache-order"),
                 Arguments.of("prompts/billing/explain-bill.md", 2, 1, "over-budget"),
@@ -148,6 +150,20 @@ class DemoCorpusTest {
         boolean flagged = result.findings().stream().anyMatch(f -> f.path().equals("prompts/system/assistant.md")
                 && f.line() == 80 && f.rule().equals("costly-character"));
         assertEquals(costlier, flagged);
+    }
+
+    @Test
+    void thePastedPreambleIsOneFindingWithEveryOtherCopyRelated() {
+        // WASTE.md, "Pasted safety preamble": seven pasted copies (two differing only in whitespace) and
+        // the partial that holds the canonical text; the templates that include the partial hold no copy.
+        List<Finding> shared = result.findings().stream().filter(f -> f.rule().equals("shared-block")).toList();
+        assertEquals(1, shared.size(), shared.toString());
+        assertEquals(List.of("prompts/billing/payment-plan.chat.yaml", "prompts/connections/new-service.md",
+                        "prompts/leaks/leak-triage.md", "prompts/meters/reading-dispute.md", "prompts/outages/outage-status.md",
+                        "prompts/partials/safety-preamble.md", "prompts/quality/quality-notice.md"),
+                shared.get(0).related().stream().map(Related::path).toList());
+        List<Integer> lines = shared.get(0).related().stream().map(Related::line).toList();
+        assertEquals(List.of(14, 18, 14, 15, 16, 1, 16), lines);
     }
 
     @Test

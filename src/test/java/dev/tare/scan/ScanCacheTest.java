@@ -31,12 +31,14 @@ class ScanCacheTest {
     @BeforeEach
     void repository() throws IOException {
         write("tare.yaml", "templates: {include: [\"prompts/**/*.md\", \"tools/*.json\"]}\n"
-                + "targets:\n  - {name: hosted, tokenizer: o200k_base, price: {input: 2.0, output: 8.0}, output_tokens: 100}\n"
+                + "targets:\n  - {name: hosted, tokenizer: o200k_base, price: {input: 2.0, cached_input: 0.5, output: 8.0},"
+                + " output_tokens: 100, prefix_cache_min_tokens: 3, calls_per_day: 1000}\n"
                 + "  - {name: lite, tokenizer: cl100k_base, message_overhead_tokens: 4}\n");
         write("prompts/partials/policy.md", "Never share a customer's account number.");
         write("prompts/reply.md", "---\ntools: [tools/lookup.json]\nvariables: {name: {sample: \"Ada\"}}\n---\n"
                 + "Dear {{ name }}, {{> policy }} Answer briefly.");
         write("prompts/other.md", "Summarise the meter reading dispute in two sentences.");
+        write("prompts/sibling.md", "Summarise the meter reading history for {{ account }}.");
         write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\": \"Finds an account.\","
                 + " \"parameters\": {\"type\": \"object\", \"properties\": {}}}]");
         ageEveryFile();
@@ -49,6 +51,8 @@ class ScanCacheTest {
         assertEquals(fresh().templates(), cold.templates());
         assertEquals(cold.templates(), warm.templates());
         assertEquals(cold.skipped(), warm.skipped());
+        assertTrue(warm.templates().stream().anyMatch(t -> t.targets().get("hosted").cachedInputTokens().orElse(0) > 0),
+                "prefix sharing survives the cache: " + warm.templates());
         assertTrue(Files.isRegularFile(root.resolve(".tare/.gitignore")), "the cache folder ignores itself");
         assertEquals(1, cacheFiles().size());
     }

@@ -1,6 +1,5 @@
 package dev.tare.scan;
 
-import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -87,17 +86,8 @@ class SharedPrefixScanTest {
         write("prompts/big-a.md", big + "{{a}}");
         write("prompts/big-b.md", big + "{{b}}");
         assertEquals(20_001, o200k.count(big));
-        assertEquals(TemplateScan.MAX_LEADING_IDS,
+        assertEquals(dev.tare.overlap.CachePrefixes.MAX_LEADING_IDS,
                 scan().get("prompts/big-a.md").targets().get("hosted").cachedInputTokens().getAsInt());
-    }
-
-    @Test
-    void sharedPrefixesOfIdSequences() {
-        // By hand: [1,2,3,4] and [1,2,3,9] share 3; [1,2] shares 2 with both; [7] shares nothing.
-        int[] lengths = SharedPrefixes.lengths(List.of(new int[] {1, 2, 3, 4}, new int[] {7}, new int[] {1, 2, 3, 9},
-                new int[] {1, 2}));
-        assertArrayEquals(new int[] {3, 0, 3, 2}, lengths);
-        assertArrayEquals(new int[] {0}, SharedPrefixes.lengths(List.of(new int[] {5, 6})));
     }
 
     private Map<String, ScannedTemplate> scan() {

@@ -12,7 +12,7 @@ public final class BuiltInRules {
     public static List<Rule> all() {
         return List.of(new BaselineGrowth(), new BaselineShrink(), new BlankLines(), new CacheOrder(), new CostlyCharacter(), new DecorativeRuler(),
                 new InvisibleCharacter(), new NearDuplicateInstruction(), new OverBudget(), new PrettyJson(),
-                new ProseTab(), new RepeatedInstruction(), new SpaceRun(), new TrailingWhitespace(),
+                new ProseTab(), new RepeatedInstruction(), new SharedBlock(), new SpaceRun(), new TrailingWhitespace(),
                 new UnknownSuppression(), new UnresolvedInclude(), new UnsizedVariable(), new UnterminatedPlaceholder(),
                 new UnusedVariable(), new PrettyToolFile(), new RepeatedToolDescription(), new LongToolText(),
                 new UndescribedToolParameter(), new ToolCost());

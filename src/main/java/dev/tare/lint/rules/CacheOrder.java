@@ -10,8 +10,9 @@ import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
 import dev.tare.lint.TemplateText;
-import dev.tare.scan.Estimates;
+import dev.tare.overlap.LeadingText;
 import dev.tare.template.Message;
+import dev.tare.template.Rendering;
 import dev.tare.template.Segment;
 import dev.tare.template.Template;
 import dev.tare.template.TemplateKind;
@@ -26,8 +27,10 @@ import java.util.Optional;
  * only when they are the same on every call and at least the target's
  * {@code prefix_cache_min_tokens} long; a variable before that point means no prefix is ever cached.
  * The rule fires when the static text before the first variable is shorter than the minimum but the
- * template's static text as a whole reaches it, and says how many tokens would be cacheable with
- * the per-call text moved after the static text.
+ * template's static text as a whole reaches it, and says how many tokens every call would start with
+ * were the per-call text moved after the static text. The leading text is measured as the scan
+ * measures cached tokens ({@link LeadingText}: includes pasted in, a variable inside an include
+ * counts where it stands), so that the two agree on where a template's per-call part starts.
  */
 final class CacheOrder implements Rule {
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("cache-order", Severity.WARNING, RewriteClass.NONE,
@@ -52,19 +55,8 @@ final class CacheOrder implements Rule {
         if (template.kind() == TemplateKind.PARTIAL) {
             return List.of();
         }
-        List<Segment.Variable> variables = new ArrayList<>();
-        int firstMessage = -1;
-        for (int m = 0; m < template.messages().size(); m++) {
-            for (Segment segment : template.messages().get(m).segments()) {
-                if (segment instanceof Segment.Variable variable) {
-                    variables.add(variable);
-                    if (firstMessage < 0) {
-                        firstMessage = m;
-                    }
-                }
-            }
-        }
-        if (variables.isEmpty()) {
+        Optional<Rendering> samples = context.rendering(template);
+        if (samples.isEmpty() || samples.get().variables().isEmpty()) {
             return List.of();
         }
         Tokenizer tokenizer = context.tokenizer(template);
@@ -72,43 +64,75 @@ final class CacheOrder implements Rule {
         int prefix;
         int total;
         try {
-            prefix = Estimates.tokens(tokenizer, context.renderer().renderStatic(before(template, firstMessage, variables.get(0))));
-            total = Estimates.tokens(tokenizer, context.renderer().renderStatic(template));
+            prefix = tokens(tokenizer, LeadingText.of(template, context.renderer(), samples.get()));
+            total = tokens(tokenizer, LeadingText.reordered(template, context.renderer()));
         } catch (TareException e) {
             return List.of();
         }
         if (prefix >= minimum || total < minimum) {
             return List.of();
         }
-        TemplateText text = context.text(template);
-        UnsizedVariable.Location at = UnsizedVariable.locate(text, template, variables.get(0));
-        List<Related> related = new ArrayList<>();
-        for (Segment.Variable other : variables.subList(1, Math.min(variables.size(), 6))) {
-            UnsizedVariable.Location place = UnsizedVariable.locate(text, template, other);
-            related.add(text.related(place.message(), place.start(), "more per-call text: " + other.source()));
+        List<Segment> perCall = perCallParts(template, context);
+        if (perCall.isEmpty()) {
+            return List.of();
         }
+        Segment first = perCall.get(0);
+        TemplateText text = context.text(template);
+        UnsizedVariable.Location at = UnsizedVariable.locate(text, template, first);
+        List<Related> related = new ArrayList<>();
+        for (Segment other : perCall.subList(1, Math.min(perCall.size(), 6))) {
+            UnsizedVariable.Location place = UnsizedVariable.locate(text, template, other);
+            related.add(text.related(place.message(), place.start(), "more per-call text: " + source(other)));
+        }
+        int variables = samples.get().variables().size();
         String message = String.format(Locale.ROOT,
-                "'%s' comes after only %,d static tokens, below the %,d-token cache minimum, and %,d static tokens"
-                        + " follow; with the per-call text (%d %s) moved after the static text, about %,d tokens would"
-                        + " be cacheable on %s (planning estimate)",
-                variables.get(0).source(), prefix, minimum, total - prefix, variables.size(),
-                variables.size() == 1 ? "variable" : "variables", total, tokenizer.name());
+                "'%s' %s after only %,d leading static tokens, below the %,d-token cache minimum, and %,d static"
+                        + " tokens follow; with the per-call parts (%d %s) moved after the static parts, every call"
+                        + " would start with the same %,d tokens on %s, enough to be cached ('tare scan' shows what"
+                        + " is shared with other templates; planning estimate)",
+                source(first), first instanceof Segment.Include ? "brings in per-call text" : "comes", prefix, minimum,
+                total - prefix, variables, variables == 1 ? "variable" : "variables", total, tokenizer.name());
         return List.of(text.finding(DESCRIPTOR, at.message(), at.start(), at.end(), message, Optional.empty(), related));
     }
 
-    /** The template cut just before {@code variable}: the messages before its own, and its own up to it. */
-    private static Template before(Template template, int messageIndex, Segment.Variable variable) {
-        List<Message> messages = new ArrayList<>(template.messages().subList(0, messageIndex));
-        Message own = template.messages().get(messageIndex);
-        List<Segment> segments = new ArrayList<>();
-        for (Segment segment : own.segments()) {
-            if (segment == variable) {
-                break;
+    /**
+     * The template's own segments that make calls differ, in order: its variables, and its includes
+     * whose pasted text holds a variable.
+     */
+    private static List<Segment> perCallParts(Template template, LintContext context) {
+        List<Segment> parts = new ArrayList<>();
+        for (Message message : template.messages()) {
+            for (Segment segment : message.segments()) {
+                if (segment instanceof Segment.Variable || segment instanceof Segment.Include include
+                        && bringsVariables(template, message, include, context)) {
+                    parts.add(segment);
+                }
             }
-            segments.add(segment);
         }
-        messages.add(new Message(own.role(), own.content(), segments));
-        return new Template(template.path(), template.kind(), template.meta(), messages, template.source(),
+        return parts;
+    }
+
+    private static boolean bringsVariables(Template template, Message message, Segment.Include include, LintContext context) {
+        Template alone = new Template(template.path(), template.kind(), template.meta(),
+                List.of(new Message(message.role(), message.content(), List.of(include))), template.source(),
                 template.bodyStart(), template.syntax());
+        try {
+            return !context.renderer().renderStatic(alone).variables().isEmpty();
+        } catch (TareException e) {
+            return false;
+        }
+    }
+
+    private static String source(Segment segment) {
+        return segment instanceof Segment.Variable variable ? variable.source()
+                : segment instanceof Segment.Include include ? include.source() : "";
+    }
+
+    private static int tokens(Tokenizer tokenizer, List<String> messages) {
+        int total = 0;
+        for (String message : messages) {
+            total += tokenizer.count(message);
+        }
+        return total;
     }
 }

@@ -44,7 +44,31 @@ class TemplateLevelRulesTest {
         assertEquals(1, found.size());
         assertEquals(10, found.get(0).column());
         int total = o200k.count(text.replace("{{ date }}", ""));
-        assertTrue(found.get(0).message().contains("about " + total + " tokens would be cacheable"), found.get(0).message());
+        assertTrue(found.get(0).message().contains("every call would start with the same " + total + " tokens"),
+                found.get(0).message());
+    }
+
+    @Test
+    void aVariableInsideAnIncludeAheadOfTheStaticPartCountsAsTheScanCountsIt() {
+        // The scan's cached tokens stop at the first variable wherever it stands, includes pasted in
+        // (overlap.LeadingText); the rule measures the same leading text, so a greeting partial with a
+        // name in it breaks the prefix even though the template's own first variable comes last.
+        String body = "{{> greeting }}\n" + "Answer water billing questions briefly and politely. ".repeat(6)
+                + "\nToday is {{ date }}.\n";
+        dev.tare.template.Template partial = dev.tare.lint.RuleHarness.template("prompts/partials/greeting.md",
+                "Hello {{ name }}.\n");
+        dev.tare.template.Template template = dev.tare.lint.RuleHarness.template("prompts/a.md", body);
+        dev.tare.template.Renderer renderer = new dev.tare.template.Renderer(new dev.tare.template.PartialDirectory(
+                "prompts/partials", path -> path.equals(partial.path()) ? java.util.Optional.of(partial)
+                : java.util.Optional.empty()));
+        dev.tare.lint.LintContext context = dev.tare.lint.LintContext.forExample(Path.of("."),
+                new Example(body, body, Map.of(Example.PREFIX_CACHE_MIN_TOKENS, 32)), java.util.Set.of(),
+                List.of(template, partial), renderer);
+        List<Finding> found = new CacheOrder().check(template, context);
+        assertEquals(1, found.size());
+        assertEquals(1, found.get(0).column());
+        assertTrue(found.get(0).message().startsWith("'{{> greeting }}' brings in per-call text after only "
+                + o200k.count("Hello ") + " leading static tokens"), found.get(0).message());
     }
 
     @Test

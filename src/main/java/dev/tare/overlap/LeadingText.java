@@ -1,4 +1,4 @@
-package dev.tare.scan;
+package dev.tare.overlap;
 
 import dev.tare.template.Renderer;
 import dev.tare.template.Rendering;
@@ -15,8 +15,10 @@ import java.util.OptionalInt;
 /**
  * The text of a template before its first variable, message by message: the part that is the same
  * on every call, and so the only part a prefix cache can serve. Includes are pasted in as usual.
+ * The scan's cached tokens and the {@code cache-order} rule both measure the leading text here, so
+ * that they agree on where a template's per-call part starts.
  */
-final class LeadingText {
+public final class LeadingText {
     /** Marks where a variable stands; template files cannot contain it, as reading refuses NUL bytes. */
     private static final String MARK = "\u0000";
 
@@ -28,7 +30,7 @@ final class LeadingText {
      *
      * @param samples the template's rendering with samples, which lists every variable occurrence
      */
-    static List<String> of(Template template, Renderer renderer, Rendering samples) {
+    public static List<String> of(Template template, Renderer renderer, Rendering samples) {
         // Rendering each variable as a mark finds the first one across messages and includes alike.
         Map<String, VariableSpec> marks = new LinkedHashMap<>();
         for (Rendering.Occurrence occurrence : samples.variables()) {
@@ -48,5 +50,13 @@ final class LeadingText {
             leading.add(message);
         }
         return leading;
+    }
+
+    /**
+     * The leading text the template would have if its per-call parts came after its static parts:
+     * every message rendered with its variables empty, in order.
+     */
+    public static List<String> reordered(Template template, Renderer renderer) {
+        return renderer.renderStatic(template).messages();
     }
 }

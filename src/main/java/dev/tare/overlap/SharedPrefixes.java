@@ -1,4 +1,4 @@
-package dev.tare.scan;
+package dev.tare.overlap;
 
 import java.util.Arrays;
 import java.util.Comparator;
@@ -9,12 +9,12 @@ import java.util.List;
  * one other sequence. Sorting puts the best partner of every sequence next to it, so the work is
  * n log n comparisons rather than one per pair.
  */
-final class SharedPrefixes {
+public final class SharedPrefixes {
     private SharedPrefixes() {
     }
 
     /** The shared prefix length of each sequence, in input order; 0 for one sequence alone. */
-    static int[] lengths(List<int[]> sequences) {
+    public static int[] lengths(List<int[]> sequences) {
         int n = sequences.size();
         Integer[] order = new Integer[n];
         for (int i = 0; i < n; i++) {
