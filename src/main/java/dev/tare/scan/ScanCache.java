@@ -19,9 +19,11 @@ import java.nio.file.LinkOption;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.nio.file.attribute.BasicFileAttributes;
+import java.nio.file.attribute.FileTime;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.ArrayList;
+import java.util.Comparator;
 import java.util.Arrays;
 import java.util.HexFormat;
 import java.util.LinkedHashMap;
@@ -30,6 +32,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.TimeUnit;
+import java.util.stream.Stream;
 import java.util.zip.CRC32C;
 
 /**
@@ -54,6 +57,8 @@ final class ScanCache {
     private static final int FORMAT = 2;
     /** How long before a scan a file's modification time must lie for its size and time to vouch for it. */
     private static final long RACY_NANOS = 2_000_000_000L;
+    /** Caches of other builds or configurations kept beside the one written, newest first. */
+    static final int KEPT_OTHERS = 3;
 
     private final Optional<Path> file;
     private final Map<String, Entry> previous;
@@ -170,6 +175,7 @@ final class ScanCache {
                 Files.move(temporary, target, StandardCopyOption.REPLACE_EXISTING);
             }
             temporary = null;
+            pruneOthers(folder, target);
         } catch (IOException | RuntimeException e) {
             // A cache is an optimisation: a read-only checkout or a full disk must not fail the scan.
         } finally {
@@ -180,6 +186,31 @@ final class ScanCache {
                     // Left for the next run's write to replace; it is never read.
                 }
             }
+        }
+    }
+
+    /**
+     * Deletes all but the newest few other caches: each build and configuration makes its own, and
+     * a developer rebuilding Tare all day would otherwise leave one per build.
+     */
+    private static void pruneOthers(Path folder, Path kept) throws IOException {
+        List<Path> others;
+        try (Stream<Path> files = Files.list(folder)) {
+            others = files.filter(f -> !f.equals(kept))
+                    .filter(f -> f.getFileName().toString().startsWith("scan-") && f.getFileName().toString().endsWith(".bin"))
+                    .sorted(Comparator.comparing(ScanCache::modified).reversed())
+                    .toList();
+        }
+        for (Path old : others.subList(Math.min(KEPT_OTHERS, others.size()), others.size())) {
+            Files.deleteIfExists(old);
+        }
+    }
+
+    private static FileTime modified(Path file) {
+        try {
+            return Files.getLastModifiedTime(file);
+        } catch (IOException e) {
+            return FileTime.fromMillis(0);
         }
     }
 

@@ -130,6 +130,19 @@ class ScanCacheTest {
     }
 
     @Test
+    void cachesOfOtherBuildsAndConfigurationsArePrunedToTheNewestFew() throws IOException {
+        Path folder = Files.createDirectories(root.resolve(".tare/cache"));
+        for (int i = 0; i < ScanCache.KEPT_OTHERS + 3; i++) {
+            Path old = folder.resolve("scan-old" + i + ".bin");
+            Files.writeString(old, "from another build");
+            Files.setLastModifiedTime(old, FileTime.from(Instant.now().minus(10 + i, ChronoUnit.MINUTES)));
+        }
+        scan(true);
+        assertEquals(ScanCache.KEPT_OTHERS + 1, cacheFiles().size());
+        assertTrue(Files.exists(folder.resolve("scan-old0.bin")), "the newest others are kept");
+    }
+
+    @Test
     void withoutTheCacheNothingIsWritten() {
         scan(false);
         assertTrue(Files.notExists(root.resolve(".tare")));
