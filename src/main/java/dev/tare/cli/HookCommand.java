@@ -42,7 +42,12 @@ final class HookCommand implements Runnable {
             throw new IllegalStateException("the running jar's location is not a path", e);
         }
         if (location.endsWith(".jar")) {
-            return quote(java) + " -jar " + quote(location);
+            // The hook gets the same fast start as the launcher: the class-data archive beside the jar, when this JDK made it.
+            StringBuilder command = new StringBuilder(quote(java));
+            for (String option : ClassArchive.options(Path.of(System.getProperty("java.home")), Path.of(location))) {
+                command.append(' ').append(quote(option));
+            }
+            return command + " -jar " + quote(location);
         }
         return quote(java) + " -cp " + quote(System.getProperty("java.class.path")) + " dev.tare.cli.Main";
     }
