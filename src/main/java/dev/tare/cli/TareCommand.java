@@ -2,6 +2,7 @@ package dev.tare.cli;
 
 import dev.tare.Tare;
 import dev.tare.TareException;
+import dev.tare.tokenize.TokenizerRegistry;
 import java.io.PrintWriter;
 import java.util.LinkedHashMap;
 import java.util.Map;
@@ -75,9 +76,10 @@ public final class TareCommand implements Runnable {
         commandLine.setExecutionExceptionHandler(TareCommand::handleExecutionException);
         commandLine.setExecutionStrategy(parseResult -> {
             long started = System.nanoTime();
+            double loadedBefore = TokenizerRegistry.loadMillis();
             int code = new CommandLine.RunLast().execute(parseResult);
             if (requested(parseResult, "--timings")) {
-                Timings.print(commandLine.getErr(), started);
+                Timings.print(commandLine.getErr(), started, TokenizerRegistry.loadMillis() - loadedBefore);
             }
             return code;
         });
