@@ -170,6 +170,7 @@ class ClassArchiveIT {
         String hook = Files.readString(repo.resolve(".git/hooks/pre-commit"));
         String option = archive.getFileName().toString().endsWith(".aot") ? "-XX:AOTCache=" : "-XX:SharedArchiveFile=";
         assertTrue(hook.contains("'" + option + archive + "'"), hook);
+        assertTrue(hook.contains("'-XX:TieredStopAtLevel=1'"), "the launcher's options for the hook: " + hook);
         assertEquals("", commit(repo), "a clean commit prints nothing");
     }
 
