@@ -14,7 +14,10 @@
 # one, the hook-to-count ratios, and the CPU other processes used meanwhile (a busy machine shows).
 # The hook exits 1 here: the demo's templates carry planted findings, so the time includes the report.
 #
-# Environment: JAVA_HOME (run, and build if needed, with that JDK), BENCH_RUNS.
+# BENCH_OPTIONS adds rows that compare JVM options: 'LABEL=OPTIONS;LABEL=OPTIONS...' times
+# java OPTIONS -jar target/tare.jar hook run --timings for each (OPTIONS may be empty).
+#
+# Environment: JAVA_HOME (run, and build if needed, with that JDK), BENCH_RUNS, BENCH_OPTIONS.
 set -euo pipefail
 
 here="$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)"
@@ -71,6 +74,13 @@ commands=("sh $hook"
   "$project/tare hook run --timings"
   "$java -jar $jar count --timings $small"
   "$project/tare count --timings $small")
+if [ -n "${BENCH_OPTIONS:-}" ]; then
+  IFS=';' read -r -a variants <<<"$BENCH_OPTIONS"
+  for variant in "${variants[@]}"; do
+    labels+=("${variant%%=*}")
+    commands+=("$java ${variant#*=} -jar $jar hook run --timings")
+  done
+fi
 
 busy_ticks() {
   awk '/^cpu / { print $2 + $3 + $4 + $7 + $8 + $9 }' /proc/stat
@@ -94,7 +104,7 @@ for run in $(seq 1 "$runs"); do
   for i in "${!labels[@]}"; do
     before="$(busy_ticks)"
     set +e
-    (cd "$repo" && "$timer" -f '%e %U %S' -o "$work/time" ${commands[$i]} >/dev/null 2>"$work/err")
+    (set -f; cd "$repo" && "$timer" -f '%e %U %S' -o "$work/time" ${commands[$i]} >/dev/null 2>"$work/err")
     status=$?
     set -e
     after="$(busy_ticks)"
@@ -119,10 +129,10 @@ for run in $(seq 1 "$runs"); do
   done
 done
 
-printf '%-14s %8s %7s %9s %15s %9s  %s\n' command wall_s cpu_s start_ms tokenizer_ms work_ms class-data-archive
+printf '%-20s %8s %7s %9s %15s %9s  %s\n' command wall_s cpu_s start_ms tokenizer_ms work_ms class-data-archive
 for i in "${!labels[@]}"; do
   wall="$(median <"$results/$i.wall")"
-  printf '%-14s %8.2f %7.2f' "${labels[$i]}" "$wall" "$(median <"$results/$i.cpu")"
+  printf '%-20s %8.2f %7.2f' "${labels[$i]}" "$wall" "$(median <"$results/$i.cpu")"
   if [ -f "$results/$i.start" ]; then
     printf ' %9s %15s %9s  %s\n' "$(median <"$results/$i.start")" "$(median <"$results/$i.tokenizer load")" \
       "$(median <"$results/$i.work")" "$(cat "$results/$i.archive")"
