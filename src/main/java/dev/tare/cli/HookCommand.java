@@ -8,9 +8,9 @@ import dev.tare.lint.CheckResult;
 import dev.tare.report.CheckReport;
 import dev.tare.scan.Workspace;
 import dev.tare.tokenize.TokenizerRegistry;
-import java.util.List;
-import java.util.Optional;
 import java.io.IOException;
+import java.util.ArrayList;
+import java.util.List;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -32,6 +32,18 @@ final class HookCommand implements Runnable {
         throw new picocli.CommandLine.ParameterException(spec.commandLine(), "name a hook command: install, uninstall or run");
     }
 
+    /**
+     * The JVM options of the pre-commit hook, as {@code ./tare hook ...} chooses them (keep the two in
+     * step): the first JIT tier only, and the class-data archive beside the jar when this JDK made it.
+     * The hook is a short run that must feel instant; the optimizing compiler would spend more CPU
+     * than it saves there, on the core the work needs.
+     */
+    static List<String> jvmOptions(Path jar) {
+        List<String> options = new ArrayList<>(List.of("-XX:TieredStopAtLevel=1"));
+        options.addAll(ClassArchive.options(Path.of(System.getProperty("java.home")), jar));
+        return options;
+    }
+
     /** The shell command that runs this very build of Tare, for the hook to call. */
     static String selfCommand() {
         String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
@@ -41,10 +53,14 @@ final class HookCommand implements Runnable {
         } catch (java.net.URISyntaxException e) {
             throw new IllegalStateException("the running jar's location is not a path", e);
         }
-        if (location.endsWith(".jar")) {
-            return quote(java) + " -jar " + quote(location);
+        StringBuilder command = new StringBuilder(quote(java));
+        for (String option : jvmOptions(Path.of(location))) {
+            command.append(' ').append(quote(option));
         }
-        return quote(java) + " -cp " + quote(System.getProperty("java.class.path")) + " dev.tare.cli.Main";
+        if (location.endsWith(".jar")) {
+            return command + " -jar " + quote(location);
+        }
+        return command + " -cp " + quote(System.getProperty("java.class.path")) + " dev.tare.cli.Main";
     }
 
     private static String quote(String word) {

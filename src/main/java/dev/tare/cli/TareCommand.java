@@ -2,7 +2,10 @@ package dev.tare.cli;
 
 import dev.tare.Tare;
 import dev.tare.TareException;
+import dev.tare.tokenize.TokenizerRegistry;
 import java.io.PrintWriter;
+import java.util.LinkedHashMap;
+import java.util.Map;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 
@@ -11,13 +14,16 @@ import picocli.CommandLine.Command;
         mixinStandardHelpOptions = true,
         versionProvider = TareCommand.Version.class,
         description = "Measures and shrinks the token footprint of the prompt templates in a repository.",
-        subcommands = {ScanCommand.class, CheckCommand.class, FixCommand.class, CountCommand.class, CostCommand.class, TargetsCommand.class,
-                RulesCommand.class, ExplainCommand.class, BaselineCommand.class, CalibrateCommand.class,
-                HookCommand.class, InitCommand.class,
-                CommandLine.HelpCommand.class},
         footer = {"", "Exit codes: 0 ok, 1 findings, a budget breach or a file left unfixed by fix, 2 usage, configuration or input error,"
                 + " 3 internal error (add --debug for the stack trace)."})
 public final class TareCommand implements Runnable {
+    /**
+     * The subcommands by name, in the order help lists them. They are not in the annotation because
+     * picocli would then build every one of them (reflecting over all their options) on each run;
+     * {@link #commandLine(PrintWriter, PrintWriter, String...)} builds only the one that runs.
+     */
+    static final Map<String, Class<?>> SUBCOMMANDS = subcommands();
+
     @CommandLine.Spec
     private CommandLine.Model.CommandSpec spec;
 
@@ -26,18 +32,54 @@ public final class TareCommand implements Runnable {
         throw new CommandLine.ParameterException(spec.commandLine(), "name a command, for example: tare scan .");
     }
 
-    /** A configured command line writing to {@code out} and {@code err}; also what tests drive. */
+    private static Map<String, Class<?>> subcommands() {
+        Map<String, Class<?>> byName = new LinkedHashMap<>();
+        byName.put("scan", ScanCommand.class);
+        byName.put("check", CheckCommand.class);
+        byName.put("fix", FixCommand.class);
+        byName.put("count", CountCommand.class);
+        byName.put("cost", CostCommand.class);
+        byName.put("targets", TargetsCommand.class);
+        byName.put("rules", RulesCommand.class);
+        byName.put("explain", ExplainCommand.class);
+        byName.put("baseline", BaselineCommand.class);
+        byName.put("calibrate", CalibrateCommand.class);
+        byName.put("hook", HookCommand.class);
+        byName.put("init", InitCommand.class);
+        byName.put("help", CommandLine.HelpCommand.class);
+        return byName;
+    }
+
+    /** A configured command line with every subcommand, writing to {@code out} and {@code err}. */
     public static CommandLine commandLine(PrintWriter out, PrintWriter err) {
-        CommandLine commandLine = new CommandLine(new TareCommand());
+        return configure(new CommandLine(new TareCommand()), SUBCOMMANDS.keySet().toArray(String[]::new), out, err);
+    }
+
+    /**
+     * A configured command line for running {@code args}: when they start with a subcommand's name,
+     * only that subcommand is built, which is most of picocli's start-up work; otherwise (help, a
+     * version request, a misspelt name) every subcommand is, so the messages are the same as ever.
+     */
+    public static CommandLine commandLine(PrintWriter out, PrintWriter err, String... args) {
+        boolean one = args.length > 0 && SUBCOMMANDS.containsKey(args[0]) && !args[0].equals("help");
+        String[] names = one ? new String[] {args[0]} : SUBCOMMANDS.keySet().toArray(String[]::new);
+        return configure(new CommandLine(new TareCommand()), names, out, err);
+    }
+
+    private static CommandLine configure(CommandLine commandLine, String[] subcommands, PrintWriter out, PrintWriter err) {
+        for (String name : subcommands) {
+            commandLine.addSubcommand(name, SUBCOMMANDS.get(name));
+        }
         commandLine.setOut(out);
         commandLine.setErr(err);
         commandLine.setCaseInsensitiveEnumValuesAllowed(true);
         commandLine.setExecutionExceptionHandler(TareCommand::handleExecutionException);
         commandLine.setExecutionStrategy(parseResult -> {
             long started = System.nanoTime();
+            double loadedBefore = TokenizerRegistry.loadMillis();
             int code = new CommandLine.RunLast().execute(parseResult);
             if (requested(parseResult, "--timings")) {
-                Timings.print(commandLine.getErr(), started);
+                Timings.print(commandLine.getErr(), started, TokenizerRegistry.loadMillis() - loadedBefore);
             }
             return code;
         });

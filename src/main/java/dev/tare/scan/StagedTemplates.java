@@ -32,20 +32,19 @@ public final class StagedTemplates {
 
     static StagedTemplates read(Workspace workspace, TemplateFinder finder, SafeReader reader) {
         Path root = workspace.root();
-        GitIndex index = GitIndex.read(root);
+        // Only staged files that are selected templates are read out of git at all.
+        GitIndex index = GitIndex.read(root, absolute -> absolute.startsWith(root) && inStarts(absolute, workspace.starts())
+                && finder.selects(relative(root, absolute)));
         Path top = index.workTree();
         Map<String, StagedFile> byPath = new LinkedHashMap<>();
         for (StagedFile file : index.files()) {
-            Path absolute = top.resolve(file.path()).normalize();
-            if (!absolute.startsWith(root) || !inStarts(absolute, workspace.starts())) {
-                continue;
-            }
-            String relative = root.relativize(absolute).toString().replace('\\', '/');
-            if (finder.selects(relative)) {
-                byPath.put(relative, file);
-            }
+            byPath.put(relative(root, top.resolve(file.path()).normalize()), file);
         }
         return new StagedTemplates(byPath, root, reader);
+    }
+
+    private static String relative(Path root, Path absolute) {
+        return root.relativize(absolute).toString().replace('\\', '/');
     }
 
     private static boolean inStarts(Path file, List<Path> starts) {

@@ -7,6 +7,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.function.Predicate;
 import org.eclipse.jgit.dircache.DirCache;
 import org.eclipse.jgit.dircache.DirCacheIterator;
 import org.eclipse.jgit.lib.Constants;
@@ -40,13 +41,25 @@ public final class GitIndex {
      * @throws TareException when {@code inside} is not in a git work tree or the index cannot be read
      */
     public static GitIndex read(Path inside) {
+        return read(inside, file -> true);
+    }
+
+    /**
+     * Reads the index of the repository that {@code inside} belongs to, keeping only the staged files
+     * that {@code wanted} accepts (given their absolute, normalized paths). Only those are read from
+     * the object database and compared with the working tree, so a commit that also stages large
+     * files that are not templates costs no more than one that does not.
+     *
+     * @throws TareException when {@code inside} is not in a git work tree or the index cannot be read
+     */
+    public static GitIndex read(Path inside, Predicate<Path> wanted) {
         FileRepositoryBuilder builder = new FileRepositoryBuilder().readEnvironment().findGitDir(inside.toAbsolutePath().toFile());
         if (builder.getGitDir() == null) {
             throw new TareException(inside + " is not inside a git work tree; --staged needs one");
         }
         try (Repository repository = builder.build()) {
             Path top = repository.getWorkTree().toPath().toAbsolutePath().normalize();
-            return new GitIndex(top, staged(repository, top));
+            return new GitIndex(top, staged(repository, top, wanted));
         } catch (IOException e) {
             throw new TareException("the git index cannot be read (" + e.getMessage() + ")", e);
         }
@@ -84,7 +97,7 @@ public final class GitIndex {
         return files;
     }
 
-    private static List<StagedFile> staged(Repository repository, Path top) throws IOException {
+    private static List<StagedFile> staged(Repository repository, Path top, Predicate<Path> wanted) throws IOException {
         List<StagedFile> staged = new ArrayList<>();
         DirCache index = repository.readDirCache();
         try (ObjectReader reader = repository.newObjectReader(); TreeWalk walk = new TreeWalk(repository, reader)) {
@@ -107,8 +120,11 @@ public final class GitIndex {
                     continue;
                 }
                 String path = walk.getPathString();
+                Path onDisk = top.resolve(path).normalize();
+                if (!wanted.test(onDisk)) {
+                    continue;
+                }
                 byte[] bytes = reader.open(entry.getDirCacheEntry().getObjectId()).getBytes();
-                Path onDisk = top.resolve(path);
                 boolean same = Files.isRegularFile(onDisk) && Arrays.equals(bytes, Files.readAllBytes(onDisk));
                 staged.add(new StagedFile(path, bytes, same));
             }

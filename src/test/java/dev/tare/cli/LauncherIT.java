@@ -11,7 +11,9 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import java.util.concurrent.TimeUnit;
+import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 
 /** The real {@code ./tare} launcher and packaged jar, as a newcomer runs them (after {@code mvn package}). */
@@ -20,10 +22,16 @@ class LauncherIT {
     }
 
     private static Result launch(String... args) throws IOException, InterruptedException {
+        return launch(Map.of(), args);
+    }
+
+    private static Result launch(Map<String, String> env, String... args) throws IOException, InterruptedException {
         List<String> command = new ArrayList<>(List.of("bash", "./tare"));
         command.addAll(List.of(args));
         Path dir = Cli.projectDir();
-        Process process = new ProcessBuilder(command).directory(dir.toFile()).start();
+        ProcessBuilder builder = new ProcessBuilder(command).directory(dir.toFile());
+        builder.environment().putAll(env);
+        Process process = builder.start();
         process.getOutputStream().close();
         byte[] out = process.getInputStream().readAllBytes();
         byte[] err = process.getErrorStream().readAllBytes();
@@ -56,5 +64,16 @@ class LauncherIT {
         Result launched = launch("scan", "corpora/hostile/weird-names");
         assertEquals(0, launched.exitCode(), launched.err());
         assertTrue(launched.out().contains("café prompt.md"), launched.out());
+    }
+
+    @Test
+    void theHookRunsWithTheFirstJitTierOnlyAndOtherCommandsWithBoth() throws Exception {
+        Pattern firstTierOnly = Pattern.compile("TieredStopAtLevel\\s+= 1\\s");
+        Map<String, String> flags = Map.of("TARE_JAVA_OPTS", "-XX:+PrintFlagsFinal");
+        assertTrue(firstTierOnly.matcher(launch(flags, "hook", "run", "--help").out()).find(), "hook run");
+        assertTrue(firstTierOnly.matcher(launch(flags, "check", "--staged", "--help").out()).find(), "check --staged");
+        Result count = launch(flags, "count", "--help");
+        assertTrue(count.out().contains("TieredStopAtLevel"), count.out());
+        assertFalse(firstTierOnly.matcher(count.out()).find(), "count keeps the optimizing compiler");
     }
 }

@@ -44,6 +44,22 @@ class GitIndexTest {
     }
 
     @Test
+    void readsNothingOfTheStagedFilesItIsNotAskedFor() throws Exception {
+        Git.run(repo, "init", "-q");
+        Files.writeString(repo.resolve("keep.md"), "a template");
+        Files.writeString(repo.resolve("asset.bin"), "a large file that is not a template");
+        Git.run(repo, "add", "keep.md", "asset.bin");
+        // With its object gone, reading asset.bin would fail: the test passes only if it is never read.
+        String blob = Git.run(repo, "rev-parse", ":asset.bin").strip();
+        Files.delete(repo.resolve(".git/objects/" + blob.substring(0, 2) + "/" + blob.substring(2)));
+
+        GitIndex index = GitIndex.read(repo, file -> file.getFileName().toString().endsWith(".md"));
+        assertEquals(List.of("keep.md"), index.files().stream().map(StagedFile::path).toList());
+        assertEquals("a template", new String(index.files().get(0).staged(), StandardCharsets.UTF_8));
+        assertThrows(TareException.class, () -> GitIndex.read(repo), "the missing object is there to be noticed");
+    }
+
+    @Test
     void beforeTheFirstCommitEveryStagedFileCounts() throws Exception {
         Git.run(repo, "init", "-q");
         Files.createDirectories(repo.resolve("prompts"));

@@ -65,7 +65,9 @@ final class CostlyCharacter implements Rule {
     @Override
     public List<Finding> check(Template template, LintContext context) {
         TemplateText text = context.text(template);
-        List<Tokenizer> tokenizers = context.targetTokenizers(template);
+        // Asked for at the first candidate, not before: a template in plain ASCII then loads no tokenizer
+        // here, which in the pre-commit hook spares loading every target's tokenizer for nothing.
+        List<Tokenizer> tokenizers = new ArrayList<>();
         List<Finding> findings = new ArrayList<>();
         for (MessageText message : text.messages()) {
             String content = message.content();
@@ -82,6 +84,9 @@ final class CostlyCharacter implements Rule {
                     int end = Math.min(range[1], clusterEnd(content, i));
                     Optional<Edit> edit = plainEdit(content, i, end, range);
                     if (edit.isPresent()) {
+                        if (tokenizers.isEmpty()) {
+                            tokenizers.addAll(context.targetTokenizers(template));
+                        }
                         measure(content, edit.get(), tokenizers).ifPresent(cost -> findings.add(text.finding(DESCRIPTOR,
                                 message, start, end, describe(content.substring(start, end), edit.get(), cost),
                                 text.rewrite(message, List.of(edit.get()), context.tokenizer(template)), List.of())));

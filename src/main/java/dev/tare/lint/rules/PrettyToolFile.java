@@ -31,7 +31,10 @@ final class PrettyToolFile implements ToolRule {
             Example.of("[\n  {\"name\": \"lookup_account\", \"description\": \"Find an account.\"}\n]\n",
                     "[{\"name\":\"lookup_account\",\"description\":\"Find an account.\"}]\n"));
 
-    private static final ObjectMapper JSON = new ObjectMapper();
+    /** Built on first use: every check loads this class for its descriptor, few ever meet a JSON tool file. */
+    private static final class Json {
+        static final ObjectMapper MAPPER = new ObjectMapper();
+    }
 
     @Override
     public RuleDescriptor descriptor() {
@@ -46,7 +49,7 @@ final class PrettyToolFile implements ToolRule {
         String source = template.source();
         String minified;
         try {
-            minified = JSON.writeValueAsString(JSON.readTree(source));
+            minified = Json.MAPPER.writeValueAsString(Json.MAPPER.readTree(source));
         } catch (JsonProcessingException e) {
             return List.of();
         }

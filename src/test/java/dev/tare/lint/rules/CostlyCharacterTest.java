@@ -5,11 +5,22 @@ import static dev.tare.lint.RuleHarness.fixed;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import dev.tare.config.ConfigLoader;
+import dev.tare.config.TareConfig;
 import dev.tare.lint.Finding;
+import dev.tare.lint.LintContext;
+import dev.tare.lint.RuleHarness;
+import dev.tare.template.IncludeResolver;
+import dev.tare.template.Renderer;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
+import java.nio.file.Files;
+import java.nio.file.Path;
 import java.util.List;
+import java.util.Map;
+import java.util.Set;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
 
 /**
  * Costly characters are decided by measurement. Every expectation here is first checked against
@@ -18,7 +29,7 @@ import org.junit.jupiter.api.Test;
  */
 class CostlyCharacterTest {
     private final CostlyCharacter rule = new CostlyCharacter();
-    private final Tokenizer o200k = new TokenizerRegistry().get("o200k_base", java.nio.file.Path.of("."));
+    private final Tokenizer o200k = new TokenizerRegistry().get("o200k_base", Path.of("."));
 
     @Test
     void anEmojiThatCostsTokensIsFlaggedAndDroppedForReview() {
@@ -52,5 +63,18 @@ class CostlyCharacterTest {
     void asciiTextAndCodeAreNeverFlagged() {
         assertTrue(findings(rule, "Plain ASCII only -> fine.\n").isEmpty());
         assertTrue(findings(rule, "`\uD83D\uDCA7`\n").isEmpty());
+    }
+
+    @Test
+    void plainAsciiLoadsNoTargetTokenizer(@TempDir Path dir) throws Exception {
+        Files.writeString(dir.resolve("tare.yaml"), "targets: [{name: a, tokenizer: o200k_base}, {name: b, tokenizer: cl100k_base}]\n");
+        TareConfig config = ConfigLoader.load(dir.resolve("tare.yaml"));
+        LintContext context = new LintContext(config, new TokenizerRegistry(), new Renderer(IncludeResolver.NONE), List.of(),
+                Set.of(), Map.of());
+        double before = TokenizerRegistry.loadMillis();
+        assertTrue(rule.check(RuleHarness.template("a.md", "Plain ASCII only -> fine.\n"), context).isEmpty());
+        assertEquals(before, TokenizerRegistry.loadMillis(), "no tokenizer was loaded");
+        rule.check(RuleHarness.template("b.md", "I haven\u2019t done anything.\n"), context);
+        assertTrue(TokenizerRegistry.loadMillis() > before, "a candidate character loads the targets' tokenizers");
     }
 }

@@ -1,0 +1,55 @@
+package dev.tare.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Set;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.ValueSource;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+
+/** The command line that builds only the subcommand being run behaves as the one that builds them all. */
+class SubcommandsTest {
+    private static Cli.Run run(boolean lazy, String... args) {
+        StringWriter out = new StringWriter();
+        StringWriter err = new StringWriter();
+        PrintWriter outWriter = new PrintWriter(out, true);
+        PrintWriter errWriter = new PrintWriter(err, true);
+        CommandLine commandLine = lazy ? TareCommand.commandLine(outWriter, errWriter, args)
+                : TareCommand.commandLine(outWriter, errWriter);
+        int code = commandLine.execute(args);
+        return new Cli.Run(code, out.toString(), err.toString());
+    }
+
+    @ParameterizedTest
+    @ValueSource(strings = {"", "--help", "--version", "help", "help scan", "scna", "scan --help", "scan --no-such-flag",
+            "count", "count --format yaml x.md", "hook", "hook --help", "hook run --help", "hook nope", "rules",
+            "explain blank-lines", "explain no-such-rule", "cost --help", "check --fail-on never"})
+    void printsWhatTheFullCommandLinePrints(String line) {
+        String[] args = line.isEmpty() ? new String[0] : line.split(" ");
+        assertEquals(run(false, args), run(true, args));
+    }
+
+    @Test
+    void buildsOnlyTheSubcommandNamedFirst() {
+        PrintWriter sink = new PrintWriter(new StringWriter());
+        assertEquals(Set.of("count"), TareCommand.commandLine(sink, sink, "count", "a.md").getSubcommands().keySet());
+        assertEquals(Set.of("hook"), TareCommand.commandLine(sink, sink, "hook", "run").getSubcommands().keySet());
+        assertEquals(TareCommand.SUBCOMMANDS.keySet(), TareCommand.commandLine(sink, sink, "help", "count").getSubcommands().keySet());
+        assertEquals(TareCommand.SUBCOMMANDS.keySet(), TareCommand.commandLine(sink, sink, "--help").getSubcommands().keySet());
+    }
+
+    @Test
+    void eachSubcommandIsListedUnderItsOwnName() {
+        List<String> annotated = new ArrayList<>();
+        for (Class<?> command : TareCommand.SUBCOMMANDS.values()) {
+            annotated.add(command.getAnnotation(Command.class).name());
+        }
+        assertEquals(List.copyOf(TareCommand.SUBCOMMANDS.keySet()), annotated);
+    }
+}
