@@ -62,10 +62,14 @@ final class NearDuplicateInstruction implements Rule {
         TemplateText text = context.text(template);
         List<Located> all = new ArrayList<>();
         for (MessageText message : text.messages()) {
+            if (all.size() >= MAX_SENTENCES) {
+                break;
+            }
             List<Sentences.Sentence> sentences = Sentences.of(message);
-            for (Sentences.Sentence sentence : sentences) {
-                if (sentence.words() >= Sentences.MIN_WORDS + 2 && all.size() < MAX_SENTENCES) {
-                    all.add(new Located(message, sentence, sentences, words(sentence.text())));
+            for (int index = 0; index < sentences.size() && all.size() < MAX_SENTENCES; index++) {
+                Sentences.Sentence sentence = sentences.get(index);
+                if (sentence.words() >= Sentences.MIN_WORDS + 2) {
+                    all.add(new Located(message, sentence, sentences, index, words(sentence.text())));
                 }
             }
         }
@@ -100,7 +104,7 @@ final class NearDuplicateInstruction implements Rule {
                             Template template) {
         MessageText message = later.message();
         Optional<Rewrite> rewrite = message.isProtected(later.sentence().start(), later.sentence().end()) ? Optional.empty()
-                : Sentences.removal(message.content(), later.sentence(), later.sentences(), true)
+                : Sentences.removal(message.content(), later.sentences(), later.index(), true)
                         .filter(r -> !message.isProtected(r[0], r[1]))
                         .flatMap(r -> text.rewrite(message, List.of(new Edit(r[0], r[1], "")), context.tokenizer(template)));
         int line = text.line(earlier.message(), earlier.sentence().start());
@@ -131,8 +135,8 @@ final class NearDuplicateInstruction implements Rule {
         return map;
     }
 
-    /** A sentence with its message, its message's sentences and its word counts. */
-    record Located(MessageText message, Sentences.Sentence sentence, List<Sentences.Sentence> sentences,
+    /** A sentence with its message, its message's sentences, its index among them and its word counts. */
+    record Located(MessageText message, Sentences.Sentence sentence, List<Sentences.Sentence> sentences, int index,
                    Map<CharSequence, Integer> words) {
     }
 }
