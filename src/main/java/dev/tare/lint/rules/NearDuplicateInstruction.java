@@ -18,13 +18,12 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
-import org.apache.commons.text.similarity.CosineSimilarity;
 import org.apache.commons.text.similarity.LevenshteinDistance;
 
 /**
  * Two sentences of one template that say nearly the same thing: the cosine similarity of their
- * content-word counts (commons-text {@link CosineSimilarity}; common function words left out, number
- * words read as digits) is at least
+ * content-word counts (computed as commons-text's {@code CosineSimilarity} computes it; common
+ * function words left out, number words read as digits) is at least
  * {@value #MIN_COSINE} and their Levenshtein similarity (one minus the edit distance over the longer
  * length) at least {@value #MIN_LEVENSHTEIN}. The thresholds were chosen on the demo corpus so that a
  * reworded rule is caught and unrelated rules are not (common practice, no source). The later
@@ -61,6 +60,7 @@ final class NearDuplicateInstruction implements Rule {
     public List<Finding> check(Template template, LintContext context) {
         TemplateText text = context.text(template);
         List<Located> all = new ArrayList<>();
+        Map<String, Integer> vocabulary = new HashMap<>();
         for (MessageText message : text.messages()) {
             if (all.size() >= MAX_SENTENCES) {
                 break;
@@ -69,11 +69,11 @@ final class NearDuplicateInstruction implements Rule {
             for (int index = 0; index < sentences.size() && all.size() < MAX_SENTENCES; index++) {
                 Sentences.Sentence sentence = sentences.get(index);
                 if (sentence.words() >= Sentences.MIN_WORDS + 2) {
-                    all.add(new Located(message, sentence, sentences, index, words(sentence.text())));
+                    all.add(new Located(message, sentence, sentences, index,
+                            WordVector.of(words(sentence.text()), vocabulary), sentence.text().toLowerCase(Locale.ROOT)));
                 }
             }
         }
-        CosineSimilarity cosine = new CosineSimilarity();
         LevenshteinDistance distance = LevenshteinDistance.getDefaultInstance();
         List<Finding> findings = new ArrayList<>();
         for (int j = 1; j < all.size(); j++) {
@@ -83,12 +83,12 @@ final class NearDuplicateInstruction implements Rule {
                 if (earlier.sentence().text().equals(later.sentence().text())) {
                     break;
                 }
-                double similarity = cosine.cosineSimilarity(earlier.words(), later.words());
+                double similarity = earlier.words().cosine(later.words());
                 if (similarity < MIN_COSINE) {
                     continue;
                 }
-                String a = earlier.sentence().text().toLowerCase(Locale.ROOT);
-                String b = later.sentence().text().toLowerCase(Locale.ROOT);
+                String a = earlier.lowerCase();
+                String b = later.lowerCase();
                 double edit = 1.0 - (double) distance.apply(a, b) / Math.max(a.length(), b.length());
                 if (edit < MIN_LEVENSHTEIN) {
                     continue;
@@ -114,7 +114,8 @@ final class NearDuplicateInstruction implements Rule {
                 rewrite, List.of(text.related(earlier.message(), earlier.sentence().start(), "similar sentence")));
     }
 
-    private static Map<CharSequence, Integer> words(String sentence) {
+    /** The content words of {@code sentence} with how often each occurs. */
+    static Map<CharSequence, Integer> words(String sentence) {
         Map<CharSequence, Integer> counts = new HashMap<>();
         for (String word : sentence.toLowerCase(Locale.ROOT).split("[^\\p{L}\\p{N}]+")) {
             if (!word.isEmpty() && !FUNCTION_WORDS.contains(word)) {
@@ -135,8 +136,63 @@ final class NearDuplicateInstruction implements Rule {
         return map;
     }
 
-    /** A sentence with its message, its message's sentences, its index among them and its word counts. */
+    /** A sentence with its message, its message's sentences, its index among them, its word counts and its lower-case text. */
     record Located(MessageText message, Sentences.Sentence sentence, List<Sentences.Sentence> sentences, int index,
-                   Map<CharSequence, Integer> words) {
+                   WordVector words, String lowerCase) {
+    }
+
+    /**
+     * Word counts as parallel arrays sorted by word number, with the sum of squared counts kept, so
+     * comparing two sentences is one merge of two short arrays. A long template compares about a
+     * million pairs (half of {@value #MAX_SENTENCES} squared); with maps of words that took seconds.
+     *
+     * @param ids     word numbers (from one vocabulary per template), ascending
+     * @param counts  how often each word occurs
+     * @param squares the sum of the squared counts
+     */
+    record WordVector(int[] ids, int[] counts, double squares) {
+        static WordVector of(Map<CharSequence, Integer> words, Map<String, Integer> vocabulary) {
+            int[][] pairs = new int[words.size()][];
+            int i = 0;
+            double squares = 0.0;
+            for (Map.Entry<CharSequence, Integer> word : words.entrySet()) {
+                Integer id = vocabulary.computeIfAbsent(word.getKey().toString(), w -> vocabulary.size());
+                pairs[i++] = new int[] {id, word.getValue()};
+                squares += Math.pow(word.getValue(), 2);
+            }
+            java.util.Arrays.sort(pairs, java.util.Comparator.comparingInt(pair -> pair[0]));
+            int[] ids = new int[pairs.length];
+            int[] counts = new int[pairs.length];
+            for (int k = 0; k < pairs.length; k++) {
+                ids[k] = pairs[k][0];
+                counts[k] = pairs[k][1];
+            }
+            return new WordVector(ids, counts, squares);
+        }
+
+        /**
+         * The cosine similarity with {@code other}, with the same arithmetic as commons-text's
+         * {@code CosineSimilarity}: a whole-number dot product, sums of squared counts, and
+         * {@code dot / (sqrt(a) * sqrt(b))}, or 0 when either vector is empty; so the same sentences
+         * give the same value to the last bit.
+         */
+        double cosine(WordVector other) {
+            if (squares <= 0.0 || other.squares <= 0.0) {
+                return 0.0;
+            }
+            long dot = 0;
+            int i = 0;
+            int j = 0;
+            while (i < ids.length && j < other.ids.length) {
+                if (ids[i] == other.ids[j]) {
+                    dot += counts[i++] * (long) other.counts[j++];
+                } else if (ids[i] < other.ids[j]) {
+                    i++;
+                } else {
+                    j++;
+                }
+            }
+            return dot / (Math.sqrt(squares) * Math.sqrt(other.squares));
+        }
     }
 }
