@@ -11,19 +11,8 @@
 # Environment: JAVA_HOME (build and run with that JDK).
 set -euo pipefail
 
-here="$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)"
-repo="$(cd "$here/.." && pwd)"
-target="$repo/target"
-
-if [ -n "${JAVA_HOME:-}" ]; then
-  export PATH="$JAVA_HOME/bin:$PATH"
-fi
+source "$(dirname "${BASH_SOURCE[0]}")/common.sh"
+bench_require jmh.sh
 command -v mvn >/dev/null 2>&1 || { echo "jmh.sh: Maven (mvn) is needed; install it and try again" >&2; exit 2; }
-command -v java >/dev/null 2>&1 || { echo "jmh.sh: java is not on PATH; install a JDK 17+ or set JAVA_HOME" >&2; exit 2; }
-
-cd "$repo"
-mvn -q -B test-compile \
-  org.apache.maven.plugins:maven-dependency-plugin:3.9.0:build-classpath \
-  -Dmdep.outputFile="$target/bench.classpath" -Dmdep.includeScope=test >&2
-
-exec java -cp "$target/test-classes:$target/classes:$(cat "$target/bench.classpath")" org.openjdk.jmh.Main "$@"
+classpath="$(bench_test_classpath)"
+exec java -cp "$classpath" org.openjdk.jmh.Main "$@"

@@ -49,6 +49,8 @@ public final class LintContext {
     private final Map<String, Optional<Rendering>> renderings = new ConcurrentHashMap<>();
     private Optional<Baseline> baseline;
     private final Map<String, List<ToolDefinition>> tools = new ConcurrentHashMap<>();
+    /** Each tokenizer of the registry as rules get it, remembering its counts of long texts. */
+    private final Map<Tokenizer, Tokenizer> remembering = new ConcurrentHashMap<>();
 
     /**
      * @param settings example settings that stand in for target values (see {@link Example#settings()})
@@ -106,10 +108,14 @@ public final class LintContext {
         List<TargetConfig> targets = targets(template);
         String name = targets.isEmpty() ? TokenizerRegistry.DEFAULT : targets.get(0).tokenizer();
         try {
-            return tokenizers.get(name, config.root());
+            return remembering(tokenizers.get(name, config.root()));
         } catch (TareException e) {
-            return tokenizers.defaultTokenizer();
+            return remembering(tokenizers.defaultTokenizer());
         }
+    }
+
+    private Tokenizer remembering(Tokenizer tokenizer) {
+        return remembering.computeIfAbsent(tokenizer, RememberedCounts::new);
     }
 
     /** The tokenizers of every target the template runs on (the default encoding when there are none), without repeats. */
@@ -122,9 +128,9 @@ public final class LintContext {
         for (TargetConfig target : targets) {
             try {
                 Tokenizer tokenizer = tokenizers.get(target.tokenizer(), config.root());
-                byName.putIfAbsent(tokenizer.name(), tokenizer);
+                byName.putIfAbsent(tokenizer.name(), remembering(tokenizer));
             } catch (TareException e) {
-                byName.putIfAbsent(TokenizerRegistry.DEFAULT, tokenizers.defaultTokenizer());
+                byName.putIfAbsent(TokenizerRegistry.DEFAULT, remembering(tokenizers.defaultTokenizer()));
             }
         }
         return List.copyOf(byName.values());
@@ -153,7 +159,7 @@ public final class LintContext {
 
     /** The tokenizer of one target. */
     public Tokenizer tokenizer(TargetConfig target) {
-        return tokenizers.get(target.tokenizer(), config.root());
+        return remembering(tokenizers.get(target.tokenizer(), config.root()));
     }
 
     /**
