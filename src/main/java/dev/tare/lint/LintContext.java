@@ -51,6 +51,8 @@ public final class LintContext {
     private final Map<String, List<ToolDefinition>> tools = new ConcurrentHashMap<>();
     private final Set<String> paths;
     private final java.util.function.Predicate<String> files;
+    /** Each tokenizer of the registry as rules get it, remembering its counts of long texts. */
+    private final Map<Tokenizer, Tokenizer> remembering = new ConcurrentHashMap<>();
 
     /**
      * A context over files on disk: a path names a file when a template of the run has it or a file
@@ -139,9 +141,9 @@ public final class LintContext {
         List<TargetConfig> targets = targets(template);
         String name = targets.isEmpty() ? TokenizerRegistry.DEFAULT : targets.get(0).tokenizer();
         try {
-            return tokenizers.get(name, config.root());
+            return remembering(tokenizers.get(name, config.root()));
         } catch (TareException e) {
-            return tokenizers.defaultTokenizer();
+            return remembering(tokenizers.defaultTokenizer());
         }
     }
 
@@ -149,10 +151,14 @@ public final class LintContext {
     public Tokenizer primaryTokenizer() {
         String name = config.targets().isEmpty() ? TokenizerRegistry.DEFAULT : config.targets().get(0).tokenizer();
         try {
-            return tokenizers.get(name, config.root());
+            return remembering(tokenizers.get(name, config.root()));
         } catch (TareException e) {
-            return tokenizers.defaultTokenizer();
+            return remembering(tokenizers.defaultTokenizer());
         }
+    }
+
+    private Tokenizer remembering(Tokenizer tokenizer) {
+        return remembering.computeIfAbsent(tokenizer, RememberedCounts::new);
     }
 
     /** The tokenizers of every target the template runs on (the default encoding when there are none), without repeats. */
@@ -165,9 +171,9 @@ public final class LintContext {
         for (TargetConfig target : targets) {
             try {
                 Tokenizer tokenizer = tokenizers.get(target.tokenizer(), config.root());
-                byName.putIfAbsent(tokenizer.name(), tokenizer);
+                byName.putIfAbsent(tokenizer.name(), remembering(tokenizer));
             } catch (TareException e) {
-                byName.putIfAbsent(TokenizerRegistry.DEFAULT, tokenizers.defaultTokenizer());
+                byName.putIfAbsent(TokenizerRegistry.DEFAULT, remembering(tokenizers.defaultTokenizer()));
             }
         }
         return List.copyOf(byName.values());
@@ -196,7 +202,7 @@ public final class LintContext {
 
     /** The tokenizer of one target. */
     public Tokenizer tokenizer(TargetConfig target) {
-        return tokenizers.get(target.tokenizer(), config.root());
+        return remembering(tokenizers.get(target.tokenizer(), config.root()));
     }
 
     /**

@@ -2,7 +2,9 @@ package dev.tare.lint;
 
 import dev.tare.template.Message;
 import java.util.ArrayList;
+import java.util.EnumMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Optional;
 
 /**
@@ -15,6 +17,9 @@ public final class MessageText {
     private final List<Region> regions;
     private final List<Fence> fences;
     private final ContentMap map;
+    /** Every region, and the regions of each kind, indexed for overlap questions. */
+    private final RegionIndex all;
+    private final Map<Region.Kind, RegionIndex> byKind = new EnumMap<>(Region.Kind.class);
 
     MessageText(int index, Message message, List<Region> regions, List<Fence> fences, ContentMap map) {
         this.index = index;
@@ -22,6 +27,10 @@ public final class MessageText {
         this.regions = List.copyOf(regions);
         this.fences = List.copyOf(fences);
         this.map = map;
+        this.all = new RegionIndex(this.regions);
+        for (Region.Kind kind : Region.Kind.values()) {
+            byKind.put(kind, new RegionIndex(this.regions.stream().filter(r -> r.kind() == kind).toList()));
+        }
     }
 
     /** The position of this message in its template, from 0. */
@@ -49,27 +58,24 @@ public final class MessageText {
         return fences;
     }
 
-    /** Whether {@code [start, end)} touches a protected region. */
+    /** Whether {@code [start, end)} touches a protected region (see {@link Region#overlaps}). */
     public boolean isProtected(int start, int end) {
-        for (Region region : regions) {
-            if (region.start() >= end && start != end) {
-                break;
-            }
-            if (region.overlaps(start, end)) {
+        return all.overlaps(start, end);
+    }
+
+    /** Whether {@code [start, end)} touches a protected region of the given kinds. */
+    public boolean touches(int start, int end, Region.Kind... kinds) {
+        for (Region.Kind kind : kinds) {
+            if (byKind.get(kind).overlaps(start, end)) {
                 return true;
             }
         }
         return false;
     }
 
-    /** Whether {@code [start, end)} touches a protected region of the given kinds. */
-    public boolean touches(int start, int end, Region.Kind... kinds) {
-        for (Region region : regions) {
-            if (region.overlaps(start, end) && List.of(kinds).contains(region.kind())) {
-                return true;
-            }
-        }
-        return false;
+    /** The regions of {@code kind} that touch {@code [start, end)}, sorted by start. */
+    public List<Region> touching(int start, int end, Region.Kind kind) {
+        return byKind.get(kind).touching(start, end);
     }
 
     /** The stretches of content outside every protected region, in order, as {@code [start, end)} pairs. */

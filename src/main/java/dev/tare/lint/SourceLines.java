@@ -7,8 +7,12 @@ import java.util.Arrays;
  * that findings report. A line ends at {@code \n}, at {@code \r\n}, or at a lone {@code \r}.
  */
 final class SourceLines {
+    /** Characters between code-point checkpoints; lines shorter than this are counted directly. */
+    private static final int CHECKPOINT = 4096;
+
     private final String text;
     private final int[] starts;
+    private int[] checkpoints;
 
     SourceLines(String text) {
         this.text = text;
@@ -39,7 +43,44 @@ final class SourceLines {
     int column(int offset) {
         int at = clamp(offset);
         int start = starts[index(at)];
-        return text.codePointCount(start, at) + 1;
+        if (at - start <= CHECKPOINT) {
+            return text.codePointCount(start, at) + 1;
+        }
+        return codePointsBefore(at) - codePointsBefore(start) + 1;
+    }
+
+    /**
+     * The number of code points in {@code text[0, offset)}, from the nearest checkpoint below: a
+     * finding far into a very long line then costs at most {@value #CHECKPOINT} characters of
+     * counting, not the line so far, and many findings on one long line stay linear.
+     */
+    private int codePointsBefore(int offset) {
+        int[] counts = checkpoints();
+        int block = offset / CHECKPOINT;
+        int from = block * CHECKPOINT;
+        int count = counts[block] + text.codePointCount(from, offset);
+        // A surrogate pair cut by the checkpoint was counted once on each side.
+        if (from > 0 && from < offset && Character.isHighSurrogate(text.charAt(from - 1))
+                && Character.isLowSurrogate(text.charAt(from))) {
+            count--;
+        }
+        return count;
+    }
+
+    /** {@code counts[b]} is the number of code points in {@code text[0, b * CHECKPOINT)}; built on first use. */
+    private synchronized int[] checkpoints() {
+        if (checkpoints == null) {
+            int[] counts = new int[text.length() / CHECKPOINT + 1];
+            for (int b = 1; b < counts.length; b++) {
+                counts[b] = counts[b - 1] + text.codePointCount((b - 1) * CHECKPOINT, b * CHECKPOINT);
+                int cut = (b - 1) * CHECKPOINT;
+                if (cut > 0 && Character.isHighSurrogate(text.charAt(cut - 1)) && Character.isLowSurrogate(text.charAt(cut))) {
+                    counts[b]--;
+                }
+            }
+            checkpoints = counts;
+        }
+        return checkpoints;
     }
 
     /** The offset where 1-based {@code line} starts, or the end of the text past the last line. */

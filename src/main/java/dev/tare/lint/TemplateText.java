@@ -146,14 +146,29 @@ public final class TemplateText {
         return Optional.of(new Rewrite(moved.get(), tokenizer.count(before) - tokenizer.count(after)));
     }
 
+    /**
+     * The start of the window: the start of the line, or {@value #SAVING_WINDOW} characters back.
+     * Only the window itself is searched for the line break, so edits on a very long line each cost
+     * the window and not the line.
+     */
     private static int windowStart(String content, int offset) {
-        int lineStart = offset == 0 ? 0 : content.lastIndexOf('\n', offset - 1) + 1;
-        return Math.max(lineStart, offset - SAVING_WINDOW);
+        int limit = Math.max(0, offset - SAVING_WINDOW);
+        for (int i = offset - 1; i >= limit; i--) {
+            if (content.charAt(i) == '\n') {
+                return i + 1;
+            }
+        }
+        return limit;
     }
 
+    /** The end of the window: the end of the line, or {@value #SAVING_WINDOW} characters on. */
     private static int windowEnd(String content, int offset) {
-        int lineEnd = content.indexOf('\n', offset);
-        int end = lineEnd < 0 ? content.length() : lineEnd;
-        return Math.min(end, offset + SAVING_WINDOW);
+        int limit = Math.min(content.length(), offset + SAVING_WINDOW);
+        for (int i = offset; i < limit; i++) {
+            if (content.charAt(i) == '\n') {
+                return i;
+            }
+        }
+        return limit;
     }
 }

@@ -100,9 +100,22 @@ final class CostlyCharacter implements Rule {
 
     /** The extra tokens the character costs on the tokenizer where it costs most, when it costs more anywhere. */
     private static Optional<Cost> measure(String content, Edit edit, List<Tokenizer> tokenizers) {
-        int from = Math.max(content.lastIndexOf('\n', Math.max(0, edit.start() - 1)) + 1, edit.start() - WINDOW);
-        int lineEnd = content.indexOf('\n', edit.end());
-        int to = Math.min(lineEnd < 0 ? content.length() : lineEnd, edit.end() + WINDOW);
+        // The line break is looked for within the window only, so a very long line costs each
+        // character its window and not the whole line.
+        int from = Math.max(0, edit.start() - WINDOW);
+        for (int i = edit.start() - 1; i >= from; i--) {
+            if (content.charAt(i) == '\n') {
+                from = i + 1;
+                break;
+            }
+        }
+        int to = Math.min(content.length(), edit.end() + WINDOW);
+        for (int i = edit.end(); i < to; i++) {
+            if (content.charAt(i) == '\n') {
+                to = i;
+                break;
+            }
+        }
         String before = content.substring(from, to);
         String after = content.substring(from, edit.start()) + edit.replacement() + content.substring(edit.end(), to);
         Cost best = null;

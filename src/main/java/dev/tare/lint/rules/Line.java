@@ -16,21 +16,27 @@ record Line(int start, int end, int next) {
         List<Line> lines = new ArrayList<>();
         int at = 0;
         while (at < text.length()) {
-            int end = at;
-            while (end < text.length() && text.charAt(end) != '\n' && text.charAt(end) != '\r') {
-                end++;
-            }
-            int next = end;
-            if (next < text.length() && text.charAt(next) == '\r') {
-                next++;
-            }
-            if (next < text.length() && text.charAt(next) == '\n' && (next == end || text.charAt(next - 1) == '\r')) {
-                next++;
-            }
-            lines.add(new Line(at, end, next));
-            at = next;
+            Line line = at(text, at);
+            lines.add(line);
+            at = line.next();
         }
         return lines;
+    }
+
+    /** The line of {@code text} that starts at offset {@code start}. */
+    static Line at(String text, int start) {
+        int end = start;
+        while (end < text.length() && text.charAt(end) != '\n' && text.charAt(end) != '\r') {
+            end++;
+        }
+        int next = end;
+        if (next < text.length() && text.charAt(next) == '\r') {
+            next++;
+        }
+        if (next < text.length() && text.charAt(next) == '\n' && (next == end || text.charAt(next - 1) == '\r')) {
+            next++;
+        }
+        return new Line(start, end, next);
     }
 
     /** The line's text without its break. */

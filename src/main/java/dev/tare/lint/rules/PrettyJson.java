@@ -103,8 +103,8 @@ final class PrettyJson implements Rule {
     private static boolean keepsPlaceholders(MessageText message, int start, int end, String minified) {
         String content = message.content();
         int at = 0;
-        for (Region region : message.regions()) {
-            if (region.kind() != Region.Kind.PLACEHOLDER || region.start() < start || region.end() > end) {
+        for (Region region : message.touching(start, end, Region.Kind.PLACEHOLDER)) {
+            if (region.start() < start || region.end() > end) {
                 continue;
             }
             int found = minified.indexOf(content.substring(region.start(), region.end()), at);

@@ -45,7 +45,9 @@ final class RepeatedInstruction implements Rule {
         Map<String, Located> first = new HashMap<>();
         for (MessageText message : text.messages()) {
             List<Sentences.Sentence> sentences = Sentences.of(message);
-            for (Sentences.Sentence sentence : sentences) {
+            for (int index = 0; index < sentences.size(); index++) {
+                Sentences.Sentence sentence = sentences.get(index);
+                int at = index;
                 if (sentence.words() < Sentences.MIN_WORDS) {
                     continue;
                 }
@@ -54,7 +56,7 @@ final class RepeatedInstruction implements Rule {
                     continue;
                 }
                 Optional<Rewrite> rewrite = message.isProtected(sentence.start(), sentence.end()) ? Optional.empty()
-                        : Sentences.removal(message.content(), sentence, sentences, false)
+                        : Sentences.removal(message.content(), sentences, at, false)
                                 .filter(r -> !message.isProtected(r[0], r[1]))
                                 .flatMap(r -> text.rewrite(message, List.of(new Edit(r[0], r[1], "")), context.tokenizer(template)));
                 int line = text.line(earlier.message(), earlier.sentence().start());

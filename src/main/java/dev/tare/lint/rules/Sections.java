@@ -57,12 +57,13 @@ final class Sections {
                 }
             }
             cuts.get(cuts.size() - 1)[1] = content.length();
+            List<Segment.Include> includes = includes(template, message);
             for (int i = 0; i < cuts.size(); i++) {
                 int[] cut = cuts.get(i);
                 if (cut[1] <= cut[0] && cuts.size() > 1) {
                     continue;
                 }
-                int tokens = tokens(template, message, cut[0], cut[1], context, tokenizer);
+                int tokens = tokens(template, message, includes, cut[0], cut[1], context, tokenizer);
                 sections.add(new Section(labels.get(i), text.line(message, cut[0]),
                         text.line(message, Math.max(cut[0], cut[1] - 1)), tokens));
             }
@@ -71,26 +72,48 @@ final class Sections {
         return sections;
     }
 
-    private static int tokens(Template template, MessageText message, int start, int end, LintContext context,
-                              Tokenizer tokenizer) {
+    /** The includes of {@code message}, sorted by their offset in the content. */
+    private static List<Segment.Include> includes(Template template, MessageText message) {
+        int base = base(template);
+        List<Segment.Include> includes = new ArrayList<>();
+        for (Segment segment : message.message().segments()) {
+            if (segment instanceof Segment.Include include) {
+                includes.add(include);
+            }
+        }
+        includes.sort(Comparator.comparingInt(include -> include.span().start() - base));
+        return includes;
+    }
+
+    private static int base(Template template) {
+        return template.isChat() ? 0 : template.bodyStart();
+    }
+
+    private static int tokens(Template template, MessageText message, List<Segment.Include> includes, int start, int end,
+                              LintContext context, Tokenizer tokenizer) {
         String content = message.content();
         StringBuilder plain = new StringBuilder();
         int at = start;
         int includeTokens = 0;
-        for (Region region : message.regions()) {
-            if (region.kind() != Region.Kind.PLACEHOLDER || region.end() <= start || region.start() >= end) {
-                continue;
-            }
+        for (Region region : message.touching(start, end, Region.Kind.PLACEHOLDER)) {
             plain.append(content, at, Math.max(at, region.start()));
             at = Math.max(at, region.end());
         }
         plain.append(content, Math.min(at, end), end);
-        int base = template.isChat() ? 0 : template.bodyStart();
-        for (Segment segment : message.message().segments()) {
-            int segmentStart = segment.span().start() - base;
-            if (segment instanceof Segment.Include && segmentStart >= start && segmentStart < end) {
-                includeTokens += includeTokens(template, message.message(), segment, context, tokenizer);
+        int base = base(template);
+        // Sections are many in a long text; only the includes inside this one are visited.
+        int low = 0;
+        int high = includes.size();
+        while (low < high) {
+            int mid = (low + high) >>> 1;
+            if (includes.get(mid).span().start() - base < start) {
+                low = mid + 1;
+            } else {
+                high = mid;
             }
+        }
+        for (int i = low; i < includes.size() && includes.get(i).span().start() - base < end; i++) {
+            includeTokens += includeTokens(template, message.message(), includes.get(i), context, tokenizer);
         }
         return tokenizer.count(plain.toString()) + includeTokens;
     }

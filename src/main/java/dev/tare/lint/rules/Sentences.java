@@ -134,11 +134,14 @@ final class Sentences {
     }
 
     /**
-     * The text to delete to drop {@code sentence}: its whole unit's lines when it is the whole unit
-     * (with one following blank line when blank lines surround it), else the sentence and the
-     * whitespace that separates it from its neighbour; empty when it is in a list and lists are not allowed.
+     * The text to delete to drop the sentence at {@code index} of {@code all}: its whole unit's lines
+     * when it is the whole unit (with one following blank line when blank lines surround it), else the
+     * sentence and the whitespace that separates it from its neighbour; empty when it is in a list and
+     * lists are not allowed. Only the sentence's own lines and its neighbours are read, so dropping
+     * many sentences of a long text stays linear.
      */
-    static java.util.Optional<int[]> removal(String content, Sentence sentence, List<Sentence> all, boolean allowList) {
+    static java.util.Optional<int[]> removal(String content, List<Sentence> all, int index, boolean allowList) {
+        Sentence sentence = all.get(index);
         Unit unit = sentence.unit();
         if (unit.listItem() && !allowList) {
             return java.util.Optional.empty();
@@ -146,10 +149,10 @@ final class Sentences {
         if (sentence.start() == unit.start() && sentence.end() == unit.end()) {
             int end = unit.next();
             boolean blankBefore = unit.lineStart() == 0 || isBlankLineBefore(content, unit.lineStart());
-            Line following = end < content.length() ? Line.of(content.substring(end)).get(0) : null;
+            Line following = end < content.length() ? Line.at(content, end) : null;
             int start = unit.lineStart();
-            if (blankBefore && following != null && isBlank(content.substring(end, end + following.end()))) {
-                end += following.next();
+            if (blankBefore && following != null && following.isBlank(content)) {
+                end = following.next();
             } else if (blankBefore && following == null && unit.lineStart() > 0) {
                 start = previousLineStart(content, unit.lineStart());
             }
@@ -159,7 +162,6 @@ final class Sentences {
             }
             return java.util.Optional.of(new int[] {start, end});
         }
-        int index = all.indexOf(sentence);
         Sentence previous = index > 0 ? all.get(index - 1) : null;
         if (previous != null && previous.unit().equals(unit)) {
             return java.util.Optional.of(new int[] {previous.end(), sentence.end()});

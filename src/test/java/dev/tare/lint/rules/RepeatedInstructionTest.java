@@ -7,7 +7,11 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.tare.lint.Finding;
 import dev.tare.lint.RewriteClass;
+import java.util.HashMap;
 import java.util.List;
+import java.util.Map;
+import java.util.SplittableRandom;
+import org.apache.commons.text.similarity.CosineSimilarity;
 import org.junit.jupiter.api.Test;
 
 /** Exact and near repeats within one template. */
@@ -83,5 +87,34 @@ class RepeatedInstructionTest {
         String text = "Everything from the water main up to and including the meter belongs to Brookmere Water.\n"
                 + "Everything from the meter to the building belongs to the property owner.\n";
         assertTrue(findings(near, text).isEmpty());
+    }
+
+    @Test
+    void wordVectorCosineIsCommonsTextCosineSimilarityToTheLastBit() {
+        // Outside source: commons-text's CosineSimilarity over the same word counts, which the rule used before.
+        List<String> words = List.of("meter", "reading", "bill", "twelve", "12", "months", "supervisor", "plan", "agree",
+                "never", "refund", "water", "leak", "call", "back", "the", "a", "account", "number", "read");
+        SplittableRandom random = new SplittableRandom(11);
+        Map<String, Integer> vocabulary = new HashMap<>();
+        CosineSimilarity reference = new CosineSimilarity();
+        for (int pair = 0; pair < 2_000; pair++) {
+            String a = sentence(words, random);
+            String b = sentence(words, random);
+            var left = NearDuplicateInstruction.words(a);
+            var right = NearDuplicateInstruction.words(b);
+            double expected = reference.cosineSimilarity(left, right);
+            double actual = NearDuplicateInstruction.WordVector.of(left, vocabulary)
+                    .cosine(NearDuplicateInstruction.WordVector.of(right, vocabulary));
+            assertEquals(Double.doubleToLongBits(expected), Double.doubleToLongBits(actual), a + " / " + b);
+        }
+    }
+
+    private static String sentence(List<String> words, SplittableRandom random) {
+        StringBuilder sentence = new StringBuilder();
+        int length = random.nextInt(12);
+        for (int i = 0; i < length; i++) {
+            sentence.append(words.get(random.nextInt(words.size()))).append(' ');
+        }
+        return sentence.toString();
     }
 }
