@@ -12,6 +12,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Optional;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -52,14 +53,22 @@ final class CountCommand implements Callable<Integer> {
         Tokenizer counter = new TokenizerRegistry().get(tokenizer, Path.of("."));
         SafeReader reader = new SafeReader(MAX_BYTES);
         PrintWriter err = spec.commandLine().getErr();
-        List<CountReport.Entry> entries = new ArrayList<>();
-        int failures = 0;
-        for (String name : files) {
+        // Files are read and counted on every core; the report keeps the order they were named in.
+        List<Counted> counted = files.parallelStream().map(name -> {
             try {
                 SourceText text = read(reader, name);
-                entries.add(new CountReport.Entry(text.path(), counter.count(text.text()), text.text().length()));
+                return new Counted(Optional.of(new CountReport.Entry(text.path(), counter.count(text.text()),
+                        text.text().length())), Optional.empty());
             } catch (TareException e) {
-                err.println("tare: " + name + ": " + e.getMessage());
+                return new Counted(Optional.empty(), Optional.of("tare: " + name + ": " + e.getMessage()));
+            }
+        }).toList();
+        List<CountReport.Entry> entries = new ArrayList<>();
+        int failures = 0;
+        for (Counted one : counted) {
+            one.entry().ifPresent(entries::add);
+            if (one.error().isPresent()) {
+                err.println(one.error().get());
                 failures++;
             }
         }
@@ -68,6 +77,10 @@ final class CountCommand implements Callable<Integer> {
         spec.commandLine().getOut().flush();
         err.flush();
         return failures == 0 ? ExitCodes.OK : ExitCodes.USAGE;
+    }
+
+    /** One named file: its count, or the one-line error that says why it has none. */
+    private record Counted(Optional<CountReport.Entry> entry, Optional<String> error) {
     }
 
     private static SourceText read(SafeReader reader, String name) {

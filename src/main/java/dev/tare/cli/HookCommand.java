@@ -34,12 +34,12 @@ final class HookCommand implements Runnable {
 
     /**
      * The JVM options of the pre-commit hook, as {@code ./tare hook ...} chooses them (keep the two in
-     * step): the first JIT tier only, and the class-data archive beside the jar when this JDK made it.
-     * The hook is a short run that must feel instant; the optimizing compiler would spend more CPU
-     * than it saves there, on the core the work needs.
+     * step): the serial collector, the first JIT tier only, and the class-data archive beside the jar
+     * when this JDK made it. The hook is a short run that must feel instant; the optimizing compiler
+     * would spend more CPU than it saves there, on the core the work needs.
      */
     static List<String> jvmOptions(Path jar) {
-        List<String> options = new ArrayList<>(List.of("-XX:TieredStopAtLevel=1"));
+        List<String> options = new ArrayList<>(List.of("-XX:+UseSerialGC", "-XX:TieredStopAtLevel=1"));
         options.addAll(ClassArchive.options(Path.of(System.getProperty("java.home")), jar));
         return options;
     }

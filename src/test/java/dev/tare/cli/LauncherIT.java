@@ -67,13 +67,26 @@ class LauncherIT {
     }
 
     @Test
-    void theHookRunsWithTheFirstJitTierOnlyAndOtherCommandsWithBoth() throws Exception {
+    void shortRunsUseTheFirstJitTierOnlyAFullCheckOrFixBothAndEveryRunTheSerialCollector() throws Exception {
         Pattern firstTierOnly = Pattern.compile("TieredStopAtLevel\\s+= 1\\s");
+        Pattern serial = Pattern.compile("UseSerialGC\\s+= true\\s");
         Map<String, String> flags = Map.of("TARE_JAVA_OPTS", "-XX:+PrintFlagsFinal");
-        assertTrue(firstTierOnly.matcher(launch(flags, "hook", "run", "--help").out()).find(), "hook run");
-        assertTrue(firstTierOnly.matcher(launch(flags, "check", "--staged", "--help").out()).find(), "check --staged");
-        Result count = launch(flags, "count", "--help");
-        assertTrue(count.out().contains("TieredStopAtLevel"), count.out());
-        assertFalse(firstTierOnly.matcher(count.out()).find(), "count keeps the optimizing compiler");
+        for (String[] command : new String[][] {{"hook", "run"}, {"check", "--staged"}, {"scan"}, {"count"}}) {
+            String out = launch(flags, append(command, "--help")).out();
+            assertTrue(firstTierOnly.matcher(out).find(), String.join(" ", command));
+            assertTrue(serial.matcher(out).find(), String.join(" ", command));
+        }
+        for (String[] command : new String[][] {{"check"}, {"fix"}}) {
+            String out = launch(flags, append(command, "--help")).out();
+            assertTrue(out.contains("TieredStopAtLevel"), out);
+            assertFalse(firstTierOnly.matcher(out).find(), String.join(" ", command) + " keeps the optimizing compiler");
+            assertTrue(serial.matcher(out).find(), String.join(" ", command));
+        }
+    }
+
+    private static String[] append(String[] command, String last) {
+        String[] all = java.util.Arrays.copyOf(command, command.length + 1);
+        all[command.length] = last;
+        return all;
     }
 }
