@@ -3,12 +3,12 @@ package dev.tare.tokenize;
 import static dev.tare.tokenize.CharClass.LETTER;
 import static dev.tare.tokenize.CharClass.NEWLINE;
 import static dev.tare.tokenize.CharClass.NUMBER;
-import static dev.tare.tokenize.CharClass.SPACE;
 import static dev.tare.tokenize.Pretokenizer.Steps.classAt;
 import static dev.tare.tokenize.Pretokenizer.Steps.contraction;
 import static dev.tare.tokenize.Pretokenizer.Steps.next;
 import static dev.tare.tokenize.Pretokenizer.Steps.run;
-import static dev.tare.tokenize.Pretokenizer.Steps.runWithout;
+import static dev.tare.tokenize.Pretokenizer.Steps.symbols;
+import static dev.tare.tokenize.Pretokenizer.Steps.threeDigits;
 import static dev.tare.tokenize.Pretokenizer.Steps.whitespace;
 
 /** The splitting pattern of {@code cl100k_base}: contractions, words with one leading mark, digits in threes. */
@@ -36,20 +36,9 @@ final class Cl100kPieces implements Pretokenizer {
             return run(text, after, length, LETTER);
         }
         if ((bits & NUMBER) != 0) {
-            int digits = after;
-            for (int i = 1; i < 3 && digits < length && (classAt(text, digits, length) & NUMBER) != 0; i++) {
-                digits = next(text, digits, length);
-            }
-            return digits;
+            return threeDigits(text, after, length);
         }
-        int symbols = text[start] == ' ' && after < length ? after : start;
-        if ((classAt(text, symbols, length) & (SPACE | LETTER | NUMBER)) == 0) {
-            end = runWithout(text, symbols, length, SPACE | LETTER | NUMBER);
-            while (end < length && (text[end] == '\r' || text[end] == '\n')) {
-                end++;
-            }
-            return end;
-        }
-        return whitespace(text, start, length, true);
+        end = symbols(text, start, length, "\r\n");
+        return end >= 0 ? end : whitespace(text, start, length, true);
     }
 }

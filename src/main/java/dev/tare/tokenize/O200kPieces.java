@@ -4,13 +4,13 @@ import static dev.tare.tokenize.CharClass.LETTER;
 import static dev.tare.tokenize.CharClass.LOWER_PART;
 import static dev.tare.tokenize.CharClass.NEWLINE;
 import static dev.tare.tokenize.CharClass.NUMBER;
-import static dev.tare.tokenize.CharClass.SPACE;
 import static dev.tare.tokenize.CharClass.UPPER_PART;
 import static dev.tare.tokenize.Pretokenizer.Steps.classAt;
 import static dev.tare.tokenize.Pretokenizer.Steps.contraction;
 import static dev.tare.tokenize.Pretokenizer.Steps.next;
 import static dev.tare.tokenize.Pretokenizer.Steps.run;
-import static dev.tare.tokenize.Pretokenizer.Steps.runWithout;
+import static dev.tare.tokenize.Pretokenizer.Steps.symbols;
+import static dev.tare.tokenize.Pretokenizer.Steps.threeDigits;
 import static dev.tare.tokenize.Pretokenizer.Steps.whitespace;
 
 /** The splitting pattern of {@code o200k_base}: words split at case changes, digits in threes. */
@@ -48,21 +48,10 @@ final class O200kPieces implements Pretokenizer {
             return contraction(text, end, length);
         }
         if ((bits & NUMBER) != 0) {
-            int digits = after;
-            for (int i = 1; i < 3 && digits < length && (classAt(text, digits, length) & NUMBER) != 0; i++) {
-                digits = next(text, digits, length);
-            }
-            return digits;
+            return threeDigits(text, after, length);
         }
-        int symbols = text[start] == ' ' && after < length ? after : start;
-        if ((classAt(text, symbols, length) & (SPACE | LETTER | NUMBER)) == 0) {
-            end = runWithout(text, symbols, length, SPACE | LETTER | NUMBER);
-            while (end < length && isBreakOrSlash(text[end])) {
-                end++;
-            }
-            return end;
-        }
-        return whitespace(text, start, length, true);
+        end = symbols(text, start, length, "\r\n/");
+        return end >= 0 ? end : whitespace(text, start, length, true);
     }
 
     /**
@@ -92,7 +81,4 @@ final class O200kPieces implements Pretokenizer {
         return run(text, run(text, at, length, UPPER_PART), length, LOWER_PART);
     }
 
-    private static boolean isBreakOrSlash(char c) {
-        return c == '\r' || c == '\n' || c == '/';
-    }
 }

@@ -54,6 +54,32 @@ interface Pretokenizer {
             return at;
         }
 
+        /** {@code \p{N}{1,3}} after the number that ends at {@code after}: at most two more numbers. */
+        static int threeDigits(char[] text, int after, int length) {
+            int end = after;
+            for (int i = 1; i < 3 && end < length && (classAt(text, end, length) & CharClass.NUMBER) != 0; i++) {
+                end = next(text, end, length);
+            }
+            return end;
+        }
+
+        /**
+         * {@code " ?[^\s\p{L}\p{N}]+"} at {@code start}, then any run of the characters in
+         * {@code trailing}: its end, or -1 when no symbol follows the optional space.
+         */
+        static int symbols(char[] text, int start, int length, String trailing) {
+            int first = text[start] == ' ' && start + 1 < length ? start + 1 : start;
+            int others = CharClass.SPACE | CharClass.LETTER | CharClass.NUMBER;
+            if ((classAt(text, first, length) & others) != 0) {
+                return -1;
+            }
+            int end = runWithout(text, first, length, others);
+            while (end < length && trailing.indexOf(text[end]) >= 0) {
+                end++;
+            }
+            return end;
+        }
+
         /**
          * {@code \s*[\r\n]+|\s+(?!\S)|\s+} at a whitespace character: through the last line break of
          * the whitespace run; else the run less its last character when something else follows and
