@@ -1,17 +1,16 @@
 package dev.tare.tokenize;
 
 import java.util.Arrays;
-import java.util.PriorityQueue;
 
 /**
  * Byte-pair encoding of one piece: start from single bytes and, again and again, merge the adjacent
  * pair whose joined bytes have the lowest rank (the leftmost such pair on a tie), until no adjacent
  * pair is a token. This is the reference encoder's rule. Short pieces rescan their parts after each
- * merge; long ones (a run of thousands of letters, say) keep the candidate pairs in a priority queue,
+ * merge; long ones (a run of thousands of letters, say) keep the candidate pairs in a binary heap,
  * so the work stays n log n rather than n squared.
  */
 final class BytePairMerge {
-    /** Above this many bytes a piece is merged with the priority queue. */
+    /** Above this many bytes a piece is merged with the heap. */
     static final int LONG_PIECE = 128;
 
     private static final int NONE = Integer.MAX_VALUE;
@@ -76,7 +75,7 @@ final class BytePairMerge {
         int[] nextStart = new int[n + 1];
         int[] previousStart = new int[n + 1];
         int[] rankAt = new int[n + 1];
-        PriorityQueue<Long> queue = new PriorityQueue<>();
+        LongHeap queue = new LongHeap(2 * n);
         for (int s = 0; s < n; s++) {
             nextStart[s] = s + 1;
             previousStart[s] = s - 1;
@@ -116,9 +115,61 @@ final class BytePairMerge {
         return Arrays.copyOf(ids, count);
     }
 
-    private static void offer(PriorityQueue<Long> queue, int rank, int start) {
+    private static void offer(LongHeap queue, int rank, int start) {
         if (rank != NONE) {
             queue.add(((long) rank << 32) | start);
+        }
+    }
+
+    /** A binary min-heap of longs: the candidate pairs, rank in the high half and start in the low. */
+    private static final class LongHeap {
+        private long[] items;
+        private int size;
+
+        LongHeap(int capacity) {
+            items = new long[Math.max(16, capacity)];
+        }
+
+        boolean isEmpty() {
+            return size == 0;
+        }
+
+        void add(long item) {
+            if (size == items.length) {
+                items = Arrays.copyOf(items, size * 2);
+            }
+            int at = size++;
+            while (at > 0) {
+                int parent = (at - 1) >>> 1;
+                if (items[parent] <= item) {
+                    break;
+                }
+                items[at] = items[parent];
+                at = parent;
+            }
+            items[at] = item;
+        }
+
+        long poll() {
+            long top = items[0];
+            long last = items[--size];
+            int at = 0;
+            while (true) {
+                int child = 2 * at + 1;
+                if (child >= size) {
+                    break;
+                }
+                if (child + 1 < size && items[child + 1] < items[child]) {
+                    child++;
+                }
+                if (items[child] >= last) {
+                    break;
+                }
+                items[at] = items[child];
+                at = child;
+            }
+            items[at] = last;
+            return top;
         }
     }
 
