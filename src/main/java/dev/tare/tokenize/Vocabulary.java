@@ -73,28 +73,26 @@ final class Vocabulary {
         int maxRank = -1;
         int pos = 0;
         while (pos < file.length) {
-            int space = pos;
-            while (space < file.length && file[space] != ' ') {
-                space++;
-            }
-            int end = space;
+            int end = pos;
             while (end < file.length && file[end] != '\n') {
                 end++;
             }
-            if (space >= end) {
-                if (space == pos && end == pos) {
-                    pos = end + 1;
-                    continue;
-                }
+            int lineEnd = end > pos && file[end - 1] == '\r' ? end - 1 : end;
+            if (lineEnd == pos) {
+                pos = end + 1;
+                continue;
+            }
+            int space = pos;
+            while (space < lineEnd && file[space] != ' ') {
+                space++;
+            }
+            if (space == pos || space >= lineEnd - 1) {
                 throw new IllegalStateException(name + ": malformed line at byte " + pos);
             }
             int rank = 0;
-            for (int i = space + 1; i < end; i++) {
+            for (int i = space + 1; i < lineEnd; i++) {
                 int digit = file[i] - '0';
                 if (digit < 0 || digit > 9) {
-                    if (file[i] == '\r' && i == end - 1) {
-                        break;
-                    }
                     throw new IllegalStateException(name + ": malformed rank at byte " + i);
                 }
                 rank = rank * 10 + digit;
