@@ -32,24 +32,34 @@ interface Pretokenizer {
 
         /** The end of the run of code points having any of {@code bits}, from {@code at}. */
         static int run(char[] text, int at, int length, int bits) {
-            while (at < length) {
-                int cp = Character.codePointAt(text, at, length);
-                if ((CharClass.of(cp) & bits) == 0) {
-                    break;
-                }
-                at += Character.charCount(cp);
-            }
-            return at;
+            return runWhile(text, at, length, bits, bits);
         }
 
         /** The end of the run of code points having none of {@code bits}, from {@code at}. */
         static int runWithout(char[] text, int at, int length, int bits) {
+            return runWhile(text, at, length, bits, 0);
+        }
+
+        /**
+         * The end of the run of code points whose class bits, masked by {@code mask}, are nonzero when
+         * {@code wanted} is: one loop for both kinds of run, reading a char at a time and joining a
+         * surrogate pair only where one stands, since this is the hottest loop of counting.
+         */
+        private static int runWhile(char[] text, int at, int length, int mask, int wanted) {
             while (at < length) {
-                int cp = Character.codePointAt(text, at, length);
-                if ((CharClass.of(cp) & bits) != 0) {
+                char c = text[at];
+                int bits;
+                int width = 1;
+                if (Character.isHighSurrogate(c) && at + 1 < length && Character.isLowSurrogate(text[at + 1])) {
+                    bits = CharClass.of(Character.toCodePoint(c, text[at + 1]));
+                    width = 2;
+                } else {
+                    bits = CharClass.of(c);
+                }
+                if (((bits & mask) != 0) != (wanted != 0)) {
                     break;
                 }
-                at += Character.charCount(cp);
+                at += width;
             }
             return at;
         }
