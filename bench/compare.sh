@@ -70,8 +70,13 @@ total_tokens() {
   node -e 'const j = JSON.parse(require("fs").readFileSync(0, "utf8")); console.log(j.total.tokens)' <"$1"
 }
 for name in "${tokenizers[@]}"; do
+  spec="$name"
+  case "$name" in
+    o200k_base | cl100k_base | p50k_base | r50k_base | /*) ;;
+    *) spec="$corpus/$name" ;;  # a tokenizer.json path, relative to tare.yaml
+  esac
   timed "tare count $name"
-  bench_time 0 "$work/count" ./tare count --tokenizer "$name" --format json "@$list"
+  bench_time 0 "$work/count" ./tare count --tokenizer "$spec" --format json "@$list"
   row "tare count $name" "$bench_wall" "$bench_rss_mib" "$bench_cpu" "$bench_other_cpu" "$(total_tokens "$work/count")"
 done
 
