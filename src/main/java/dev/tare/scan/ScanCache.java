@@ -77,7 +77,7 @@ final class ScanCache {
         this.wholeRoot = wholeRoot;
     }
 
-    /** A cache that remembers nothing, for {@code --no-cache} and for staged content. */
+    /** A cache that remembers nothing: {@code --no-cache}, and library use that does not ask for one. */
     static ScanCache disabled(Path root) {
         return new ScanCache(root, Optional.empty(), Map.of(), System.currentTimeMillis() * 1_000_000L, true);
     }

@@ -119,7 +119,7 @@ class CostCommandTest {
         assertEquals(196, rows.get(5).get("footprint").get("max_concurrent").asLong());
     }
 
-    /** The FILE form measures the template on the target's tokenizer (jtokkit o200k_base, checked in TiktokenReferenceTest). */
+    /** The FILE form measures the template on the target's tokenizer (o200k_base, checked in TiktokenReferenceTest). */
     @Test
     void templateFileIsMeasuredOnTheTargetsTokenizer() throws IOException {
         String text = "Summarize the customer's bill in two sentences.\n";

@@ -132,7 +132,7 @@ class DemoCorpusTest {
     @Test
     void arrowsAreFlaggedExactlyWhenSomeTargetsTokenizerChargesMoreForThem() {
         // The rule measures rather than listing characters: the four arrows of assistant.md line 80 cost
-        // the same as '->' on o200k_base and cl100k_base (jtokkit 1.1.0) but more on the laptop target's
+        // the same as '->' on o200k_base and cl100k_base but more on the laptop target's
         // small demo vocabulary, so whether they are flagged follows from the configured targets.
         String line;
         try {

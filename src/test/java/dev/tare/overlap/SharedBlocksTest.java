@@ -17,7 +17,7 @@ import org.junit.jupiter.api.Test;
 /**
  * Shared blocks in hand-built template sets whose answer is known by construction: which runs of
  * words two or more templates hold, where each copy stands, and which nested or overlapping runs
- * are blocks of their own. Token counts are jtokkit's o200k_base, which TiktokenReferenceTest checks
+ * are blocks of their own. Token counts are Tare's o200k_base, which TiktokenReferenceTest checks
  * against the reference encoder; each test first checks that its pieces are on the intended side of
  * the minimum, so that a change of tokenizer shows as a broken premise rather than a wrong answer.
  */

@@ -26,7 +26,7 @@ import org.junit.jupiter.api.io.TempDir;
  * static text, and what caching it saves per month. The cost formula is design.md's
  * ("Formulas": cost_per_call = ((I − cached) × input + cached × cached_input + O × output) / 1e6,
  * cost_per_month = cost_per_call × calls_per_day × 30), so caching C tokens saves
- * C × (input − cached_input) / 1e6 × calls_per_day × 30. Token counts are jtokkit's o200k_base,
+ * C × (input − cached_input) / 1e6 × calls_per_day × 30. Token counts are Tare's o200k_base,
  * checked against the reference encoder in TiktokenReferenceTest.
  */
 class PrefixCachingScanTest {

@@ -21,7 +21,7 @@ import org.junit.jupiter.api.io.TempDir;
 /**
  * cached_input_tokens in a scan: the leading static token ids a template shares with another on the
  * same target, counted from prefix_cache_min_tokens (design.md, "Formulas"). Expected token counts
- * come from jtokkit's o200k_base, which TiktokenReferenceTest checks against the reference encoder.
+ * come from Tare's o200k_base, which TiktokenReferenceTest checks against the reference encoder.
  */
 class SharedPrefixScanTest {
     private static final String PREAMBLE = "You are the support assistant of a water utility. Answer in plain words,"

@@ -24,7 +24,7 @@ import org.junit.jupiter.api.io.TempDir;
 
 /**
  * Costly characters are decided by measurement. Every expectation here is first checked against
- * the tokenizer itself (jtokkit 1.1.0's o200k_base, the default encoding), so the test follows the
+ * the tokenizer itself (o200k_base, the default encoding), so the test follows the
  * encoding rather than a list.
  */
 class CostlyCharacterTest {

@@ -22,7 +22,7 @@ import org.junit.jupiter.api.io.TempDir;
 /**
  * The shared-block rule through the check engine, on small repositories: one finding per block at
  * its first copy, every other copy related, what each copy costs per call, the threshold from
- * {@code rules.limits}, directives, and what the rewrite would do. Token counts are jtokkit's
+ * {@code rules.limits}, directives, and what the rewrite would do. Token counts are Tare's
  * o200k_base, checked against the reference encoder in TiktokenReferenceTest; the cost is design.md's
  * formula with no output and nothing cached: tokens × input price / 1e6.
  */
