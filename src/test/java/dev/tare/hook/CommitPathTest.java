@@ -24,9 +24,11 @@ class CommitPathTest {
     private record Commit(int exitCode, String output) {
     }
 
-    private Commit commit(String message) throws Exception {
-        Process process = new ProcessBuilder("git", "-c", "user.name=Test", "-c", "user.email=test@example.invalid",
-                "-c", "commit.gpgsign=false", "commit", "-q", "-m", message)
+    private Commit commit(String message, String... more) throws Exception {
+        List<String> command = new java.util.ArrayList<>(List.of("git", "-c", "user.name=Test", "-c", "user.email=test@example.invalid",
+                "-c", "commit.gpgsign=false", "commit", "-q", "-m", message));
+        command.addAll(List.of(more));
+        Process process = new ProcessBuilder(command)
                 .directory(repo.toFile()).redirectErrorStream(true).start();
         process.getOutputStream().close();
         String output = new String(process.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
@@ -69,6 +71,20 @@ class CommitPathTest {
         Files.writeString(repo.resolve("prompts/a.md"), "Short again, but not staged.\n");
         Commit blocked = commit("large change staged");
         assertEquals(1, blocked.exitCode(), blocked.output());
+    }
+
+    @Test
+    void commitAllAndCommitOfAPathAreCheckedThroughTheIndexGitMadeForThem() throws Exception {
+        // For 'commit -a' and 'commit PATH' git builds a temporary index and names it in GIT_INDEX_FILE;
+        // the real index still holds the small version, so reading it would let the breach through.
+        Files.writeString(repo.resolve("prompts/a.md"), LONG);
+        Commit all = commit("grow, with -a", "-a");
+        assertEquals(1, all.exitCode(), all.output());
+        assertTrue(all.output().contains("prompts/a.md:1:1: error over-budget"), all.output());
+        Commit path = commit("grow, by path", "--", "prompts/a.md");
+        assertEquals(1, path.exitCode(), path.output());
+        assertTrue(path.output().contains("prompts/a.md:1:1: error over-budget"), path.output());
+        assertEquals("start\n", Git.run(repo, "log", "--format=%s"), "nothing was committed");
     }
 
     @Test

@@ -69,6 +69,41 @@ class GitIndexTest {
     }
 
     @Test
+    void unusualNamesAreReadAndStagedLiterally() throws Exception {
+        Git.run(repo, "init", "-q");
+        Files.writeString(repo.resolve("base.md"), "base");
+        Git.run(repo, "add", ".");
+        Git.run(repo, "commit", "-q", "-m", "first");
+        // A space, a non-ASCII letter, and a glob character that would also match the neighbour as a pattern.
+        String odd = "brief d\u00e9j\u00e0 *.md";
+        Files.writeString(repo.resolve(odd), "staged");
+        Files.writeString(repo.resolve("brief d\u00e9j\u00e0 x.md"), "never staged");
+        Git.run(repo, "add", "--", odd);
+        GitIndex index = GitIndex.read(repo);
+        assertEquals(List.of(odd), index.files().stream().map(StagedFile::path).toList());
+
+        Files.writeString(repo.resolve(odd), "changed on disk");
+        GitIndex.stage(repo, List.of(odd));
+        String names = Git.run(repo, "diff", "--cached", "--name-only", "-z");
+        assertEquals(List.of(odd), List.of(names.split("\0")), "only the literal path is staged");
+        assertEquals("changed on disk", new String(GitIndex.read(repo).files().get(0).staged(), StandardCharsets.UTF_8));
+    }
+
+    @Test
+    void deletionsAndLinksAreNotStagedFiles() throws Exception {
+        Git.run(repo, "init", "-q");
+        Files.writeString(repo.resolve("gone.md"), "committed");
+        Files.writeString(repo.resolve("kept.md"), "committed");
+        Git.run(repo, "add", ".");
+        Git.run(repo, "commit", "-q", "-m", "first");
+        Git.run(repo, "rm", "-q", "gone.md");
+        Files.createSymbolicLink(repo.resolve("link.md"), Path.of("kept.md"));
+        Files.writeString(repo.resolve("kept.md"), "edited");
+        Git.run(repo, "add", "link.md", "kept.md");
+        assertEquals(List.of("kept.md"), GitIndex.read(repo).files().stream().map(StagedFile::path).toList());
+    }
+
+    @Test
     void outsideGitIsAClearError(@TempDir Path plain) {
         TareException e = assertThrows(TareException.class, () -> GitIndex.read(plain));
         assertTrue(e.getMessage().contains("not inside a git work tree"), e.getMessage());
