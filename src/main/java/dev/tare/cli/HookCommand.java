@@ -1,6 +1,7 @@
 package dev.tare.cli;
 
 import dev.tare.TareException;
+import dev.tare.config.TargetConfig;
 import dev.tare.hook.PreCommitHook;
 import dev.tare.lint.Check;
 import dev.tare.lint.CheckOptions;
@@ -137,14 +138,19 @@ final class HookCommand implements Runnable {
         @Override
         public Integer call() {
             Workspace workspace = Workspace.open(List.of(), common.configFile());
+            TokenizerRegistry tokenizers = new TokenizerRegistry();
+            // Every staged template is counted with every target's tokenizer: load them while git is read
+            // and the rules are set up.
+            List<String> needed = workspace.config().targets().stream().map(TargetConfig::tokenizer).toList();
+            tokenizers.preload(needed.isEmpty() ? List.of(TokenizerRegistry.DEFAULT) : needed, workspace.config().root());
             if (workspace.config().hookFix()) {
-                dev.tare.rewrite.FixResult fixed = new dev.tare.rewrite.Fix(workspace, new TokenizerRegistry(),
+                dev.tare.rewrite.FixResult fixed = new dev.tare.rewrite.Fix(workspace, tokenizers,
                         dev.tare.rewrite.FileSystemOps.DEFAULT).runStaged(dev.tare.rewrite.FixOptions.defaults());
                 if (!fixed.files().isEmpty() || !fixed.skipped().isEmpty()) {
                     spec.commandLine().getOut().print(dev.tare.report.FixReport.text(fixed, false));
                 }
             }
-            CheckResult result = new Check(workspace, new TokenizerRegistry()).runStaged(CheckOptions.defaults());
+            CheckResult result = new Check(workspace, tokenizers).runStaged(CheckOptions.defaults());
             if (!result.findings().isEmpty()) {
                 spec.commandLine().getOut().print(CheckReport.text(result));
                 spec.commandLine().getOut().flush();

@@ -77,16 +77,22 @@ final class BytePairEncoding implements Tokenizer {
         return ids;
     }
 
+    @Override
+    public void prepare() {
+        vocabulary();
+    }
+
     private Vocabulary vocabulary() {
         Vocabulary loaded = vocabulary;
+        return loaded != null ? loaded : TokenizerRegistry.timed(this::loadOnce);
+    }
+
+    /** Loads the vocabulary unless another thread has (or is loading it, which this then waits for). */
+    private synchronized Vocabulary loadOnce() {
+        Vocabulary loaded = vocabulary;
         if (loaded == null) {
-            synchronized (this) {
-                loaded = vocabulary;
-                if (loaded == null) {
-                    loaded = load.get();
-                    vocabulary = loaded;
-                }
-            }
+            loaded = load.get();
+            vocabulary = loaded;
         }
         return loaded;
     }

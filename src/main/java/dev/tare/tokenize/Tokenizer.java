@@ -15,4 +15,8 @@ public interface Tokenizer {
 
     /** The token ids of {@code text}, in order. */
     int[] encode(String text);
+
+    /** Loads now whatever this tokenizer would otherwise load on first use (a built-in encoding's vocabulary). */
+    default void prepare() {
+    }
 }

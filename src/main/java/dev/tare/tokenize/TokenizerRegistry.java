@@ -2,6 +2,8 @@ package dev.tare.tokenize;
 
 import dev.tare.TareException;
 import java.nio.file.Path;
+import java.util.Collection;
+import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
@@ -21,8 +23,7 @@ public final class TokenizerRegistry {
     /** Built-in encoding names, in the order they are listed to users. */
     public static final List<String> BUILT_IN = List.of("o200k_base", "cl100k_base", "p50k_base", "r50k_base");
 
-    /** Where jtokkit keeps each encoding's ranks, and the splitting pattern each one uses. */
-    private static final String RANKS = "/com/knuddels/jtokkit/%s.tiktoken";
+    /** The splitting pattern each encoding uses. */
     private static final Map<String, Supplier<Pretokenizer>> SPLITTERS = Map.of(
             "o200k_base", O200kPieces::new,
             "cl100k_base", Cl100kPieces::new,
@@ -32,6 +33,7 @@ public final class TokenizerRegistry {
     private final Map<String, Tokenizer> loaded = new ConcurrentHashMap<>();
     /** Time spent loading tokenizers in this process, for {@code --timings}. */
     private static final AtomicLong LOAD_NANOS = new AtomicLong();
+    private static final ThreadLocal<Boolean> IN_BACKGROUND = ThreadLocal.withInitial(() -> false);
 
     /**
      * The tokenizer for {@code spec}: a built-in name, or a path to a {@code tokenizer.json} file,
@@ -42,23 +44,53 @@ public final class TokenizerRegistry {
     public Tokenizer get(String spec, Path baseDir) {
         Supplier<Pretokenizer> splitter = SPLITTERS.get(spec);
         if (splitter != null) {
-            return loaded.computeIfAbsent(spec, name -> new BytePairEncoding(name,
-                    () -> timed(() -> Vocabulary.fromResource(String.format(RANKS, name))), splitter.get()));
+            return loaded.computeIfAbsent(spec, name -> new BytePairEncoding(name, () -> Vocabulary.load(name), splitter.get()));
         }
         if (!namesFile(spec)) {
             throw new TareException("unknown tokenizer '" + spec + "': use one of " + String.join(", ", BUILT_IN)
                     + ", or the path of a tokenizer.json file");
         }
         Path file = baseDir.resolve(spec).toAbsolutePath().normalize();
-        return loaded.computeIfAbsent(file.toString(), key -> timed(() -> TokenizerFile.load(spec, file)));
+        Tokenizer ready = loaded.get(file.toString());
+        return ready != null ? ready : timed(() -> loaded.computeIfAbsent(file.toString(), key -> TokenizerFile.load(spec, file)));
     }
 
-    /** Milliseconds this process has spent loading tokenizers, across every registry. */
+    /**
+     * Starts loading the tokenizers {@code specs} name (built-in vocabularies included) on a background
+     * thread, so that a command sure to need them all, such as the pre-commit hook, does its other work
+     * meanwhile. {@link #get} then returns them, waiting for one still loading; a tokenizer that fails
+     * to load here is loaded again there, on the command's own thread, which reports the error.
+     */
+    public void preload(Collection<String> specs, Path baseDir) {
+        List<String> wanted = List.copyOf(new LinkedHashSet<>(specs));
+        Thread loader = new Thread(() -> {
+            IN_BACKGROUND.set(true);
+            for (String spec : wanted) {
+                try {
+                    get(spec, baseDir).prepare();
+                } catch (RuntimeException e) {
+                    // Left for get() on the command's thread to report.
+                }
+            }
+        }, "tare-tokenizer-preload");
+        loader.setDaemon(true);
+        loader.start();
+    }
+
+    /**
+     * Milliseconds this process's commands have spent loading tokenizers or waiting for them, across
+     * every registry; loading on the background thread of {@link #preload} counts only where a command
+     * had to wait for it.
+     */
     public static double loadMillis() {
         return LOAD_NANOS.get() / 1e6;
     }
 
-    private static <T> T timed(Supplier<T> load) {
+    /** Runs {@code load}, adding its time to {@link #loadMillis} unless it runs in the background. */
+    static <T> T timed(Supplier<T> load) {
+        if (IN_BACKGROUND.get()) {
+            return load.get();
+        }
         long start = System.nanoTime();
         try {
             return load.get();

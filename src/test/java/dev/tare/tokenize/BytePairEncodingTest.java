@@ -88,7 +88,7 @@ class BytePairEncodingTest {
 
     @Test
     void shortAndLongMergesAgreeOnEveryPieceLength() {
-        Vocabulary vocabulary = Vocabulary.fromResource("/com/knuddels/jtokkit/o200k_base.tiktoken");
+        Vocabulary vocabulary = Vocabulary.load("o200k_base");
         SplittableRandom random = new SplittableRandom(11L);
         for (int i = 0; i < 3_000; i++) {
             int length = 2 + random.nextInt(BytePairMerge.LONG_PIECE);
@@ -103,7 +103,7 @@ class BytePairEncodingTest {
     @ParameterizedTest(name = "{0}")
     @ValueSource(strings = {"o200k_base", "cl100k_base", "p50k_base", "r50k_base"})
     void everyTokenIsFoundByItsBytesAndDecodesAsJtokkitDoes(String name) {
-        Vocabulary vocabulary = Vocabulary.fromResource("/com/knuddels/jtokkit/" + name + ".tiktoken");
+        Vocabulary vocabulary = Vocabulary.load(name);
         Encoding theirs = jtokkit(name);
         int found = 0;
         for (int rank = 0; rank < vocabulary.ranks(); rank++) {
