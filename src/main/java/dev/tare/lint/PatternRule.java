@@ -19,6 +19,8 @@ final class PatternRule implements Rule {
     private final Scope scope;
     private final Optional<String> replace;
     private final Optional<String> message;
+    /** Text every match contains ({@link RequiredLiteral}); a message without it is not searched. */
+    private final String required;
 
     PatternRule(RuleDescriptor descriptor, Pattern find, Scope scope, Optional<String> replace, Optional<String> message) {
         this.descriptor = descriptor;
@@ -26,6 +28,7 @@ final class PatternRule implements Rule {
         this.scope = scope;
         this.replace = replace;
         this.message = message;
+        this.required = RequiredLiteral.of(find.pattern());
     }
 
     @Override
@@ -39,6 +42,9 @@ final class PatternRule implements Rule {
         List<Finding> findings = new ArrayList<>();
         for (MessageText message : text.messages()) {
             String content = message.content();
+            if (!content.contains(required)) {
+                continue;
+            }
             Matcher matcher = find.matcher(content);
             int from = 0;
             while (from <= content.length() && matcher.find(from)) {
