@@ -8,18 +8,14 @@ import dev.tare.source.SafeReader;
 import dev.tare.source.YamlDocument;
 import java.io.IOException;
 import java.io.InputStream;
-import java.net.URI;
 import java.net.URISyntaxException;
 import java.net.URL;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.FileSystem;
-import java.nio.file.FileSystems;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Iterator;
 import java.util.List;
-import java.util.Map;
 import java.util.Optional;
 import java.util.OptionalInt;
 import java.util.Set;
@@ -46,24 +42,47 @@ public final class PackLoader {
     private PackLoader() {
     }
 
-    /** The packs shipped inside Tare (the repository's {@code rules/} folder, packaged into the jar). */
+    /**
+     * The packs shipped inside Tare (the repository's {@code rules/} folder, packaged into the jar). From
+     * the jar they are read by the names in {@link PackIndex#INDEX}, which the build writes, rather than
+     * by opening the jar as a file system: that costs a pre-commit hook more than the rules do.
+     */
     public static List<Rule> builtIn() {
-        URL folder = PackLoader.class.getClassLoader().getResource(FOLDER);
+        return builtIn(PackLoader.class.getClassLoader());
+    }
+
+    /** The packs {@code loader} holds under {@value #FOLDER}. */
+    static List<Rule> builtIn(ClassLoader loader) {
+        URL folder = loader.getResource(FOLDER);
         if (folder == null) {
             return List.of();
         }
         try {
-            URI uri = folder.toURI();
-            if (uri.getScheme().equals("jar")) {
-                try (FileSystem jar = FileSystems.newFileSystem(uri, Map.of())) {
-                    return loadFolder(jar.getPath(FOLDER), FOLDER);
-                } catch (java.nio.file.FileSystemAlreadyExistsException e) {
-                    return loadFolder(FileSystems.getFileSystem(uri).getPath(FOLDER), FOLDER);
-                }
+            if (folder.getProtocol().equals("file")) {
+                return loadFolder(Path.of(folder.toURI()), FOLDER);
             }
-            return loadFolder(Path.of(uri), FOLDER);
+            byte[] index = resource(loader, PackIndex.INDEX);
+            if (index == null) {
+                throw new IllegalStateException(PackIndex.INDEX + " is missing from the jar; build it with mvn package");
+            }
+            List<Rule> rules = new ArrayList<>();
+            for (String file : new String(index, StandardCharsets.UTF_8).lines().filter(line -> !line.isBlank()).toList()) {
+                String name = FOLDER + "/" + file;
+                byte[] text = resource(loader, name);
+                if (text == null) {
+                    throw new IllegalStateException(name + " is listed in " + PackIndex.INDEX + " but missing from the jar");
+                }
+                rules.addAll(parse(name, new String(text, StandardCharsets.UTF_8)));
+            }
+            return rules;
         } catch (URISyntaxException | IOException e) {
             throw new IllegalStateException("the built-in rule packs cannot be read", e);
+        }
+    }
+
+    private static byte[] resource(ClassLoader loader, String name) throws IOException {
+        try (InputStream in = loader.getResourceAsStream(name)) {
+            return in == null ? null : in.readAllBytes();
         }
     }
 
@@ -86,7 +105,7 @@ public final class PackLoader {
     private static List<Rule> loadFolder(Path folder, String shownAs) throws IOException {
         List<Path> files;
         try (Stream<Path> list = Files.list(folder)) {
-            files = list.filter(p -> p.getFileName().toString().matches(".*\\.ya?ml")).sorted(
+            files = list.filter(p -> PackIndex.isPack(p.getFileName().toString())).sorted(
                     java.util.Comparator.comparing(p -> p.getFileName().toString())).toList();
         }
         List<Rule> rules = new ArrayList<>();
@@ -97,16 +116,11 @@ public final class PackLoader {
         return rules;
     }
 
-    private static String read(Path file, String name) throws IOException {
-        if (file.getFileSystem() == FileSystems.getDefault()) {
-            try {
-                return new SafeReader(MAX_PACK_BYTES).read(name, file).text();
-            } catch (TareException e) {
-                throw new TareException(name + ": " + e.getMessage(), e);
-            }
-        }
-        try (InputStream in = Files.newInputStream(file)) {
-            return new String(in.readAllBytes(), StandardCharsets.UTF_8);
+    private static String read(Path file, String name) {
+        try {
+            return new SafeReader(MAX_PACK_BYTES).read(name, file).text();
+        } catch (TareException e) {
+            throw new TareException(name + ": " + e.getMessage(), e);
         }
     }
 
