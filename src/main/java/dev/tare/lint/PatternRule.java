@@ -19,8 +19,8 @@ final class PatternRule implements Rule {
     private final Scope scope;
     private final Optional<String> replace;
     private final Optional<String> message;
-    /** Text every match contains ({@link RequiredLiteral}); a message without it is not searched. */
-    private final String required;
+    /** What every match contains ({@link RequiredLiteral}); a message without it is not searched. */
+    private final RequiredLiteral.Filter required;
 
     PatternRule(RuleDescriptor descriptor, Pattern find, Scope scope, Optional<String> replace, Optional<String> message) {
         this.descriptor = descriptor;
@@ -28,7 +28,7 @@ final class PatternRule implements Rule {
         this.scope = scope;
         this.replace = replace;
         this.message = message;
-        this.required = RequiredLiteral.of(find.pattern());
+        this.required = RequiredLiteral.filter(find.pattern());
     }
 
     @Override
@@ -42,7 +42,7 @@ final class PatternRule implements Rule {
         List<Finding> findings = new ArrayList<>();
         for (MessageText message : text.messages()) {
             String content = message.content();
-            if (!content.contains(required)) {
+            if (!required.admits(content)) {
                 continue;
             }
             Matcher matcher = find.matcher(content);

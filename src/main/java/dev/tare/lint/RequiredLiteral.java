@@ -7,6 +7,9 @@ package dev.tare.lint;
  * one {@link String#contains} instead of running the pattern's automaton over it, which in a short
  * run such as the pre-commit hook is most of what pattern rules cost.
  *
+ * <p>When no run is known, a class every match needs, such as {@code [!?]}, gives a set of characters
+ * of which every match contains one.
+ *
  * <p>Sound before clever: a pattern with a top-level alternative, flags, or an escape this reader does
  * not know gives the empty string (no shortcut). Groups, classes and {@code .} end a run; an atom made
  * optional by {@code ?}, {@code *} or <code>{0,n}</code> is dropped from its run, and a repeated one ends it.
@@ -15,6 +18,7 @@ final class RequiredLiteral {
     private final String pattern;
     private final StringBuilder run = new StringBuilder();
     private String best = "";
+    private String anyOf = "";
     private int at;
 
     private RequiredLiteral(String pattern) {
@@ -23,10 +27,39 @@ final class RequiredLiteral {
 
     /** The run every match of {@code pattern} contains; empty when none is known. */
     static String of(String pattern) {
+        return filter(pattern).run();
+    }
+
+    /** What every match of {@code pattern} contains, as far as this reader can tell. */
+    static Filter filter(String pattern) {
         try {
-            return new RequiredLiteral(pattern).read();
+            RequiredLiteral reader = new RequiredLiteral(pattern);
+            String run = reader.read();
+            return new Filter(run, run.isEmpty() ? reader.anyOf : "");
         } catch (GiveUp e) {
-            return "";
+            return new Filter("", "");
+        }
+    }
+
+    /**
+     * What every match contains: the plain run {@code run}, else (when {@code run} is empty) one of the
+     * characters of {@code anyOf}; both empty when nothing is known.
+     */
+    record Filter(String run, String anyOf) {
+        /** Whether a match in {@code text} is possible at all. */
+        boolean admits(String text) {
+            if (!run.isEmpty()) {
+                return text.contains(run);
+            }
+            if (anyOf.isEmpty()) {
+                return true;
+            }
+            for (int i = 0; i < anyOf.length(); i++) {
+                if (text.indexOf(anyOf.charAt(i)) >= 0) {
+                    return true;
+                }
+            }
+            return false;
         }
     }
 
@@ -44,9 +77,14 @@ final class RequiredLiteral {
                     skipQuantifier();
                 }
                 case '[' -> {
-                    at = closingBracket(at) + 1;
+                    int open = at;
+                    at = closingBracket(open) + 1;
                     endRun();
-                    skipQuantifier();
+                    String members = members(pattern.substring(open + 1, at - 1));
+                    if (quantifierMinimum() != 0 && !members.isEmpty()
+                            && (anyOf.isEmpty() || members.length() < anyOf.length())) {
+                        anyOf = members;
+                    }
                 }
                 case '.' -> {
                     at++;
@@ -157,6 +195,44 @@ final class RequiredLiteral {
         }
         throw new GiveUp();
     }
+
+    /**
+     * The characters of a class's inside, when it is a plain positive list of at most
+     * {@value #MAX_MEMBERS} characters (single characters, escaped punctuation, short ranges); empty otherwise.
+     */
+    private static String members(String inside) {
+        if (inside.isEmpty() || inside.charAt(0) == '^' || inside.contains("[:")) {
+            return "";
+        }
+        StringBuilder members = new StringBuilder();
+        for (int i = 0; i < inside.length(); i++) {
+            char c = inside.charAt(i);
+            if (c == '\\') {
+                if (i + 1 >= inside.length() || Character.isLetterOrDigit(inside.charAt(i + 1)) || inside.charAt(i + 1) > 0x7F) {
+                    return "";
+                }
+                c = inside.charAt(++i);
+            }
+            if (i + 2 < inside.length() && inside.charAt(i + 1) == '-') {
+                char last = inside.charAt(i + 2);
+                if (last == '\\' || last < c || last - c >= MAX_MEMBERS) {
+                    return "";
+                }
+                for (char member = c; member <= last; member++) {
+                    members.append(member);
+                }
+                i += 2;
+            } else {
+                members.append(c);
+            }
+            if (members.length() > MAX_MEMBERS || members.chars().anyMatch(m -> Character.isSurrogate((char) m))) {
+                return "";
+            }
+        }
+        return members.toString();
+    }
+
+    private static final int MAX_MEMBERS = 16;
 
     /** The {@code ]} that closes the class opened at {@code open}; a {@code ]} first in the class is a member. */
     private int closingBracket(int open) {

@@ -40,11 +40,31 @@ class RequiredLiteralTest {
         assertEquals(required, RequiredLiteral.of(pattern));
     }
 
+    @ParameterizedTest(name = "{0}")
+    @CsvSource(delimiterString = " => ", value = {
+            "([!?])[!?]+ => !?",
+            "[!?]{2,} => !?",
+            "[a-c]x? => abc",
+            "[a-z]+ => ''",
+            "[^!?]+ => ''",
+            "[!?]?x => ''",
+            "[\\.,;]\\s => .,;",
+    })
+    void withoutARunAClassEveryMatchNeedsGivesItsCharacters(String pattern, String anyOf) {
+        RequiredLiteral.Filter filter = RequiredLiteral.filter(pattern);
+        assertEquals(anyOf, filter.anyOf());
+        if (!anyOf.isEmpty()) {
+            assertTrue(filter.admits("ok" + anyOf.charAt(anyOf.length() - 1)));
+            assertTrue(!filter.admits("none of them here"));
+        }
+    }
+
     @Test
     void everyMatchOfRandomPatternsContainsTheRun() {
         // RE2J itself is the judge: whenever it finds a match, the run must be in the matched text.
         SplittableRandom random = new SplittableRandom(2026);
         int withRun = 0;
+        int withSet = 0;
         int matched = 0;
         for (int i = 0; i < 20_000; i++) {
             String pattern = pattern(random);
@@ -54,8 +74,10 @@ class RequiredLiteralTest {
             } catch (PatternSyntaxException e) {
                 continue;
             }
-            String run = RequiredLiteral.of(pattern);
+            RequiredLiteral.Filter filter = RequiredLiteral.filter(pattern);
+            String run = filter.run();
             withRun += run.isEmpty() ? 0 : 1;
+            withSet += filter.anyOf().isEmpty() ? 0 : 1;
             for (int t = 0; t < 20; t++) {
                 String text = text(random);
                 Matcher matcher = compiled.matcher(text);
@@ -63,13 +85,16 @@ class RequiredLiteralTest {
                     matched++;
                     assertTrue(matcher.group().contains(run),
                             () -> "'" + pattern + "' matched '" + matcher.group() + "' without '" + run + "'");
+                    assertTrue(filter.admits(matcher.group()), () -> "'" + pattern + "' matched '" + matcher.group()
+                            + "', which the filter " + filter + " refuses");
                 }
             }
         }
-        assertTrue(withRun > 5_000 && matched > 5_000, withRun + " patterns with a run, " + matched + " matches");
+        assertTrue(withRun > 5_000 && withSet > 200 && matched > 5_000,
+                withRun + " patterns with a run, " + withSet + " with a set, " + matched + " matches");
     }
 
-    private static final String[] ATOMS = {"a", "b", "c", " ", "\\.", ".", "[ab]", "[^a]", "\\b", "\\s", "\\w", "(ab|c)",
+    private static final String[] ATOMS = {"a", "b", "c", " ", "\\.", ".", "[ab]", "[^a]", "[a-c]", "[]a]", "[.,]", "[\\.b]", "\\b", "\\s", "\\w", "(ab|c)",
             "(?:b)", "^", "$", "\\B"};
     private static final String[] QUANTIFIERS = {"", "", "", "", "?", "*", "+", "{2}", "{0,2}", "{1,}", "??", "+?", "{,2}"};
 
