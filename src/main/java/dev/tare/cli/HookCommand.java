@@ -12,6 +12,7 @@ import dev.tare.tokenize.TokenizerRegistry;
 import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -22,9 +23,19 @@ import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare hook}: the git pre-commit hook. */
 @Command(name = "hook", mixinStandardHelpOptions = true,
-        description = "Installs or removes the git pre-commit hook that checks staged templates before each commit.",
-        subcommands = {HookCommand.Install.class, HookCommand.Uninstall.class, HookCommand.Run.class})
+        description = "Installs or removes the git pre-commit hook that checks staged templates before each commit.")
 final class HookCommand implements Runnable {
+    /** The hook's subcommands by name, in the order help lists them; added by {@link TareCommand}, which builds only the one that runs. */
+    static final Map<String, Class<?>> SUBCOMMANDS = subcommands();
+
+    private static Map<String, Class<?>> subcommands() {
+        Map<String, Class<?>> byName = new java.util.LinkedHashMap<>();
+        byName.put("install", Install.class);
+        byName.put("uninstall", Uninstall.class);
+        byName.put("run", Run.class);
+        return byName;
+    }
+
     @Spec
     private CommandSpec spec;
 

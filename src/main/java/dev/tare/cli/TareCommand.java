@@ -5,6 +5,7 @@ import dev.tare.TareException;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.io.PrintWriter;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -52,7 +53,7 @@ public final class TareCommand implements Runnable {
 
     /** A configured command line with every subcommand, writing to {@code out} and {@code err}. */
     public static CommandLine commandLine(PrintWriter out, PrintWriter err) {
-        return configure(new CommandLine(new TareCommand()), SUBCOMMANDS.keySet().toArray(String[]::new), out, err);
+        return configure(new CommandLine(new TareCommand()), SUBCOMMANDS.keySet().toArray(String[]::new), new String[0], out, err);
     }
 
     /**
@@ -63,12 +64,22 @@ public final class TareCommand implements Runnable {
     public static CommandLine commandLine(PrintWriter out, PrintWriter err, String... args) {
         boolean one = args.length > 0 && SUBCOMMANDS.containsKey(args[0]) && !args[0].equals("help");
         String[] names = one ? new String[] {args[0]} : SUBCOMMANDS.keySet().toArray(String[]::new);
-        return configure(new CommandLine(new TareCommand()), names, out, err);
+        return configure(new CommandLine(new TareCommand()), names, one ? java.util.Arrays.copyOfRange(args, 1, args.length) : new String[0],
+                out, err);
     }
 
-    private static CommandLine configure(CommandLine commandLine, String[] subcommands, PrintWriter out, PrintWriter err) {
+    private static CommandLine configure(CommandLine commandLine, String[] subcommands, String[] rest, PrintWriter out,
+                                         PrintWriter err) {
         for (String name : subcommands) {
             commandLine.addSubcommand(name, SUBCOMMANDS.get(name));
+        }
+        CommandLine hook = commandLine.getSubcommands().get("hook");
+        if (hook != null) {
+            // The hook's own subcommands, built the same way: only the one named, when one is.
+            boolean one = rest.length > 0 && HookCommand.SUBCOMMANDS.containsKey(rest[0]);
+            for (String name : one ? List.of(rest[0]) : HookCommand.SUBCOMMANDS.keySet()) {
+                hook.addSubcommand(name, HookCommand.SUBCOMMANDS.get(name));
+            }
         }
         commandLine.setOut(out);
         commandLine.setErr(err);

@@ -28,7 +28,7 @@ class SubcommandsTest {
 
     @ParameterizedTest
     @ValueSource(strings = {"", "--help", "--version", "help", "help scan", "scna", "scan --help", "scan --no-such-flag",
-            "count", "count --format yaml x.md", "hook", "hook --help", "hook run --help", "hook nope", "rules",
+            "count", "count --format yaml x.md", "hook", "hook --help", "hook run --help", "hook nope", "hook install --help", "help hook", "rules",
             "explain blank-lines", "explain no-such-rule", "cost --help", "check --fail-on never"})
     void printsWhatTheFullCommandLinePrints(String line) {
         String[] args = line.isEmpty() ? new String[0] : line.split(" ");
@@ -39,7 +39,11 @@ class SubcommandsTest {
     void buildsOnlyTheSubcommandNamedFirst() {
         PrintWriter sink = new PrintWriter(new StringWriter());
         assertEquals(Set.of("count"), TareCommand.commandLine(sink, sink, "count", "a.md").getSubcommands().keySet());
-        assertEquals(Set.of("hook"), TareCommand.commandLine(sink, sink, "hook", "run").getSubcommands().keySet());
+        CommandLine hook = TareCommand.commandLine(sink, sink, "hook", "run");
+        assertEquals(Set.of("hook"), hook.getSubcommands().keySet());
+        assertEquals(Set.of("run"), hook.getSubcommands().get("hook").getSubcommands().keySet());
+        assertEquals(HookCommand.SUBCOMMANDS.keySet(),
+                TareCommand.commandLine(sink, sink, "hook", "--help").getSubcommands().get("hook").getSubcommands().keySet());
         assertEquals(TareCommand.SUBCOMMANDS.keySet(), TareCommand.commandLine(sink, sink, "help", "count").getSubcommands().keySet());
         assertEquals(TareCommand.SUBCOMMANDS.keySet(), TareCommand.commandLine(sink, sink, "--help").getSubcommands().keySet());
     }
