@@ -79,6 +79,15 @@ final class UnsizedVariable implements Rule {
 
     static Location locate(TemplateText text, Template template, Segment segment) {
         int base = template.isChat() ? 0 : template.bodyStart();
+        // The segment is normally one of the messages' own: finding it by identity spares comparing
+        // every segment's whole record on the way.
+        for (MessageText message : text.messages()) {
+            for (Segment own : message.message().segments()) {
+                if (own == segment) {
+                    return new Location(message, segment.span().start() - base, segment.span().end() - base);
+                }
+            }
+        }
         for (MessageText message : text.messages()) {
             if (message.message().segments().contains(segment)) {
                 return new Location(message, segment.span().start() - base, segment.span().end() - base);
