@@ -11,6 +11,7 @@ import dev.tare.scan.Workspace;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.io.IOException;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.nio.file.Path;
@@ -29,7 +30,7 @@ final class HookCommand implements Runnable {
     static final Map<String, Class<?>> SUBCOMMANDS = subcommands();
 
     private static Map<String, Class<?>> subcommands() {
-        Map<String, Class<?>> byName = new java.util.LinkedHashMap<>();
+        Map<String, Class<?>> byName = new LinkedHashMap<>();
         byName.put("install", Install.class);
         byName.put("uninstall", Uninstall.class);
         byName.put("run", Run.class);

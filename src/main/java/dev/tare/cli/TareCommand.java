@@ -4,6 +4,7 @@ import dev.tare.Tare;
 import dev.tare.TareException;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.io.PrintWriter;
+import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -64,7 +65,7 @@ public final class TareCommand implements Runnable {
     public static CommandLine commandLine(PrintWriter out, PrintWriter err, String... args) {
         boolean one = args.length > 0 && SUBCOMMANDS.containsKey(args[0]) && !args[0].equals("help");
         String[] names = one ? new String[] {args[0]} : SUBCOMMANDS.keySet().toArray(String[]::new);
-        return configure(new CommandLine(new TareCommand()), names, one ? java.util.Arrays.copyOfRange(args, 1, args.length) : new String[0],
+        return configure(new CommandLine(new TareCommand()), names, one ? Arrays.copyOfRange(args, 1, args.length) : new String[0],
                 out, err);
     }
 
