@@ -20,6 +20,7 @@ import dev.tare.tokenize.TokenizerRegistry;
 import java.io.File;
 import java.io.IOException;
 import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -30,6 +31,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import java.util.concurrent.ConcurrentHashMap;
+import java.util.function.Function;
 import java.util.stream.Collectors;
 import java.util.stream.Stream;
 
@@ -57,20 +59,78 @@ public final class TemplateScan {
 
     /** Runs the scan, telling {@code progress} how far it has got. */
     public ScanResult run(ScanOptions options, ScanProgress progress) {
+        return scan(setUp(options), options, progress).result();
+    }
+
+    /**
+     * The scan's report as {@code render} makes it, in UTF-8. With the cache on, a report stored by
+     * an earlier run of the same build, configuration, options and {@code form} is given back as
+     * it was when no folder walked and no file read has changed since (see {@link StoredReport}):
+     * nothing is walked, read, counted or rendered, and no tokenizer is loaded. Otherwise the scan
+     * runs and its report is stored for the next run.
+     *
+     * @param form   what besides the scan decides the report (its format and order), as a key
+     * @param render makes the report from the scan's result
+     */
+    public byte[] report(ScanOptions options, String form, Function<ScanResult, String> render, ScanProgress progress) {
+        Setup setup = setUp(options);
+        if (!options.cache()) {
+            return render.apply(scan(setup, options, progress).result()).getBytes(StandardCharsets.UTF_8);
+        }
+        StoredReport stored = StoredReport.of(workspace.root(), setup.cacheKey() + "\n" + form + "\n"
+                + workspace.displayName() + "\n" + workspace.starts());
+        Optional<byte[]> kept = stored.read();
+        if (kept.isPresent()) {
+            return kept.get();
+        }
+        Scanned scanned = scan(setup, options, progress);
+        byte[] report = render.apply(scanned.result()).getBytes(StandardCharsets.UTF_8);
+        if (scanned.result().skipped().isEmpty()) {
+            Set<Path> files = new LinkedHashSet<>();
+            scanned.selection().paths().forEach(path -> files.add(workspace.root().resolve(path)));
+            scanned.dependencies().forEach(path -> files.add(workspace.root().resolve(path)));
+            stored.save(report, scanned.selection(), files, scanned.startedNanos());
+        }
+        return report;
+    }
+
+    /** What a scan is asked for, resolved: the targets, the primary tokenizer's name and the cache key. */
+    private record Setup(List<TargetConfig> targets, String primaryName, String cacheKey) {
+    }
+
+    /** A scan's result, with the selection and dependencies it came from and when it started. */
+    private record Scanned(ScanResult result, FileSelection selection, Set<String> dependencies, long startedNanos) {
+    }
+
+    private Setup setUp(ScanOptions options) {
         TareConfig config = workspace.config();
         List<TargetConfig> targets = config.selectTargets(options.targets());
         String primaryName = options.tokenizer()
                 .orElse(targets.isEmpty() ? TokenizerRegistry.DEFAULT : targets.get(0).tokenizer());
-        Tokenizer primary = tokenizers.get(primaryName, workspace.root());
+        String key = options.cache() ? cacheKey(config, targets, primaryName) : "";
+        return new Setup(targets, primaryName, key);
+    }
+
+    private Scanned scan(Setup setup, ScanOptions options, ScanProgress progress) {
+        TareConfig config = workspace.config();
+        List<TargetConfig> targets = setup.targets();
+        Tokenizer primary = tokenizers.get(setup.primaryName(), workspace.root());
         Map<String, Tokenizer> byTarget = new LinkedHashMap<>();
         for (TargetConfig target : targets) {
             byTarget.put(target.name(), tokenizers.get(target.tokenizer(), workspace.root()));
         }
-
+        long started = System.currentTimeMillis() * 1_000_000L;
+        if (options.cache()) {
+            try {
+                CacheFolder.prepare(workspace.root());
+            } catch (IOException | RuntimeException e) {
+                // No cache folder means no cache; ScanCache finds that out for itself.
+            }
+        }
         TemplateLoader loader = new TemplateLoader(workspace);
         FileSelection selection = loader.find();
         ScanCache cache = options.cache()
-                ? ScanCache.open(workspace, cacheKey(config, targets, primaryName, options))
+                ? ScanCache.open(workspace, setup.cacheKey())
                 : ScanCache.disabled(workspace.root());
         Measurer measurer = new Measurer(config, targets, primary, byTarget, loader, cache);
 
@@ -84,9 +144,11 @@ public final class TemplateScan {
         cache.save();
         List<ScannedTemplate> templates = new ArrayList<>();
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
+        Set<String> dependencies = new LinkedHashSet<>();
         for (Outcome outcome : outcomes) {
             outcome.template().ifPresent(templates::add);
             outcome.skipped().ifPresent(skipped::add);
+            dependencies.addAll(outcome.dependencies());
         }
         skipped.sort(null);
         for (TargetConfig target : targets) {
@@ -94,8 +156,9 @@ public final class TemplateScan {
                 applySharedPrefixes(target, templates, outcomes);
             }
         }
-        return new ScanResult(workspace.displayName(), primary.name(),
+        ScanResult result = new ScanResult(workspace.displayName(), primary.name(),
                 targets.stream().map(TargetConfig::name).toList(), templates, skipped, targets);
+        return new Scanned(result, selection, dependencies, started);
     }
 
     /**
@@ -103,15 +166,11 @@ public final class TemplateScan {
      * loaded (model shapes read from files included), the options, the tokenizer files' sizes and
      * times, and the names of the partials (a new partial can change what an include resolves to).
      */
-    private String cacheKey(TareConfig config, List<TargetConfig> targets, String primaryName, ScanOptions options) {
-        StringBuilder key = new StringBuilder(config.toString()).append('\n').append(primaryName).append('\n');
+    private String cacheKey(TareConfig config, List<TargetConfig> targets, String primaryName) {
+        StringBuilder key = new StringBuilder(ValueText.of(config)).append('\n');
+        tokenizerKey(key, primaryName);
         for (TargetConfig target : targets) {
-            key.append(target.name()).append(' ').append(target.tokenizer());
-            if (TokenizerRegistry.namesFile(target.tokenizer())) {
-                File file = workspace.root().resolve(target.tokenizer()).toFile();
-                key.append(' ').append(file.length()).append(' ').append(file.lastModified());
-            }
-            key.append('\n');
+            tokenizerKey(key.append(target.name()).append(' '), target.tokenizer());
         }
         Path partials = workspace.root().resolve(config.templates().partials());
         if (!config.templates().partials().isEmpty() && Files.isDirectory(partials)) {
@@ -122,6 +181,16 @@ public final class TemplateScan {
             }
         }
         return key.toString();
+    }
+
+    /** A tokenizer's name, and the size and time of its file when it names one. */
+    private void tokenizerKey(StringBuilder key, String tokenizer) {
+        key.append(tokenizer);
+        if (TokenizerRegistry.namesFile(tokenizer)) {
+            File file = workspace.root().resolve(tokenizer).toFile();
+            key.append(' ').append(file.length()).append(' ').append(file.lastModified());
+        }
+        key.append('\n');
     }
 
     /** Re-estimates the footprints on {@code target} with the prefix each template shares with others. */
@@ -160,13 +229,14 @@ public final class TemplateScan {
      * target with a prefix cache, its leading static token ids.
      */
     private record Outcome(Optional<ScannedTemplate> template, Optional<SkippedFile> skipped,
-                           Map<String, CachePrefixes.Leading> leadingIds) {
-        static Outcome of(ScannedTemplate template, Map<String, CachePrefixes.Leading> leadingIds) {
-            return new Outcome(Optional.of(template), Optional.empty(), leadingIds);
+                           Map<String, CachePrefixes.Leading> leadingIds, List<String> dependencies) {
+        static Outcome of(ScannedTemplate template, Map<String, CachePrefixes.Leading> leadingIds,
+                          List<String> dependencies) {
+            return new Outcome(Optional.of(template), Optional.empty(), leadingIds, dependencies);
         }
 
         static Outcome of(SkippedFile skipped) {
-            return new Outcome(Optional.empty(), Optional.of(skipped), Map.of());
+            return new Outcome(Optional.empty(), Optional.of(skipped), Map.of(), List.of());
         }
     }
 
@@ -203,7 +273,8 @@ public final class TemplateScan {
         Outcome measure(String path) {
             Optional<Measurement> remembered = cache.find(path);
             if (remembered.isPresent()) {
-                return Outcome.of(remembered.get().template(targetsByName), remembered.get().leadingIds());
+                return Outcome.of(remembered.get().template(targetsByName), remembered.get().leadingIds(),
+                        cache.dependencies(path));
             }
             try {
                 SourceText text = loader.read(path);
@@ -213,7 +284,7 @@ public final class TemplateScan {
                 List<String> dependencies = new ArrayList<>(new LinkedHashSet<>(samples.includes()));
                 dependencies.addAll(template.meta().tools());
                 cache.remember(path, text.text(), dependencies, measured);
-                return Outcome.of(measured.template(targetsByName), measured.leadingIds());
+                return Outcome.of(measured.template(targetsByName), measured.leadingIds(), dependencies);
             } catch (TareException e) {
                 return Outcome.of(new SkippedFile(path, e.getMessage()));
             }
