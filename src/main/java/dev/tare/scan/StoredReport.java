@@ -126,13 +126,14 @@ final class StoredReport {
     }
 
     /**
-     * Stores {@code report} as made from {@code selection} and {@code files} (absolute paths of the
-     * templates and everything they depend on) by a scan that started at {@code startedNanos}. Not
-     * stored when a file is too recent to vouch for itself, since it would never be used.
+     * The stamps of what a report was made from: every folder of {@code selection} and its rule
+     * files, and {@code files} (absolute paths of the templates and everything they depend on),
+     * for a scan that started at {@code startedNanos}. Empty when a file is too recent to vouch for
+     * itself, since a report stored with it would never be used.
      */
-    void save(byte[] report, FileSelection selection, Collection<Path> files, long startedNanos) {
+    Optional<byte[]> stamps(FileSelection selection, Collection<Path> files, long startedNanos) {
         try {
-            ByteArrayOutputStream bytes = new ByteArrayOutputStream(report.length + 64 * files.size() + (1 << 16));
+            ByteArrayOutputStream bytes = new ByteArrayOutputStream(64 * files.size() + (1 << 16));
             DataOutputStream out = new DataOutputStream(bytes);
             out.writeInt(MAGIC);
             out.writeInt(FORMAT);
@@ -142,7 +143,7 @@ final class StoredReport {
             for (WalkedFolder folder : selection.folders()) {
                 long[] now = stamp(folder.path());
                 if (now[0] != FOLDER) {
-                    return;
+                    return Optional.empty();
                 }
                 string(out, folder.path().toString());
                 out.writeLong(now[1]);
@@ -154,21 +155,32 @@ final class StoredReport {
             for (Path path : all) {
                 long[] now = stamp(path);
                 if (now[0] == UNREADABLE || now[0] >= 0 && now[1] >= startedNanos - RACY_NANOS) {
-                    return;
+                    return Optional.empty();
                 }
                 string(out, path.toString());
                 out.writeLong(now[0]);
                 out.writeLong(now[1]);
             }
-            bytes(out, report);
             out.flush();
+            return Optional.of(bytes.toByteArray());
+        } catch (IOException | RuntimeException e) {
+            return Optional.empty();
+        }
+    }
+
+    /** Stores {@code report} with the {@link #stamps} of what it was made from. */
+    void save(byte[] stamps, byte[] report) {
+        try {
+            byte[] bytes = new byte[stamps.length + 4 + report.length + 8];
+            ByteBuffer out = ByteBuffer.wrap(bytes);
+            out.put(stamps).putInt(report.length).put(report);
             CRC32C crc = new CRC32C();
-            crc.update(bytes.toByteArray());
-            out.writeLong(crc.getValue());
-            CacheFolder.replace(file, bytes.toByteArray());
+            crc.update(bytes, 0, out.position());
+            out.putLong(crc.getValue());
+            CacheFolder.replace(file, bytes);
             CacheFolder.pruneOthers(file, "report-");
         } catch (IOException | RuntimeException e) {
-            // An optimisation only: the report was printed either way.
+            // An optimisation only: the report is printed either way.
         }
     }
 

@@ -30,6 +30,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
+import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.function.Function;
 import java.util.stream.Collectors;
@@ -59,7 +60,9 @@ public final class TemplateScan {
 
     /** Runs the scan, telling {@code progress} how far it has got. */
     public ScanResult run(ScanOptions options, ScanProgress progress) {
-        return scan(setUp(options), options, progress).result();
+        Scanned scanned = scan(setUp(options), options, progress);
+        scanned.cache().save();
+        return scanned.result();
     }
 
     /**
@@ -84,13 +87,20 @@ public final class TemplateScan {
             return kept.get();
         }
         Scanned scanned = scan(setup, options, progress);
-        byte[] report = render.apply(scanned.result()).getBytes(StandardCharsets.UTF_8);
-        if (scanned.result().skipped().isEmpty()) {
+        // Writing the measurements and stamping the files for the stored report run beside the
+        // rendering, on the core it leaves idle.
+        CompletableFuture<Optional<byte[]>> stamps = CompletableFuture.supplyAsync(() -> {
+            scanned.cache().save();
+            if (!scanned.result().skipped().isEmpty()) {
+                return Optional.empty();
+            }
             Set<Path> files = new LinkedHashSet<>();
             scanned.selection().paths().forEach(path -> files.add(workspace.root().resolve(path)));
             scanned.dependencies().forEach(path -> files.add(workspace.root().resolve(path)));
-            stored.save(report, scanned.selection(), files, scanned.startedNanos());
-        }
+            return stored.stamps(scanned.selection(), files, scanned.startedNanos());
+        });
+        byte[] report = render.apply(scanned.result()).getBytes(StandardCharsets.UTF_8);
+        stamps.join().ifPresent(stamped -> stored.save(stamped, report));
         return report;
     }
 
@@ -99,7 +109,8 @@ public final class TemplateScan {
     }
 
     /** A scan's result, with the selection and dependencies it came from and when it started. */
-    private record Scanned(ScanResult result, FileSelection selection, Set<String> dependencies, long startedNanos) {
+    private record Scanned(ScanResult result, FileSelection selection, Set<String> dependencies, long startedNanos,
+                           ScanCache cache) {
     }
 
     private Setup setUp(ScanOptions options) {
@@ -127,11 +138,16 @@ public final class TemplateScan {
                 // No cache folder means no cache; ScanCache finds that out for itself.
             }
         }
+        // The vocabularies and the previous measurements are read while the folders are walked.
+        Set<Tokenizer> used = new LinkedHashSet<>(byTarget.values());
+        used.add(primary);
+        used.forEach(TemplateScan::loadAside);
+        CompletableFuture<ScanCache> opening = CompletableFuture.supplyAsync(() -> options.cache()
+                ? ScanCache.open(workspace, setup.cacheKey())
+                : ScanCache.disabled(workspace.root()));
         TemplateLoader loader = new TemplateLoader(workspace);
         FileSelection selection = loader.find();
-        ScanCache cache = options.cache()
-                ? ScanCache.open(workspace, setup.cacheKey())
-                : ScanCache.disabled(workspace.root());
+        ScanCache cache = opening.join();
         Measurer measurer = new Measurer(config, targets, primary, byTarget, loader, cache);
 
         progress.started(selection.paths().size());
@@ -141,7 +157,6 @@ public final class TemplateScan {
             return outcome;
         }).toList();
         progress.finished();
-        cache.save();
         List<ScannedTemplate> templates = new ArrayList<>();
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
         Set<String> dependencies = new LinkedHashSet<>();
@@ -158,7 +173,7 @@ public final class TemplateScan {
         }
         ScanResult result = new ScanResult(workspace.displayName(), primary.name(),
                 targets.stream().map(TargetConfig::name).toList(), templates, skipped, targets);
-        return new Scanned(result, selection, dependencies, started);
+        return new Scanned(result, selection, dependencies, started, cache);
     }
 
     /**
@@ -181,6 +196,22 @@ public final class TemplateScan {
             }
         }
         return key.toString();
+    }
+
+    /**
+     * Counts a word with {@code tokenizer} on a thread of its own, so that its vocabulary is read
+     * there (the first count reads it) rather than by the scanning threads, which would wait for it.
+     */
+    private static void loadAside(Tokenizer tokenizer) {
+        Thread thread = new Thread(() -> {
+            try {
+                tokenizer.count("Tare");
+            } catch (RuntimeException e) {
+                // The scan counts with it again and reports what went wrong there.
+            }
+        }, "tare-load-" + tokenizer.name());
+        thread.setDaemon(true);
+        thread.start();
     }
 
     /** A tokenizer's name, and the size and time of its file when it names one. */
