@@ -277,14 +277,39 @@ public final class TemplateScan {
      * a tokenizer. The sums are those of {@link Estimates#tokens}.
      */
     private static final class Counts {
-        private final Map<Tokenizer, Map<String, Integer>> byTokenizer = new java.util.IdentityHashMap<>();
+        /** A rendering's messages as counted on one tokenizer. */
+        private record Counted(List<String> messages, int[] counts) {
+        }
 
+        private final Map<Tokenizer, List<Counted>> byTokenizer = new java.util.IdentityHashMap<>();
+
+        /**
+         * The rendering's count. A message is looked for only at its own place in the renderings
+         * counted before on the same tokenizer, where its twin stands (the static and the sample
+         * rendering hold the same messages in the same order): unlike a map of texts, that never
+         * hashes a message of thousands of characters, and stays linear in a chat of thousands of
+         * messages.
+         */
         int of(Tokenizer tokenizer, Rendering rendering) {
-            Map<String, Integer> counted = byTokenizer.computeIfAbsent(tokenizer, t -> new java.util.HashMap<>());
+            List<Counted> before = byTokenizer.computeIfAbsent(tokenizer, t -> new ArrayList<>(3));
+            List<String> messages = rendering.messages();
+            int[] counts = new int[messages.size()];
             int total = 0;
-            for (String message : rendering.messages()) {
-                total += counted.computeIfAbsent(message, tokenizer::count);
+            for (int i = 0; i < counts.length; i++) {
+                counts[i] = -1;
+                String message = messages.get(i);
+                for (Counted counted : before) {
+                    if (i < counted.messages().size() && counted.messages().get(i).equals(message)) {
+                        counts[i] = counted.counts()[i];
+                        break;
+                    }
+                }
+                if (counts[i] < 0) {
+                    counts[i] = tokenizer.count(message);
+                }
+                total += counts[i];
             }
+            before.add(new Counted(messages, counts));
             return total;
         }
     }
