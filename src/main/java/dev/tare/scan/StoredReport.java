@@ -9,6 +9,8 @@ import java.io.IOException;
 import java.nio.ByteBuffer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
+import java.nio.file.AccessDeniedException;
+import java.nio.file.FileSystemException;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.nio.file.attribute.BasicFileAttributes;
@@ -193,6 +195,13 @@ final class StoredReport {
             }
             return new long[] {attributes.size(), attributes.lastModifiedTime().to(TimeUnit.NANOSECONDS)};
         } catch (NoSuchFileException e) {
+            return new long[] {ABSENT, 0};
+        } catch (AccessDeniedException e) {
+            // Unreadable now: a stamp that matches nothing stored, so the run scans and says why.
+            return new long[] {UNREADABLE, 0};
+        } catch (FileSystemException e) {
+            // A path through a file (.git/info/exclude where .git is a worktree's file) or a link loop:
+            // nothing there, as far as the scan's rules go.
             return new long[] {ABSENT, 0};
         } catch (IOException e) {
             // Unreadable now: a stamp that matches nothing stored, so the run scans and says why.

@@ -169,6 +169,16 @@ class ScanCacheTest {
     }
 
     @Test
+    void aReportIsStoredInAGitWorktreeWhoseGitEntryIsAFile() throws IOException {
+        // In a linked worktree .git is a file naming the real folder, so .git/info/exclude cannot exist.
+        write(".git", "gitdir: /somewhere/else/.git/worktrees/other\n");
+        ageEverything();
+        String first = report("json");
+        assertEquals(first, report("json"));
+        assertEquals(1, reportFiles().size());
+    }
+
+    @Test
     void eachOutputFormHasItsOwnStoredReport() {
         String json = report("json");
         String text = report("text");
