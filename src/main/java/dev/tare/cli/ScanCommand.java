@@ -78,7 +78,7 @@ final class ScanCommand implements Callable<Integer> {
                     : HtmlReport.render(overview, order));
             spec.commandLine().getOut().flush();
         } else {
-            byte[] report = new TemplateScan(workspace, new TokenizerRegistry()).report(options, format + " " + order,
+            java.nio.ByteBuffer report = new TemplateScan(workspace, new TokenizerRegistry()).report(options, format + " " + order,
                     result -> format == Format.json ? ScanReport.json(result, order) : ScanReport.text(result, order),
                     TerminalProgress.forOutput(format != Format.text));
             StandardOutput.print(spec.commandLine().getOut(), report);

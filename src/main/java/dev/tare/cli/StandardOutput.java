@@ -4,6 +4,9 @@ import java.io.IOException;
 import java.io.OutputStream;
 import java.io.OutputStreamWriter;
 import java.io.PrintWriter;
+import java.nio.ByteBuffer;
+import java.nio.channels.Channels;
+import java.nio.channels.WritableByteChannel;
 import java.nio.charset.StandardCharsets;
 
 /**
@@ -19,18 +22,22 @@ final class StandardOutput extends PrintWriter {
     }
 
     /** Prints UTF-8 text to {@code out}: as bytes on standard output, as text on any other writer. */
-    static void print(PrintWriter out, byte[] utf8) {
+    static void print(PrintWriter out, ByteBuffer utf8) {
         if (out instanceof StandardOutput standard) {
             standard.flush();
             try {
-                standard.stream.write(utf8);
+                WritableByteChannel channel = Channels.newChannel(standard.stream);
+                ByteBuffer rest = utf8.duplicate();
+                while (rest.hasRemaining()) {
+                    channel.write(rest);
+                }
                 standard.stream.flush();
             } catch (IOException e) {
                 // As PrintWriter does: a closed pipe (tare scan | head) is not an error of the scan.
                 standard.setError();
             }
         } else {
-            out.print(new String(utf8, StandardCharsets.UTF_8));
+            out.print(StandardCharsets.UTF_8.decode(utf8.duplicate()));
             out.flush();
         }
     }

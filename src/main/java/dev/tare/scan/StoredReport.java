@@ -7,12 +7,14 @@ import java.io.ByteArrayOutputStream;
 import java.io.DataOutputStream;
 import java.io.IOException;
 import java.nio.ByteBuffer;
+import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.AccessDeniedException;
 import java.nio.file.FileSystemException;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
+import java.nio.file.StandardOpenOption;
 import java.nio.file.attribute.BasicFileAttributes;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -69,22 +71,29 @@ final class StoredReport {
                 full.getBytes(StandardCharsets.UTF_8));
     }
 
-    /** The stored report as UTF-8, when it exists, reads whole and nothing it was made from has changed. */
-    Optional<byte[]> read() {
-        byte[] bytes;
-        try {
-            bytes = Files.readAllBytes(file);
+    /**
+     * The stored report as UTF-8, when it exists, reads whole and nothing it was made from has
+     * changed. The file is mapped, not read: its report, megabytes long, goes from the page cache to
+     * standard output without passing through the heap. Files are only ever replaced whole (see
+     * {@link CacheFolder#replace}), so a mapping never sees one change under it.
+     */
+    Optional<ByteBuffer> read() {
+        ByteBuffer bytes;
+        try (FileChannel channel = FileChannel.open(file, StandardOpenOption.READ)) {
+            long size = channel.size();
+            if (size < 8 || size > Integer.MAX_VALUE) {
+                return Optional.empty();
+            }
+            bytes = channel.map(FileChannel.MapMode.READ_ONLY, 0, size);
         } catch (IOException | RuntimeException e) {
             return Optional.empty();
         }
         try {
-            if (bytes.length < 8) {
-                return Optional.empty();
-            }
+            int end = bytes.limit() - 8;
             CRC32C crc = new CRC32C();
-            crc.update(bytes, 0, bytes.length - 8);
-            ByteBuffer in = ByteBuffer.wrap(bytes, 0, bytes.length - 8);
-            if (ByteBuffer.wrap(bytes, bytes.length - 8, 8).getLong() != crc.getValue()
+            crc.update(bytes.duplicate().limit(end));
+            ByteBuffer in = bytes.duplicate().limit(end);
+            if (bytes.getLong(end) != crc.getValue()
                     || in.getInt() != MAGIC || in.getInt() != FORMAT || !Arrays.equals(bytes(in), key)) {
                 return Optional.empty();
             }
@@ -107,7 +116,8 @@ final class StoredReport {
                 sizes[i] = in.getLong();
                 times[i] = in.getLong();
             }
-            byte[] report = bytes(in);
+            int reportLength = in.getInt();
+            ByteBuffer report = in.slice(in.position(), reportLength);
             // One pass over folders and files, on every core: the stat calls are most of a warm run.
             boolean hold = IntStream.range(0, folderCount + fileCount).parallel().allMatch(i -> {
                 if (i < folderCount) {
@@ -233,9 +243,6 @@ final class StoredReport {
     }
 
     private static String string(ByteBuffer in) {
-        int length = in.getInt();
-        String text = new String(in.array(), in.position(), length, StandardCharsets.UTF_8);
-        in.position(in.position() + length);
-        return text;
+        return new String(bytes(in), StandardCharsets.UTF_8);
     }
 }

@@ -20,6 +20,7 @@ import dev.tare.tokenize.TokenizerRegistry;
 import java.io.File;
 import java.io.IOException;
 import java.io.UncheckedIOException;
+import java.nio.ByteBuffer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -66,7 +67,7 @@ public final class TemplateScan {
     }
 
     /**
-     * The scan's report as {@code render} makes it, in UTF-8. With the cache on, a report stored by
+     * The scan's report as {@code render} makes it, in UTF-8 (read-only when it comes from the store). With the cache on, a report stored by
      * an earlier run of the same build, configuration, options and {@code form} is given back as
      * it was when no folder walked and no file read has changed since (see {@link StoredReport}):
      * nothing is walked, read, counted or rendered, and no tokenizer is loaded. Otherwise the scan
@@ -75,14 +76,15 @@ public final class TemplateScan {
      * @param form   what besides the scan decides the report (its format and order), as a key
      * @param render makes the report from the scan's result
      */
-    public byte[] report(ScanOptions options, String form, Function<ScanResult, String> render, ScanProgress progress) {
+    public ByteBuffer report(ScanOptions options, String form, Function<ScanResult, String> render,
+                             ScanProgress progress) {
         Setup setup = setUp(options);
         if (!options.cache()) {
-            return render.apply(scan(setup, options, progress).result()).getBytes(StandardCharsets.UTF_8);
+            return ByteBuffer.wrap(render.apply(scan(setup, options, progress).result()).getBytes(StandardCharsets.UTF_8));
         }
         StoredReport stored = StoredReport.of(workspace.root(), setup.cacheKey() + "\n" + form + "\n"
                 + workspace.displayName() + "\n" + workspace.starts());
-        Optional<byte[]> kept = stored.read();
+        Optional<ByteBuffer> kept = stored.read();
         if (kept.isPresent()) {
             return kept.get();
         }
@@ -101,7 +103,7 @@ public final class TemplateScan {
         });
         byte[] report = render.apply(scanned.result()).getBytes(StandardCharsets.UTF_8);
         stamps.join().ifPresent(stamped -> stored.save(stamped, report));
-        return report;
+        return ByteBuffer.wrap(report);
     }
 
     /** What a scan is asked for, resolved: the targets, the primary tokenizer's name and the cache key. */

@@ -324,10 +324,10 @@ class ScanCacheTest {
      * the number of the run that made it, a new one with a new number.
      */
     private String report(String form) {
-        return new String(new TemplateScan(Workspace.open(List.of(root), Optional.empty()), new TokenizerRegistry())
-                .report(new ScanOptions(List.of(), Optional.empty(), true), form,
+        return StandardCharsets.UTF_8.decode(new TemplateScan(Workspace.open(List.of(root), Optional.empty()),
+                new TokenizerRegistry()).report(new ScanOptions(List.of(), Optional.empty(), true), form,
                         result -> "render " + renders.incrementAndGet() + " " + form + "\n" + content(result),
-                        ScanProgress.NONE), StandardCharsets.UTF_8);
+                        ScanProgress.NONE)).toString();
     }
 
     private static String content(ScanResult result) {
