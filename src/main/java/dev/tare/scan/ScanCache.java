@@ -84,6 +84,11 @@ final class ScanCache {
         return new ScanCache(root, Optional.of(file), read(file), started, workspace.starts().isEmpty());
     }
 
+    /** Whether nothing was remembered: every template will be measured afresh. */
+    boolean isEmpty() {
+        return previous.isEmpty();
+    }
+
     /** The measurement remembered for {@code path}, when the file and everything it depends on are unchanged. */
     Optional<Measurement> find(String path) {
         Entry entry = previous.get(path);

@@ -140,13 +140,18 @@ public final class TemplateScan {
                 // No cache folder means no cache; ScanCache finds that out for itself.
             }
         }
-        // The vocabularies and the previous measurements are read while the folders are walked.
+        // The previous measurements are read while the folders are walked and, when there are
+        // none (so every template will be counted), the vocabularies after them, one at a time.
         Set<Tokenizer> used = new LinkedHashSet<>(byTarget.values());
         used.add(primary);
-        used.forEach(TemplateScan::loadAside);
         CompletableFuture<ScanCache> opening = CompletableFuture.supplyAsync(() -> options.cache()
                 ? ScanCache.open(workspace, setup.cacheKey())
                 : ScanCache.disabled(workspace.root()));
+        CompletableFuture<Void> loading = opening.thenAcceptAsync(opened -> {
+            if (opened.isEmpty()) {
+                used.forEach(TemplateScan::load);
+            }
+        });
         TemplateLoader loader = new TemplateLoader(workspace);
         FileSelection selection = loader.find();
         ScanCache cache = opening.join();
@@ -159,6 +164,8 @@ public final class TemplateScan {
             return outcome;
         }).toList();
         progress.finished();
+        // Long done on a real repository; waited for so that no load outlives the command's timings.
+        loading.join();
         List<ScannedTemplate> templates = new ArrayList<>();
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
         Set<String> dependencies = new LinkedHashSet<>();
@@ -200,20 +207,13 @@ public final class TemplateScan {
         return key.toString();
     }
 
-    /**
-     * Counts a word with {@code tokenizer} on a thread of its own, so that its vocabulary is read
-     * there (the first count reads it) rather than by the scanning threads, which would wait for it.
-     */
-    private static void loadAside(Tokenizer tokenizer) {
-        Thread thread = new Thread(() -> {
-            try {
-                tokenizer.count("Tare");
-            } catch (RuntimeException e) {
-                // The scan counts with it again and reports what went wrong there.
-            }
-        }, "tare-load-" + tokenizer.name());
-        thread.setDaemon(true);
-        thread.start();
+    /** Counts a word with {@code tokenizer}, which reads its vocabulary if it has not yet. */
+    private static void load(Tokenizer tokenizer) {
+        try {
+            tokenizer.count("Tare");
+        } catch (RuntimeException e) {
+            // The scan counts with it again and reports what went wrong there.
+        }
     }
 
     /** A tokenizer's name, and the size and time of its file when it names one. */
