@@ -67,11 +67,12 @@ public final class TemplateScan {
     }
 
     /**
-     * The scan's report as {@code render} makes it, in UTF-8 (read-only when it comes from the store). With the cache on, a report stored by
-     * an earlier run of the same build, configuration, options and {@code form} is given back as
-     * it was when no folder walked and no file read has changed since (see {@link StoredReport}):
-     * nothing is walked, read, counted or rendered, and no tokenizer is loaded. Otherwise the scan
-     * runs and its report is stored for the next run.
+     * The scan's report as {@code render} makes it, in UTF-8 (read-only when it comes from the
+     * store). With the cache on, a report stored by an earlier run of the same build,
+     * configuration, options and {@code form} is given back as it was when no folder walked and no
+     * file read has changed since (see {@link StoredReport}): nothing is walked, read, counted or
+     * rendered, and no tokenizer is loaded. Otherwise the scan runs and its report is stored for
+     * the next run.
      *
      * @param form   what besides the scan decides the report (its format and order), as a key
      * @param render makes the report from the scan's result
@@ -80,7 +81,8 @@ public final class TemplateScan {
                              ScanProgress progress) {
         Setup setup = setUp(options);
         if (!options.cache()) {
-            return ByteBuffer.wrap(render.apply(scan(setup, options, progress).result()).getBytes(StandardCharsets.UTF_8));
+            String report = render.apply(scan(setup, options, progress).result());
+            return ByteBuffer.wrap(report.getBytes(StandardCharsets.UTF_8));
         }
         StoredReport stored = StoredReport.of(workspace.root(), setup.cacheKey() + "\n" + form + "\n"
                 + workspace.displayName() + "\n" + workspace.starts());
