@@ -75,7 +75,7 @@ final class GitIgnores {
             if (!path.startsWith(level.dir()) || path.equals(level.dir())) {
                 continue;
             }
-            String relative = level.dir().relativize(path).toString().replace('\\', '/');
+            String relative = TemplateFinder.relative(level.dir(), path);
             IgnoreNode.MatchResult result = level.rules().isIgnored(relative, directory);
             if (result == IgnoreNode.MatchResult.IGNORED) {
                 return true;

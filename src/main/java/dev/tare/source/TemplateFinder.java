@@ -77,7 +77,7 @@ public final class TemplateFinder {
                 }
                 enterAncestors(ignores, absolute);
                 Files.walkFileTree(absolute, EnumSet.of(FileVisitOption.FOLLOW_LINKS), Integer.MAX_VALUE,
-                        new Walker(ignores, paths, skipped, listed));
+                        new Walker(ignores, paths, skipped, listed, absolute));
             }
         } catch (IOException e) {
             throw new TareException(root + ": the folder walk failed (" + e.getMessage() + ")", e);
@@ -109,7 +109,22 @@ public final class TemplateFinder {
     }
 
     private String relative(Path absolute) {
-        return root.relativize(absolute).toString().replace('\\', '/');
+        return relative(root, absolute);
+    }
+
+    /**
+     * {@code path} relative to {@code folder}, with {@code /}: for a path below the folder (both
+     * normalized, as a walk makes them), the rest of its text, which costs far less than
+     * {@link Path#relativize} on every file of a walk.
+     */
+    static String relative(Path folder, Path path) {
+        String inside = path.toString();
+        String outside = folder.toString();
+        if (inside.length() > outside.length() && inside.startsWith(outside)
+                && inside.charAt(outside.length()) == folder.getFileSystem().getSeparator().charAt(0)) {
+            return inside.substring(outside.length() + 1).replace('\\', '/');
+        }
+        return folder.relativize(path).toString().replace('\\', '/');
     }
 
     private boolean isInsideRoot(Path absolute, String relative, List<SkippedFile> skipped) throws IOException {
@@ -134,7 +149,11 @@ public final class TemplateFinder {
         /** Per folder listed, the hash of the names seen in it so far (see {@link WalkedFolder}). */
         private final Map<Path, Long> listed;
 
-        Walker(GitIgnores ignores, Set<String> paths, List<SkippedFile> skipped, Map<Path, Long> listed) {
+        /** Where this walk started, which the caller did not check: it may lie below a link. */
+        private final Path start;
+
+        Walker(GitIgnores ignores, Set<String> paths, List<SkippedFile> skipped, Map<Path, Long> listed, Path start) {
+            this.start = start;
             this.ignores = ignores;
             this.paths = paths;
             this.skipped = skipped;
@@ -160,7 +179,10 @@ public final class TemplateFinder {
                 if (ignores.isIgnored(dir, true) || excluded(relative, true)) {
                     return FileVisitResult.SKIP_SUBTREE;
                 }
-                if (!isInsideRoot(dir, relative, skipped)) {
+                // Below a folder known to be inside the root only a link can lead out of it, and
+                // resolving every folder's real path costs a system call per path component.
+                boolean mayLeave = dir.equals(start) || Files.isSymbolicLink(dir);
+                if (mayLeave && !isInsideRoot(dir, relative, skipped)) {
                     return FileVisitResult.SKIP_SUBTREE;
                 }
             }
