@@ -1,8 +1,9 @@
 #!/usr/bin/env bash
 # Times a cold `tare scan CORPUS --format json` end to end (JVM start included, CORPUS/.tare removed
-# first) on the synthetic corpus of bench/GenerateCorpus.java, a few runs in a row, and prints wall
-# time, throughput and peak RSS. bench/compare.sh times the other commands and the reference
-# tokenizer beside it.
+# first) on the synthetic corpus of bench/GenerateCorpus.java, a few runs in a row, each followed by
+# the same scan warm (from the .tare/cache the cold one left, its output checked byte for byte against
+# the cold one's), and prints wall time, throughput and peak RSS of each, the medians and the
+# cold/warm ratio. bench/compare.sh times the other commands and the reference tokenizer beside it.
 #
 # Environment: JAVA_HOME (run and build with that JDK), BENCH_RUNS (default 3), BENCH_COUNT and
 # BENCH_SEED (corpus size and seed, passed to the generator), TARE_JAVA_OPTS (extra JVM options,
@@ -29,20 +30,34 @@ echo "corpus:  ${corpus#"$bench_repo"/} ($files template files, $bytes bytes)"
 bench_machine
 echo "command: ./tare scan ${corpus#"$bench_repo"/} --format json > /dev/null"
 echo
-printf '%-4s %8s %8s %13s %7s %12s\n' run wall_s MB/s peak_rss_MiB cpu_s other_cpu_s
+printf '%-9s %8s %8s %13s %7s %12s\n' run wall_s MB/s peak_rss_MiB cpu_s other_cpu_s
+
+line() {
+  awk -v run="$1" -v wall="$bench_wall" -v bytes="$bytes" -v rss="$bench_rss_mib" -v cpu="$bench_cpu" \
+    -v other="$bench_other_cpu" \
+    'BEGIN { printf "%-9s %8.2f %8.1f %13.0f %7.2f %12.1f\n", run, wall, bytes / 1e6 / wall, rss, cpu, other }'
+}
+median() {
+  sort -g | awk '{ w[NR] = $1 } END { print (NR % 2) ? w[(NR + 1) / 2] : (w[NR / 2] + w[NR / 2 + 1]) / 2 }'
+}
 
 walls=()
+warm_walls=()
 for run in $(seq 1 "$runs"); do
   rm -rf "$corpus/.tare"
   bench_time 0 "$work/scan" ./tare scan "$corpus" --format json
   walls+=("$bench_wall")
-  awk -v run="$run" -v wall="$bench_wall" -v bytes="$bytes" -v rss="$bench_rss_mib" -v cpu="$bench_cpu" \
-    -v other="$bench_other_cpu" \
-    'BEGIN { printf "%-4s %8.2f %8.1f %13.0f %7.1f %12.1f\n", run, wall, bytes / 1e6 / wall, rss, cpu, other }'
+  line "$run cold"
+  mv "$work/scan" "$work/scan.cold"
+  bench_time 0 "$work/scan" ./tare scan "$corpus" --format json
+  cmp -s "$work/scan.cold" "$work/scan" || { echo "scan.sh: the warm scan printed other bytes than the cold one" >&2; exit 1; }
+  warm_walls+=("$bench_wall")
+  line "$run warm"
 done
 
-median="$(printf '%s\n' "${walls[@]}" | sort -g | awk '{ w[NR] = $1 } END { print (NR % 2) ? w[(NR + 1) / 2] : (w[NR / 2] + w[NR / 2 + 1]) / 2 }')"
-awk -v wall="$median" -v bytes="$bytes" \
-  'BEGIN { printf "\nmedian wall %.2f s, %.1f MB/s (MB = 10^6 bytes of template files; RSS in MiB, as reported by GNU time)\n", wall, bytes / 1e6 / wall }'
+cold="$(printf '%s\n' "${walls[@]}" | median)"
+warm="$(printf '%s\n' "${warm_walls[@]}" | median)"
+awk -v wall="$cold" -v warm="$warm" -v bytes="$bytes" \
+  'BEGIN { printf "\nmedian wall cold %.2f s, %.1f MB/s; warm %.2f s; cold/warm %.1f (MB = 10^6 bytes of template files; RSS in MiB, as reported by GNU time)\n", wall, bytes / 1e6 / wall, warm, wall / warm }'
 echo "cpu_s: user + system seconds of the run; other_cpu_s: CPU seconds other processes used meanwhile (near 0 on a quiet machine)"
 echo "Times and memory are measurements of this machine at this moment, an estimate of what another run will see."

@@ -12,7 +12,7 @@ public final class Main {
     }
 
     public static void main(String[] args) {
-        PrintWriter out = new PrintWriter(new OutputStreamWriter(new FileOutputStream(FileDescriptor.out), StandardCharsets.UTF_8), true);
+        PrintWriter out = new StandardOutput(new FileOutputStream(FileDescriptor.out));
         PrintWriter err = new PrintWriter(new OutputStreamWriter(new FileOutputStream(FileDescriptor.err), StandardCharsets.UTF_8), true);
         int code = TareCommand.commandLine(out, err, args).execute(args);
         out.flush();

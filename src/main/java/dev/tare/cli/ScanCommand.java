@@ -61,9 +61,10 @@ final class ScanCommand implements Callable<Integer> {
     private Sort sort = Sort.path;
 
     @Option(names = "--no-cache", description = {"Measure every template afresh, and neither read nor write the"
-            + " cache of measurements in the repository's .tare/cache folder.",
+            + " cache of measurements and reports in the repository's .tare/cache folder.",
             "By default a template whose file, partials and tool files are unchanged since the last scan with the"
-            + " same configuration and build of Tare is not read or counted again."})
+            + " same configuration and build of Tare is not read or counted again, and when nothing at all"
+            + " changed the last report in the same format and order is printed again as it was."})
     private boolean noCache;
 
     @Override
@@ -71,17 +72,17 @@ final class ScanCommand implements Callable<Integer> {
         Workspace workspace = Workspace.open(paths, common.configFile());
         ScanOptions options = new ScanOptions(targets, Optional.ofNullable(tokenizer), !noCache);
         ScanResult.Order order = ScanResult.Order.valueOf(sort.name().toUpperCase(java.util.Locale.ROOT));
-        String report;
         if (format == Format.md || format == Format.html) {
             Overview overview = new OverviewRun(workspace, new TokenizerRegistry()).run(options, format == Format.html);
-            report = format == Format.md ? MarkdownReport.render(overview) : HtmlReport.render(overview, order);
+            spec.commandLine().getOut().print(format == Format.md ? MarkdownReport.render(overview)
+                    : HtmlReport.render(overview, order));
+            spec.commandLine().getOut().flush();
         } else {
-            ScanResult result = new TemplateScan(workspace, new TokenizerRegistry())
-                    .run(options, TerminalProgress.forOutput(format != Format.text));
-            report = format == Format.json ? ScanReport.json(result, order) : ScanReport.text(result, order);
+            java.nio.ByteBuffer report = new TemplateScan(workspace, new TokenizerRegistry()).report(options, format + " " + order,
+                    result -> format == Format.json ? ScanReport.json(result, order) : ScanReport.text(result, order),
+                    TerminalProgress.forOutput(format != Format.text));
+            StandardOutput.print(spec.commandLine().getOut(), report);
         }
-        spec.commandLine().getOut().print(report);
-        spec.commandLine().getOut().flush();
         return ExitCodes.OK;
     }
 }

@@ -5,25 +5,19 @@ import dev.tare.footprint.CallSize;
 import dev.tare.overlap.CachePrefixes;
 import dev.tare.template.TemplateKind;
 import java.io.BufferedInputStream;
-import java.io.BufferedOutputStream;
 import java.io.ByteArrayOutputStream;
 import java.io.DataInputStream;
 import java.io.DataOutputStream;
 import java.io.IOException;
 import java.io.InputStream;
-import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
 import java.nio.file.LinkOption;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
 import java.nio.file.attribute.BasicFileAttributes;
-import java.nio.file.attribute.FileTime;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.Arrays;
 import java.util.HexFormat;
 import java.util.LinkedHashMap;
@@ -32,7 +26,6 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.TimeUnit;
-import java.util.stream.Stream;
 import java.util.zip.CRC32C;
 
 /**
@@ -56,9 +49,7 @@ final class ScanCache {
     private static final String MAGIC = "tare-scan-cache";
     private static final int FORMAT = 2;
     /** How long before a scan a file's modification time must lie for its size and time to vouch for it. */
-    private static final long RACY_NANOS = 2_000_000_000L;
-    /** Caches of other builds or configurations kept beside the one written, newest first. */
-    static final int KEPT_OTHERS = 3;
+    static final long RACY_NANOS = 2_000_000_000L;
 
     private final Optional<Path> file;
     private final Map<String, Entry> previous;
@@ -88,9 +79,14 @@ final class ScanCache {
      */
     static ScanCache open(Workspace workspace, String key) {
         Path root = workspace.root();
-        Path file = root.resolve(".tare").resolve("cache").resolve("scan-" + digest(Tare.buildIdentity() + "\n" + key) + ".bin");
+        Path file = CacheFolder.of(root).resolve("scan-" + digest(Tare.buildIdentity() + "\n" + key) + ".bin");
         long started = System.currentTimeMillis() * 1_000_000L;
         return new ScanCache(root, Optional.of(file), read(file), started, workspace.starts().isEmpty());
+    }
+
+    /** Whether nothing was remembered: every template will be measured afresh. */
+    boolean isEmpty() {
+        return previous.isEmpty();
     }
 
     /** The measurement remembered for {@code path}, when the file and everything it depends on are unchanged. */
@@ -117,6 +113,12 @@ final class ScanCache {
         }
         current.put(path, kept);
         return Optional.of(entry.result());
+    }
+
+    /** The paths of the partials and tool files behind the measurement {@link #find} last gave for {@code path}. */
+    List<String> dependencies(String path) {
+        Entry entry = current.get(path);
+        return entry == null ? List.of() : entry.dependencies().stream().map(Stamp::path).toList();
     }
 
     /** Remembers a template's measurement, with the text it was read from and its dependencies' paths. */
@@ -156,61 +158,11 @@ final class ScanCache {
         if (!changed) {
             return;
         }
-        Path target = file.get();
-        Path temporary = null;
         try {
-            Path folder = Files.createDirectories(target.getParent());
-            Path tareFolder = folder.getParent();
-            Path ignore = tareFolder.resolve(".gitignore");
-            if (!Files.exists(ignore)) {
-                Files.writeString(ignore, "# Tare's cache of measurements; safe to delete.\n*\n");
-            }
-            temporary = Files.createTempFile(folder, "scan-", ".partial");
-            try (OutputStream out = new BufferedOutputStream(Files.newOutputStream(temporary), 1 << 16)) {
-                out.write(encode(kept));
-            }
-            try {
-                Files.move(temporary, target, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
-            } catch (AtomicMoveNotSupportedException e) {
-                Files.move(temporary, target, StandardCopyOption.REPLACE_EXISTING);
-            }
-            temporary = null;
-            pruneOthers(folder, target);
+            CacheFolder.replace(file.get(), encode(kept));
+            CacheFolder.pruneOthers(file.get(), "scan-");
         } catch (IOException | RuntimeException e) {
             // A cache is an optimisation: a read-only checkout or a full disk must not fail the scan.
-        } finally {
-            if (temporary != null) {
-                try {
-                    Files.deleteIfExists(temporary);
-                } catch (IOException ignored) {
-                    // Left for the next run's write to replace; it is never read.
-                }
-            }
-        }
-    }
-
-    /**
-     * Deletes all but the newest few other caches: each build and configuration makes its own, and
-     * a developer rebuilding Tare all day would otherwise leave one per build.
-     */
-    private static void pruneOthers(Path folder, Path kept) throws IOException {
-        List<Path> others;
-        try (Stream<Path> files = Files.list(folder)) {
-            others = files.filter(f -> !f.equals(kept))
-                    .filter(f -> f.getFileName().toString().startsWith("scan-") && f.getFileName().toString().endsWith(".bin"))
-                    .sorted(Comparator.comparing(ScanCache::modified).reversed())
-                    .toList();
-        }
-        for (Path old : others.subList(Math.min(KEPT_OTHERS, others.size()), others.size())) {
-            Files.deleteIfExists(old);
-        }
-    }
-
-    private static FileTime modified(Path file) {
-        try {
-            return Files.getLastModifiedTime(file);
-        } catch (IOException e) {
-            return FileTime.fromMillis(0);
         }
     }
 

@@ -20,6 +20,8 @@ import dev.tare.tokenize.TokenizerRegistry;
 import java.io.File;
 import java.io.IOException;
 import java.io.UncheckedIOException;
+import java.nio.ByteBuffer;
+import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -29,7 +31,9 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
+import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.ConcurrentHashMap;
+import java.util.function.Function;
 import java.util.stream.Collectors;
 import java.util.stream.Stream;
 
@@ -57,21 +61,102 @@ public final class TemplateScan {
 
     /** Runs the scan, telling {@code progress} how far it has got. */
     public ScanResult run(ScanOptions options, ScanProgress progress) {
+        Scanned scanned = scan(setUp(options), options, progress);
+        scanned.cache().save();
+        return scanned.result();
+    }
+
+    /**
+     * The scan's report as {@code render} makes it, in UTF-8 (read-only when it comes from the
+     * store). With the cache on, a report stored by an earlier run of the same build,
+     * configuration, options and {@code form} is given back as it was when no folder walked and no
+     * file read has changed since (see {@link StoredReport}): nothing is walked, read, counted or
+     * rendered, and no tokenizer is loaded. Otherwise the scan runs and its report is stored for
+     * the next run.
+     *
+     * @param form   what besides the scan decides the report (its format and order), as a key
+     * @param render makes the report from the scan's result
+     */
+    public ByteBuffer report(ScanOptions options, String form, Function<ScanResult, String> render,
+                             ScanProgress progress) {
+        Setup setup = setUp(options);
+        if (!options.cache()) {
+            String report = render.apply(scan(setup, options, progress).result());
+            return ByteBuffer.wrap(report.getBytes(StandardCharsets.UTF_8));
+        }
+        StoredReport stored = StoredReport.of(workspace.root(), setup.cacheKey() + "\n" + form + "\n"
+                + workspace.displayName() + "\n" + workspace.starts());
+        Optional<ByteBuffer> kept = stored.read();
+        if (kept.isPresent()) {
+            return kept.get();
+        }
+        Scanned scanned = scan(setup, options, progress);
+        // Writing the measurements and stamping the files for the stored report run beside the
+        // rendering, on the core it leaves idle.
+        CompletableFuture<Optional<byte[]>> stamps = CompletableFuture.supplyAsync(() -> {
+            scanned.cache().save();
+            if (!scanned.result().skipped().isEmpty()) {
+                return Optional.empty();
+            }
+            Set<Path> files = new LinkedHashSet<>();
+            scanned.selection().paths().forEach(path -> files.add(workspace.root().resolve(path)));
+            scanned.dependencies().forEach(path -> files.add(workspace.root().resolve(path)));
+            return stored.stamps(scanned.selection(), files, scanned.startedNanos());
+        });
+        byte[] report = render.apply(scanned.result()).getBytes(StandardCharsets.UTF_8);
+        stamps.join().ifPresent(stamped -> stored.save(stamped, report));
+        return ByteBuffer.wrap(report);
+    }
+
+    /** What a scan is asked for, resolved: the targets, the primary tokenizer's name and the cache key. */
+    private record Setup(List<TargetConfig> targets, String primaryName, String cacheKey) {
+    }
+
+    /** A scan's result, with the selection and dependencies it came from and when it started. */
+    private record Scanned(ScanResult result, FileSelection selection, Set<String> dependencies, long startedNanos,
+                           ScanCache cache) {
+    }
+
+    private Setup setUp(ScanOptions options) {
         TareConfig config = workspace.config();
         List<TargetConfig> targets = config.selectTargets(options.targets());
         String primaryName = options.tokenizer()
                 .orElse(targets.isEmpty() ? TokenizerRegistry.DEFAULT : targets.get(0).tokenizer());
-        Tokenizer primary = tokenizers.get(primaryName, workspace.root());
+        String key = options.cache() ? cacheKey(config, targets, primaryName) : "";
+        return new Setup(targets, primaryName, key);
+    }
+
+    private Scanned scan(Setup setup, ScanOptions options, ScanProgress progress) {
+        TareConfig config = workspace.config();
+        List<TargetConfig> targets = setup.targets();
+        Tokenizer primary = tokenizers.get(setup.primaryName(), workspace.root());
         Map<String, Tokenizer> byTarget = new LinkedHashMap<>();
         for (TargetConfig target : targets) {
             byTarget.put(target.name(), tokenizers.get(target.tokenizer(), workspace.root()));
         }
-
+        long started = System.currentTimeMillis() * 1_000_000L;
+        if (options.cache()) {
+            try {
+                CacheFolder.prepare(workspace.root());
+            } catch (IOException | RuntimeException e) {
+                // No cache folder means no cache; ScanCache finds that out for itself.
+            }
+        }
+        // The previous measurements are read while the folders are walked and, when there are
+        // none (so every template will be counted), the vocabularies after them, one at a time.
+        Set<Tokenizer> used = new LinkedHashSet<>(byTarget.values());
+        used.add(primary);
+        CompletableFuture<ScanCache> opening = CompletableFuture.supplyAsync(() -> options.cache()
+                ? ScanCache.open(workspace, setup.cacheKey())
+                : ScanCache.disabled(workspace.root()));
+        CompletableFuture<Void> loading = opening.thenAcceptAsync(opened -> {
+            if (opened.isEmpty()) {
+                used.forEach(TemplateScan::load);
+            }
+        });
         TemplateLoader loader = new TemplateLoader(workspace);
         FileSelection selection = loader.find();
-        ScanCache cache = options.cache()
-                ? ScanCache.open(workspace, cacheKey(config, targets, primaryName, options))
-                : ScanCache.disabled(workspace.root());
+        ScanCache cache = opening.join();
         Measurer measurer = new Measurer(config, targets, primary, byTarget, loader, cache);
 
         progress.started(selection.paths().size());
@@ -81,12 +166,15 @@ public final class TemplateScan {
             return outcome;
         }).toList();
         progress.finished();
-        cache.save();
+        // Long done on a real repository; waited for so that no load outlives the command's timings.
+        loading.join();
         List<ScannedTemplate> templates = new ArrayList<>();
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
+        Set<String> dependencies = new LinkedHashSet<>();
         for (Outcome outcome : outcomes) {
             outcome.template().ifPresent(templates::add);
             outcome.skipped().ifPresent(skipped::add);
+            dependencies.addAll(outcome.dependencies());
         }
         skipped.sort(null);
         for (TargetConfig target : targets) {
@@ -94,8 +182,9 @@ public final class TemplateScan {
                 applySharedPrefixes(target, templates, outcomes);
             }
         }
-        return new ScanResult(workspace.displayName(), primary.name(),
+        ScanResult result = new ScanResult(workspace.displayName(), primary.name(),
                 targets.stream().map(TargetConfig::name).toList(), templates, skipped, targets);
+        return new Scanned(result, selection, dependencies, started, cache);
     }
 
     /**
@@ -103,15 +192,11 @@ public final class TemplateScan {
      * loaded (model shapes read from files included), the options, the tokenizer files' sizes and
      * times, and the names of the partials (a new partial can change what an include resolves to).
      */
-    private String cacheKey(TareConfig config, List<TargetConfig> targets, String primaryName, ScanOptions options) {
-        StringBuilder key = new StringBuilder(config.toString()).append('\n').append(primaryName).append('\n');
+    private String cacheKey(TareConfig config, List<TargetConfig> targets, String primaryName) {
+        StringBuilder key = new StringBuilder(ValueText.of(config)).append('\n');
+        tokenizerKey(key, primaryName);
         for (TargetConfig target : targets) {
-            key.append(target.name()).append(' ').append(target.tokenizer());
-            if (TokenizerRegistry.namesFile(target.tokenizer())) {
-                File file = workspace.root().resolve(target.tokenizer()).toFile();
-                key.append(' ').append(file.length()).append(' ').append(file.lastModified());
-            }
-            key.append('\n');
+            tokenizerKey(key.append(target.name()).append(' '), target.tokenizer());
         }
         Path partials = workspace.root().resolve(config.templates().partials());
         if (!config.templates().partials().isEmpty() && Files.isDirectory(partials)) {
@@ -122,6 +207,25 @@ public final class TemplateScan {
             }
         }
         return key.toString();
+    }
+
+    /** Counts a word with {@code tokenizer}, which reads its vocabulary if it has not yet. */
+    private static void load(Tokenizer tokenizer) {
+        try {
+            tokenizer.count("Tare");
+        } catch (RuntimeException e) {
+            // The scan counts with it again and reports what went wrong there.
+        }
+    }
+
+    /** A tokenizer's name, and the size and time of its file when it names one. */
+    private void tokenizerKey(StringBuilder key, String tokenizer) {
+        key.append(tokenizer);
+        if (TokenizerRegistry.namesFile(tokenizer)) {
+            File file = workspace.root().resolve(tokenizer).toFile();
+            key.append(' ').append(file.length()).append(' ').append(file.lastModified());
+        }
+        key.append('\n');
     }
 
     /** Re-estimates the footprints on {@code target} with the prefix each template shares with others. */
@@ -160,13 +264,14 @@ public final class TemplateScan {
      * target with a prefix cache, its leading static token ids.
      */
     private record Outcome(Optional<ScannedTemplate> template, Optional<SkippedFile> skipped,
-                           Map<String, CachePrefixes.Leading> leadingIds) {
-        static Outcome of(ScannedTemplate template, Map<String, CachePrefixes.Leading> leadingIds) {
-            return new Outcome(Optional.of(template), Optional.empty(), leadingIds);
+                           Map<String, CachePrefixes.Leading> leadingIds, List<String> dependencies) {
+        static Outcome of(ScannedTemplate template, Map<String, CachePrefixes.Leading> leadingIds,
+                          List<String> dependencies) {
+            return new Outcome(Optional.of(template), Optional.empty(), leadingIds, dependencies);
         }
 
         static Outcome of(SkippedFile skipped) {
-            return new Outcome(Optional.empty(), Optional.of(skipped), Map.of());
+            return new Outcome(Optional.empty(), Optional.of(skipped), Map.of(), List.of());
         }
     }
 
@@ -176,14 +281,39 @@ public final class TemplateScan {
      * a tokenizer. The sums are those of {@link Estimates#tokens}.
      */
     private static final class Counts {
-        private final Map<Tokenizer, Map<String, Integer>> byTokenizer = new java.util.IdentityHashMap<>();
+        /** A rendering's messages as counted on one tokenizer. */
+        private record Counted(List<String> messages, int[] counts) {
+        }
 
+        private final Map<Tokenizer, List<Counted>> byTokenizer = new java.util.IdentityHashMap<>();
+
+        /**
+         * The rendering's count. A message is looked for only at its own place in the renderings
+         * counted before on the same tokenizer, where its twin stands (the static and the sample
+         * rendering hold the same messages in the same order): unlike a map of texts, that never
+         * hashes a message of thousands of characters, and stays linear in a chat of thousands of
+         * messages.
+         */
         int of(Tokenizer tokenizer, Rendering rendering) {
-            Map<String, Integer> counted = byTokenizer.computeIfAbsent(tokenizer, t -> new java.util.HashMap<>());
+            List<Counted> before = byTokenizer.computeIfAbsent(tokenizer, t -> new ArrayList<>(3));
+            List<String> messages = rendering.messages();
+            int[] counts = new int[messages.size()];
             int total = 0;
-            for (String message : rendering.messages()) {
-                total += counted.computeIfAbsent(message, tokenizer::count);
+            for (int i = 0; i < counts.length; i++) {
+                counts[i] = -1;
+                String message = messages.get(i);
+                for (Counted counted : before) {
+                    if (i < counted.messages().size() && counted.messages().get(i).equals(message)) {
+                        counts[i] = counted.counts()[i];
+                        break;
+                    }
+                }
+                if (counts[i] < 0) {
+                    counts[i] = tokenizer.count(message);
+                }
+                total += counts[i];
             }
+            before.add(new Counted(messages, counts));
             return total;
         }
     }
@@ -203,7 +333,8 @@ public final class TemplateScan {
         Outcome measure(String path) {
             Optional<Measurement> remembered = cache.find(path);
             if (remembered.isPresent()) {
-                return Outcome.of(remembered.get().template(targetsByName), remembered.get().leadingIds());
+                return Outcome.of(remembered.get().template(targetsByName), remembered.get().leadingIds(),
+                        cache.dependencies(path));
             }
             try {
                 SourceText text = loader.read(path);
@@ -213,7 +344,7 @@ public final class TemplateScan {
                 List<String> dependencies = new ArrayList<>(new LinkedHashSet<>(samples.includes()));
                 dependencies.addAll(template.meta().tools());
                 cache.remember(path, text.text(), dependencies, measured);
-                return Outcome.of(measured.template(targetsByName), measured.leadingIds());
+                return Outcome.of(measured.template(targetsByName), measured.leadingIds(), dependencies);
             } catch (TareException e) {
                 return Outcome.of(new SkippedFile(path, e.getMessage()));
             }

@@ -11,7 +11,9 @@ import java.nio.file.SimpleFileVisitor;
 import java.nio.file.attribute.BasicFileAttributes;
 import java.util.ArrayList;
 import java.util.EnumSet;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Set;
 import java.util.TreeSet;
 
@@ -53,8 +55,10 @@ public final class TemplateFinder {
         Set<String> paths = new TreeSet<>();
         List<SkippedFile> skipped = new ArrayList<>();
         List<Path> from = starts.isEmpty() ? List.of(root) : starts;
+        Map<Path, Long> listed = new LinkedHashMap<>();
+        GitIgnores ignores;
         try {
-            GitIgnores ignores = GitIgnores.above(root);
+            ignores = GitIgnores.above(root);
             for (Path start : from) {
                 Path absolute = start.toAbsolutePath().normalize();
                 if (!absolute.startsWith(root)) {
@@ -73,13 +77,15 @@ public final class TemplateFinder {
                 }
                 enterAncestors(ignores, absolute);
                 Files.walkFileTree(absolute, EnumSet.of(FileVisitOption.FOLLOW_LINKS), Integer.MAX_VALUE,
-                        new Walker(ignores, paths, skipped));
+                        new Walker(ignores, paths, skipped, listed, absolute));
             }
         } catch (IOException e) {
             throw new TareException(root + ": the folder walk failed (" + e.getMessage() + ")", e);
         }
         skipped.sort(null);
-        return new FileSelection(new ArrayList<>(paths), skipped);
+        List<WalkedFolder> folders = new ArrayList<>();
+        listed.forEach((folder, names) -> folders.add(new WalkedFolder(folder, names)));
+        return new FileSelection(new ArrayList<>(paths), skipped, folders, ignores.consulted());
     }
 
     /**
@@ -98,12 +104,27 @@ public final class TemplateFinder {
             chain.add(0, dir);
         }
         for (Path dir : chain) {
-            ignores.enter(dir);
+            ignores.enterUnlisted(dir);
         }
     }
 
     private String relative(Path absolute) {
-        return root.relativize(absolute).toString().replace('\\', '/');
+        return relative(root, absolute);
+    }
+
+    /**
+     * {@code path} relative to {@code folder}, with {@code /}: for a path below the folder (both
+     * normalized, as a walk makes them), the rest of its text, which costs far less than
+     * {@link Path#relativize} on every file of a walk.
+     */
+    static String relative(Path folder, Path path) {
+        String inside = path.toString();
+        String outside = folder.toString();
+        if (inside.length() > outside.length() && inside.startsWith(outside)
+                && inside.charAt(outside.length()) == folder.getFileSystem().getSeparator().charAt(0)) {
+            return inside.substring(outside.length() + 1).replace('\\', '/');
+        }
+        return folder.relativize(path).toString().replace('\\', '/');
     }
 
     private boolean isInsideRoot(Path absolute, String relative, List<SkippedFile> skipped) throws IOException {
@@ -125,15 +146,31 @@ public final class TemplateFinder {
         private final GitIgnores ignores;
         private final Set<String> paths;
         private final List<SkippedFile> skipped;
+        /** Per folder listed, the hash of the names seen in it so far (see {@link WalkedFolder}). */
+        private final Map<Path, Long> listed;
 
-        Walker(GitIgnores ignores, Set<String> paths, List<SkippedFile> skipped) {
+        /** Where this walk started, which the caller did not check: it may lie below a link. */
+        private final Path start;
+
+        Walker(GitIgnores ignores, Set<String> paths, List<SkippedFile> skipped, Map<Path, Long> listed, Path start) {
+            this.start = start;
             this.ignores = ignores;
             this.paths = paths;
             this.skipped = skipped;
+            this.listed = listed;
+        }
+
+        /** Every entry of a listed folder passes here once, whatever becomes of it. */
+        private void seen(Path entry) {
+            Path folder = entry.getParent();
+            if (folder != null && listed.containsKey(folder)) {
+                listed.merge(folder, WalkedFolder.nameHash(entry.getFileName().toString()), Long::sum);
+            }
         }
 
         @Override
         public FileVisitResult preVisitDirectory(Path dir, BasicFileAttributes attrs) throws IOException {
+            seen(dir);
             String relative = relative(dir);
             if (!dir.equals(root)) {
                 if (dir.getFileName().toString().equals(".git") || dir.getFileName().toString().equals(".tare")) {
@@ -142,11 +179,15 @@ public final class TemplateFinder {
                 if (ignores.isIgnored(dir, true) || excluded(relative, true)) {
                     return FileVisitResult.SKIP_SUBTREE;
                 }
-                if (!isInsideRoot(dir, relative, skipped)) {
+                // Below a folder known to be inside the root only a link can lead out of it, and
+                // resolving every folder's real path costs a system call per path component.
+                boolean mayLeave = dir.equals(start) || Files.isSymbolicLink(dir);
+                if (mayLeave && !isInsideRoot(dir, relative, skipped)) {
                     return FileVisitResult.SKIP_SUBTREE;
                 }
             }
             ignores.enter(dir);
+            listed.put(dir, 0L);
             return FileVisitResult.CONTINUE;
         }
 
@@ -158,6 +199,7 @@ public final class TemplateFinder {
 
         @Override
         public FileVisitResult visitFile(Path file, BasicFileAttributes attrs) throws IOException {
+            seen(file);
             String relative = relative(file);
             if (!attrs.isRegularFile() || OWN_FILES.contains(relative) || ignores.isIgnored(file, false)) {
                 return FileVisitResult.CONTINUE;
@@ -174,6 +216,7 @@ public final class TemplateFinder {
 
         @Override
         public FileVisitResult visitFileFailed(Path file, IOException failure) {
+            seen(file);
             String relative = relative(file);
             if (failure instanceof FileSystemLoopException) {
                 skipped.add(new SkippedFile(relative, "symbolic link loop; not followed"));

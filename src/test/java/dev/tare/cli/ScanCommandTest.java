@@ -8,11 +8,17 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import dev.tare.Tare;
 import dev.tare.tokenize.TokenizerRegistry;
+import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.nio.file.attribute.FileTime;
+import java.time.Instant;
+import java.time.temporal.ChronoUnit;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
 
 /** {@code tare scan} end to end on the demo repository, read back through its JSON contract. */
 class ScanCommandTest {
@@ -43,6 +49,57 @@ class ScanCommandTest {
             assertEquals(expectedKind, template.get("kind").asText(), path);
             assertTrue(template.get("static_tokens").asInt() <= template.get("estimated_tokens").asInt(), path);
             assertTrue(template.get("variables").isArray() && template.get("targets").isObject(), path);
+        }
+    }
+
+    @Test
+    void aWarmScanPrintsByteForByteWhatAColdOneAndAnUncachedOnePrint(@TempDir Path copy) throws IOException {
+        copyAged(DEMO, copy);
+        for (String format : List.of("json", "text")) {
+            for (String sort : List.of("path", "tokens")) {
+                String uncached = scanOut(copy, format, sort, "--no-cache");
+                String cold = scanOut(copy, format, sort);
+                String warm = scanOut(copy, format, sort);
+                assertEquals(uncached, cold, format + " " + sort);
+                assertEquals(uncached, warm, format + " " + sort);
+            }
+        }
+        try (Stream<Path> files = Files.list(copy.resolve(".tare/cache"))) {
+            assertEquals(4, files.filter(f -> f.getFileName().toString().startsWith("report-")).count(),
+                    "one stored report per format and order, so the warm runs printed stored reports");
+        }
+        Files.writeString(copy.resolve("prompts/new-notice.md"), "Tell the customer the office is closed today.");
+        String afterEdit = scanOut(copy, "json", "path");
+        assertEquals(scanOut(copy, "json", "path", "--no-cache"), afterEdit);
+        assertTrue(afterEdit.contains("prompts/new-notice.md"));
+    }
+
+    private static String scanOut(Path root, String format, String sort, String... extra) {
+        List<String> args = new ArrayList<>(List.of("scan", root.toString(), "--format", format, "--sort", sort));
+        args.addAll(List.of(extra));
+        Cli.Run run = Cli.run(args.toArray(String[]::new));
+        assertEquals(0, run.exitCode(), run.err());
+        return run.out();
+    }
+
+    /** Copies a folder with every time an hour back, out of the window in which a stamp cannot vouch for a file. */
+    private static void copyAged(Path from, Path to) throws IOException {
+        FileTime old = FileTime.from(Instant.now().minus(1, ChronoUnit.HOURS));
+        List<Path> folders = new ArrayList<>();
+        try (Stream<Path> paths = Files.walk(from)) {
+            for (Path path : paths.filter(p -> !from.relativize(p).startsWith(".tare")).toList()) {
+                Path target = to.resolve(from.relativize(path).toString());
+                if (Files.isDirectory(path)) {
+                    Files.createDirectories(target);
+                    folders.add(target);
+                } else {
+                    Files.copy(path, target);
+                    Files.setLastModifiedTime(target, old);
+                }
+            }
+        }
+        for (Path folder : folders) {
+            Files.setLastModifiedTime(folder, old);
         }
     }
 

@@ -11,8 +11,14 @@ import java.nio.file.Path;
 import java.nio.file.attribute.FileTime;
 import java.time.Instant;
 import java.time.temporal.ChronoUnit;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import java.util.concurrent.atomic.AtomicInteger;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
@@ -132,13 +138,13 @@ class ScanCacheTest {
     @Test
     void cachesOfOtherBuildsAndConfigurationsArePrunedToTheNewestFew() throws IOException {
         Path folder = Files.createDirectories(root.resolve(".tare/cache"));
-        for (int i = 0; i < ScanCache.KEPT_OTHERS + 3; i++) {
+        for (int i = 0; i < CacheFolder.KEPT_OTHERS + 3; i++) {
             Path old = folder.resolve("scan-old" + i + ".bin");
             Files.writeString(old, "from another build");
             Files.setLastModifiedTime(old, FileTime.from(Instant.now().minus(10 + i, ChronoUnit.MINUTES)));
         }
         scan(true);
-        assertEquals(ScanCache.KEPT_OTHERS + 1, cacheFiles().size());
+        assertEquals(CacheFolder.KEPT_OTHERS + 1, cacheFiles().size());
         assertTrue(Files.exists(folder.resolve("scan-old0.bin")), "the newest others are kept");
     }
 
@@ -146,6 +152,211 @@ class ScanCacheTest {
     void withoutTheCacheNothingIsWritten() {
         scan(false);
         assertTrue(Files.notExists(root.resolve(".tare")));
+    }
+
+    @Test
+    void aStoredReportIsGivenBackAsItWasWhileNothingChanges() throws IOException {
+        String first = report("json");
+        assertEquals(first, report("json"), "the second run printed the stored report: same render number");
+        assertEquals(content(fresh()), content(first));
+        // Same size, same old time, other words: only the stamps are checked, so the stored copy stands.
+        String text = Files.readString(root.resolve("prompts/other.md"));
+        replaceKeepingStamp("prompts/other.md", text.replace("meter reading dispute", "bill, in Welsh & Gaelic"
+                .substring(0, 21)));
+        assertEquals(first, report("json"));
+        assertNotEquals(content(fresh()), content(first), "the planted edit changes the scan");
+        assertEquals(1, reportFiles().size());
+    }
+
+    @Test
+    void aReportIsStoredInAGitWorktreeWhoseGitEntryIsAFile() throws IOException {
+        // In a linked worktree .git is a file naming the real folder, so .git/info/exclude cannot exist.
+        write(".git", "gitdir: /somewhere/else/.git/worktrees/other\n");
+        ageEverything();
+        String first = report("json");
+        assertEquals(first, report("json"));
+        assertEquals(1, reportFiles().size());
+    }
+
+    @Test
+    void eachOutputFormHasItsOwnStoredReport() {
+        String json = report("json");
+        String text = report("text");
+        assertNotEquals(json, text);
+        assertEquals(json, report("json"));
+        assertEquals(text, report("text"));
+        assertEquals(2, reportFiles().size());
+    }
+
+    @Test
+    void everyChangeThatCanChangeTheReportMakesANewOne() throws IOException {
+        Files.createDirectories(root.resolve(".git"));
+        ageEverything();
+        List<Change> changes = List.of(
+                new Change("an edited template", () -> write("prompts/other.md", "Summarise the dispute, then list the next steps.")),
+                new Change("a new template", () -> write("prompts/new.md", "Greet the customer by name.")),
+                new Change("a template in a new folder", () -> write("prompts/billing/late.md", "Explain the late fee.")),
+                new Change("a removed template", () -> Files.delete(root.resolve("prompts/sibling.md"))),
+                new Change("an edited partial", () -> write("prompts/partials/policy.md", "Never guess a customer's balance.")),
+                new Change("an edited tool file", () -> write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\":"
+                        + " \"Finds a customer's account by number.\", \"parameters\": {\"type\": \"object\"}}]")),
+                new Change("a new .gitignore", () -> write("prompts/billing/.gitignore", "late.md\n")),
+                new Change("an edited .gitignore", () -> write("prompts/billing/.gitignore", "other.md\n")),
+                new Change("a root .gitignore", () -> write(".gitignore", "prompts/new.md\n")),
+                new Change("git's own exclude file", () -> write(".git/info/exclude", "prompts/billing/\n")));
+        for (Change change : changes) {
+            ageEverything();
+            String before = report("json");
+            assertEquals(before, report("json"), "stored before " + change.name());
+            change.apply().run();
+            String after = report("json");
+            assertNotEquals(before, after, change.name() + " is noticed");
+            assertEquals(content(fresh()), content(after), change.name());
+        }
+    }
+
+    @Test
+    void anEditedPartialOrToolFileOutsideTheTemplatesMakesANewReport() throws IOException {
+        write("tare.yaml", "templates: {include: [\"prompts/*.md\"], partials: shared}\n"
+                + "targets:\n  - {name: lite, tokenizer: cl100k_base}\n");
+        write("shared/policy.md", "Never share a customer's account number.");
+        ageEverything();
+        String before = report("json");
+        assertEquals(List.of("prompts/other.md", "prompts/reply.md", "prompts/sibling.md"),
+                fresh().templates().stream().map(ScannedTemplate::path).toList(),
+                "the partial and the tool file are no templates here, only dependencies");
+        write("shared/policy.md", "Never share a customer's account number, and never guess a balance.");
+        String afterPartial = report("json");
+        assertNotEquals(before, afterPartial);
+        assertEquals(content(fresh()), content(afterPartial));
+        ageEverything();
+        String stored = report("json");
+        assertEquals(stored, report("json"));
+        write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\": \"Finds a customer's account by number.\","
+                + " \"parameters\": {\"type\": \"object\", \"properties\": {}}}]");
+        String afterTool = report("json");
+        assertNotEquals(stored, afterTool);
+        assertEquals(content(fresh()), content(afterTool));
+    }
+
+    @Test
+    void aFolderTooRecentToVouchForItselfIsListedAgain() throws IOException {
+        Path prompts = root.resolve("prompts");
+        FileTime recent = FileTime.from(Instant.now());
+        Files.setLastModifiedTime(prompts, recent);
+        String before = report("json");
+        write("prompts/new.md", "Greet the customer by name.");
+        Files.setLastModifiedTime(root.resolve("prompts/new.md"), FileTime.from(Instant.now().minus(1, ChronoUnit.HOURS)));
+        Files.setLastModifiedTime(prompts, recent); // as if the file came within the same clock tick
+        String after = report("json");
+        assertNotEquals(before, after);
+        assertEquals(content(fresh()), content(after));
+    }
+
+    @Test
+    void aFileTooRecentToVouchForItselfStoresNoReport() throws IOException {
+        write("prompts/recent.md", "Reply in English.");
+        String first = report("json");
+        assertTrue(reportFiles().isEmpty(), "a report that could never be used is not written");
+        assertNotEquals(first, report("json"));
+    }
+
+    @Test
+    void aScanThatSkippedAFileStoresNoReport() throws IOException {
+        write("prompts/broken.md", "Dear {{ name, ");
+        ageEverything();
+        String first = report("json");
+        assertTrue(content(first).contains("prompts/broken.md"), "skipped with its reason: " + first);
+        assertTrue(reportFiles().isEmpty());
+        assertNotEquals(first, report("json"));
+    }
+
+    @Test
+    void aCorruptOrTruncatedStoredReportIsIgnoredAndReplaced() throws IOException {
+        String first = report("json");
+        Path stored = reportFiles().get(0);
+        byte[] bytes = Files.readAllBytes(stored);
+        bytes[bytes.length / 2] ^= 0x5a;
+        Files.write(stored, bytes);
+        String second = report("json");
+        assertNotEquals(first, second);
+        assertEquals(content(first), content(second));
+        Files.write(stored, java.util.Arrays.copyOf(Files.readAllBytes(stored), 40));
+        String third = report("json");
+        assertNotEquals(second, third);
+        assertEquals(content(first), content(third));
+        assertEquals(third, report("json"), "rewritten whole");
+    }
+
+    @Test
+    void concurrentRunsEachPrintAWholeReportAndLeaveAUsableOne() throws Exception {
+        ExecutorService pool = Executors.newFixedThreadPool(4);
+        try {
+            List<Future<String>> runs = new ArrayList<>();
+            for (int i = 0; i < 8; i++) {
+                runs.add(pool.submit(() -> report("json")));
+            }
+            for (Future<String> run : runs) {
+                assertEquals(content(fresh()), content(run.get()));
+            }
+        } finally {
+            pool.shutdown();
+        }
+        String stored = report("json");
+        assertEquals(stored, report("json"));
+        assertEquals(1, reportFiles().size());
+        try (Stream<Path> files = Files.list(root.resolve(".tare/cache"))) {
+            assertTrue(files.noneMatch(f -> f.getFileName().toString().endsWith(".partial")), "no half-written file left");
+        }
+    }
+
+    private record Change(String name, IoAction apply) {
+    }
+
+    private interface IoAction {
+        void run() throws IOException;
+    }
+
+    private final AtomicInteger renders = new AtomicInteger();
+
+    /**
+     * A report of the scan, numbered by the render that made it: a stored report comes back with
+     * the number of the run that made it, a new one with a new number.
+     */
+    private String report(String form) {
+        return StandardCharsets.UTF_8.decode(new TemplateScan(Workspace.open(List.of(root), Optional.empty()),
+                new TokenizerRegistry()).report(new ScanOptions(List.of(), Optional.empty(), true), form,
+                        result -> "render " + renders.incrementAndGet() + " " + form + "\n" + content(result),
+                        ScanProgress.NONE)).toString();
+    }
+
+    private static String content(ScanResult result) {
+        return result.templates() + "\n" + result.skipped();
+    }
+
+    private static String content(String report) {
+        return report.substring(report.indexOf('\n') + 1);
+    }
+
+    private List<Path> reportFiles() {
+        if (!Files.isDirectory(root.resolve(".tare/cache"))) {
+            return List.of();
+        }
+        try (Stream<Path> files = Files.list(root.resolve(".tare/cache"))) {
+            return files.filter(f -> f.getFileName().toString().startsWith("report-")).toList();
+        } catch (IOException e) {
+            throw new AssertionError(e);
+        }
+    }
+
+    /** Puts every file's and folder's time an hour back, out of the window in which a stamp cannot vouch for it. */
+    private void ageEverything() throws IOException {
+        FileTime old = FileTime.from(Instant.now().minus(1, ChronoUnit.HOURS));
+        try (Stream<Path> files = Files.walk(root)) {
+            for (Path file : files.filter(f -> !f.startsWith(root.resolve(".tare"))).toList()) {
+                Files.setLastModifiedTime(file, old);
+            }
+        }
     }
 
     private ScanResult scan(boolean cache) {

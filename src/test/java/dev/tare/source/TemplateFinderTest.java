@@ -96,6 +96,19 @@ class TemplateFinderTest {
     }
 
     @Test
+    void aStartFolderReachedThroughALinkOutOfTheRootIsNotWalked(@TempDir Path outside) throws IOException {
+        Files.createDirectories(outside.resolve("sub"));
+        Files.writeString(outside.resolve("sub/secret.md"), "s");
+        Files.createDirectories(root.resolve("prompts"));
+        Files.createSymbolicLink(root.resolve("prompts/away"), outside);
+        FileSelection found = new TemplateFinder(root, Glob.all(List.of("**/*.md")), List.of())
+                .find(List.of(root.resolve("prompts/away/sub")));
+        assertEquals(List.of(), found.paths());
+        assertEquals(List.of(new SkippedFile("prompts/away/sub",
+                "symbolic link to a place outside the scanned root; not followed")), found.skipped());
+    }
+
+    @Test
     void aNamedFileIsTakenEvenWhenNoGlobMatchesIt() throws IOException {
         write("notes/odd.txt", "x");
         FileSelection found = new TemplateFinder(root, Glob.all(List.of("**/*.md")), List.of())

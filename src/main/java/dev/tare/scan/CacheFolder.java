@@ -1,0 +1,79 @@
+package dev.tare.scan;
+
+import java.io.IOException;
+import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.nio.file.attribute.FileTime;
+import java.util.Comparator;
+import java.util.List;
+import java.util.stream.Stream;
+
+/** The {@code .tare/cache} folder of a root: where it is, and writing files there whole. */
+final class CacheFolder {
+    /** Caches of other builds or configurations kept beside the one written, newest first, per kind. */
+    static final int KEPT_OTHERS = 3;
+
+    private CacheFolder() {
+    }
+
+    static Path of(Path root) {
+        return root.resolve(".tare").resolve("cache");
+    }
+
+    /**
+     * Creates the folder, and the {@code .gitignore} that keeps it out of git, when missing. A scan
+     * does this before it walks, so that the walk sees the root as the next run will.
+     */
+    static Path prepare(Path root) throws IOException {
+        Path folder = Files.createDirectories(of(root));
+        Path ignore = folder.getParent().resolve(".gitignore");
+        if (!Files.exists(ignore)) {
+            Files.writeString(ignore, "# Tare's cache of measurements; safe to delete.\n*\n");
+        }
+        return folder;
+    }
+
+    /** Writes {@code bytes} to a temporary file beside {@code target} and moves it into place. */
+    static void replace(Path target, byte[] bytes) throws IOException {
+        Path folder = Files.createDirectories(target.getParent());
+        Path temporary = Files.createTempFile(folder, "write-", ".partial");
+        try {
+            Files.write(temporary, bytes);
+            try {
+                Files.move(temporary, target, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
+            } catch (AtomicMoveNotSupportedException e) {
+                Files.move(temporary, target, StandardCopyOption.REPLACE_EXISTING);
+            }
+        } finally {
+            Files.deleteIfExists(temporary);
+        }
+    }
+
+    /**
+     * Deletes all but the newest few other files named {@code prefix*.bin}: each build and
+     * configuration makes its own, and a developer rebuilding Tare all day would otherwise leave one
+     * per build.
+     */
+    static void pruneOthers(Path kept, String prefix) throws IOException {
+        List<Path> others;
+        try (Stream<Path> files = Files.list(kept.getParent())) {
+            others = files.filter(f -> !f.equals(kept))
+                    .filter(f -> f.getFileName().toString().startsWith(prefix) && f.getFileName().toString().endsWith(".bin"))
+                    .sorted(Comparator.comparing(CacheFolder::modified).reversed())
+                    .toList();
+        }
+        for (Path old : others.subList(Math.min(KEPT_OTHERS, others.size()), others.size())) {
+            Files.deleteIfExists(old);
+        }
+    }
+
+    private static FileTime modified(Path file) {
+        try {
+            return Files.getLastModifiedTime(file);
+        } catch (IOException e) {
+            return FileTime.fromMillis(0);
+        }
+    }
+}
