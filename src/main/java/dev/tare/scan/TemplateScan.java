@@ -209,10 +209,10 @@ public final class TemplateScan {
         return key.toString();
     }
 
-    /** Counts a word with {@code tokenizer}, which reads its vocabulary if it has not yet. */
+    /** Has {@code tokenizer} read its vocabulary, if it has not yet. */
     private static void load(Tokenizer tokenizer) {
         try {
-            tokenizer.count("Tare");
+            tokenizer.prepare();
         } catch (RuntimeException e) {
             // The scan counts with it again and reports what went wrong there.
         }
