@@ -1,6 +1,7 @@
 package dev.tare.lint;
 
 import dev.tare.TareException;
+import dev.tare.overlap.RepositoryWords;
 import dev.tare.scan.StagedTemplates;
 import dev.tare.scan.TemplateLoader;
 import dev.tare.scan.Workspace;
@@ -12,6 +13,7 @@ import dev.tare.template.TemplateKind;
 import dev.tare.template.TemplateSyntaxException;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
@@ -66,14 +68,22 @@ public final class Check {
                            Function<String, SourceText> reader) {
         RuleCatalog catalog = catalog();
         List<Rule> rules = catalog.enabled();
-        List<Template> templates = new ArrayList<>();
+        boolean across = rules.stream().anyMatch(rule -> rule instanceof CrossTemplateRule);
         List<Finding> findings = new ArrayList<>();
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
+        // Each template is linted and let go; the cross-template rules get its words, and parse it
+        // again only if they need more of it.
+        LintContext each = new LintContext(workspace.config(), tokenizers, loader.renderer(), List.of(),
+                catalog.ids(), Map.of());
+        RepositoryWords words = new RepositoryWords();
+        Map<String, Integer> stamps = new HashMap<>();
+        Map<String, Suppressions> silenced = new HashMap<>();
         for (String path : selection.paths()) {
             SourceText text = null;
+            Template template;
             try {
                 text = reader.apply(path);
-                templates.add(loader.parse(text));
+                template = loader.parse(text);
             } catch (TareException e) {
                 Optional<TemplateSyntaxException> syntax = syntaxError(e);
                 if (syntax.isPresent() && text != null) {
@@ -85,14 +95,51 @@ public final class Check {
                 } else {
                     skipped.add(new SkippedFile(path, e.getMessage()));
                 }
+                continue;
+            }
+            Suppressions suppressions = lint(template, rules, each, findings);
+            if (!suppressions.directives().isEmpty()) {
+                silenced.put(template.path(), suppressions);
+            }
+            stamps.put(template.path(), template.source().hashCode());
+            if (across) {
+                words.add(template);
             }
         }
-        LintContext context = new LintContext(workspace.config(), tokenizers, loader.renderer(), templates,
-                catalog.ids(), Map.of());
-        Map<String, Suppressions> silenced = new java.util.HashMap<>();
-        for (Template template : templates) {
+        if (across) {
+            LintContext all = new LintContext(workspace.config(), tokenizers, loader.renderer(),
+                    runTemplates(stamps, words, loader, reader), catalog.ids(), Map.of(),
+                    path -> java.nio.file.Files.exists(workspace.config().root().resolve(path)));
+            for (Rule rule : rules) {
+                if (rule instanceof CrossTemplateRule acrossRule) {
+                    for (Finding finding : acrossRule.checkAll(all)) {
+                        Suppressions suppressions = silenced.get(finding.path());
+                        if (suppressions == null || !suppressions.silences(finding)) {
+                            findings.add(finding);
+                        }
+                    }
+                }
+            }
+        }
+        List<Finding> configured = new ArrayList<>();
+        for (Finding finding : findings) {
+            configured.add(finding.withSeverity(catalog.severity(catalog.rule(finding.rule()).descriptor())));
+        }
+        findings = null;
+        configured.sort(Finding.ORDER);
+        skipped.sort(null);
+        List<RuleDescriptor> descriptors = rules.stream().map(Rule::descriptor)
+                .map(d -> new RuleDescriptor(d.id(), d.summary(), d.why(), d.instead(), catalog.severity(d),
+                        d.rewriteClass(), d.examples(), d.origin()))
+                .toList();
+        return new CheckResult(workspace.root().toString(), descriptors, configured, skipped, stamps.size(),
+                options.failOn());
+    }
+
+    /** Runs the per-template rules on one template, keeping the findings no directive silences; its directives. */
+    private static Suppressions lint(Template template, List<Rule> rules, LintContext context, List<Finding> findings) {
+        try {
             Suppressions suppressions = Suppressions.of(context.text(template));
-            silenced.put(template.path(), suppressions);
             for (Rule rule : rules) {
                 if (rule instanceof CrossTemplateRule
                         || template.kind() == TemplateKind.TOOLS && !(rule instanceof ToolRule)) {
@@ -104,29 +151,40 @@ public final class Check {
                     }
                 }
             }
+            return suppressions;
+        } finally {
+            context.forget(template);
         }
-        for (Rule rule : rules) {
-            if (rule instanceof CrossTemplateRule across) {
-                for (Finding finding : across.checkAll(context)) {
-                    Suppressions suppressions = silenced.get(finding.path());
-                    if (suppressions == null || !suppressions.silences(finding)) {
-                        findings.add(finding);
-                    }
+    }
+
+    /**
+     * The checked templates as the cross-template rules reach them: parsed again through
+     * {@code reader}, and refused when the text is no longer what was checked.
+     */
+    private static RunTemplates runTemplates(Map<String, Integer> stamps, RepositoryWords words, TemplateLoader loader,
+                                             Function<String, SourceText> reader) {
+        RepositoryWords[] gathered = {words};
+        Function<String, Template> again = path -> {
+            Template template = loader.parse(reader.apply(path));
+            Integer stamp = stamps.get(path);
+            if (stamp == null || stamp != template.source().hashCode()) {
+                throw new TareException(path + " changed while it was checked; run the check again");
+            }
+            return template;
+        };
+        return new RunTemplates(new java.util.TreeSet<>(stamps.keySet()).stream().toList(), again, () -> {
+            synchronized (gathered) {
+                RepositoryWords once = gathered[0];
+                gathered[0] = null;
+                if (once != null) {
+                    return once;
                 }
             }
-        }
-        List<Finding> configured = new ArrayList<>();
-        for (Finding finding : findings) {
-            configured.add(finding.withSeverity(catalog.severity(catalog.rule(finding.rule()).descriptor())));
-        }
-        configured.sort(Finding.ORDER);
-        skipped.sort(null);
-        List<RuleDescriptor> descriptors = rules.stream().map(Rule::descriptor)
-                .map(d -> new RuleDescriptor(d.id(), d.summary(), d.why(), d.instead(), catalog.severity(d),
-                        d.rewriteClass(), d.examples(), d.origin()))
-                .toList();
-        return new CheckResult(workspace.root().toString(), descriptors, configured, skipped, templates.size(),
-                options.failOn());
+            // A second analysis gathers the words again, a template at a time.
+            RepositoryWords fresh = new RepositoryWords();
+            new java.util.TreeSet<>(stamps.keySet()).forEach(path -> fresh.add(again.apply(path)));
+            return fresh;
+        });
     }
 
     private static Optional<TemplateSyntaxException> syntaxError(Throwable e) {

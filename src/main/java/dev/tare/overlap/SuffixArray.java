@@ -129,12 +129,12 @@ final class SuffixArray {
             bucketS[c] += bucketL[c];
             bucketL[c + 1] += bucketS[c];
         }
-        int[] lmsIndex = new int[n + 1];
-        Arrays.fill(lmsIndex, -1);
+        // The leftmost-S positions in text order; a position's rank among them is found by binary
+        // search rather than kept in an array of the text's length.
         int m = 0;
         for (int i = 1; i < n; i++) {
             if (!sType[i - 1] && sType[i]) {
-                lmsIndex[i] = m++;
+                m++;
             }
         }
         int[] lms = new int[m];
@@ -148,18 +148,20 @@ final class SuffixArray {
             int[] sortedLms = new int[m];
             int k = 0;
             for (int v : sa) {
-                if (lmsIndex[v] != -1) {
+                if (v > 0 && !sType[v - 1] && sType[v]) {
                     sortedLms[k++] = v;
                 }
             }
             int[] names = new int[m];
             int name = 0;
-            names[lmsIndex[sortedLms[0]]] = 0;
+            names[Arrays.binarySearch(lms, sortedLms[0])] = 0;
             for (int i = 1; i < m; i++) {
                 int l = sortedLms[i - 1];
                 int r = sortedLms[i];
-                int endL = lmsIndex[l] + 1 < m ? lms[lmsIndex[l] + 1] : n;
-                int endR = lmsIndex[r] + 1 < m ? lms[lmsIndex[r] + 1] : n;
+                int rankL = Arrays.binarySearch(lms, l);
+                int rankR = Arrays.binarySearch(lms, r);
+                int endL = rankL + 1 < m ? lms[rankL + 1] : n;
+                int endR = rankR + 1 < m ? lms[rankR + 1] : n;
                 boolean same = endL - l == endR - r;
                 if (same) {
                     while (l < endL && s[l] == s[r]) {
@@ -172,7 +174,7 @@ final class SuffixArray {
                 if (!same) {
                     name++;
                 }
-                names[lmsIndex[sortedLms[i]]] = name;
+                names[rankR] = name;
             }
             int[] namedOrder = of(names, name);
             for (int i = 0; i < m; i++) {
