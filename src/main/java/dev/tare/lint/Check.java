@@ -69,7 +69,7 @@ public final class Check {
         RuleCatalog catalog = catalog();
         List<Rule> rules = catalog.enabled();
         boolean across = rules.stream().anyMatch(rule -> rule instanceof CrossTemplateRule);
-        List<Finding> findings = new ArrayList<>();
+        Findings findings = new Findings(catalog);
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
         // Each template is linted and let go; the cross-template rules get its words, and parse it
         // again only if they need more of it.
@@ -89,7 +89,7 @@ public final class Check {
                 if (syntax.isPresent() && text != null) {
                     for (Rule rule : rules) {
                         if (rule instanceof SyntaxErrorRule parseRule) {
-                            findings.addAll(parseRule.onSyntaxError(path, text.text(), syntax.get()));
+                            parseRule.onSyntaxError(path, text.text(), syntax.get()).forEach(findings::add);
                         }
                     }
                 } else {
@@ -121,12 +121,7 @@ public final class Check {
                 }
             }
         }
-        List<Finding> configured = new ArrayList<>();
-        for (Finding finding : findings) {
-            configured.add(finding.withSeverity(catalog.severity(catalog.rule(finding.rule()).descriptor())));
-        }
-        findings = null;
-        configured.sort(Finding.ORDER);
+        List<Finding> configured = findings.sorted();
         skipped.sort(null);
         List<RuleDescriptor> descriptors = rules.stream().map(Rule::descriptor)
                 .map(d -> new RuleDescriptor(d.id(), d.summary(), d.why(), d.instead(), catalog.severity(d),
@@ -137,7 +132,7 @@ public final class Check {
     }
 
     /** Runs the per-template rules on one template, keeping the findings no directive silences; its directives. */
-    private static Suppressions lint(Template template, List<Rule> rules, LintContext context, List<Finding> findings) {
+    private static Suppressions lint(Template template, List<Rule> rules, LintContext context, Findings findings) {
         try {
             Suppressions suppressions = Suppressions.of(context.text(template));
             for (Rule rule : rules) {
@@ -185,6 +180,34 @@ public final class Check {
             new java.util.TreeSet<>(stamps.keySet()).forEach(path -> fresh.add(again.apply(path)));
             return fresh;
         });
+    }
+
+    /**
+     * The findings of a run as they come, each at its configured severity. Many findings say the
+     * same thing (the same character, the same variable): on a large repository keeping one copy of
+     * each message is tens of megabytes less.
+     */
+    private static final class Findings {
+        private final RuleCatalog catalog;
+        private final List<Finding> all = new ArrayList<>();
+        private final Map<String, String> messages = new HashMap<>();
+
+        Findings(RuleCatalog catalog) {
+            this.catalog = catalog;
+        }
+
+        void add(Finding finding) {
+            Severity severity = catalog.severity(catalog.rule(finding.rule()).descriptor());
+            String message = messages.computeIfAbsent(finding.message(), m -> m);
+            all.add(new Finding(finding.path(), finding.line(), finding.column(), finding.endLine(),
+                    finding.endColumn(), finding.rule(), severity, message, finding.rewriteClass(), finding.rewrite(),
+                    finding.related()));
+        }
+
+        List<Finding> sorted() {
+            all.sort(Finding.ORDER);
+            return all;
+        }
     }
 
     private static Optional<TemplateSyntaxException> syntaxError(Throwable e) {

@@ -14,8 +14,12 @@ import java.util.Arrays;
 final class LongRuns {
     /** The words kept, as numbers, with {@link WordStream#SEPARATOR} before each run and at the end. */
     final int[] text;
-    /** Prefix sums of estimated tokens: {@code sums[p]} is the estimate of the words before position p. */
-    final int[] sums;
+    /** The estimated tokens of each word number, with a space before it. */
+    private final int[] weight;
+    /** The tokens the whitespace before each word likely adds (see {@link WordStream#gaps}), until the sums are made. */
+    private byte[] gaps;
+    /** Prefix sums of estimated tokens, made once the suffixes are sorted (see {@link #sums()}). */
+    private int[] sums;
     /** Where each template's words start in the {@link WordStream}, and one more (see {@link WordStream#starts}). */
     final int[] starts;
     /** The largest word number. */
@@ -25,13 +29,32 @@ final class LongRuns {
     /** The position in the {@link WordStream} of each run's first word, then the stream's length. */
     private final int[] runOrigins;
 
-    private LongRuns(int[] text, int[] sums, int[] starts, int upper, int[] runStarts, int[] runOrigins) {
+    private LongRuns(int[] text, int[] weight, byte[] gaps, int[] starts, int upper, int[] runStarts, int[] runOrigins) {
         this.text = text;
-        this.sums = sums;
+        this.weight = weight;
+        this.gaps = gaps;
         this.starts = starts;
         this.upper = upper;
         this.runStarts = runStarts;
         this.runOrigins = runOrigins;
+    }
+
+    /**
+     * Prefix sums of estimated tokens: {@code sums[p]} is the estimate of the words before position
+     * p. Made on first use, which should come after the suffix sort: the sort's work arrays and this
+     * one, each about the text's length, are then never held at once.
+     */
+    int[] sums() {
+        if (sums == null) {
+            int[] made = new int[text.length + 1];
+            for (int q = 0; q < text.length; q++) {
+                int id = text[q];
+                made[q + 1] = made[q] + (id == WordStream.SEPARATOR ? 0 : weight[id] + gaps[q]);
+            }
+            sums = made;
+            gaps = null;
+        }
+        return sums;
     }
 
     /** The position in the {@link WordStream} of position {@code p} here (of a break: of the word after it). */
@@ -74,7 +97,7 @@ final class LongRuns {
             p = Math.max(end, p + 1);
         }
         int[] text = new int[size];
-        int[] sums = new int[size + 1];
+        byte[] gaps = new byte[size];
         int[] runStarts = new int[runs + 1];
         int[] runOrigins = new int[runs + 1];
         int k = 0;
@@ -84,22 +107,18 @@ final class LongRuns {
             if (end > p && estimate(stream, weight, p, end) >= minimum) {
                 runStarts[r] = k;
                 runOrigins[r++] = p;
-                text[k] = WordStream.SEPARATOR;
-                sums[k + 1] = sums[k];
-                k++;
+                text[k++] = WordStream.SEPARATOR;
                 for (int q = p; q < end; q++) {
                     text[k] = source[q];
-                    sums[k + 1] = sums[k] + weight[source[q]] + stream.gaps[q];
-                    k++;
+                    gaps[k++] = stream.gaps[q];
                 }
             }
             p = Math.max(end, p + 1);
         }
         text[k] = WordStream.SEPARATOR;
-        sums[k + 1] = sums[k];
         runStarts[r] = k;
         runOrigins[r] = n;
-        return new LongRuns(text, sums, stream.starts, stream.table.size(), runStarts, runOrigins);
+        return new LongRuns(text, weight, gaps, stream.starts, stream.table.size(), runStarts, runOrigins);
     }
 
     /** The end of the run of words starting at {@code p} ({@code p} itself at a break). */

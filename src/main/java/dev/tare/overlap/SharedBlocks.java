@@ -202,7 +202,7 @@ public final class SharedBlocks {
             this.sa = sa;
             this.tokenizer = tokenizer;
             this.minTokens = minTokens;
-            this.sums = runs.sums;
+            this.sums = runs.sums();
         }
 
         /** The index of the template holding position {@code p}. */
