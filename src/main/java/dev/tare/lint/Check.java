@@ -78,33 +78,15 @@ public final class Check {
         RepositoryWords words = new RepositoryWords();
         Map<String, Integer> stamps = new HashMap<>();
         Map<String, Suppressions> silenced = new HashMap<>();
-        for (String path : selection.paths()) {
-            SourceText text = null;
-            Template template;
-            try {
-                text = reader.apply(path);
-                template = loader.parse(text);
-            } catch (TareException e) {
-                Optional<TemplateSyntaxException> syntax = syntaxError(e);
-                if (syntax.isPresent() && text != null) {
-                    for (Rule rule : rules) {
-                        if (rule instanceof SyntaxErrorRule parseRule) {
-                            parseRule.onSyntaxError(path, text.text(), syntax.get()).forEach(findings::add);
-                        }
-                    }
-                } else {
-                    skipped.add(new SkippedFile(path, e.getMessage()));
-                }
-                continue;
-            }
-            Suppressions suppressions = lint(template, rules, each, findings);
-            if (!suppressions.directives().isEmpty()) {
-                silenced.put(template.path(), suppressions);
-            }
-            stamps.put(template.path(), template.source().hashCode());
-            if (across) {
-                words.add(template);
-            }
+        // The templates are linted on every core, each let go once linted; what each gave is taken in
+        // path order, so the findings come in the order a single thread would give them.
+        List<Linted> linted = selection.paths().parallelStream()
+                .map(path -> lint(path, reader, loader, rules, each, across ? words : null, findings)).toList();
+        for (Linted one : linted) {
+            one.findings().forEach(findings::addConfigured);
+            one.skipped().ifPresent(skipped::add);
+            one.suppressions().ifPresent(suppressions -> silenced.put(one.path(), suppressions));
+            one.hash().ifPresent(hash -> stamps.put(one.path(), hash));
         }
         if (across) {
             LintContext all = new LintContext(workspace.config(), tokenizers, loader.renderer(),
@@ -131,10 +113,44 @@ public final class Check {
                 options.failOn());
     }
 
-    /** Runs the per-template rules on one template, keeping the findings no directive silences; its directives. */
-    private static Suppressions lint(Template template, List<Rule> rules, LintContext context, Findings findings) {
+    /**
+     * What linting one file gave: its findings, or why it was skipped; the directives in it when it
+     * has any, and the hash of its text when it parsed.
+     */
+    private record Linted(String path, List<Finding> findings, Optional<SkippedFile> skipped,
+                          Optional<Suppressions> suppressions, Optional<Integer> hash) {
+    }
+
+    /**
+     * Reads, parses and lints one file with the per-template rules (a file that does not parse gets
+     * the findings of the syntax-error rules), keeping the findings no directive silences, and adds
+     * its words to {@code words} unless that is null.
+     */
+    private static Linted lint(String path, Function<String, SourceText> reader, TemplateLoader loader, List<Rule> rules,
+                               LintContext context, RepositoryWords words, Findings configured) {
+        SourceText text = null;
+        Template template;
         try {
-            Suppressions suppressions = Suppressions.of(context.text(template));
+            text = reader.apply(path);
+            template = loader.parse(text);
+        } catch (TareException e) {
+            Optional<TemplateSyntaxException> syntax = syntaxError(e);
+            if (syntax.isPresent() && text != null) {
+                List<Finding> findings = new ArrayList<>();
+                for (Rule rule : rules) {
+                    if (rule instanceof SyntaxErrorRule parseRule) {
+                        parseRule.onSyntaxError(path, text.text(), syntax.get()).forEach(f -> findings.add(configured.configure(f)));
+                    }
+                }
+                return new Linted(path, findings, Optional.empty(), Optional.empty(), Optional.empty());
+            }
+            return new Linted(path, List.of(), Optional.of(new SkippedFile(path, e.getMessage())), Optional.empty(),
+                    Optional.empty());
+        }
+        List<Finding> findings = new ArrayList<>();
+        Suppressions suppressions;
+        try {
+            suppressions = Suppressions.of(context.text(template));
             for (Rule rule : rules) {
                 if (rule instanceof CrossTemplateRule
                         || template.kind() == TemplateKind.TOOLS && !(rule instanceof ToolRule)) {
@@ -142,14 +158,19 @@ public final class Check {
                 }
                 for (Finding finding : rule.check(template, context)) {
                     if (!suppressions.silences(finding)) {
-                        findings.add(finding);
+                        findings.add(configured.configure(finding));
                     }
                 }
             }
-            return suppressions;
         } finally {
             context.forget(template);
         }
+        if (words != null) {
+            words.add(template);
+        }
+        return new Linted(path, findings, Optional.empty(),
+                suppressions.directives().isEmpty() ? Optional.empty() : Optional.of(suppressions),
+                Optional.of(template.source().hashCode()));
     }
 
     /**
@@ -190,18 +211,28 @@ public final class Check {
     private static final class Findings {
         private final RuleCatalog catalog;
         private final List<Finding> all = new ArrayList<>();
-        private final Map<String, String> messages = new HashMap<>();
+        private final Map<String, String> messages = new java.util.concurrent.ConcurrentHashMap<>();
 
         Findings(RuleCatalog catalog) {
             this.catalog = catalog;
         }
 
-        void add(Finding finding) {
+        /** The finding at its configured severity, with the one copy of its message; from any thread. */
+        Finding configure(Finding finding) {
             Severity severity = catalog.severity(catalog.rule(finding.rule()).descriptor());
             String message = messages.computeIfAbsent(finding.message(), m -> m);
-            all.add(new Finding(finding.path(), finding.line(), finding.column(), finding.endLine(),
+            return new Finding(finding.path(), finding.line(), finding.column(), finding.endLine(),
                     finding.endColumn(), finding.rule(), severity, message, finding.rewriteClass(), finding.rewrite(),
-                    finding.related()));
+                    finding.related());
+        }
+
+        void add(Finding finding) {
+            all.add(configure(finding));
+        }
+
+        /** Adds a finding {@link #configure} gave. */
+        void addConfigured(Finding finding) {
+            all.add(finding);
         }
 
         List<Finding> sorted() {

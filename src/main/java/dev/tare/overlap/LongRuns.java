@@ -19,7 +19,7 @@ final class LongRuns {
     /** The tokens the whitespace before each word likely adds (see {@link WordStream#gaps}), until the sums are made. */
     private byte[] gaps;
     /** Prefix sums of estimated tokens, made once the suffixes are sorted (see {@link #sums()}). */
-    private int[] sums;
+    private TokenSums sums;
     /** Where each template's words start in the {@link WordStream}, and one more (see {@link WordStream#starts}). */
     final int[] starts;
     /** The largest word number. */
@@ -40,18 +40,13 @@ final class LongRuns {
     }
 
     /**
-     * Prefix sums of estimated tokens: {@code sums[p]} is the estimate of the words before position
-     * p. Made on first use, which should come after the suffix sort: the sort's work arrays and this
-     * one, each about the text's length, are then never held at once.
+     * Prefix sums of estimated tokens: {@code sums().at(p)} is the estimate of the words before
+     * position p. Made on first use, which should come after the suffix sort, so that the sort's work
+     * arrays and these are never held at once.
      */
-    int[] sums() {
+    TokenSums sums() {
         if (sums == null) {
-            int[] made = new int[text.length + 1];
-            for (int q = 0; q < text.length; q++) {
-                int id = text[q];
-                made[q + 1] = made[q] + (id == WordStream.SEPARATOR ? 0 : weight[id] + gaps[q]);
-            }
-            sums = made;
+            sums = TokenSums.of(text, weight, gaps);
             gaps = null;
         }
         return sums;

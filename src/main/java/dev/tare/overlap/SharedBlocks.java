@@ -191,7 +191,7 @@ public final class SharedBlocks {
         private int[] sa;
         private final Tokenizer tokenizer;
         private final int minTokens;
-        private final int[] sums;
+        private final TokenSums sums;
         private final List<Candidate> candidates = new ArrayList<>();
 
         Finder(List<String> paths, Function<String, Template> templates, LongRuns runs, int[] sa, Tokenizer tokenizer,
@@ -217,13 +217,13 @@ public final class SharedBlocks {
 
         @Override
         public void interval(int length, int lb, int rb, boolean leftDiverse, boolean manyTemplates) {
-            if (!leftDiverse || !manyTemplates || sums[sa[lb] + length] - sums[sa[lb]] < minTokens * ESTIMATE_SLACK) {
+            if (!leftDiverse || !manyTemplates || sums.at(sa[lb] + length) - sums.at(sa[lb]) < minTokens * ESTIMATE_SLACK) {
                 return;
             }
             int[] positions = Arrays.copyOfRange(sa, lb, rb + 1);
             Arrays.sort(positions);
             int first = positions[0];
-            candidates.add(new Candidate(length, positions, Math.max(1, sums[first + length] - sums[first]), 0));
+            candidates.add(new Candidate(length, positions, Math.max(1, sums.at(first + length) - sums.at(first)), 0));
         }
 
         /**
@@ -340,7 +340,7 @@ public final class SharedBlocks {
             for (int[] span : inside) {
                 int start = Math.max(reached, span[0]);
                 if (span[1] > start) {
-                    total += sums[span[1]] - sums[start];
+                    total += sums.at(span[1]) - sums.at(start);
                     reached = span[1];
                 }
             }
