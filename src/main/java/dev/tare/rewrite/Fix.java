@@ -17,6 +17,7 @@ import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.Set;
 import java.util.TreeMap;
 import java.util.TreeSet;
@@ -96,30 +97,28 @@ public final class Fix {
         Map<String, Integer> reviewLeft = new TreeMap<>();
         Map<Path, String> seen = new HashMap<>();
         int templates = 0;
-        for (String path : selection.paths()) {
-            SourceText original;
-            Template template;
-            try {
-                original = reader.apply(path);
-            } catch (TareException e) {
-                skipped.add(new SkippedFile(path, e.getMessage()));
+        // Files are planned on every core; what each gave is taken in path order, as one thread would.
+        List<Planned> planned = selection.paths().parallelStream().map(path -> plan(path, reader, loader, planner))
+                .toList();
+        for (Planned one : planned) {
+            String path = one.path();
+            if (one.unreadable().isPresent()) {
+                skipped.add(new SkippedFile(path, one.unreadable().get()));
                 continue;
             }
-            String first = seen.putIfAbsent(identity(original.file()), path);
+            String first = seen.putIfAbsent(one.identity(), path);
             if (first != null) {
                 skipped.add(new SkippedFile(path, "the same file as " + first + ", which is fixed under that name"));
                 continue;
             }
-            try {
-                template = loader.parse(original);
-            } catch (TareException e) {
-                skipped.add(new SkippedFile(path, "does not parse, so it is not fixed (" + e.getMessage()
+            if (one.unparsable().isPresent()) {
+                skipped.add(new SkippedFile(path, "does not parse, so it is not fixed (" + one.unparsable().get()
                         + "); 'tare check' shows where"));
                 continue;
             }
             templates++;
-            originals.put(path, Original.of(original));
-            FilePlanner.Plan plan = planner.plan(original, template);
+            originals.put(path, one.original());
+            FilePlanner.Plan plan = one.plan();
             plan.reviewLeft().forEach((rule, count) -> reviewLeft.merge(rule, count, Integer::sum));
             plan.fix().ifPresent(fix -> fixes.put(path, fix));
         }
@@ -209,6 +208,37 @@ public final class Fix {
             }
         }
         return originals.values().iterator().next().file();
+    }
+
+    /**
+     * What reading and planning one file gave: why it could not be read, or the file it is (links
+     * followed) and what it was, then why it does not parse, or its plan.
+     */
+    private record Planned(String path, Optional<String> unreadable, Path identity, Original original,
+                           Optional<String> unparsable, FilePlanner.Plan plan) {
+    }
+
+    /**
+     * Reads, parses and plans one file. A file that is another's under a second name is planned too
+     * and then set aside in path order, so the outcome is the one a single thread gives.
+     */
+    private static Planned plan(String path, Function<String, SourceText> reader, TemplateLoader loader,
+                                FilePlanner planner) {
+        SourceText original;
+        try {
+            original = reader.apply(path);
+        } catch (TareException e) {
+            return new Planned(path, Optional.of(e.getMessage()), null, null, Optional.empty(), null);
+        }
+        Path identity = identity(original.file());
+        Template template;
+        try {
+            template = loader.parse(original);
+        } catch (TareException e) {
+            return new Planned(path, Optional.empty(), identity, null, Optional.of(e.getMessage()), null);
+        }
+        return new Planned(path, Optional.empty(), identity, Original.of(original), Optional.empty(),
+                planner.plan(original, template));
     }
 
     /**
