@@ -57,13 +57,14 @@ final class CheckCommand implements Callable<Integer> {
         CheckOptions options = new CheckOptions(Severity.parse(failOn.name(), "--fail-on"));
         Check check = new Check(workspace, new TokenizerRegistry());
         CheckResult result = staged ? check.runStaged(options) : check.run(options);
-        String report = switch (format) {
-            case text -> CheckReport.text(result);
-            case json -> CheckReport.json(result);
-            case sarif -> CheckReport.sarif(result);
-        };
-        spec.commandLine().getOut().print(report);
-        spec.commandLine().getOut().flush();
+        // Written as it is made: a large repository's report is hundreds of megabytes.
+        java.io.PrintWriter out = spec.commandLine().getOut();
+        switch (format) {
+            case text -> CheckReport.text(result, out);
+            case json -> CheckReport.json(result, out);
+            case sarif -> out.print(CheckReport.sarif(result));
+        }
+        out.flush();
         return result.failed() ? ExitCodes.FINDINGS : ExitCodes.OK;
     }
 }

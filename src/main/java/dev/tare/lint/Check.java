@@ -1,6 +1,7 @@
 package dev.tare.lint;
 
 import dev.tare.TareException;
+import dev.tare.overlap.RepositoryWords;
 import dev.tare.scan.StagedTemplates;
 import dev.tare.scan.TemplateLoader;
 import dev.tare.scan.Workspace;
@@ -12,6 +13,7 @@ import dev.tare.template.TemplateKind;
 import dev.tare.template.TemplateSyntaxException;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
@@ -66,33 +68,89 @@ public final class Check {
                            Function<String, SourceText> reader) {
         RuleCatalog catalog = catalog();
         List<Rule> rules = catalog.enabled();
-        List<Template> templates = new ArrayList<>();
-        List<Finding> findings = new ArrayList<>();
+        boolean across = rules.stream().anyMatch(rule -> rule instanceof CrossTemplateRule);
+        Findings findings = new Findings(catalog);
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
-        for (String path : selection.paths()) {
-            SourceText text = null;
-            try {
-                text = reader.apply(path);
-                templates.add(loader.parse(text));
-            } catch (TareException e) {
-                Optional<TemplateSyntaxException> syntax = syntaxError(e);
-                if (syntax.isPresent() && text != null) {
-                    for (Rule rule : rules) {
-                        if (rule instanceof SyntaxErrorRule parseRule) {
-                            findings.addAll(parseRule.onSyntaxError(path, text.text(), syntax.get()));
+        // Each template is linted and let go; the cross-template rules get its words, and parse it
+        // again only if they need more of it.
+        LintContext each = new LintContext(workspace.config(), tokenizers, loader.renderer(), List.of(),
+                catalog.ids(), Map.of());
+        RepositoryWords words = new RepositoryWords();
+        Map<String, Integer> stamps = new HashMap<>();
+        Map<String, Suppressions> silenced = new HashMap<>();
+        // The templates are linted on every core, each let go once linted; what each gave is taken in
+        // path order, so the findings come in the order a single thread would give them.
+        List<Linted> linted = selection.paths().parallelStream()
+                .map(path -> lint(path, reader, loader, rules, each, across ? words : null, findings)).toList();
+        for (Linted one : linted) {
+            one.findings().forEach(findings::addConfigured);
+            one.skipped().ifPresent(skipped::add);
+            one.suppressions().ifPresent(suppressions -> silenced.put(one.path(), suppressions));
+            one.hash().ifPresent(hash -> stamps.put(one.path(), hash));
+        }
+        if (across) {
+            LintContext all = new LintContext(workspace.config(), tokenizers, loader.renderer(),
+                    runTemplates(stamps, words, loader, reader), catalog.ids(), Map.of(),
+                    path -> java.nio.file.Files.exists(workspace.config().root().resolve(path)));
+            for (Rule rule : rules) {
+                if (rule instanceof CrossTemplateRule acrossRule) {
+                    for (Finding finding : acrossRule.checkAll(all)) {
+                        Suppressions suppressions = silenced.get(finding.path());
+                        if (suppressions == null || !suppressions.silences(finding)) {
+                            findings.add(finding);
                         }
                     }
-                } else {
-                    skipped.add(new SkippedFile(path, e.getMessage()));
                 }
             }
         }
-        LintContext context = new LintContext(workspace.config(), tokenizers, loader.renderer(), templates,
-                catalog.ids(), Map.of());
-        Map<String, Suppressions> silenced = new java.util.HashMap<>();
-        for (Template template : templates) {
-            Suppressions suppressions = Suppressions.of(context.text(template));
-            silenced.put(template.path(), suppressions);
+        List<Finding> configured = findings.sorted();
+        skipped.sort(null);
+        List<RuleDescriptor> descriptors = rules.stream().map(Rule::descriptor)
+                .map(d -> new RuleDescriptor(d.id(), d.summary(), d.why(), d.instead(), catalog.severity(d),
+                        d.rewriteClass(), d.examples(), d.origin()))
+                .toList();
+        return new CheckResult(workspace.root().toString(), descriptors, configured, skipped, stamps.size(),
+                options.failOn());
+    }
+
+    /**
+     * What linting one file gave: its findings, or why it was skipped; the directives in it when it
+     * has any, and the hash of its text when it parsed.
+     */
+    private record Linted(String path, List<Finding> findings, Optional<SkippedFile> skipped,
+                          Optional<Suppressions> suppressions, Optional<Integer> hash) {
+    }
+
+    /**
+     * Reads, parses and lints one file with the per-template rules (a file that does not parse gets
+     * the findings of the syntax-error rules), keeping the findings no directive silences, and adds
+     * its words to {@code words} unless that is null.
+     */
+    private static Linted lint(String path, Function<String, SourceText> reader, TemplateLoader loader, List<Rule> rules,
+                               LintContext context, RepositoryWords words, Findings configured) {
+        SourceText text = null;
+        Template template;
+        try {
+            text = reader.apply(path);
+            template = loader.parse(text);
+        } catch (TareException e) {
+            Optional<TemplateSyntaxException> syntax = syntaxError(e);
+            if (syntax.isPresent() && text != null) {
+                List<Finding> findings = new ArrayList<>();
+                for (Rule rule : rules) {
+                    if (rule instanceof SyntaxErrorRule parseRule) {
+                        parseRule.onSyntaxError(path, text.text(), syntax.get()).forEach(f -> findings.add(configured.configure(f)));
+                    }
+                }
+                return new Linted(path, findings, Optional.empty(), Optional.empty(), Optional.empty());
+            }
+            return new Linted(path, List.of(), Optional.of(new SkippedFile(path, e.getMessage())), Optional.empty(),
+                    Optional.empty());
+        }
+        List<Finding> findings = new ArrayList<>();
+        Suppressions suppressions;
+        try {
+            suppressions = Suppressions.of(context.text(template));
             for (Rule rule : rules) {
                 if (rule instanceof CrossTemplateRule
                         || template.kind() == TemplateKind.TOOLS && !(rule instanceof ToolRule)) {
@@ -100,33 +158,87 @@ public final class Check {
                 }
                 for (Finding finding : rule.check(template, context)) {
                     if (!suppressions.silences(finding)) {
-                        findings.add(finding);
+                        findings.add(configured.configure(finding));
                     }
                 }
             }
+        } finally {
+            context.forget(template);
         }
-        for (Rule rule : rules) {
-            if (rule instanceof CrossTemplateRule across) {
-                for (Finding finding : across.checkAll(context)) {
-                    Suppressions suppressions = silenced.get(finding.path());
-                    if (suppressions == null || !suppressions.silences(finding)) {
-                        findings.add(finding);
-                    }
+        if (words != null) {
+            words.add(template);
+        }
+        return new Linted(path, findings, Optional.empty(),
+                suppressions.directives().isEmpty() ? Optional.empty() : Optional.of(suppressions),
+                Optional.of(template.source().hashCode()));
+    }
+
+    /**
+     * The checked templates as the cross-template rules reach them: parsed again through
+     * {@code reader}, and refused when the text is no longer what was checked.
+     */
+    private static RunTemplates runTemplates(Map<String, Integer> stamps, RepositoryWords words, TemplateLoader loader,
+                                             Function<String, SourceText> reader) {
+        RepositoryWords[] gathered = {words};
+        Function<String, Template> again = path -> {
+            Template template = loader.parse(reader.apply(path));
+            Integer stamp = stamps.get(path);
+            if (stamp == null || stamp != template.source().hashCode()) {
+                throw new TareException(path + " changed while it was checked; run the check again");
+            }
+            return template;
+        };
+        return new RunTemplates(new java.util.TreeSet<>(stamps.keySet()).stream().toList(), again, () -> {
+            synchronized (gathered) {
+                RepositoryWords once = gathered[0];
+                gathered[0] = null;
+                if (once != null) {
+                    return once;
                 }
             }
+            // A second analysis gathers the words again, a template at a time.
+            RepositoryWords fresh = new RepositoryWords();
+            new java.util.TreeSet<>(stamps.keySet()).forEach(path -> fresh.add(again.apply(path)));
+            return fresh;
+        });
+    }
+
+    /**
+     * The findings of a run as they come, each at its configured severity. Many findings say the
+     * same thing (the same character, the same variable): on a large repository keeping one copy of
+     * each message is tens of megabytes less.
+     */
+    private static final class Findings {
+        private final RuleCatalog catalog;
+        private final List<Finding> all = new ArrayList<>();
+        private final Map<String, String> messages = new java.util.concurrent.ConcurrentHashMap<>();
+
+        Findings(RuleCatalog catalog) {
+            this.catalog = catalog;
         }
-        List<Finding> configured = new ArrayList<>();
-        for (Finding finding : findings) {
-            configured.add(finding.withSeverity(catalog.severity(catalog.rule(finding.rule()).descriptor())));
+
+        /** The finding at its configured severity, with the one copy of its message; from any thread. */
+        Finding configure(Finding finding) {
+            Severity severity = catalog.severity(catalog.rule(finding.rule()).descriptor());
+            String message = messages.computeIfAbsent(finding.message(), m -> m);
+            return new Finding(finding.path(), finding.line(), finding.column(), finding.endLine(),
+                    finding.endColumn(), finding.rule(), severity, message, finding.rewriteClass(), finding.rewrite(),
+                    finding.related());
         }
-        configured.sort(Finding.ORDER);
-        skipped.sort(null);
-        List<RuleDescriptor> descriptors = rules.stream().map(Rule::descriptor)
-                .map(d -> new RuleDescriptor(d.id(), d.summary(), d.why(), d.instead(), catalog.severity(d),
-                        d.rewriteClass(), d.examples(), d.origin()))
-                .toList();
-        return new CheckResult(workspace.root().toString(), descriptors, configured, skipped, templates.size(),
-                options.failOn());
+
+        void add(Finding finding) {
+            all.add(configure(finding));
+        }
+
+        /** Adds a finding {@link #configure} gave. */
+        void addConfigured(Finding finding) {
+            all.add(finding);
+        }
+
+        List<Finding> sorted() {
+            all.sort(Finding.ORDER);
+            return all;
+        }
     }
 
     private static Optional<TemplateSyntaxException> syntaxError(Throwable e) {

@@ -83,7 +83,12 @@ final class ContentMap {
      * the text between the ends is not followed character by character.
      */
     Optional<Edit> span(int start, int end, String replacement) {
-        if (style == Style.READ_ONLY || start >= end || !holds("", replacement) || replacement.indexOf('\n') >= 0) {
+        return span(start, end).flatMap(place -> place.by(replacement));
+    }
+
+    /** Where a replacement of content {@code [start, end)} as a whole would stand (see {@link #span(int, int, String)}). */
+    Optional<Replaceable> span(int start, int end) {
+        if (style == Style.READ_ONLY || start >= end) {
             return Optional.empty();
         }
         int from = start < verbatim.length && verbatim[start] ? offsets[start] : -1;
@@ -91,7 +96,7 @@ final class ContentMap {
         if (from < 0 || to < from) {
             return Optional.empty();
         }
-        return Optional.of(new Edit(from, to, replacement));
+        return Optional.of(new Replaceable(from, to, style));
     }
 
     private int anchor(int i) {
@@ -114,6 +119,10 @@ final class ContentMap {
     }
 
     private boolean holds(String removed, String replacement) {
+        return holds(style, removed, replacement);
+    }
+
+    static boolean holds(Style style, String removed, String replacement) {
         return switch (style) {
             case TEXT -> true;
             case DOUBLE_QUOTED -> replacement.chars().noneMatch(c -> c == '"' || c == '\\' || c < 0x20);

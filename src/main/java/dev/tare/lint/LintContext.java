@@ -42,7 +42,7 @@ public final class LintContext {
     private final TareConfig config;
     private final TokenizerRegistry tokenizers;
     private final Renderer renderer;
-    private final List<Template> templates;
+    private final RunTemplates templates;
     private final Set<String> ruleIds;
     private final Map<String, Integer> settings;
     private final Map<String, TemplateText> texts = new ConcurrentHashMap<>();
@@ -73,13 +73,24 @@ public final class LintContext {
      */
     public LintContext(TareConfig config, TokenizerRegistry tokenizers, Renderer renderer, List<Template> templates,
                        Set<String> ruleIds, Map<String, Integer> settings, java.util.function.Predicate<String> files) {
+        this(config, tokenizers, renderer, RunTemplates.held(templates), ruleIds, settings, files);
+    }
+
+    /**
+     * A context whose templates are not held but parsed again when a cross-template rule asks for one
+     * (a check of a whole repository).
+     *
+     * @param files whether a root-relative path names a file besides the run's templates
+     */
+    public LintContext(TareConfig config, TokenizerRegistry tokenizers, Renderer renderer, RunTemplates templates,
+                       Set<String> ruleIds, Map<String, Integer> settings, java.util.function.Predicate<String> files) {
         this.config = config;
         this.tokenizers = tokenizers;
         this.renderer = renderer;
-        this.templates = List.copyOf(templates);
+        this.templates = templates;
         this.ruleIds = Set.copyOf(ruleIds);
         this.settings = Map.copyOf(settings);
-        this.paths = templates.stream().map(Template::path).collect(java.util.stream.Collectors.toSet());
+        this.paths = Set.copyOf(templates.paths());
         this.files = files;
     }
 
@@ -109,9 +120,32 @@ public final class LintContext {
         return config;
     }
 
-    /** Every template of the run, sorted by path. */
-    public List<Template> templates() {
-        return templates;
+    /** The paths of every template of the run, sorted. */
+    public List<String> templatePaths() {
+        return templates.paths();
+    }
+
+    /**
+     * The template of the run at {@code path}, parsed again unless the run holds it: a rule that
+     * looks across templates asks for one at a time and lets it go.
+     */
+    public Template template(String path) {
+        return templates.loader().apply(path);
+    }
+
+    /** The words of every template of the run (tool files too; the analysis leaves them out), for one analysis. */
+    public dev.tare.overlap.RepositoryWords words() {
+        return templates.words().get();
+    }
+
+    /**
+     * Forgets what was prepared for {@code template} (its text, rendering, tool definitions), once
+     * every per-template rule has run on it, so that a check of many templates holds none of it.
+     */
+    void forget(Template template) {
+        texts.remove(template.path());
+        renderings.remove(template.path());
+        tools.remove(template.path());
     }
 
     /** The ids of every rule known to this run, enabled or not. */

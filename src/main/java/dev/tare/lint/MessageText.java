@@ -110,6 +110,15 @@ public final class MessageText {
         return map.span(start, end, replacement);
     }
 
+    /**
+     * Where a replacement of content {@code [start, end)} as a whole would stand, to be decided later
+     * without this message; empty when its ends cannot be placed exactly in the file (see
+     * {@link #replacement}).
+     */
+    public Optional<Replaceable> replaceable(int start, int end) {
+        return map.span(start, end);
+    }
+
     /** The content edits moved onto the file, or empty when they cannot be written back exactly. */
     Optional<List<Edit>> toSource(List<Edit> edits) {
         return map.toSource(content(), edits);

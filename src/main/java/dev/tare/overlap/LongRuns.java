@@ -4,39 +4,72 @@ import java.util.Arrays;
 
 /**
  * The runs of words (between breaks) of a {@link WordStream} that are long enough to hold a block,
- * laid end to end with a break before each, and where each word came from. A block never spans a
+ * laid end to end with a break before each, and where each run came from. A block never spans a
  * break, so a run estimated below the minimum can be left out whole: in a repository most runs are
  * short (a heading, a list item, the words between two placeholders), and the suffix sort then
- * works on a fraction of the words.
+ * works on a fraction of the words. Where a word came from is kept per run, not per word, as the
+ * words of a run are consecutive in the stream: on a large repository that is one array of the
+ * text's length less while the suffixes are sorted.
  */
 final class LongRuns {
     /** The words kept, as numbers, with {@link WordStream#SEPARATOR} before each run and at the end. */
     final int[] text;
-    /** The position in the {@link WordStream} of each position here (of a break: of the word after it). */
-    final int[] origin;
-    /** Prefix sums of estimated tokens: {@code sums[p]} is the estimate of the words before position p. */
-    final int[] sums;
+    /** The estimated tokens of each word number, with a space before it. */
+    private final int[] weight;
+    /** The tokens the whitespace before each word likely adds (see {@link WordStream#gaps}), until the sums are made. */
+    private byte[] gaps;
+    /** Prefix sums of estimated tokens, made once the suffixes are sorted (see {@link #sums()}). */
+    private TokenSums sums;
     /** Where each template's words start in the {@link WordStream}, and one more (see {@link WordStream#starts}). */
     final int[] starts;
     /** The largest word number. */
     final int upper;
+    /** Where each run's break stands here, in order, then the closing break. */
+    private final int[] runStarts;
+    /** The position in the {@link WordStream} of each run's first word, then the stream's length. */
+    private final int[] runOrigins;
 
-    private LongRuns(int[] text, int[] origin, int[] sums, int[] starts, int upper) {
+    private LongRuns(int[] text, int[] weight, byte[] gaps, int[] starts, int upper, int[] runStarts, int[] runOrigins) {
         this.text = text;
-        this.origin = origin;
-        this.sums = sums;
+        this.weight = weight;
+        this.gaps = gaps;
         this.starts = starts;
         this.upper = upper;
+        this.runStarts = runStarts;
+        this.runOrigins = runOrigins;
+    }
+
+    /**
+     * Prefix sums of estimated tokens: {@code sums().at(p)} is the estimate of the words before
+     * position p. Made on first use, which should come after the suffix sort, so that the sort's work
+     * arrays and these are never held at once.
+     */
+    TokenSums sums() {
+        if (sums == null) {
+            sums = TokenSums.of(text, weight, gaps);
+            gaps = null;
+        }
+        return sums;
+    }
+
+    /** The position in the {@link WordStream} of position {@code p} here (of a break: of the word after it). */
+    int origin(int p) {
+        int found = Arrays.binarySearch(runStarts, p);
+        if (found >= 0) {
+            return runOrigins[found];
+        }
+        int run = -found - 2;
+        return runOrigins[run] + p - runStarts[run] - 1;
     }
 
     /** The index of the template whose words include position {@code p} here. */
     int templateAt(int p) {
-        return WordStream.templateAt(starts, origin[p]);
+        return WordStream.templateAt(starts, origin(p));
     }
 
     /** The index, among template {@code t}'s words and breaks, of position {@code p} here. */
     int local(int t, int p) {
-        return origin[p] - starts[t];
+        return origin(p) - starts[t];
     }
 
     /**
@@ -49,36 +82,38 @@ final class LongRuns {
         int n = source.length;
         // First pass: how much is kept, so that the arrays are made once at their size.
         int size = 1;
+        int runs = 0;
         for (int p = 0; p < n; ) {
             int end = runEnd(source, p);
             if (end > p && estimate(stream, weight, p, end) >= minimum) {
                 size += 1 + end - p;
+                runs++;
             }
             p = Math.max(end, p + 1);
         }
         int[] text = new int[size];
-        int[] origin = new int[size];
+        byte[] gaps = new byte[size];
+        int[] runStarts = new int[runs + 1];
+        int[] runOrigins = new int[runs + 1];
         int k = 0;
+        int r = 0;
         for (int p = 0; p < n; ) {
             int end = runEnd(source, p);
             if (end > p && estimate(stream, weight, p, end) >= minimum) {
-                text[k] = WordStream.SEPARATOR;
-                origin[k++] = p;
+                runStarts[r] = k;
+                runOrigins[r++] = p;
+                text[k++] = WordStream.SEPARATOR;
                 for (int q = p; q < end; q++) {
                     text[k] = source[q];
-                    origin[k++] = q;
+                    gaps[k++] = stream.gaps[q];
                 }
             }
             p = Math.max(end, p + 1);
         }
         text[k] = WordStream.SEPARATOR;
-        origin[k] = n;
-        int[] sums = new int[size + 1];
-        for (int q = 0; q < size; q++) {
-            int id = text[q];
-            sums[q + 1] = sums[q] + (id == WordStream.SEPARATOR ? 0 : weight[id] + stream.gaps[origin[q]]);
-        }
-        return new LongRuns(text, origin, sums, stream.starts, stream.table.size());
+        runStarts[r] = k;
+        runOrigins[r] = n;
+        return new LongRuns(text, weight, gaps, stream.starts, stream.table.size(), runStarts, runOrigins);
     }
 
     /** The end of the run of words starting at {@code p} ({@code p} itself at a break). */

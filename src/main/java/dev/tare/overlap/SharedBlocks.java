@@ -1,7 +1,7 @@
 package dev.tare.overlap;
 
+import dev.tare.TareException;
 import dev.tare.template.Template;
-import dev.tare.template.TemplateKind;
 import dev.tare.tokenize.Tokenizer;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -9,6 +9,7 @@ import java.util.Comparator;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.function.Function;
 
 /**
  * Finds the blocks of literal text that two or more templates share, in near-linear time and without
@@ -46,17 +47,38 @@ public final class SharedBlocks {
      * {@code minTokens} tokens on {@code tokenizer}, ordered by their first place.
      */
     public static List<SharedBlock> find(List<Template> templates, Tokenizer tokenizer, int minTokens) {
-        List<Template> sorted = templates.stream().filter(t -> t.kind() != TemplateKind.TOOLS)
-                .sorted(Comparator.comparing(Template::path)).toList();
-        if (sorted.size() < 2) {
+        RepositoryWords words = new RepositoryWords();
+        Map<String, Template> byPath = new HashMap<>();
+        for (Template template : templates) {
+            words.add(template);
+            byPath.put(template.path(), template);
+        }
+        return find(words, byPath::get, tokenizer, minTokens);
+    }
+
+    /**
+     * The shared blocks of the templates whose words were gathered in {@code words}, each of at
+     * least {@code minTokens} tokens on {@code tokenizer}, ordered by their first place. Only the
+     * templates that hold a candidate block are asked of {@code templates}, by path, each at most
+     * twice and one at a time, so they need not be held; each must be the template whose words were
+     * gathered.
+     *
+     * @throws TareException when a template given back holds other words than those gathered (its
+     *                       file changed in between)
+     */
+    public static List<SharedBlock> find(RepositoryWords words, Function<String, Template> templates, Tokenizer tokenizer,
+                                         int minTokens) {
+        List<String> paths = words.paths();
+        if (paths.size() < 2) {
             return List.of();
         }
-        // The word stream is dropped once its long runs are copied out: only they are sorted.
-        LongRuns runs = runs(WordStream.of(sorted), tokenizer, minTokens);
+        // Only the long runs are sorted; the word stream is dropped once they are copied out.
+        LongRuns runs = runs(words.stream(), tokenizer, minTokens);
         int[] sa = SuffixArray.of(runs.text, runs.upper);
         int[] plcp = SuffixArray.plcp(runs.text, sa, WordStream.SEPARATOR);
-        Finder finder = new Finder(sorted, runs, sa, tokenizer, minTokens);
+        Finder finder = new Finder(paths, templates, runs, sa, tokenizer, minTokens);
         walkIntervals(runs, sa, plcp, finder);
+        plcp = null;
         return finder.blocks();
     }
 
@@ -163,21 +185,24 @@ public final class SharedBlocks {
      * runs' text; {@link #templateAt} and {@link #local} lead back to the templates.
      */
     private static final class Finder implements IntervalSink {
-        private final List<Template> templates;
+        private final List<String> paths;
+        private final Function<String, Template> templates;
         private final LongRuns runs;
-        private final int[] sa;
+        private int[] sa;
         private final Tokenizer tokenizer;
         private final int minTokens;
-        private final int[] sums;
+        private final TokenSums sums;
         private final List<Candidate> candidates = new ArrayList<>();
 
-        Finder(List<Template> templates, LongRuns runs, int[] sa, Tokenizer tokenizer, int minTokens) {
+        Finder(List<String> paths, Function<String, Template> templates, LongRuns runs, int[] sa, Tokenizer tokenizer,
+               int minTokens) {
+            this.paths = paths;
             this.templates = templates;
             this.runs = runs;
             this.sa = sa;
             this.tokenizer = tokenizer;
             this.minTokens = minTokens;
-            this.sums = runs.sums;
+            this.sums = runs.sums();
         }
 
         /** The index of the template holding position {@code p}. */
@@ -192,13 +217,13 @@ public final class SharedBlocks {
 
         @Override
         public void interval(int length, int lb, int rb, boolean leftDiverse, boolean manyTemplates) {
-            if (!leftDiverse || !manyTemplates || sums[sa[lb] + length] - sums[sa[lb]] < minTokens * ESTIMATE_SLACK) {
+            if (!leftDiverse || !manyTemplates || sums.at(sa[lb] + length) - sums.at(sa[lb]) < minTokens * ESTIMATE_SLACK) {
                 return;
             }
             int[] positions = Arrays.copyOfRange(sa, lb, rb + 1);
             Arrays.sort(positions);
             int first = positions[0];
-            candidates.add(new Candidate(length, positions, Math.max(1, sums[first + length] - sums[first]), 0));
+            candidates.add(new Candidate(length, positions, Math.max(1, sums.at(first + length) - sums.at(first)), 0));
         }
 
         /**
@@ -213,11 +238,12 @@ public final class SharedBlocks {
             Candidate[] counted = new Candidate[candidates.size()];
             for (Map.Entry<Integer, List<Integer>> entry : byTemplate.entrySet()) {
                 int t = entry.getKey();
-                Located where = locate(t);
+                Template template = template(t);
+                Located where = locate(t, template);
                 for (int k : entry.getValue()) {
                     Candidate c = candidates.get(k);
                     int local = local(t, c.positions()[0]);
-                    String copy = templates.get(t).messages().get(where.message()[local]).content()
+                    String copy = template.messages().get(where.message()[local]).content()
                             .substring(where.start()[local], where.end()[local + c.length() - 1]);
                     counted[k] = new Candidate(c.length(), c.positions(), c.estimate(), tokenizer.count(copy));
                 }
@@ -231,27 +257,45 @@ public final class SharedBlocks {
             return kept;
         }
 
-        private Located locate(int t) {
+        /** The template at index {@code t}, asked for again. */
+        private Template template(int t) {
+            String path = paths.get(t);
+            Template template = templates.apply(path);
+            if (template == null) {
+                throw new IllegalArgumentException("no template at " + path);
+            }
+            return template;
+        }
+
+        private Located locate(int t, Template template) {
             int size = runs.starts[t + 1] - runs.starts[t];
             int[] message = new int[size];
             int[] start = new int[size];
             int[] end = new int[size];
             int[] at = {0};
-            TemplateWords.walk(templates.get(t), new TemplateWords.Sink() {
+            TemplateWords.walk(template, new TemplateWords.Sink() {
                 @Override
                 public void separator() {
-                    message[at[0]] = -1;
+                    if (at[0] < size) {
+                        message[at[0]] = -1;
+                    }
                     at[0]++;
                 }
 
                 @Override
                 public void word(int m, int from, int to, int gap) {
-                    message[at[0]] = m;
-                    start[at[0]] = from;
-                    end[at[0]] = to;
+                    if (at[0] < size) {
+                        message[at[0]] = m;
+                        start[at[0]] = from;
+                        end[at[0]] = to;
+                    }
                     at[0]++;
                 }
             });
+            if (at[0] != size) {
+                throw new TareException(template.path() + " changed while shared blocks were looked for;"
+                        + " run the command again");
+            }
             return new Located(message, start, end);
         }
 
@@ -261,6 +305,8 @@ public final class SharedBlocks {
          * reaches the minimum.
          */
         List<SharedBlock> blocks() {
+            // The suffix order is no longer needed once the candidates hold their positions.
+            sa = null;
             List<Candidate> order = measured();
             order.sort(Comparator.comparingInt((Candidate c) -> -c.positions().length)
                     .thenComparingInt(c -> -c.tokens()).thenComparingInt(c -> c.positions()[0]));
@@ -294,7 +340,7 @@ public final class SharedBlocks {
             for (int[] span : inside) {
                 int start = Math.max(reached, span[0]);
                 if (span[1] > start) {
-                    total += sums[span[1]] - sums[start];
+                    total += sums.at(span[1]) - sums.at(start);
                     reached = span[1];
                 }
             }
@@ -311,10 +357,12 @@ public final class SharedBlocks {
             }
             List<List<SharedBlock.Place>> places = new ArrayList<>();
             kept.forEach(c -> places.add(new ArrayList<>()));
+            String[] texts = new String[kept.size()];
             for (Map.Entry<Integer, List<int[]>> entry : byTemplate.entrySet()) {
                 int t = entry.getKey();
-                Located where = locate(t);
-                String path = templates.get(t).path();
+                Template template = template(t);
+                Located where = locate(t, template);
+                String path = template.path();
                 for (int[] item : entry.getValue()) {
                     Candidate c = kept.get(item[1]);
                     int local = local(t, item[0]);
@@ -322,6 +370,11 @@ public final class SharedBlocks {
                     SharedBlock.Place place = new SharedBlock.Place(path, where.message()[local], where.start()[local],
                             where.end()[local + c.length() - 1]);
                     SharedBlock.Place last = list.isEmpty() ? null : list.get(list.size() - 1);
+                    if (last == null) {
+                        // Templates come in order and positions in order within one: this is the block's first copy.
+                        texts[item[1]] = template.messages().get(place.message()).content()
+                                .substring(place.start(), place.end());
+                    }
                     // A run repeated with overlap inside one message (periodic text) stands there once.
                     if (last == null || !last.path().equals(path) || last.message() != place.message()
                             || place.start() >= last.end()) {
@@ -332,10 +385,7 @@ public final class SharedBlocks {
             List<SharedBlock> blocks = new ArrayList<>();
             for (int k = 0; k < kept.size(); k++) {
                 Candidate c = kept.get(k);
-                SharedBlock.Place first = places.get(k).get(0);
-                String text = templates.get(templateAt(c.positions()[0])).messages().get(first.message())
-                        .content().substring(first.start(), first.end());
-                blocks.add(new SharedBlock(places.get(k), c.length(), c.tokens(), text));
+                blocks.add(new SharedBlock(places.get(k), c.length(), c.tokens(), texts[k]));
             }
             blocks.sort(Comparator.comparing((SharedBlock b) -> b.places().get(0).path())
                     .thenComparingInt(b -> b.places().get(0).message()).thenComparingInt(b -> b.places().get(0).start())

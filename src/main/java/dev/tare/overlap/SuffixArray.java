@@ -111,15 +111,18 @@ final class SuffixArray {
     private static int[] induced(int[] s, int upper) {
         int n = s.length;
         int[] sa = new int[n];
-        boolean[] sType = new boolean[n];
+        // One bit per position: on a repository's words the work arrays are what bounds the memory.
+        long[] sType = new long[(n + 63) >>> 6];
         for (int i = n - 2; i >= 0; i--) {
-            sType[i] = s[i] == s[i + 1] ? sType[i + 1] : s[i] < s[i + 1];
+            if (s[i] == s[i + 1] ? isS(sType, i + 1) : s[i] < s[i + 1]) {
+                sType[i >>> 6] |= 1L << i;
+            }
         }
         // bucketL[c]: where bucket c starts; bucketS[c]: where its S-type part starts.
         int[] bucketL = new int[upper + 2];
         int[] bucketS = new int[upper + 2];
         for (int i = 0; i < n; i++) {
-            if (!sType[i]) {
+            if (!isS(sType, i)) {
                 bucketS[s[i]]++;
             } else {
                 bucketL[s[i] + 1]++;
@@ -129,37 +132,41 @@ final class SuffixArray {
             bucketS[c] += bucketL[c];
             bucketL[c + 1] += bucketS[c];
         }
-        int[] lmsIndex = new int[n + 1];
-        Arrays.fill(lmsIndex, -1);
+        // The leftmost-S positions in text order; a position's rank among them is found by binary
+        // search rather than kept in an array of the text's length.
         int m = 0;
         for (int i = 1; i < n; i++) {
-            if (!sType[i - 1] && sType[i]) {
-                lmsIndex[i] = m++;
+            if (isLms(sType, i)) {
+                m++;
             }
         }
         int[] lms = new int[m];
         for (int i = 1, k = 0; i < n; i++) {
-            if (!sType[i - 1] && sType[i]) {
+            if (isLms(sType, i)) {
                 lms[k++] = i;
             }
         }
         induce(s, sa, sType, bucketL, bucketS, lms);
         if (m > 0) {
-            int[] sortedLms = new int[m];
+            // The leftmost-S positions in sorted order are moved to the front of sa, which the last
+            // induction fills again, rather than into an array of their own.
             int k = 0;
-            for (int v : sa) {
-                if (lmsIndex[v] != -1) {
-                    sortedLms[k++] = v;
+            for (int i = 0; i < n; i++) {
+                int v = sa[i];
+                if (v > 0 && isLms(sType, v)) {
+                    sa[k++] = v;
                 }
             }
             int[] names = new int[m];
             int name = 0;
-            names[lmsIndex[sortedLms[0]]] = 0;
+            names[Arrays.binarySearch(lms, sa[0])] = 0;
             for (int i = 1; i < m; i++) {
-                int l = sortedLms[i - 1];
-                int r = sortedLms[i];
-                int endL = lmsIndex[l] + 1 < m ? lms[lmsIndex[l] + 1] : n;
-                int endR = lmsIndex[r] + 1 < m ? lms[lmsIndex[r] + 1] : n;
+                int l = sa[i - 1];
+                int r = sa[i];
+                int rankL = Arrays.binarySearch(lms, l);
+                int rankR = Arrays.binarySearch(lms, r);
+                int endL = rankL + 1 < m ? lms[rankL + 1] : n;
+                int endR = rankR + 1 < m ? lms[rankR + 1] : n;
                 boolean same = endL - l == endR - r;
                 if (same) {
                     while (l < endL && s[l] == s[r]) {
@@ -172,19 +179,27 @@ final class SuffixArray {
                 if (!same) {
                     name++;
                 }
-                names[lmsIndex[sortedLms[i]]] = name;
+                names[rankR] = name;
             }
-            int[] namedOrder = of(names, name);
+            int[] sortedLms = of(names, name);
             for (int i = 0; i < m; i++) {
-                sortedLms[i] = lms[namedOrder[i]];
+                sortedLms[i] = lms[sortedLms[i]];
             }
             induce(s, sa, sType, bucketL, bucketS, sortedLms);
         }
         return sa;
     }
 
+    private static boolean isS(long[] sType, int i) {
+        return (sType[i >>> 6] & 1L << i) != 0;
+    }
+
+    private static boolean isLms(long[] sType, int i) {
+        return i > 0 && isS(sType, i) && !isS(sType, i - 1);
+    }
+
     /** Places the leftmost-S positions in their buckets' S parts, then induces the L and S suffixes from them. */
-    private static void induce(int[] s, int[] sa, boolean[] sType, int[] bucketL, int[] bucketS, int[] lms) {
+    private static void induce(int[] s, int[] sa, long[] sType, int[] bucketL, int[] bucketS, int[] lms) {
         int n = s.length;
         Arrays.fill(sa, -1);
         int[] next = bucketS.clone();
@@ -195,14 +210,14 @@ final class SuffixArray {
         sa[next[s[n - 1]]++] = n - 1;
         for (int i = 0; i < n; i++) {
             int v = sa[i];
-            if (v >= 1 && !sType[v - 1]) {
+            if (v >= 1 && !isS(sType, v - 1)) {
                 sa[next[s[v - 1]]++] = v - 1;
             }
         }
         next = bucketL.clone();
         for (int i = n - 1; i >= 0; i--) {
             int v = sa[i];
-            if (v >= 1 && sType[v - 1]) {
+            if (v >= 1 && isS(sType, v - 1)) {
                 sa[--next[s[v - 1] + 1]] = v - 1;
             }
         }

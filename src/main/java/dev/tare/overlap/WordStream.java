@@ -1,8 +1,6 @@
 package dev.tare.overlap;
 
-import dev.tare.template.Template;
 import java.util.Arrays;
-import java.util.List;
 
 /**
  * Every template's words laid end to end as numbers, one text for the whole repository, with
@@ -27,28 +25,13 @@ final class WordStream {
         this.table = table;
     }
 
-    static WordStream of(List<Template> templates) {
-        WordTable table = new WordTable();
-        Builder builder = new Builder();
-        int[] starts = new int[templates.size() + 1];
-        for (int t = 0; t < templates.size(); t++) {
-            starts[t] = builder.size;
-            Template template = templates.get(t);
-            TemplateWords.walk(template, new TemplateWords.Sink() {
-                @Override
-                public void separator() {
-                    builder.add(SEPARATOR, 0);
-                }
-
-                @Override
-                public void word(int message, int start, int end, int gap) {
-                    builder.add(table.intern(template.messages().get(message).content(), start, end), gap);
-                }
-            });
-        }
-        starts[templates.size()] = builder.size;
-        builder.add(SEPARATOR, 0);
-        int[] text = Arrays.copyOf(builder.ids, builder.size);
+    /**
+     * The stream over words already laid end to end, with the closing break still to come: a word
+     * that occurs once becomes a break.
+     */
+    static WordStream of(int[] words, byte[] gaps, int[] starts, WordTable table) {
+        int[] text = words;
+        text[text.length - 1] = SEPARATOR;
         int[] counts = new int[table.size() + 1];
         for (int id : text) {
             counts[id]++;
@@ -58,7 +41,7 @@ final class WordStream {
                 text[i] = SEPARATOR;
             }
         }
-        return new WordStream(text, Arrays.copyOf(builder.gaps, builder.size), starts, table);
+        return new WordStream(text, gaps, starts, table);
     }
 
     /** The index of the template whose words include position {@code position}. */
@@ -75,20 +58,5 @@ final class WordStream {
             t++;
         }
         return t;
-    }
-
-    private static final class Builder {
-        private int[] ids = new int[1 << 16];
-        private byte[] gaps = new byte[1 << 16];
-        private int size;
-
-        void add(int id, int gap) {
-            if (size == ids.length) {
-                ids = Arrays.copyOf(ids, ids.length * 2);
-                gaps = Arrays.copyOf(gaps, gaps.length * 2);
-            }
-            gaps[size] = (byte) gap;
-            ids[size++] = id;
-        }
     }
 }

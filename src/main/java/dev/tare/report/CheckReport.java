@@ -12,6 +12,9 @@ import dev.tare.lint.Rewrite;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
 import dev.tare.source.SkippedFile;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.io.Writer;
 import java.util.HashMap;
 import java.util.Map;
 
@@ -28,18 +31,28 @@ public final class CheckReport {
 
     /** One line per finding ({@code path:line:col: severity rule: message}), then a summary. */
     public static String text(CheckResult result) {
-        StringBuilder out = new StringBuilder();
+        StringWriter out = new StringWriter();
+        text(result, out);
+        return out.toString();
+    }
+
+    /** The text report written to {@code out} finding by finding, for a check too large to hold as one string. */
+    public static void text(CheckResult result, Writer writer) {
+        PrintWriter out = writer instanceof PrintWriter print ? print : new PrintWriter(writer);
+        StringBuilder line = new StringBuilder();
         for (Finding finding : result.findings()) {
-            out.append(finding.path()).append(':').append(finding.line()).append(':').append(finding.column())
+            line.setLength(0);
+            line.append(finding.path()).append(':').append(finding.line()).append(':').append(finding.column())
                     .append(": ").append(finding.severity().label()).append(' ').append(finding.rule()).append(": ")
                     .append(finding.message());
-            finding.rewrite().ifPresent(rewrite -> out.append(" [").append(finding.rewriteClass().label())
+            finding.rewrite().ifPresent(rewrite -> line.append(" [").append(finding.rewriteClass().label())
                     .append(" rewrite, saves ").append(tokens(rewrite.savingTokens())).append(']'));
-            out.append('\n');
+            line.append('\n');
             for (Related related : finding.related()) {
-                out.append("    ").append(related.message()).append(": ").append(related.path()).append(':')
+                line.append("    ").append(related.message()).append(": ").append(related.path()).append(':')
                         .append(related.line()).append(':').append(related.column()).append('\n');
             }
+            out.append(line);
         }
         if (!result.findings().isEmpty()) {
             out.append('\n');
@@ -62,40 +75,69 @@ public final class CheckReport {
                 out.append("  ").append(skipped.path()).append(": ").append(skipped.reason()).append('\n');
             }
         }
-        return out.toString();
+        out.flush();
     }
 
     /** The {@code check} JSON document of the design contract. */
     public static String json(CheckResult result) {
-        ObjectNode root = Json.report();
-        root.put("root", result.root());
-        ArrayNode findings = root.putArray("findings");
-        for (Finding finding : result.findings()) {
-            ObjectNode node = findings.addObject();
-            node.put("path", finding.path());
-            node.put("line", finding.line());
-            node.put("column", finding.column());
-            node.put("end_line", finding.endLine());
-            node.put("end_column", finding.endColumn());
-            node.put("rule", finding.rule());
-            node.put("severity", finding.severity().label());
-            node.put("message", finding.message());
-            node.put("rewrite_class", finding.rewrite().isPresent() ? finding.rewriteClass().label() : RewriteClass.NONE.label());
-            if (finding.rewrite().isPresent()) {
-                node.put("saving_tokens", finding.rewrite().get().savingTokens());
-            } else {
-                node.putNull("saving_tokens");
+        StringWriter out = new StringWriter();
+        json(result, out);
+        return out.toString();
+    }
+
+    /**
+     * The {@code check} JSON document written to {@code out} finding by finding, laid out exactly as
+     * {@link #json(CheckResult)} gives it: a large repository's findings make a document of hundreds
+     * of megabytes, which is never held whole.
+     */
+    public static void json(CheckResult result, Writer out) {
+        Json.stream(generator -> {
+            generator.writeStringField("root", result.root());
+            generator.writeArrayFieldStart("findings");
+            for (Finding finding : result.findings()) {
+                Json.tree(generator, finding(finding));
             }
-            ArrayNode related = node.putArray("related");
-            for (Related place : finding.related()) {
-                related.addObject().put("path", place.path()).put("line", place.line()).put("column", place.column())
-                        .put("message", place.message());
+            generator.writeEndArray();
+            generator.writeFieldName("summary");
+            Json.tree(generator, summary(result));
+            generator.writeFieldName("skipped");
+            ArrayNode skipped = Json.MAPPER.createArrayNode();
+            for (SkippedFile file : result.skipped()) {
+                skipped.addObject().put("path", file.path()).put("reason", file.reason());
             }
-            ArrayNode edits = node.putArray("edits");
-            finding.rewrite().ifPresent(rewrite -> rewrite.edits().forEach(edit -> edits.addObject()
-                    .put("start", edit.start()).put("end", edit.end()).put("replacement", edit.replacement())));
+            Json.tree(generator, skipped);
+        }, out);
+    }
+
+    private static ObjectNode finding(Finding finding) {
+        ObjectNode node = Json.MAPPER.createObjectNode();
+        node.put("path", finding.path());
+        node.put("line", finding.line());
+        node.put("column", finding.column());
+        node.put("end_line", finding.endLine());
+        node.put("end_column", finding.endColumn());
+        node.put("rule", finding.rule());
+        node.put("severity", finding.severity().label());
+        node.put("message", finding.message());
+        node.put("rewrite_class", finding.rewrite().isPresent() ? finding.rewriteClass().label() : RewriteClass.NONE.label());
+        if (finding.rewrite().isPresent()) {
+            node.put("saving_tokens", finding.rewrite().get().savingTokens());
+        } else {
+            node.putNull("saving_tokens");
         }
-        ObjectNode summary = root.putObject("summary");
+        ArrayNode related = node.putArray("related");
+        for (Related place : finding.related()) {
+            related.addObject().put("path", place.path()).put("line", place.line()).put("column", place.column())
+                    .put("message", place.message());
+        }
+        ArrayNode edits = node.putArray("edits");
+        finding.rewrite().ifPresent(rewrite -> rewrite.edits().forEach(edit -> edits.addObject()
+                .put("start", edit.start()).put("end", edit.end()).put("replacement", edit.replacement())));
+        return node;
+    }
+
+    private static ObjectNode summary(CheckResult result) {
+        ObjectNode summary = Json.MAPPER.createObjectNode();
         summary.put("templates", result.templates());
         summary.put("rules", result.rules().size());
         summary.put("findings", result.findings().size());
@@ -108,11 +150,7 @@ public final class CheckReport {
         summary.put("fail_on", result.failOn().label());
         summary.put("failed", result.failed());
         summary.put("note", ESTIMATE_NOTE);
-        ArrayNode skipped = root.putArray("skipped");
-        for (SkippedFile file : result.skipped()) {
-            skipped.addObject().put("path", file.path()).put("reason", file.reason());
-        }
-        return Json.write(root);
+        return summary;
     }
 
     /**

@@ -1,16 +1,17 @@
 package dev.tare.report;
 
-import com.fasterxml.jackson.core.JsonEncoding;
 import com.fasterxml.jackson.core.JsonGenerator;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.core.util.DefaultIndenter;
 import com.fasterxml.jackson.core.util.DefaultPrettyPrinter;
+import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.tare.Tare;
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
+import java.io.StringWriter;
+import java.io.UncheckedIOException;
+import java.io.Writer;
 
 /** The JSON conventions every machine-readable report shares: snake_case keys, tool and version first. */
 final class Json {
@@ -42,22 +43,36 @@ final class Json {
     }
 
     /**
-     * A report written field by field as {@link #write} would write the same tree: for reports of
-     * many thousand entries, which a tree would first hold whole in memory.
+     * A report written field by field, laid out exactly as {@link #write} lays out the same tree, with
+     * a final newline: for reports of many thousand entries, which a tree would first hold whole.
      */
     static String stream(Fields fields) {
-        ByteArrayOutputStream bytes = new ByteArrayOutputStream(1 << 20);
-        try (JsonGenerator out = MAPPER.writer(printer()).createGenerator(bytes, JsonEncoding.UTF8)) {
-            out.writeStartObject();
-            out.writeStringField("tool", "tare");
-            out.writeStringField("version", Tare.version());
-            fields.write(out);
-            out.writeEndObject();
+        StringWriter out = new StringWriter(1 << 16);
+        stream(fields, out);
+        return out.toString();
+    }
+
+    /** {@link #stream(Fields)} written to {@code out}, which is flushed and left open. */
+    static void stream(Fields fields, Writer out) {
+        try (JsonGenerator generator = MAPPER.getFactory().createGenerator(out)) {
+            generator.disable(JsonGenerator.Feature.AUTO_CLOSE_TARGET);
+            generator.setPrettyPrinter(printer());
+            generator.writeStartObject();
+            generator.writeStringField("tool", "tare");
+            generator.writeStringField("version", Tare.version());
+            fields.write(generator);
+            generator.writeEndObject();
+            generator.flush();
+            out.write('\n');
+            out.flush();
         } catch (IOException e) {
-            throw new IllegalStateException("a report could not be written as JSON", e);
+            throw new UncheckedIOException("a report could not be written as JSON", e);
         }
-        bytes.write('\n');
-        return bytes.toString(StandardCharsets.UTF_8);
+    }
+
+    /** Writes one part of a streamed report as {@link #write} would write it in place. */
+    static void tree(JsonGenerator generator, JsonNode node) throws IOException {
+        MAPPER.writeTree(generator, node);
     }
 
     private static DefaultPrettyPrinter printer() {

@@ -29,13 +29,17 @@ final class Extracted {
         this.check = check;
     }
 
-    void merge(ExtractionPlanner.Result result, Map<String, SourceText> originals, Map<String, FileFix> fixes) {
+    /**
+     * @param originals each changed file as it was read
+     */
+    void merge(ExtractionPlanner.Result result, java.util.function.Function<String, SourceText> originals,
+               Map<String, FileFix> fixes) {
         result.texts().forEach((path, text) -> {
             Map<String, Integer> rules = result.applied().getOrDefault(path, Map.of());
             if (result.created().contains(path)) {
                 fixes.put(path, created(path, text, rules));
             } else {
-                fixes.put(path, changed(originals.get(path), text, rules, fixes.get(path)));
+                fixes.put(path, changed(originals.apply(path), text, rules, fixes.get(path)));
             }
         });
     }

@@ -7,6 +7,8 @@ import dev.tare.lint.Extraction;
 import dev.tare.lint.LintContext;
 import dev.tare.lint.Rewrite;
 import dev.tare.lint.Rule;
+import dev.tare.lint.RunTemplates;
+import dev.tare.overlap.RepositoryWords;
 import dev.tare.lint.RuleCatalog;
 import dev.tare.scan.TemplateLoader;
 import dev.tare.source.SourceText;
@@ -49,19 +51,12 @@ final class ExtractionPlanner {
     private final RuleCatalog catalog;
     private final RewriteSelection selection;
     private final TokenizerRegistry tokenizers;
-    /** Each path's last parse and the text it came from, so that a file is parsed again only when its text changed. */
-    private final Map<String, Template> parses = new HashMap<>();
 
     ExtractionPlanner(TemplateLoader loader, RuleCatalog catalog, RewriteSelection selection, TokenizerRegistry tokenizers) {
         this.loader = loader;
         this.catalog = catalog;
         this.selection = selection;
         this.tokenizers = tokenizers;
-    }
-
-    /** Templates already parsed from their text, which need not be parsed again. */
-    void know(Template template) {
-        parses.put(template.path(), template);
     }
 
     /**
@@ -84,7 +79,7 @@ final class ExtractionPlanner {
     }
 
     /** How many extractions with something to replace each named cross-template rule offers over {@code texts}. */
-    Map<String, Integer> offered(Map<String, String> texts, Map<String, SourceText> originals) {
+    Map<String, Integer> offered(Texts texts, Map<String, Original> originals) {
         Map<String, Integer> offered = new TreeMap<>();
         View view = new View(texts, originals);
         for (CrossTemplateRule rule : rules(false)) {
@@ -104,12 +99,12 @@ final class ExtractionPlanner {
      * @param originals each selected file as read
      * @param frozen    files that must not change (their per-file rewrite was dropped)
      */
-    Result plan(Map<String, String> current, Map<String, SourceText> originals, Set<String> frozen) {
+    Result plan(Texts current, Map<String, Original> originals, Set<String> frozen) {
         List<CrossTemplateRule> rules = rules(true);
         if (rules.isEmpty()) {
             return Result.NONE;
         }
-        Map<String, String> texts = new TreeMap<>(current);
+        Texts texts = current;
         Set<String> created = new TreeSet<>();
         Map<String, Map<String, Integer>> applied = new TreeMap<>();
         Map<String, Set<String>> needs = new TreeMap<>();
@@ -166,7 +161,7 @@ final class ExtractionPlanner {
                     }
                     continue;
                 }
-                texts.putAll(next);
+                texts = texts.with(next);
                 if (extraction.created().isPresent()) {
                     created.add(extraction.partial());
                     copies.forEach(c -> needs.computeIfAbsent(c.path(), p -> new TreeSet<>()).add(extraction.partial()));
@@ -183,7 +178,7 @@ final class ExtractionPlanner {
             }
         }
         Map<String, String> changed = new TreeMap<>();
-        texts.forEach((path, text) -> {
+        texts.changed().forEach((path, text) -> {
             if (!text.equals(current.get(path))) {
                 changed.put(path, text);
             }
@@ -219,17 +214,17 @@ final class ExtractionPlanner {
     }
 
     /** The extraction's edits applied to {@code texts}, into {@code next}; a problem when they cannot be. */
-    private Optional<String> apply(Extraction extraction, List<Extraction.Copy> copies, Map<String, String> texts,
+    private Optional<String> apply(Extraction extraction, List<Extraction.Copy> copies, Texts texts,
                                    Map<String, String> next) {
         Map<String, List<Edit>> edits = new TreeMap<>();
         for (Extraction.Copy copy : copies) {
-            if (!texts.containsKey(copy.path())) {
+            if (!texts.has(copy.path())) {
                 return Optional.of(copy.path() + " is not among the files being fixed");
             }
             edits.computeIfAbsent(copy.path(), p -> new ArrayList<>()).add(copy.edit());
         }
         if (extraction.created().isPresent()) {
-            if (texts.containsKey(extraction.partial()) || Files.exists(loader.workspace().root().resolve(extraction.partial()))) {
+            if (texts.has(extraction.partial()) || Files.exists(loader.workspace().root().resolve(extraction.partial()))) {
                 return Optional.of("a file already stands at " + extraction.partial() + ", and no file is ever replaced by a new partial");
             }
             next.put(extraction.partial(), extraction.created().get());
@@ -243,12 +238,10 @@ final class ExtractionPlanner {
     }
 
     /** What is wrong with changing {@code texts} by {@code next}; empty when every changed file renders as before. */
-    private Optional<String> verify(Map<String, String> texts, Map<String, String> next, Map<String, SourceText> originals,
+    private Optional<String> verify(Texts texts, Map<String, String> next, Map<String, Original> originals,
                                     Extraction extraction) {
-        Map<String, String> afterTexts = new HashMap<>(texts);
-        afterTexts.putAll(next);
         View before = new View(texts, originals);
-        View after = new View(afterTexts, originals);
+        View after = new View(texts.with(next), originals);
         if (extraction.created().isPresent()) {
             Optional<Template> partial;
             try {
@@ -318,13 +311,16 @@ final class ExtractionPlanner {
         return Optional.empty();
     }
 
-    /** Files as they would stand: the given texts over the files on disk, each parsed once. */
+    /**
+     * Files as they would stand: the given texts over the files on disk. A template is parsed when it
+     * is asked for and not kept, so a round over a whole repository holds its words, not its templates.
+     */
     private final class View {
-        private final Map<String, String> texts;
-        private final Map<String, SourceText> originals;
+        private final Texts texts;
+        private final Map<String, Original> originals;
         private final Renderer renderer;
 
-        View(Map<String, String> texts, Map<String, SourceText> originals) {
+        View(Texts texts, Map<String, Original> originals) {
             this.texts = texts;
             this.originals = originals;
             this.renderer = loader.renderer(this::template);
@@ -336,28 +332,39 @@ final class ExtractionPlanner {
             if (text == null) {
                 return Optional.empty();
             }
-            Template template = parses.get(path);
-            if (template == null || !template.source().equals(text)) {
-                SourceText original = originals.get(path);
-                boolean bom = original != null && original.hadBom();
-                template = loader.parse(new SourceText(path, loader.workspace().root().resolve(path), text, bom,
-                        FileBytes.encode(text, bom).length));
-                parses.put(path, template);
-            }
-            return Optional.of(template);
+            Original original = originals.get(path);
+            boolean bom = original != null && original.hadBom();
+            return Optional.of(loader.parse(new SourceText(path, loader.workspace().root().resolve(path), text, bom,
+                    FileBytes.encode(text, bom).length)));
         }
 
+        /** A context over every text that parses; their words are gathered here, a template at a time. */
         LintContext context() {
-            List<Template> templates = new ArrayList<>();
-            for (String path : texts.keySet()) {
+            List<String> parsed = new ArrayList<>();
+            RepositoryWords words = new RepositoryWords();
+            for (String path : texts.paths()) {
                 try {
-                    template(path).ifPresent(templates::add);
+                    template(path).ifPresent(template -> {
+                        words.add(template);
+                        parsed.add(path);
+                    });
                 } catch (TareException e) {
                     // A file that no longer parses takes no part; its own fix was dropped already.
                 }
             }
-            return new LintContext(loader.workspace().config(), tokenizers, renderer, templates, catalog.ids(), Map.of(),
-                    path -> texts.containsKey(path) || Files.exists(loader.workspace().root().resolve(path)));
+            RepositoryWords[] gathered = {words};
+            RunTemplates run = new RunTemplates(parsed, path -> template(path).orElseThrow(), () -> {
+                RepositoryWords once = gathered[0];
+                gathered[0] = null;
+                if (once != null) {
+                    return once;
+                }
+                RepositoryWords again = new RepositoryWords();
+                parsed.forEach(path -> again.add(template(path).orElseThrow()));
+                return again;
+            });
+            return new LintContext(loader.workspace().config(), tokenizers, renderer, run, catalog.ids(), Map.of(),
+                    path -> texts.has(path) || Files.exists(loader.workspace().root().resolve(path)));
         }
     }
 }

@@ -3,20 +3,23 @@ package dev.tare.rewrite;
 import java.util.List;
 
 /**
- * What a fix did, or would do, to one file.
- *
- * @param path     the path relative to the scanned root, with {@code /}
- * @param outcome  what became of the rewrite
- * @param before   the file's text as read (without a byte-order mark)
- * @param after    the rewritten text, verified unless the outcome is {@link Outcome#DROPPED}
- * @param rules    each rule's applied rewrites and savings, sorted by rule id
- * @param tokens   the file's tokens before and after on each of its targets' tokenizers
- * @param rounds   how many rounds of rewriting it took to reach a text no rule rewrites further
- * @param problems why the rewrite was dropped or not written; empty otherwise
- * @param created  whether the file is new (a partial a shared block moved into); {@code before} is then empty
+ * What a fix did, or would do, to one file: its text before and after (after is verified unless the
+ * outcome is {@link Outcome#DROPPED}), each rule's rewrites and savings, its tokens before and after
+ * on each of its targets' tokenizers, how many rounds of rewriting it took, and why it was dropped or
+ * not written. A created file (a partial a shared block moved into) has an empty text before.
  */
-public record FileFix(String path, Outcome outcome, String before, String after, List<RuleSaving> rules,
-                      List<TokenChange> tokens, int rounds, List<String> problems, boolean created) {
+public final class FileFix {
+    private final String path;
+    private final Outcome outcome;
+    // Kept compressed: a fix of a large repository holds thousands of these until the report is printed.
+    private final PackedText before;
+    private final PackedText after;
+    private final List<RuleSaving> rules;
+    private final List<TokenChange> tokens;
+    private final int rounds;
+    private final List<String> problems;
+    private final boolean created;
+
     /** What became of one file's rewrite. */
     public enum Outcome {
         /** Dry run: the rewrite was verified and would be written. */
@@ -36,10 +39,67 @@ public record FileFix(String path, Outcome outcome, String before, String after,
         }
     }
 
-    public FileFix {
-        rules = List.copyOf(rules);
-        tokens = List.copyOf(tokens);
-        problems = List.copyOf(problems);
+    public FileFix(String path, Outcome outcome, String before, String after, List<RuleSaving> rules,
+                   List<TokenChange> tokens, int rounds, List<String> problems, boolean created) {
+        this(path, outcome, PackedText.of(before), PackedText.of(after), rules, tokens, rounds, problems, created);
+    }
+
+    private FileFix(String path, Outcome outcome, PackedText before, PackedText after, List<RuleSaving> rules,
+                    List<TokenChange> tokens, int rounds, List<String> problems, boolean created) {
+        this.path = path;
+        this.outcome = outcome;
+        this.before = before;
+        this.after = after;
+        this.rules = List.copyOf(rules);
+        this.tokens = List.copyOf(tokens);
+        this.rounds = rounds;
+        this.problems = List.copyOf(problems);
+        this.created = created;
+    }
+
+    /** The path relative to the scanned root, with {@code /}. */
+    public String path() {
+        return path;
+    }
+
+    /** What became of the rewrite. */
+    public Outcome outcome() {
+        return outcome;
+    }
+
+    /** The file's text as read (without a byte-order mark); empty for a new file. */
+    public String before() {
+        return before.text();
+    }
+
+    /** The rewritten text. */
+    public String after() {
+        return after.text();
+    }
+
+    /** Each rule's applied rewrites and savings, sorted by rule id. */
+    public List<RuleSaving> rules() {
+        return rules;
+    }
+
+    /** The file's tokens before and after on each of its targets' tokenizers. */
+    public List<TokenChange> tokens() {
+        return tokens;
+    }
+
+    /** How many rounds of rewriting it took. */
+    public int rounds() {
+        return rounds;
+    }
+
+    /** Why the rewrite was dropped or not written; empty otherwise. */
+    public List<String> problems() {
+        return problems;
+    }
+
+    /** Whether the file is new. */
+    public boolean created() {
+        return created;
     }
 
     /** Whether the rewrite is (or in a dry run would be) in the file. */

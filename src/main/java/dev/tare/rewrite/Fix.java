@@ -17,6 +17,7 @@ import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.Set;
 import java.util.TreeMap;
 import java.util.TreeSet;
@@ -88,58 +89,57 @@ public final class Fix {
         RewriteSelection rewrites = RewriteSelection.of(check.catalog(), options);
         FilePlanner planner = new FilePlanner(check, loader, rewrites, tokenizers);
         Map<String, FileFix> fixes = new TreeMap<>();
-        Map<String, SourceText> originals = new TreeMap<>();
+        // Only what each file was is kept; its text is read again when needed (see originalText).
+        Map<String, Original> originals = new TreeMap<>();
         ExtractionPlanner across = new ExtractionPlanner(loader, check.catalog(), rewrites, tokenizers);
         boolean extracting = acrossFiles && across.hasRulesNamed();
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
         Map<String, Integer> reviewLeft = new TreeMap<>();
         Map<Path, String> seen = new HashMap<>();
         int templates = 0;
-        for (String path : selection.paths()) {
-            SourceText original;
-            Template template;
-            try {
-                original = reader.apply(path);
-            } catch (TareException e) {
-                skipped.add(new SkippedFile(path, e.getMessage()));
+        // Files are planned on every core; what each gave is taken in path order, as one thread would.
+        List<Planned> planned = selection.paths().parallelStream().map(path -> plan(path, reader, loader, planner))
+                .toList();
+        for (Planned one : planned) {
+            String path = one.path();
+            if (one.unreadable().isPresent()) {
+                skipped.add(new SkippedFile(path, one.unreadable().get()));
                 continue;
             }
-            String first = seen.putIfAbsent(identity(original.file()), path);
+            String first = seen.putIfAbsent(one.identity(), path);
             if (first != null) {
                 skipped.add(new SkippedFile(path, "the same file as " + first + ", which is fixed under that name"));
                 continue;
             }
-            try {
-                template = loader.parse(original);
-            } catch (TareException e) {
-                skipped.add(new SkippedFile(path, "does not parse, so it is not fixed (" + e.getMessage()
+            if (one.unparsable().isPresent()) {
+                skipped.add(new SkippedFile(path, "does not parse, so it is not fixed (" + one.unparsable().get()
                         + "); 'tare check' shows where"));
                 continue;
             }
             templates++;
-            originals.put(path, original);
-            if (extracting) {
-                across.know(template);
-            }
-            FilePlanner.Plan plan = planner.plan(original, template);
+            originals.put(path, one.original());
+            FilePlanner.Plan plan = one.plan();
             plan.reviewLeft().forEach((rule, count) -> reviewLeft.merge(rule, count, Integer::sum));
             plan.fix().ifPresent(fix -> fixes.put(path, fix));
         }
         List<NotApplied> refused = List.of();
         Map<String, Set<String>> needs = Map.of();
         if (extracting) {
-            Map<String, String> current = new TreeMap<>();
             Set<String> frozen = new TreeSet<>();
-            originals.forEach((path, original) -> {
-                FileFix fix = fixes.get(path);
-                current.put(path, fix != null && fix.verified() ? fix.after() : original.text());
-                if (fix != null && !fix.verified()) {
+            fixes.forEach((path, fix) -> {
+                if (!fix.verified()) {
                     frozen.add(path);
                 }
             });
+            Map<String, FileFix> perFile = new HashMap<>(fixes);
+            Texts current = new Texts(originals.keySet(), path -> {
+                FileFix fix = perFile.get(path);
+                return fix != null && fix.verified() ? fix.after() : originalText(path, originals, perFile, reader);
+            });
             if (options.includeReview()) {
                 ExtractionPlanner.Result extracted = across.plan(current, originals, frozen);
-                new Extracted(loader, planner, check).merge(extracted, originals, fixes);
+                new Extracted(loader, planner, check).merge(extracted,
+                        path -> originals.get(path).with(originalText(path, originals, perFile, reader)), fixes);
                 refused = extracted.refused();
                 needs = extracted.needs();
             } else {
@@ -156,7 +156,7 @@ public final class Fix {
      * then the other files, each only if every new partial it includes was written; so no file ever
      * includes a partial that is not there.
      */
-    private List<FileFix> write(Map<String, FileFix> fixes, Map<String, SourceText> originals,
+    private List<FileFix> write(Map<String, FileFix> fixes, Map<String, Original> originals,
                                 Map<String, Set<String>> needs) {
         FixWriter writer = new FixWriter(files);
         Map<String, FileFix> done = new TreeMap<>();
@@ -193,7 +193,7 @@ public final class Fix {
                 continue;
             }
             List<String> absent = needs.getOrDefault(fix.path(), Set.of()).stream().filter(missing::contains).toList();
-            done.put(fix.path(), absent.isEmpty() ? writer.write(fix, originals.get(fix.path()))
+            done.put(fix.path(), absent.isEmpty() ? writer.write(fix, originals.get(fix.path()).with(fix.before()))
                     : fix.with(FileFix.Outcome.NOT_WRITTEN, "it would include " + String.join(", ", absent)
                     + ", which could not be created, so the file is as it was; run the fix again"));
         }
@@ -201,13 +201,61 @@ public final class Fix {
     }
 
     /** A file a new partial takes its permissions from: one of the templates it was made from. */
-    private Path like(String partial, Map<String, Set<String>> needs, Map<String, SourceText> originals) {
+    private Path like(String partial, Map<String, Set<String>> needs, Map<String, Original> originals) {
         for (Map.Entry<String, Set<String>> entry : needs.entrySet()) {
             if (entry.getValue().contains(partial) && originals.containsKey(entry.getKey())) {
                 return originals.get(entry.getKey()).file();
             }
         }
         return originals.values().iterator().next().file();
+    }
+
+    /**
+     * What reading and planning one file gave: why it could not be read, or the file it is (links
+     * followed) and what it was, then why it does not parse, or its plan.
+     */
+    private record Planned(String path, Optional<String> unreadable, Path identity, Original original,
+                           Optional<String> unparsable, FilePlanner.Plan plan) {
+    }
+
+    /**
+     * Reads, parses and plans one file. A file that is another's under a second name is planned too
+     * and then set aside in path order, so the outcome is the one a single thread gives.
+     */
+    private static Planned plan(String path, Function<String, SourceText> reader, TemplateLoader loader,
+                                FilePlanner planner) {
+        SourceText original;
+        try {
+            original = reader.apply(path);
+        } catch (TareException e) {
+            return new Planned(path, Optional.of(e.getMessage()), null, null, Optional.empty(), null);
+        }
+        Path identity = identity(original.file());
+        Template template;
+        try {
+            template = loader.parse(original);
+        } catch (TareException e) {
+            return new Planned(path, Optional.empty(), identity, null, Optional.of(e.getMessage()), null);
+        }
+        return new Planned(path, Optional.empty(), identity, Original.of(original), Optional.empty(),
+                planner.plan(original, template));
+    }
+
+    /**
+     * A file's text as it was read: from its per-file fix, which holds it, or read again, and refused
+     * when the file changed since.
+     */
+    private static String originalText(String path, Map<String, Original> originals, Map<String, FileFix> fixes,
+                                       Function<String, SourceText> reader) {
+        FileFix fix = fixes.get(path);
+        if (fix != null) {
+            return fix.before();
+        }
+        String text = reader.apply(path).text();
+        if (text.hashCode() != originals.get(path).hash()) {
+            throw new TareException(path + " changed while it was being fixed, so nothing was written; run the fix again");
+        }
+        return text;
     }
 
     /** The file a path names once links are followed, so that two names of one file are fixed once. */

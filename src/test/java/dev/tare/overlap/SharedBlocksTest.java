@@ -170,6 +170,39 @@ class SharedBlocksTest {
         assertEquals(0, blocks.get(0).places().get(0).message());
     }
 
+    @Test
+    void wordsGatheredInAnyOrderGiveTheBlocksOfTheTemplatesAndOnlyTheirHoldersAreAskedForAgain() {
+        Map<String, String> files = files(
+                "a.md", "Start of the first prompt.\n\n" + X + "\n\n" + Y + "\n",
+                "b.md", Y + "\n\nQuite another opening line.\n\n" + X + "\n",
+                "c.md", "Nothing in common at all with the others, only this line: " + Z + "\n",
+                "d.md", "Yet another: " + Y + "\n");
+        RepositoryWords words = new RepositoryWords();
+        List<String> reversed = new ArrayList<>(files.keySet());
+        java.util.Collections.reverse(reversed);
+        reversed.forEach(path -> words.add(RuleHarness.template(path, files.get(path))));
+        List<String> asked = new ArrayList<>();
+        List<SharedBlock> blocks = SharedBlocks.find(words, path -> {
+            asked.add(path);
+            return RuleHarness.template(path, files.get(path));
+        }, O200K, MIN);
+        assertEquals(find(files), blocks);
+        assertEquals(2, blocks.size());
+        assertTrue(!asked.contains("c.md"), "c.md holds no block, so it is not parsed again: " + asked);
+        assertTrue(asked.containsAll(List.of("a.md", "b.md", "d.md")), asked.toString());
+    }
+
+    @Test
+    void aTemplateWhoseWordsChangedAfterTheyWereGatheredIsRefused() {
+        Map<String, String> files = files("a.md", X + "\n", "b.md", "Opening.\n\n" + X + "\n");
+        RepositoryWords words = new RepositoryWords();
+        files.forEach((path, text) -> words.add(RuleHarness.template(path, text)));
+        dev.tare.TareException e = org.junit.jupiter.api.Assertions.assertThrows(dev.tare.TareException.class,
+                () -> SharedBlocks.find(words, path -> RuleHarness.template(path, "An edit: " + files.get(path)), O200K,
+                        MIN));
+        assertTrue(e.getMessage().startsWith("a.md changed"), e.getMessage());
+    }
+
     private static Map<String, String> files(String... pathsAndTexts) {
         Map<String, String> files = new LinkedHashMap<>();
         for (int i = 0; i < pathsAndTexts.length; i += 2) {

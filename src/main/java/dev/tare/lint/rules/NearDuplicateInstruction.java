@@ -18,7 +18,6 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
-import org.apache.commons.text.similarity.LevenshteinDistance;
 
 /**
  * Two sentences of one template that say nearly the same thing: the cosine similarity of their
@@ -74,7 +73,6 @@ final class NearDuplicateInstruction implements Rule {
                 }
             }
         }
-        LevenshteinDistance distance = LevenshteinDistance.getDefaultInstance();
         List<Finding> findings = new ArrayList<>();
         for (int j = 1; j < all.size(); j++) {
             Located later = all.get(j);
@@ -89,7 +87,7 @@ final class NearDuplicateInstruction implements Rule {
                 }
                 String a = earlier.lowerCase();
                 String b = later.lowerCase();
-                double edit = 1.0 - (double) distance.apply(a, b) / Math.max(a.length(), b.length());
+                double edit = 1.0 - (double) editDistance(a, b) / Math.max(a.length(), b.length());
                 if (edit < MIN_LEVENSHTEIN) {
                     continue;
                 }
@@ -112,6 +110,37 @@ final class NearDuplicateInstruction implements Rule {
                 "nearly repeats the sentence on line " + line + " (word similarity "
                         + String.format(Locale.ROOT, "%.2f", similarity) + "); keep one of them",
                 rewrite, List.of(text.related(earlier.message(), earlier.sentence().start(), "similar sentence")));
+    }
+
+    /**
+     * The Levenshtein distance of two strings in UTF-16 units, as commons-text's
+     * {@code LevenshteinDistance.getDefaultInstance()} gives it (a test compares them), in two rows of
+     * plain ints: the library boxes every character it compares, which made this rule the costliest
+     * part of a check.
+     */
+    static int editDistance(String a, String b) {
+        if (a.length() < b.length()) {
+            String swap = a;
+            a = b;
+            b = swap;
+        }
+        int[] previous = new int[b.length() + 1];
+        int[] current = new int[b.length() + 1];
+        for (int j = 0; j <= b.length(); j++) {
+            previous[j] = j;
+        }
+        for (int i = 1; i <= a.length(); i++) {
+            current[0] = i;
+            char c = a.charAt(i - 1);
+            for (int j = 1; j <= b.length(); j++) {
+                int substitute = previous[j - 1] + (c == b.charAt(j - 1) ? 0 : 1);
+                current[j] = Math.min(substitute, Math.min(previous[j], current[j - 1]) + 1);
+            }
+            int[] swap = previous;
+            previous = current;
+            current = swap;
+        }
+        return previous[b.length()];
     }
 
     /** The content words of {@code sentence} with how often each occurs. */

@@ -11,6 +11,7 @@ import dev.tare.lint.Extraction;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
 import dev.tare.lint.MessageText;
+import dev.tare.lint.Replaceable;
 import dev.tare.lint.Related;
 import dev.tare.lint.RewriteClass;
 import dev.tare.lint.RuleDescriptor;
@@ -19,12 +20,14 @@ import dev.tare.lint.Suppressions;
 import dev.tare.lint.TemplateText;
 import dev.tare.overlap.PartialNames;
 import dev.tare.overlap.SharedBlocks;
+import dev.tare.template.PlaceholderSyntax;
 import dev.tare.template.Template;
 import dev.tare.template.TemplateKind;
 import dev.tare.tokenize.Tokenizer;
 import java.math.BigDecimal;
 import java.math.MathContext;
 import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -32,6 +35,7 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
+import java.util.TreeMap;
 
 /**
  * A block of text (at least {@code rules.limits.shared_block_tokens}, default {@value #MIN_TOKENS},
@@ -112,58 +116,111 @@ final class SharedBlock implements CrossTemplateRule {
                            String outcome) {
     }
 
-    /** One copy, located. */
-    private record Place(Template template, MessageText message, int start, int end, int line, int lastLine) {
-        String copy() {
-            return message.content().substring(start, end);
-        }
-
-        String path() {
-            return template.path();
-        }
-
+    /**
+     * One copy, located, with all the rule needs of its template, so that the templates need not be
+     * held while the blocks are planned.
+     *
+     * @param copy        the copy's text
+     * @param following   up to four characters of the message after the copy
+     * @param remaining   how many characters of the message follow the copy
+     * @param replaceable where an include could replace the copy and the line break after it: by the
+     *                    line break ({@code ""}, {@code "\n"} or {@code "\r\n"}) that follows it
+     * @param located     a finding over the copy, for its lines and columns
+     * @param related     the copy as a related place, for its line and column
+     * @param costs       what the copy costs per call on each target of its template
+     */
+    private record Place(String path, TemplateKind kind, PlaceholderSyntax syntax, int start, int end, int line,
+                         int lastLine, String copy, String following, int remaining,
+                         Map<String, Replaceable> replaceable, Finding located, Related related, String costs) {
         /** "line 4" or "lines 4-9". */
         String lines() {
             return line == lastLine ? "line " + line : "lines " + line + "-" + lastLine;
         }
+
+        boolean followedBy(String text) {
+            return following.startsWith(text);
+        }
+
+        Optional<Edit> replacement(String lineBreak, String tag) {
+            Replaceable at = replaceable.get(lineBreak);
+            return at == null ? Optional.empty() : at.by(tag);
+        }
     }
 
     private List<Planned> plan(LintContext context) {
-        Map<String, Template> byPath = new LinkedHashMap<>();
-        for (Template template : context.templates()) {
-            if (template.kind() != TemplateKind.TOOLS) {
-                byPath.put(template.path(), template);
-            }
-        }
         int minimum = context.limit("shared_block_tokens", MIN_TOKENS);
-        List<dev.tare.overlap.SharedBlock> blocks = SharedBlocks.find(new ArrayList<>(byPath.values()),
+        List<dev.tare.overlap.SharedBlock> blocks = SharedBlocks.find(context.words(), context::template,
                 context.primaryTokenizer(), minimum);
+        List<List<Place>> located = locate(blocks, context);
         Set<String> named = new HashSet<>();
         List<Planned> planned = new ArrayList<>();
-        for (dev.tare.overlap.SharedBlock block : blocks) {
-            List<Place> places = new ArrayList<>();
-            for (dev.tare.overlap.SharedBlock.Place at : block.places()) {
-                Template template = byPath.get(at.path());
-                TemplateText text = context.text(template);
-                MessageText message = text.messages().get(at.message());
-                int line = text.line(message, at.start());
-                if (!Suppressions.of(text).silences(DESCRIPTOR.id(), line)) {
-                    places.add(new Place(template, message, at.start(), at.end(), line,
-                            text.line(message, Math.max(at.start(), at.end() - 1))));
-                }
-            }
+        for (int b = 0; b < blocks.size(); b++) {
+            List<Place> places = located.get(b);
             if (places.stream().map(Place::path).distinct().count() < 2) {
                 continue;
             }
-            planned.add(extraction(block, places, context, named));
+            planned.add(extraction(blocks.get(b), places, context, named));
         }
         return planned;
+    }
+
+    /**
+     * Every block's places that no directive silences, in the block's order; each template that holds
+     * one is asked of the context once.
+     */
+    private static List<List<Place>> locate(List<dev.tare.overlap.SharedBlock> blocks, LintContext context) {
+        Map<String, List<int[]>> byPath = new TreeMap<>();
+        List<Place[]> found = new ArrayList<>();
+        for (int b = 0; b < blocks.size(); b++) {
+            List<dev.tare.overlap.SharedBlock.Place> at = blocks.get(b).places();
+            found.add(new Place[at.size()]);
+            for (int k = 0; k < at.size(); k++) {
+                byPath.computeIfAbsent(at.get(k).path(), p -> new ArrayList<>()).add(new int[] {b, k});
+            }
+        }
+        for (Map.Entry<String, List<int[]>> entry : byPath.entrySet()) {
+            Template template = context.template(entry.getKey());
+            TemplateText text = TemplateText.of(template);
+            Suppressions suppressions = Suppressions.of(text);
+            for (int[] item : entry.getValue()) {
+                dev.tare.overlap.SharedBlock.Place at = blocks.get(item[0]).places().get(item[1]);
+                MessageText message = text.messages().get(at.message());
+                int line = text.line(message, at.start());
+                if (!suppressions.silences(DESCRIPTOR.id(), line)) {
+                    found.get(item[0])[item[1]] = place(template, text, message, at, line, context);
+                }
+            }
+        }
+        List<List<Place>> places = new ArrayList<>();
+        for (Place[] each : found) {
+            places.add(java.util.Arrays.stream(each).filter(java.util.Objects::nonNull).toList());
+        }
+        return places;
+    }
+
+    private static Place place(Template template, TemplateText text, MessageText message,
+                               dev.tare.overlap.SharedBlock.Place at, int line, LintContext context) {
+        String content = message.content();
+        int start = at.start();
+        int end = at.end();
+        Map<String, Replaceable> replaceable = new HashMap<>();
+        for (String lineBreak : List.of("", "\n", "\r\n")) {
+            if (content.startsWith(lineBreak, end)) {
+                message.replaceable(start, end + lineBreak.length()).ifPresent(r -> replaceable.put(lineBreak, r));
+            }
+        }
+        String copy = content.substring(start, end);
+        return new Place(template.path(), template.kind(), template.syntax(), start, end, line,
+                text.line(message, Math.max(start, end - 1)), copy,
+                content.substring(end, Math.min(content.length(), end + 4)), content.length() - end, replaceable,
+                text.finding(DESCRIPTOR, message, start, end, "", Optional.empty(), List.of()),
+                text.related(message, start, ""), costs(template, copy, context));
     }
 
     /** How the block would move into a partial, or why it cannot. */
     private Planned extraction(dev.tare.overlap.SharedBlock block, List<Place> places, LintContext context,
                                Set<String> named) {
-        Template first = places.get(0).template();
+        Place first = places.get(0);
         if (!first.syntax().hasIncludes()) {
             return new Planned(block, places, Optional.empty(), "it is not moved into a partial, as "
                     + first.syntax().label() + " templates have no includes");
@@ -203,13 +260,13 @@ final class SharedBlock implements CrossTemplateRule {
                         + " include would change the text the model sees; make it the same, or include the partial by hand"));
                 continue;
             }
-            if (!lineBreak.isEmpty() && !place.message().content().startsWith(lineBreak, place.end())) {
+            if (!lineBreak.isEmpty() && !place.followedBy(lineBreak)) {
                 refused.add(new Extraction.Refusal(place.path(), place.line(), "this copy of the shared block ("
                         + place.lines() + ") is not followed by a line break as the text of "
                         + partial + " is, so an include would change the text the model sees; include it by hand"));
                 continue;
             }
-            Optional<Edit> edit = place.message().replacement(place.start(), place.end() + lineBreak.length(), tag);
+            Optional<Edit> edit = place.replacement(lineBreak, tag);
             if (edit.isEmpty()) {
                 refused.add(new Extraction.Refusal(place.path(), place.line(), "this copy of the shared block ("
                         + place.lines() + ") stands where Tare cannot replace it exactly (a chat"
@@ -251,12 +308,11 @@ final class SharedBlock implements CrossTemplateRule {
 
     private static Optional<Reuse> reusable(List<Place> places) {
         for (Place place : places) {
-            if (place.template().kind() != TemplateKind.PARTIAL || place.start() != 0) {
+            if (place.kind() != TemplateKind.PARTIAL || place.start() != 0) {
                 continue;
             }
-            String content = place.message().content();
-            String rest = content.substring(place.end());
-            if (rest.isEmpty() || rest.equals("\n") || rest.equals("\r\n")) {
+            String rest = place.remaining() == place.following().length() ? place.following() : null;
+            if (rest != null && (rest.isEmpty() || rest.equals("\n") || rest.equals("\r\n"))) {
                 return Optional.of(new Reuse(place, rest));
             }
         }
@@ -290,9 +346,8 @@ final class SharedBlock implements CrossTemplateRule {
             if (!place.copy().equals(canonical)) {
                 continue;
             }
-            String content = place.message().content();
-            String here = content.startsWith("\r\n", place.end()) ? "\r\n" : content.startsWith("\n", place.end()) ? "\n" : "";
-            if (here.isEmpty() || !content.startsWith(here, place.end() + here.length())
+            String here = place.followedBy("\r\n") ? "\r\n" : place.followedBy("\n") ? "\n" : "";
+            if (here.isEmpty() || !place.following().startsWith(here, here.length())
                     || lineBreak != null && !lineBreak.equals(here)) {
                 return "";
             }
@@ -315,35 +370,33 @@ final class SharedBlock implements CrossTemplateRule {
 
     private Finding finding(Planned planned, LintContext context) {
         List<Place> places = planned.places();
-        Place at = places.stream().filter(p -> p.template().kind() != TemplateKind.PARTIAL).findFirst()
-                .orElse(places.get(0));
+        Place at = places.stream().filter(p -> p.kind() != TemplateKind.PARTIAL).findFirst().orElse(places.get(0));
         long templates = places.stream().map(Place::path).distinct().count();
         String message = String.format(Locale.ROOT, "%s hold this %,d-token block (copies that differ only in"
                         + " whitespace count as the same); this copy (%s) costs %s per call (planning"
                         + " estimates); %s",
                 templates == places.size() ? templates + " templates" : places.size() + " places in " + templates
-                        + " templates", planned.block().tokens(), at.lines(), costs(at, context),
+                        + " templates", planned.block().tokens(), at.lines(), at.costs(),
                 planned.outcome());
         List<Related> related = new ArrayList<>();
         for (Place place : places) {
             if (place == at) {
                 continue;
             }
-            String what = (place.template().kind() == TemplateKind.PARTIAL ? "copy in partial " : "copy in ")
-                    + place.path();
-            related.add(context.text(place.template()).related(place.message(), place.start(), what + " ("
-                    + place.lines() + "): " + costs(place, context) + " per call"));
+            String what = (place.kind() == TemplateKind.PARTIAL ? "copy in partial " : "copy in ") + place.path();
+            related.add(new Related(place.path(), place.related().line(), place.related().column(), what + " ("
+                    + place.lines() + "): " + place.costs() + " per call"));
         }
-        TemplateText text = context.text(at.template());
-        return text.finding(DESCRIPTOR, at.message(), at.start(), at.end(), message, Optional.empty(), related);
+        Finding located = at.located();
+        return new Finding(located.path(), located.line(), located.column(), located.endLine(), located.endColumn(),
+                located.rule(), located.severity(), message, located.rewriteClass(), Optional.empty(), related);
     }
 
-    /** What one copy costs per call on each target of its template, tokens and (on priced targets) money. */
-    private static String costs(Place place, LintContext context) {
-        String copy = place.copy();
-        List<TargetConfig> targets = context.targets(place.template());
+    /** What a copy costs per call on each target of its template, tokens and (on priced targets) money. */
+    private static String costs(Template template, String copy, LintContext context) {
+        List<TargetConfig> targets = context.targets(template);
         if (targets.isEmpty()) {
-            Tokenizer tokenizer = context.tokenizer(place.template());
+            Tokenizer tokenizer = context.tokenizer(template);
             return tokenizer.count(copy) + " tokens on " + tokenizer.name();
         }
         List<String> parts = new ArrayList<>();

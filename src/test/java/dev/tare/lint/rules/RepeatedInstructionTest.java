@@ -109,6 +109,20 @@ class RepeatedInstructionTest {
         }
     }
 
+    @Test
+    void editDistanceIsCommonsTextLevenshteinDistance() {
+        // Outside source: commons-text's LevenshteinDistance, which the rule used before.
+        List<String> words = List.of("meter", "Reading", "bill", "twelve", "12", "months", "é", "🙂", "plan", "",
+                "never", "refund", "water", "leak", "call", "back", "the", "a", "account", "number", "read");
+        SplittableRandom random = new SplittableRandom(13);
+        var reference = org.apache.commons.text.similarity.LevenshteinDistance.getDefaultInstance();
+        for (int pair = 0; pair < 2_000; pair++) {
+            String a = sentence(words, random);
+            String b = sentence(words, random);
+            assertEquals(reference.apply(a, b), NearDuplicateInstruction.editDistance(a, b), a + " / " + b);
+        }
+    }
+
     private static String sentence(List<String> words, SplittableRandom random) {
         StringBuilder sentence = new StringBuilder();
         int length = random.nextInt(12);

@@ -1,0 +1,35 @@
+package dev.tare.lint;
+
+import dev.tare.overlap.RepositoryWords;
+import dev.tare.template.Template;
+import java.util.List;
+import java.util.Map;
+import java.util.TreeMap;
+import java.util.function.Function;
+import java.util.function.Supplier;
+
+/**
+ * The templates of a run as the cross-template rules reach them, without every parsed template being
+ * held: their paths, each template parsed again when a rule asks for it, and their words for the
+ * shared-block analysis.
+ *
+ * @param paths  every template's path relative to the root, sorted
+ * @param loader the template at a path of {@code paths}, parsed again (or held, for a small run)
+ * @param words  the words of every template, fresh for each analysis that asks
+ */
+public record RunTemplates(List<String> paths, Function<String, Template> loader, Supplier<RepositoryWords> words) {
+    public RunTemplates {
+        paths = List.copyOf(paths);
+    }
+
+    /** Templates held in memory (a fix's texts, a rule's example, a test). */
+    public static RunTemplates held(List<Template> templates) {
+        Map<String, Template> byPath = new TreeMap<>();
+        templates.forEach(t -> byPath.put(t.path(), t));
+        return new RunTemplates(List.copyOf(byPath.keySet()), byPath::get, () -> {
+            RepositoryWords words = new RepositoryWords();
+            byPath.values().forEach(words::add);
+            return words;
+        });
+    }
+}
