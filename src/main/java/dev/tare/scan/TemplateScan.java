@@ -149,11 +149,8 @@ public final class TemplateScan {
         CompletableFuture<ScanCache> opening = CompletableFuture.supplyAsync(() -> options.cache()
                 ? ScanCache.open(workspace, setup.cacheKey())
                 : ScanCache.disabled(workspace.root()));
-        CompletableFuture<Void> loading = opening.thenAcceptAsync(opened -> {
-            if (opened.isEmpty()) {
-                used.forEach(TemplateScan::load);
-            }
-        });
+        CompletableFuture<Void> loading = opening.thenCompose(opened -> opened.isEmpty()
+                ? TokenizerRegistry.prepare(used) : CompletableFuture.completedFuture(null));
         TemplateLoader loader = new TemplateLoader(workspace);
         FileSelection selection = loader.find();
         ScanCache cache = opening.join();
@@ -207,15 +204,6 @@ public final class TemplateScan {
             }
         }
         return key.toString();
-    }
-
-    /** Has {@code tokenizer} read its vocabulary, if it has not yet. */
-    private static void load(Tokenizer tokenizer) {
-        try {
-            tokenizer.prepare();
-        } catch (RuntimeException e) {
-            // The scan counts with it again and reports what went wrong there.
-        }
     }
 
     /** A tokenizer's name, and the size and time of its file when it names one. */

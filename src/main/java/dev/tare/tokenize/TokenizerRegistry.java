@@ -6,6 +6,7 @@ import java.util.Collection;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
+import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.atomic.AtomicLong;
 import java.util.function.Supplier;
@@ -60,21 +61,42 @@ public final class TokenizerRegistry {
      * thread, so that a command sure to need them all, such as the pre-commit hook, does its other work
      * meanwhile. {@link #get} then returns them, waiting for one still loading; a tokenizer that fails
      * to load here is loaded again there, on the command's own thread, which reports the error.
+     *
+     * @return done when every one has loaded or failed to
      */
-    public void preload(Collection<String> specs, Path baseDir) {
+    public CompletableFuture<Void> preload(Collection<String> specs, Path baseDir) {
         List<String> wanted = List.copyOf(new LinkedHashSet<>(specs));
+        return inBackground(wanted.stream().<Runnable>map(spec -> () -> get(spec, baseDir).prepare()).toList());
+    }
+
+    /**
+     * Has {@code tokenizers} read what they read lazily ({@link Tokenizer#prepare}) one after another on a
+     * background thread, as {@link #preload} does for tokenizers already made.
+     *
+     * @return done when every one has loaded or failed to
+     */
+    public static CompletableFuture<Void> prepare(Collection<Tokenizer> tokenizers) {
+        List<Tokenizer> wanted = List.copyOf(new LinkedHashSet<>(tokenizers));
+        return inBackground(wanted.stream().<Runnable>map(tokenizer -> tokenizer::prepare).toList());
+    }
+
+    /** Runs {@code loads} in turn on a daemon thread whose loading time {@link #loadMillis} leaves out. */
+    private static CompletableFuture<Void> inBackground(List<Runnable> loads) {
+        CompletableFuture<Void> done = new CompletableFuture<>();
         Thread loader = new Thread(() -> {
             IN_BACKGROUND.set(true);
-            for (String spec : wanted) {
+            for (Runnable load : loads) {
                 try {
-                    get(spec, baseDir).prepare();
+                    load.run();
                 } catch (RuntimeException e) {
-                    // Left for get() on the command's thread to report.
+                    // Left for the tokenizer's first use, on the command's own thread, to report.
                 }
             }
+            done.complete(null);
         }, "tare-tokenizer-preload");
         loader.setDaemon(true);
         loader.start();
+        return done;
     }
 
     /**

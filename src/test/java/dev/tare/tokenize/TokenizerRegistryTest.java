@@ -30,9 +30,22 @@ class TokenizerRegistryTest {
     }
 
     @Test
+    void loadingInTheBackgroundIsNotACommandsLoadTimeButWaitingForItIs() {
+        TokenizerRegistry registry = new TokenizerRegistry();
+        Tokenizer r50k = registry.get("r50k_base", folder);
+        double before = TokenizerRegistry.loadMillis();
+        TokenizerRegistry.prepare(List.of(r50k)).join();
+        assertEquals(before, TokenizerRegistry.loadMillis(), "the vocabulary was read on the background thread");
+        Tokenizer p50k = registry.get("p50k_base", folder);
+        p50k.prepare();
+        assertTrue(TokenizerRegistry.loadMillis() > before, "read on this thread, it counts");
+    }
+
+    @Test
     void aTokenizerThatFailsInTheBackgroundFailsAgainWhereItIsAskedFor() {
         TokenizerRegistry registry = new TokenizerRegistry();
-        registry.preload(List.of("models/missing/tokenizer.json"), folder);
+        registry.preload(List.of("models/missing/tokenizer.json", "cl100k_base"), folder).join();
+        assertTrue(registry.get("cl100k_base", folder).count("still loaded after the failure") > 0);
         TareException error = assertThrows(TareException.class, () -> registry.get("models/missing/tokenizer.json", folder));
         assertTrue(error.getMessage().contains("tokenizer.json"), error.getMessage());
     }
