@@ -10,6 +10,7 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 
 /**
  * Runs the {@code git} command line in one folder and hands back what it wrote. Git's own environment
@@ -39,7 +40,9 @@ final class GitCommand {
         command.addAll(List.of(args));
         Process process;
         try {
-            process = new ProcessBuilder(command).directory(folder.toFile()).start();
+            ProcessBuilder builder = new ProcessBuilder(command).directory(folder.toFile());
+            absolutePaths(builder.environment(), Path.of("").toAbsolutePath());
+            process = builder.start();
         } catch (IOException e) {
             throw new TareException("the git command cannot be started (" + e.getMessage() + "); install git or put it on PATH", e);
         }
@@ -66,6 +69,24 @@ final class GitCommand {
             Thread.currentThread().interrupt();
             process.destroy();
             throw new TareException("interrupted while git ran", e);
+        }
+    }
+
+    /** The variables git exports to a hook that name paths, which it may give relative to the hook's folder. */
+    private static final List<String> PATH_VARIABLES = List.of("GIT_INDEX_FILE", "GIT_DIR", "GIT_WORK_TREE",
+            "GIT_COMMON_DIR", "GIT_OBJECT_DIRECTORY");
+
+    /**
+     * Makes the paths git named in {@code environment} absolute against {@code here}, the folder Tare was
+     * started in: git runs a pre-commit hook with {@code GIT_INDEX_FILE=.git/index}, meant for the
+     * hook's own folder, which would name another file for a command started in a subfolder.
+     */
+    static void absolutePaths(Map<String, String> environment, Path here) {
+        for (String name : PATH_VARIABLES) {
+            String value = environment.get(name);
+            if (value != null && !value.isEmpty() && !Path.of(value).isAbsolute()) {
+                environment.put(name, here.resolve(value).normalize().toString());
+            }
         }
     }
 

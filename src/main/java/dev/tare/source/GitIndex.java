@@ -88,11 +88,16 @@ public final class GitIndex {
             folder = folder.getParent();
         }
         try {
-            String top = new String(new GitCommand(folder).run(new byte[0], "rev-parse", "--show-toplevel"), StandardCharsets.UTF_8).strip();
-            if (top.isEmpty()) {
-                throw new GitCommand.Failed("no work tree");
+            // The top as a way up from the folder, not git's own absolute path, which resolves links:
+            // the paths Tare compares with it are spelt the way the user reached the repository.
+            String up = new String(new GitCommand(folder).run(new byte[0], "rev-parse", "--is-inside-work-tree", "--show-cdup"),
+                    StandardCharsets.UTF_8);
+            List<String> lines = up.lines().toList();
+            if (lines.isEmpty() || !lines.get(0).equals("true")) {
+                throw new GitCommand.Failed("not in a work tree");
             }
-            return new GitCommand(Path.of(top).toAbsolutePath().normalize());
+            String cdup = lines.size() > 1 ? lines.get(1).strip() : "";
+            return new GitCommand(folder.resolve(cdup).normalize());
         } catch (GitCommand.Failed e) {
             throw new TareException(inside + " is not inside a git work tree (" + e.getMessage() + "); " + consequence);
         }

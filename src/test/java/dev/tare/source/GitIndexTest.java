@@ -104,6 +104,23 @@ class GitIndexTest {
     }
 
     @Test
+    void aRepositoryReachedThroughALinkKeepsThePathItWasReachedBy(@TempDir Path base) throws Exception {
+        Path real = Files.createDirectories(base.resolve("real"));
+        Path link = Files.createSymbolicLink(base.resolve("link"), real);
+        Git.run(real, "init", "-q");
+        Files.createDirectories(real.resolve("prompts"));
+        Files.writeString(real.resolve("prompts/a.md"), "staged");
+        Git.run(real, "add", ".");
+        GitIndex index = GitIndex.read(link.resolve("prompts"));
+        assertEquals(link, index.workTree(), "the way the user came, not git's resolved path");
+        assertEquals(List.of("prompts/a.md"), index.files().stream().map(StagedFile::path).toList());
+
+        Files.writeString(real.resolve("prompts/a.md"), "changed");
+        GitIndex.stage(link.resolve("prompts"), List.of("a.md"));
+        assertEquals("changed", new String(GitIndex.read(link).files().get(0).staged(), StandardCharsets.UTF_8));
+    }
+
+    @Test
     void outsideGitIsAClearError(@TempDir Path plain) {
         TareException e = assertThrows(TareException.class, () -> GitIndex.read(plain));
         assertTrue(e.getMessage().contains("not inside a git work tree"), e.getMessage());
