@@ -25,11 +25,6 @@ final class RequiredLiteral {
         this.pattern = pattern;
     }
 
-    /** The run every match of {@code pattern} contains; empty when none is known. */
-    static String of(String pattern) {
-        return filter(pattern).run();
-    }
-
     /** What every match of {@code pattern} contains, as far as this reader can tell. */
     static Filter filter(String pattern) {
         try {

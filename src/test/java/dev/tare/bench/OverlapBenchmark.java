@@ -12,12 +12,10 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.List;
 import java.util.Optional;
 import java.util.SplittableRandom;
 import java.util.concurrent.TimeUnit;
-import java.util.stream.Stream;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
 import org.openjdk.jmh.annotations.Fork;
@@ -95,11 +93,7 @@ public class OverlapBenchmark {
 
     @TearDown(Level.Trial)
     public void removeRepository() throws IOException {
-        try (Stream<Path> files = Files.walk(folder)) {
-            for (Path path : files.sorted(Comparator.reverseOrder()).toList()) {
-                Files.delete(path);
-            }
-        }
+        BenchFolders.delete(folder);
     }
 
     @Benchmark

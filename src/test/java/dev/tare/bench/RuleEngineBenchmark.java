@@ -9,11 +9,9 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.Comparator;
 import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.TimeUnit;
-import java.util.stream.Stream;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
 import org.openjdk.jmh.annotations.Fork;
@@ -103,11 +101,7 @@ public class RuleEngineBenchmark {
 
     @TearDown(Level.Trial)
     public void removeRepository() throws IOException {
-        try (Stream<Path> files = Files.walk(folder)) {
-            for (Path path : files.sorted(Comparator.reverseOrder()).toList()) {
-                Files.delete(path);
-            }
-        }
+        BenchFolders.delete(folder);
     }
 
     @Benchmark

@@ -37,7 +37,7 @@ class RequiredLiteralTest {
             "^start here$ => start here",
     })
     void readsTheRunEveryMatchContains(String pattern, String required) {
-        assertEquals(required, RequiredLiteral.of(pattern));
+        assertEquals(required, RequiredLiteral.filter(pattern).run());
     }
 
     @ParameterizedTest(name = "{0}")
