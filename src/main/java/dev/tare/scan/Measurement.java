@@ -12,7 +12,7 @@ import java.util.Map;
 
 /**
  * What counting one template found, before footprints are estimated from it: the part of a scan
- * that reads and counts, and so the part {@link ScanCache} keeps. Fields as in {@link ScannedTemplate}.
+ * that reads and counts, and so the part the scan's {@link TemplateCache} keeps. Fields as in {@link ScannedTemplate}.
  *
  * @param callSizes  per target the template runs on, the size of one call (tokens, framing, output)
  * @param leadingIds per target with a prefix cache, the template's leading static token ids, as

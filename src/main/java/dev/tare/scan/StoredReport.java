@@ -36,16 +36,16 @@ import java.util.zip.CRC32C;
  * before the run that stored it; a more recent folder (the root, whose {@code .tare} the first
  * scan creates) is listed again and its names compared with the walk's. A file is unchanged when its
  * size and modification time are, and the time is that old; a file too recent to vouch for makes
- * the run scan (where {@link ScanCache} hashes its text). A scan that skipped a file is not stored,
+ * the run scan (where {@link TemplateCache} hashes its text). A scan that skipped a file is not stored,
  * since what made it fail may lie anywhere.
  *
  * <p>Written whole to a temporary file and moved into place with a checksum at its end, as
- * {@link ScanCache} is; a file that cannot be read or written only means a scan.
+ * {@link TemplateCache} is; a file that cannot be read or written only means a scan.
  */
 final class StoredReport {
     private static final int MAGIC = 0x74617265; // "tare"
     private static final int FORMAT = 1;
-    private static final long RACY_NANOS = ScanCache.RACY_NANOS;
+    private static final long RACY_NANOS = TemplateCache.RACY_NANOS;
     /** The stamp of a path that did not exist, and of a folder, which counts by its presence only. */
     private static final long ABSENT = -1;
     private static final long FOLDER = -2;
@@ -67,7 +67,7 @@ final class StoredReport {
      */
     static StoredReport of(Path root, String key) {
         String full = Tare.buildIdentity() + "\n" + key;
-        return new StoredReport(CacheFolder.of(root).resolve("report-" + HexFormat.of().toHexDigits(ScanCache.hash(full)) + ".bin"),
+        return new StoredReport(CacheFolder.of(root).resolve("report-" + HexFormat.of().toHexDigits(TemplateCache.hash(full)) + ".bin"),
                 full.getBytes(StandardCharsets.UTF_8));
     }
 

@@ -17,9 +17,7 @@ import dev.tare.template.Template;
 import dev.tare.template.TemplateKind;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
-import java.io.File;
 import java.io.IOException;
-import java.io.UncheckedIOException;
 import java.nio.ByteBuffer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -35,7 +33,6 @@ import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.function.Function;
 import java.util.stream.Collectors;
-import java.util.stream.Stream;
 
 /**
  * Measures every template of a workspace: finds the files, reads and parses each, renders it with
@@ -114,7 +111,7 @@ public final class TemplateScan {
 
     /** A scan's result, with the selection and dependencies it came from and when it started. */
     private record Scanned(ScanResult result, FileSelection selection, Set<String> dependencies, long startedNanos,
-                           ScanCache cache) {
+                           TemplateCache<Measurement> cache) {
     }
 
     private Setup setUp(ScanOptions options) {
@@ -122,7 +119,7 @@ public final class TemplateScan {
         List<TargetConfig> targets = config.selectTargets(options.targets());
         String primaryName = options.tokenizer()
                 .orElse(targets.isEmpty() ? TokenizerRegistry.DEFAULT : targets.get(0).tokenizer());
-        String key = options.cache() ? cacheKey(config, targets, primaryName) : "";
+        String key = options.cache() ? cacheKey(targets, primaryName) : "";
         return new Setup(targets, primaryName, key);
     }
 
@@ -139,21 +136,21 @@ public final class TemplateScan {
             try {
                 CacheFolder.prepare(workspace.root());
             } catch (IOException | RuntimeException e) {
-                // No cache folder means no cache; ScanCache finds that out for itself.
+                // No cache folder means no cache; TemplateCache finds that out for itself.
             }
         }
         // The previous measurements are read while the folders are walked and, when there are
         // none (so every template will be counted), the vocabularies after them, one at a time.
         Set<Tokenizer> used = new LinkedHashSet<>(byTarget.values());
         used.add(primary);
-        CompletableFuture<ScanCache> opening = CompletableFuture.supplyAsync(() -> options.cache()
-                ? ScanCache.open(workspace, setup.cacheKey())
-                : ScanCache.disabled(workspace.root()));
+        CompletableFuture<TemplateCache<Measurement>> opening = CompletableFuture.supplyAsync(() -> options.cache()
+                ? TemplateCache.open(workspace, "scan", setup.cacheKey(), new MeasurementCodec())
+                : TemplateCache.disabled(workspace.root()));
         CompletableFuture<Void> loading = opening.thenCompose(opened -> opened.isEmpty()
                 ? TokenizerRegistry.prepare(used) : CompletableFuture.completedFuture(null));
         TemplateLoader loader = new TemplateLoader(workspace);
         FileSelection selection = loader.find();
-        ScanCache cache = opening.join();
+        TemplateCache<Measurement> cache = opening.join();
         Measurer measurer = new Measurer(config, targets, primary, byTarget, loader, cache);
 
         progress.started(selection.paths().size());
@@ -184,36 +181,13 @@ public final class TemplateScan {
         return new Scanned(result, selection, dependencies, started, cache);
     }
 
-    /**
-     * Everything besides the template files that decides a scan's results: the configuration as
-     * loaded (model shapes read from files included), the options, the tokenizer files' sizes and
-     * times, and the names of the partials (a new partial can change what an include resolves to).
-     */
-    private String cacheKey(TareConfig config, List<TargetConfig> targets, String primaryName) {
-        StringBuilder key = new StringBuilder(ValueText.of(config)).append('\n');
-        tokenizerKey(key, primaryName);
+    /** Everything besides the template files that decides a scan's results (see {@link CacheKey}). */
+    private String cacheKey(List<TargetConfig> targets, String primaryName) {
+        CacheKey key = CacheKey.of(workspace).tokenizer(primaryName);
         for (TargetConfig target : targets) {
-            tokenizerKey(key.append(target.name()).append(' '), target.tokenizer());
-        }
-        Path partials = workspace.root().resolve(config.templates().partials());
-        if (!config.templates().partials().isEmpty() && Files.isDirectory(partials)) {
-            try (Stream<Path> files = Files.walk(partials)) {
-                files.map(p -> partials.relativize(p).toString()).sorted().forEach(name -> key.append(name).append('\n'));
-            } catch (IOException | UncheckedIOException e) {
-                key.append("partials unreadable ").append(System.nanoTime());
-            }
+            key.with("target", target.name()).tokenizer(target.tokenizer());
         }
         return key.toString();
-    }
-
-    /** A tokenizer's name, and the size and time of its file when it names one. */
-    private void tokenizerKey(StringBuilder key, String tokenizer) {
-        key.append(tokenizer);
-        if (TokenizerRegistry.namesFile(tokenizer)) {
-            File file = workspace.root().resolve(tokenizer).toFile();
-            key.append(' ').append(file.length()).append(' ').append(file.lastModified());
-        }
-        key.append('\n');
     }
 
     /** Re-estimates the footprints on {@code target} with the prefix each template shares with others. */
@@ -308,11 +282,11 @@ public final class TemplateScan {
 
     /** The per-file work, shared read-only by the scanning threads. */
     private record Measurer(TareConfig config, List<TargetConfig> targets, Map<String, TargetConfig> targetsByName,
-                            Tokenizer primary, Map<String, Tokenizer> byTarget, TemplateLoader loader, ScanCache cache,
+                            Tokenizer primary, Map<String, Tokenizer> byTarget, TemplateLoader loader, TemplateCache<Measurement> cache,
                             Map<String, Template> toolFiles, Map<String, Integer> toolTokens) {
 
         Measurer(TareConfig config, List<TargetConfig> targets, Tokenizer primary, Map<String, Tokenizer> byTarget,
-                 TemplateLoader loader, ScanCache cache) {
+                 TemplateLoader loader, TemplateCache<Measurement> cache) {
             this(config, targets, targets.stream().collect(Collectors.toMap(TargetConfig::name, t -> t, (a, b) -> a,
                     LinkedHashMap::new)), primary, byTarget, loader, cache, new ConcurrentHashMap<>(),
                     new ConcurrentHashMap<>());

@@ -1,9 +1,6 @@
 package dev.tare.scan;
 
 import dev.tare.Tare;
-import dev.tare.footprint.CallSize;
-import dev.tare.overlap.CachePrefixes;
-import dev.tare.template.TemplateKind;
 import java.io.BufferedInputStream;
 import java.io.ByteArrayOutputStream;
 import java.io.DataInputStream;
@@ -18,7 +15,6 @@ import java.nio.file.attribute.BasicFileAttributes;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.HexFormat;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -29,69 +25,89 @@ import java.util.concurrent.TimeUnit;
 import java.util.zip.CRC32C;
 
 /**
- * What earlier scans measured, so that a template whose file and includes have not changed is not
- * read, parsed or counted again. One file under {@code .tare/cache} per build of Tare, configuration
- * and scan options (its name is a hash of all of them), holding per template the file's size,
- * modification time and a hash of its text, the same for every partial and tool file it depends on,
- * and the counts it gave.
+ * What earlier runs found per template, so that a template whose file and includes have not changed
+ * is not read, parsed, counted or linted again. One file under {@code .tare/cache} per kind of
+ * result ({@code scan}, {@code check}), build of Tare and key (configuration and options; the file's
+ * name is a hash of them), holding per template the file's size, modification time and a hash of its
+ * text, the same for every partial and tool file it depends on, and the result, written by a
+ * {@link Codec}.
  *
  * <p>An entry is used when the file's size and modification time are unchanged and the time is
- * older than the scan that wrote the entry (so a file edited twice within one clock tick is still
- * hashed), or when the text hashes the same. Files that were skipped are measured again each time,
+ * older than the run that wrote the entry (so a file edited twice within one clock tick is still
+ * hashed), or when the text hashes the same. Files that were skipped are read again each time,
  * since what made them fail (a partial not yet written) may be elsewhere.
  *
  * <p>The file is written whole to a temporary file and moved into place, so concurrent runs each
  * leave a complete cache and the last one wins; a cache that cannot be read (another version,
  * truncated, corrupt) is ignored, and one that cannot be written is not written. Neither ever fails
- * a scan.
+ * a run.
+ *
+ * @param <R> what one template gave
  */
-final class ScanCache {
-    private static final String MAGIC = "tare-scan-cache";
-    private static final int FORMAT = 2;
-    /** How long before a scan a file's modification time must lie for its size and time to vouch for it. */
+public final class TemplateCache<R> {
+    /** How long before a run a file's modification time must lie for its size and time to vouch for it. */
     static final long RACY_NANOS = 2_000_000_000L;
+    private static final int FORMAT = 3;
+
+    /**
+     * Writes and reads one template's result. A format change needs no version of its own: the
+     * build's identity is part of every cache file's name.
+     */
+    public interface Codec<R> {
+        void write(DataOutputStream out, R result) throws IOException;
+
+        /** The result written for the template at {@code path}. */
+        R read(DataInputStream in, String path) throws IOException;
+    }
 
     private final Optional<Path> file;
-    private final Map<String, Entry> previous;
-    private final Map<String, Entry> current = new ConcurrentHashMap<>();
+    private final String magic;
+    private final Codec<R> codec;
+    private final Map<String, Entry<R>> previous;
+    private final Map<String, Entry<R>> current = new ConcurrentHashMap<>();
     private final Map<String, Optional<FileState>> states = new ConcurrentHashMap<>();
     private final Path root;
     private final long startedNanos;
     private final boolean wholeRoot;
     private volatile boolean changed;
 
-    private ScanCache(Path root, Optional<Path> file, Map<String, Entry> previous, long startedNanos, boolean wholeRoot) {
+    private TemplateCache(Path root, Optional<Path> file, String magic, Codec<R> codec, long startedNanos,
+                          boolean wholeRoot) {
         this.root = root;
         this.file = file;
-        this.previous = previous;
+        this.magic = magic;
+        this.codec = codec;
         this.startedNanos = startedNanos;
         this.wholeRoot = wholeRoot;
+        this.previous = file.map(this::read).orElse(Map.of());
     }
 
-    /** A cache that remembers nothing: {@code --no-cache}, and library use that does not ask for one. */
-    static ScanCache disabled(Path root) {
-        return new ScanCache(root, Optional.empty(), Map.of(), System.currentTimeMillis() * 1_000_000L, true);
+    /** A cache that remembers nothing: {@code --no-cache}, staged content, and library use that does not ask for one. */
+    public static <R> TemplateCache<R> disabled(Path root) {
+        return new TemplateCache<>(root, Optional.empty(), "", null, System.currentTimeMillis() * 1_000_000L, true);
     }
 
     /**
-     * Opens the cache of {@code workspace} for scans described by {@code key} (everything besides the
-     * files that decides the results: configuration, options, tokenizer files).
+     * Opens the cache of {@code workspace} for results of {@code kind} described by {@code key}
+     * (everything besides the files that decides the results: configuration, options, tokenizer
+     * files; see {@link CacheKey}).
      */
-    static ScanCache open(Workspace workspace, String key) {
+    public static <R> TemplateCache<R> open(Workspace workspace, String kind, String key, Codec<R> codec) {
         Path root = workspace.root();
-        Path file = CacheFolder.of(root).resolve("scan-" + digest(Tare.buildIdentity() + "\n" + key) + ".bin");
+        Path file = CacheFolder.of(root).resolve(kind + "-" + digest(Tare.buildIdentity() + "\n" + key) + ".bin");
         long started = System.currentTimeMillis() * 1_000_000L;
-        return new ScanCache(root, Optional.of(file), read(file), started, workspace.starts().isEmpty());
+        return new TemplateCache<>(root, Optional.of(file), "tare-" + kind + "-cache", codec, started,
+                workspace.starts().isEmpty());
     }
 
-    /** Whether nothing was remembered: every template will be measured afresh. */
-    boolean isEmpty() {
+    /** Whether nothing was remembered: every template will be read afresh. */
+    public boolean isEmpty() {
         return previous.isEmpty();
     }
 
     /** The measurement remembered for {@code path}, when the file and everything it depends on are unchanged. */
-    Optional<Measurement> find(String path) {
-        Entry entry = previous.get(path);
+    public Optional<R> find(String path) {
+        Entry<R> entry = previous.get(path);
         if (entry == null) {
             return Optional.empty();
         }
@@ -107,7 +123,7 @@ final class ScanCache {
             }
             dependencies.add(checked.get());
         }
-        Entry kept = new Entry(self.get(), dependencies, entry.result());
+        Entry<R> kept = new Entry<>(self.get(), dependencies, entry.result());
         if (!kept.stamps().equals(entry.stamps())) {
             changed = true;
         }
@@ -116,13 +132,16 @@ final class ScanCache {
     }
 
     /** The paths of the partials and tool files behind the measurement {@link #find} last gave for {@code path}. */
-    List<String> dependencies(String path) {
-        Entry entry = current.get(path);
+    public List<String> dependencies(String path) {
+        Entry<R> entry = current.get(path);
         return entry == null ? List.of() : entry.dependencies().stream().map(Stamp::path).toList();
     }
 
-    /** Remembers a template's measurement, with the text it was read from and its dependencies' paths. */
-    void remember(String path, String text, List<String> dependencies, Measurement result) {
+    /**
+     * Remembers a template's result, with the text it was read from and its dependencies' paths
+     * (root-relative); not when a dependency cannot be read, since then nothing vouches for it.
+     */
+    public void remember(String path, String text, List<String> dependencies, R result) {
         if (file.isEmpty()) {
             return;
         }
@@ -138,16 +157,40 @@ final class ScanCache {
             }
             stamps.add(stamp.get());
         }
-        current.put(path, new Entry(new Stamp(path, self.get()), stamps, result));
+        current.put(path, new Entry<>(new Stamp(path, self.get()), stamps, result));
         changed = true;
     }
 
+    /**
+     * A hash of the files behind the results remembered or found for {@code paths} in this run: their
+     * paths and the hashes of their texts and dependencies. Two runs whose fingerprints agree read
+     * the same texts. Empty when one of the paths has no result here (it was skipped, or the cache
+     * is off).
+     */
+    public Optional<Long> fingerprint(java.util.Collection<String> paths) {
+        if (file.isEmpty()) {
+            return Optional.empty();
+        }
+        long h = 0xcbf29ce484222325L;
+        for (String path : new java.util.TreeSet<>(paths)) {
+            Entry<R> entry = current.get(path);
+            if (entry == null) {
+                return Optional.empty();
+            }
+            for (Stamp stamp : entry.stamps()) {
+                h = (h ^ hash(stamp.path())) * 0x100000001b3L;
+                h = (h ^ stamp.state().hash()) * 0x100000001b3L;
+            }
+        }
+        return Optional.of(h);
+    }
+
     /** Writes the cache when it changed; says nothing and keeps the old one when that fails. */
-    void save() {
+    public void save() {
         if (file.isEmpty()) {
             return;
         }
-        Map<String, Entry> kept = new LinkedHashMap<>();
+        Map<String, Entry<R>> kept = new LinkedHashMap<>();
         if (!wholeRoot) {
             // A scan of part of the repository keeps what it did not look at for the next full scan.
             kept.putAll(previous);
@@ -160,7 +203,8 @@ final class ScanCache {
         }
         try {
             CacheFolder.replace(file.get(), encode(kept));
-            CacheFolder.pruneOthers(file.get(), "scan-");
+            String name = file.get().getFileName().toString();
+            CacheFolder.pruneOthers(file.get(), name.substring(0, name.lastIndexOf('-') + 1));
         } catch (IOException | RuntimeException e) {
             // A cache is an optimisation: a read-only checkout or a full disk must not fail the scan.
         }
@@ -253,7 +297,7 @@ final class ScanCache {
     private record Stamp(String path, FileState state) {
     }
 
-    private record Entry(Stamp self, List<Stamp> dependencies, Measurement result) {
+    private record Entry<R>(Stamp self, List<Stamp> dependencies, R result) {
         List<Stamp> stamps() {
             List<Stamp> all = new ArrayList<>(dependencies);
             all.add(self);
@@ -261,7 +305,7 @@ final class ScanCache {
         }
     }
 
-    private static Map<String, Entry> read(Path file) {
+    private Map<String, Entry<R>> read(Path file) {
         if (!Files.isRegularFile(file)) {
             return Map.of();
         }
@@ -282,12 +326,12 @@ final class ScanCache {
         }
     }
 
-    private static Map<String, Entry> decode(DataInputStream in) throws IOException {
-        if (!MAGIC.equals(in.readUTF()) || in.readInt() != FORMAT) {
+    private Map<String, Entry<R>> decode(DataInputStream in) throws IOException {
+        if (!magic.equals(in.readUTF()) || in.readInt() != FORMAT) {
             return Map.of();
         }
         int count = in.readInt();
-        Map<String, Entry> entries = new LinkedHashMap<>();
+        Map<String, Entry<R>> entries = new LinkedHashMap<>();
         for (int i = 0; i < count; i++) {
             Stamp self = readStamp(in);
             int dependencyCount = in.readInt();
@@ -295,75 +339,24 @@ final class ScanCache {
             for (int d = 0; d < dependencyCount; d++) {
                 dependencies.add(readStamp(in));
             }
-            TemplateKind kind = TemplateKind.valueOf(in.readUTF());
-            int characters = in.readInt();
-            int staticTokens = in.readInt();
-            int estimatedTokens = in.readInt();
-            List<String> variables = readStrings(in);
-            List<String> unsized = readStrings(in);
-            List<String> includes = readStrings(in);
-            Map<String, CallSize> sizes = new LinkedHashMap<>();
-            Map<String, Integer> byTarget = new LinkedHashMap<>();
-            int targetCount = in.readInt();
-            for (int t = 0; t < targetCount; t++) {
-                String name = in.readUTF();
-                sizes.put(name, new CallSize(in.readInt(), in.readInt(), in.readInt(), in.readInt()));
-                byTarget.put(name, in.readInt());
-            }
-            Map<String, CachePrefixes.Leading> leading = new LinkedHashMap<>();
-            int leadingCount = in.readInt();
-            for (int t = 0; t < leadingCount; t++) {
-                String name = in.readUTF();
-                int[] now = readInts(in);
-                leading.put(name, new CachePrefixes.Leading(now, in.readBoolean() ? now : readInts(in)));
-            }
-            entries.put(self.path(), new Entry(self, dependencies, new Measurement(self.path(), kind, characters,
-                    staticTokens, estimatedTokens, variables, unsized, includes, sizes, byTarget, leading)));
+            entries.put(self.path(), new Entry<>(self, dependencies, codec.read(in, self.path())));
         }
         return entries;
     }
 
-    private static byte[] encode(Map<String, Entry> entries) throws IOException {
+    private byte[] encode(Map<String, Entry<R>> entries) throws IOException {
         ByteArrayOutputStream bytes = new ByteArrayOutputStream(1 << 16);
         DataOutputStream out = new DataOutputStream(bytes);
-        out.writeUTF(MAGIC);
+        out.writeUTF(magic);
         out.writeInt(FORMAT);
         out.writeInt(entries.size());
-        for (Entry entry : entries.values()) {
+        for (Entry<R> entry : entries.values()) {
             writeStamp(out, entry.self());
             out.writeInt(entry.dependencies().size());
             for (Stamp dependency : entry.dependencies()) {
                 writeStamp(out, dependency);
             }
-            Measurement r = entry.result();
-            out.writeUTF(r.kind().name());
-            out.writeInt(r.characters());
-            out.writeInt(r.staticTokens());
-            out.writeInt(r.estimatedTokens());
-            writeStrings(out, r.variables());
-            writeStrings(out, r.unsizedVariables());
-            writeStrings(out, r.includes());
-            out.writeInt(r.callSizes().size());
-            for (Map.Entry<String, CallSize> size : r.callSizes().entrySet()) {
-                CallSize s = size.getValue();
-                out.writeUTF(size.getKey());
-                out.writeInt(s.inputTokens());
-                out.writeInt(s.framingTokens());
-                out.writeInt(s.outputTokens());
-                out.writeInt(s.sharedPrefixTokens());
-                out.writeInt(r.estimatedByTarget().getOrDefault(size.getKey(), 0));
-            }
-            out.writeInt(r.leadingIds().size());
-            for (Map.Entry<String, CachePrefixes.Leading> leading : r.leadingIds().entrySet()) {
-                CachePrefixes.Leading ids = leading.getValue();
-                out.writeUTF(leading.getKey());
-                writeInts(out, ids.now());
-                boolean same = Arrays.equals(ids.now(), ids.reordered());
-                out.writeBoolean(same);
-                if (!same) {
-                    writeInts(out, ids.reordered());
-                }
-            }
+            codec.write(out, entry.result());
         }
         out.flush();
         CRC32C crc = new CRC32C();
@@ -383,36 +376,5 @@ final class ScanCache {
 
     private static Stamp readStamp(DataInputStream in) throws IOException {
         return new Stamp(in.readUTF(), new FileState(in.readLong(), in.readLong(), in.readLong(), in.readLong()));
-    }
-
-    private static void writeInts(DataOutputStream out, int[] ints) throws IOException {
-        out.writeInt(ints.length);
-        for (int i : ints) {
-            out.writeInt(i);
-        }
-    }
-
-    private static int[] readInts(DataInputStream in) throws IOException {
-        int[] ints = new int[in.readInt()];
-        for (int i = 0; i < ints.length; i++) {
-            ints[i] = in.readInt();
-        }
-        return ints;
-    }
-
-    private static void writeStrings(DataOutputStream out, List<String> strings) throws IOException {
-        out.writeInt(strings.size());
-        for (String s : strings) {
-            out.writeUTF(s);
-        }
-    }
-
-    private static List<String> readStrings(DataInputStream in) throws IOException {
-        int n = in.readInt();
-        List<String> strings = new ArrayList<>(n);
-        for (int i = 0; i < n; i++) {
-            strings.add(in.readUTF());
-        }
-        return strings;
     }
 }
