@@ -51,10 +51,17 @@ final class CheckCommand implements Callable<Integer> {
     @Option(names = "--staged", description = "Check the staged content of staged templates (the git index), not the working tree.")
     private boolean staged;
 
+    @Option(names = "--no-cache", description = {"Lint every template afresh, and neither read nor write the"
+            + " cache of findings in the repository's .tare/cache folder.",
+            "By default a template whose file, partials and tool files are unchanged since the last check with the"
+            + " same configuration, rule packs, baseline and build of Tare is not read or linted again, and when no"
+            + " template changed the cross-template rules' findings are reused too. --staged never uses the cache."})
+    private boolean noCache;
+
     @Override
     public Integer call() {
         Workspace workspace = Workspace.open(paths, common.configFile());
-        CheckOptions options = new CheckOptions(Severity.parse(failOn.name(), "--fail-on"));
+        CheckOptions options = new CheckOptions(Severity.parse(failOn.name(), "--fail-on"), !noCache);
         Check check = new Check(workspace, new TokenizerRegistry());
         CheckResult result = staged ? check.runStaged(options) : check.run(options);
         // Written as it is made: a large repository's report is hundreds of megabytes.

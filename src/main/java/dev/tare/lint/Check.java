@@ -1,8 +1,12 @@
 package dev.tare.lint;
 
 import dev.tare.TareException;
+import dev.tare.config.TareConfig;
+import dev.tare.config.TargetConfig;
 import dev.tare.overlap.RepositoryWords;
+import dev.tare.scan.CacheKey;
 import dev.tare.scan.StagedTemplates;
+import dev.tare.scan.TemplateCache;
 import dev.tare.scan.TemplateLoader;
 import dev.tare.scan.Workspace;
 import dev.tare.source.FileSelection;
@@ -17,6 +21,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.concurrent.CompletableFuture;
 import java.util.function.Function;
 
 /**
@@ -47,10 +52,23 @@ public final class Check {
         return catalog;
     }
 
-    /** Checks the files of the workspace as they are on disk. */
+    /**
+     * Checks the files of the workspace as they are on disk. With {@link CheckOptions#cache()} a
+     * file whose text, partials and tool files are unchanged since an earlier check with the same
+     * build, configuration, rule packs, baseline and tokenizer files is not read or linted again,
+     * and when no template changed at all neither are the cross-template rules run again (see
+     * {@link TemplateCache}).
+     */
     public CheckResult run(CheckOptions options) {
         TemplateLoader loader = new TemplateLoader(workspace);
-        return run(options, loader, loader.find(), loader::read);
+        CompletableFuture<TemplateCache<CheckedFile>> opening = CompletableFuture.supplyAsync(() -> options.cache()
+                ? TemplateCache.open(workspace, "check", cacheKey(), new CheckedFileCodec())
+                : TemplateCache.disabled(workspace.root()));
+        FileSelection selection = loader.find();
+        TemplateCache<CheckedFile> cache = opening.join();
+        CheckResult result = run(options, loader, selection, loader::read, cache);
+        cache.save();
+        return result;
     }
 
     /** Checks the templates staged for the next commit, as the git index holds them. */
@@ -66,6 +84,28 @@ public final class Check {
      */
     public CheckResult run(CheckOptions options, TemplateLoader loader, FileSelection selection,
                            Function<String, SourceText> reader) {
+        return run(options, loader, selection, reader, TemplateCache.disabled(workspace.root()));
+    }
+
+    /**
+     * Everything besides the template files that decides a check's findings: the configuration and
+     * partials ({@link CacheKey}), the tokenizers of the targets, the rule packs' files and the
+     * baseline's text.
+     */
+    private String cacheKey() {
+        TareConfig config = workspace.config();
+        CacheKey key = CacheKey.of(workspace).tokenizer(TokenizerRegistry.DEFAULT);
+        for (TargetConfig target : config.targets()) {
+            key.tokenizer(target.tokenizer());
+        }
+        for (String pack : config.rules().packs()) {
+            key.contents(config.root().resolve(pack).normalize());
+        }
+        return key.contents(config.root().resolve(config.baseline().file())).toString();
+    }
+
+    private CheckResult run(CheckOptions options, TemplateLoader loader, FileSelection selection,
+                            Function<String, SourceText> reader, TemplateCache<CheckedFile> cache) {
         RuleCatalog catalog = catalog();
         List<Rule> rules = catalog.enabled();
         boolean across = rules.stream().anyMatch(rule -> rule instanceof CrossTemplateRule);
@@ -81,26 +121,43 @@ public final class Check {
         // The templates are linted on every core, each let go once linted; what each gave is taken in
         // path order, so the findings come in the order a single thread would give them.
         List<Linted> linted = selection.paths().parallelStream()
-                .map(path -> lint(path, reader, loader, rules, each, across ? words : null, findings)).toList();
+                .map(path -> cache.find(path).map(kept -> new Linted(path, Optional.of(findings.configure(kept)),
+                                Optional.empty(), true))
+                        .orElseGet(() -> lint(path, reader, loader, rules, each, across ? words : null, findings, cache)))
+                .toList();
+        boolean everyWordGathered = true;
         for (Linted one : linted) {
-            one.findings().forEach(findings::addConfigured);
             one.skipped().ifPresent(skipped::add);
-            one.suppressions().ifPresent(suppressions -> silenced.put(one.path(), suppressions));
-            one.hash().ifPresent(hash -> stamps.put(one.path(), hash));
+            one.checked().ifPresent(checked -> {
+                checked.findings().forEach(findings::addConfigured);
+                checked.suppressions().ifPresent(suppressions -> silenced.put(one.path(), suppressions));
+                checked.hash().ifPresent(hash -> stamps.put(one.path(), hash));
+            });
+            everyWordGathered &= !one.remembered();
         }
         if (across) {
-            LintContext all = new LintContext(workspace.config(), tokenizers, loader.renderer(),
-                    runTemplates(stamps, words, loader, reader), catalog.ids(), Map.of(),
-                    path -> java.nio.file.Files.exists(workspace.config().root().resolve(path)));
-            for (Rule rule : rules) {
-                if (rule instanceof CrossTemplateRule acrossRule) {
-                    for (Finding finding : acrossRule.checkAll(all)) {
-                        Suppressions suppressions = silenced.get(finding.path());
-                        if (suppressions == null || !suppressions.silences(finding)) {
-                            findings.add(finding);
+            Optional<Long> fingerprint = cache.fingerprint(stamps.keySet());
+            Optional<CheckedFile> kept = fingerprint.flatMap(cache::findWhole);
+            if (kept.isPresent()) {
+                findings.configure(kept.get()).findings().forEach(findings::addConfigured);
+            } else {
+                LintContext all = new LintContext(workspace.config(), tokenizers, loader.renderer(),
+                        runTemplates(stamps, everyWordGathered ? words : null, loader, reader), catalog.ids(), Map.of(),
+                        path -> java.nio.file.Files.exists(workspace.config().root().resolve(path)));
+                List<Finding> found = new ArrayList<>();
+                for (Rule rule : rules) {
+                    if (rule instanceof CrossTemplateRule acrossRule) {
+                        for (Finding finding : acrossRule.checkAll(all)) {
+                            Suppressions suppressions = silenced.get(finding.path());
+                            if (suppressions == null || !suppressions.silences(finding)) {
+                                found.add(findings.configure(finding));
+                            }
                         }
                     }
                 }
+                found.forEach(findings::addConfigured);
+                fingerprint.ifPresent(f -> cache.rememberWhole(f, new CheckedFile(found, Optional.empty(),
+                        Optional.empty())));
             }
         }
         List<Finding> configured = findings.sorted();
@@ -114,20 +171,26 @@ public final class Check {
     }
 
     /**
-     * What linting one file gave: its findings, or why it was skipped; the directives in it when it
-     * has any, and the hash of its text when it parsed.
+     * What became of one file: checked (now, or in an earlier run whose result the cache gave back),
+     * or skipped with the reason.
      */
-    private record Linted(String path, List<Finding> findings, Optional<SkippedFile> skipped,
-                          Optional<Suppressions> suppressions, Optional<Integer> hash) {
+    private record Linted(String path, Optional<CheckedFile> checked, Optional<SkippedFile> skipped,
+                          boolean remembered) {
+        static Linted of(String path, CheckedFile checked) {
+            return new Linted(path, Optional.of(checked), Optional.empty(), false);
+        }
     }
 
     /**
      * Reads, parses and lints one file with the per-template rules (a file that does not parse gets
-     * the findings of the syntax-error rules), keeping the findings no directive silences, and adds
-     * its words to {@code words} unless that is null.
+     * the findings of the syntax-error rules), keeping the findings no directive silences; adds its
+     * words to {@code words} unless that is null, and gives {@code cache} what it found with what it
+     * depends on: its partials and tool files. A template whose includes do not resolve is not
+     * remembered, since which files would change that is not known.
      */
     private static Linted lint(String path, Function<String, SourceText> reader, TemplateLoader loader, List<Rule> rules,
-                               LintContext context, RepositoryWords words, Findings configured) {
+                               LintContext context, RepositoryWords words, Findings configured,
+                               TemplateCache<CheckedFile> cache) {
         SourceText text = null;
         Template template;
         try {
@@ -142,13 +205,15 @@ public final class Check {
                         parseRule.onSyntaxError(path, text.text(), syntax.get()).forEach(f -> findings.add(configured.configure(f)));
                     }
                 }
-                return new Linted(path, findings, Optional.empty(), Optional.empty(), Optional.empty());
+                CheckedFile checked = new CheckedFile(findings, Optional.empty(), Optional.empty());
+                cache.remember(path, text.text(), List.of(), checked);
+                return Linted.of(path, checked);
             }
-            return new Linted(path, List.of(), Optional.of(new SkippedFile(path, e.getMessage())), Optional.empty(),
-                    Optional.empty());
+            return new Linted(path, Optional.empty(), Optional.of(new SkippedFile(path, e.getMessage())), false);
         }
         List<Finding> findings = new ArrayList<>();
         Suppressions suppressions;
+        Optional<List<String>> dependencies;
         try {
             suppressions = Suppressions.of(context.text(template));
             for (Rule rule : rules) {
@@ -162,15 +227,23 @@ public final class Check {
                     }
                 }
             }
+            dependencies = cache.isDisabled() ? Optional.empty() : context.rendering(template).map(rendering -> {
+                List<String> paths = new ArrayList<>(new java.util.LinkedHashSet<>(rendering.includes()));
+                paths.addAll(template.meta().tools());
+                return paths;
+            });
         } finally {
             context.forget(template);
         }
         if (words != null) {
             words.add(template);
         }
-        return new Linted(path, findings, Optional.empty(),
+        CheckedFile checked = new CheckedFile(findings,
                 suppressions.directives().isEmpty() ? Optional.empty() : Optional.of(suppressions),
                 Optional.of(template.source().hashCode()));
+        String read = text.text();
+        dependencies.ifPresent(paths -> cache.remember(path, read, paths, checked));
+        return Linted.of(path, checked);
     }
 
     /**
@@ -215,6 +288,12 @@ public final class Check {
 
         Findings(RuleCatalog catalog) {
             this.catalog = catalog;
+        }
+
+        /** The findings of a file, each as {@link #configure(Finding)} makes it. */
+        CheckedFile configure(CheckedFile checked) {
+            return new CheckedFile(checked.findings().stream().map(this::configure).toList(), checked.suppressions(),
+                    checked.hash());
         }
 
         /** The finding at its configured severity, with the one copy of its message; from any thread. */

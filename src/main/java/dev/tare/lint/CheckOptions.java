@@ -4,10 +4,12 @@ package dev.tare.lint;
  * What a check is asked for.
  *
  * @param failOn the severity at or above which the check fails
+ * @param cache  whether to reuse, and keep, what earlier checks found in unchanged files (under
+ *               {@code .tare/cache}; see {@link Check#run(CheckOptions)})
  */
-public record CheckOptions(Severity failOn) {
-    /** Fail on errors only. */
+public record CheckOptions(Severity failOn, boolean cache) {
+    /** Fail on errors only; no cache. */
     public static CheckOptions defaults() {
-        return new CheckOptions(Severity.ERROR);
+        return new CheckOptions(Severity.ERROR, false);
     }
 }

@@ -65,6 +65,28 @@ public final class Suppressions {
         return suppressions;
     }
 
+    /**
+     * Directives as a cache kept them: the rules silenced in the whole file and on each line, and the
+     * directives they came from.
+     */
+    static Suppressions restored(List<Directive> directives, Set<String> file, Map<Integer, Set<String>> byLine) {
+        Suppressions suppressions = new Suppressions();
+        suppressions.directives.addAll(directives);
+        suppressions.file.addAll(file);
+        byLine.forEach((line, ids) -> suppressions.byLine.put(line, new HashSet<>(ids)));
+        return suppressions;
+    }
+
+    /** The rules silenced in the whole file. */
+    Set<String> fileWide() {
+        return Set.copyOf(file);
+    }
+
+    /** The rules silenced on each 1-based line. */
+    Map<Integer, Set<String>> byLine() {
+        return java.util.Collections.unmodifiableMap(byLine);
+    }
+
     /** Every directive, in file order. */
     public List<Directive> directives() {
         return List.copyOf(directives);

@@ -44,7 +44,8 @@ public final class OverviewRun {
      */
     public Overview run(ScanOptions options, boolean withLines) {
         ScanResult scan = new TemplateScan(workspace, tokenizers).run(options);
-        CheckResult check = new Check(workspace, tokenizers).run(CheckOptions.defaults());
+        CheckResult check = new Check(workspace, tokenizers)
+                .run(new CheckOptions(CheckOptions.defaults().failOn(), options.cache()));
         BaselineConfig config = workspace.config().baseline();
         Optional<BaselineStatus> baseline = BaselineFile.read(workspace.root().resolve(config.file()))
                 .map(recorded -> BaselineStatus.compare(config.file(), config.tolerancePercent(), recorded,

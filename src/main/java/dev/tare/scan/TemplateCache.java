@@ -42,6 +42,9 @@ import java.util.zip.CRC32C;
  * truncated, corrupt) is ignored, and one that cannot be written is not written. Neither ever fails
  * a run.
  *
+ * <p>Besides the results per template, the cache keeps one result of the run as a whole (what the
+ * check's cross-template rules found), with the {@link #fingerprint} of the templates it came from.
+ *
  * @param <R> what one template gave
  */
 public final class TemplateCache<R> {
@@ -64,6 +67,8 @@ public final class TemplateCache<R> {
     private final String magic;
     private final Codec<R> codec;
     private final Map<String, Entry<R>> previous;
+    private final Optional<Whole<R>> previousWhole;
+    private volatile Whole<R> currentWhole;
     private final Map<String, Entry<R>> current = new ConcurrentHashMap<>();
     private final Map<String, Optional<FileState>> states = new ConcurrentHashMap<>();
     private final Path root;
@@ -79,7 +84,9 @@ public final class TemplateCache<R> {
         this.codec = codec;
         this.startedNanos = startedNanos;
         this.wholeRoot = wholeRoot;
-        this.previous = file.map(this::read).orElse(Map.of());
+        Contents<R> contents = file.map(this::read).orElse(Contents.empty());
+        this.previous = contents.entries();
+        this.previousWhole = contents.whole();
     }
 
     /** A cache that remembers nothing: {@code --no-cache}, staged content, and library use that does not ask for one. */
@@ -100,12 +107,17 @@ public final class TemplateCache<R> {
                 workspace.starts().isEmpty());
     }
 
+    /** Whether this cache neither reads nor writes anything. */
+    public boolean isDisabled() {
+        return file.isEmpty();
+    }
+
     /** Whether nothing was remembered: every template will be read afresh. */
     public boolean isEmpty() {
         return previous.isEmpty();
     }
 
-    /** The measurement remembered for {@code path}, when the file and everything it depends on are unchanged. */
+    /** The result remembered for {@code path}, when the file and everything it depends on are unchanged. */
     public Optional<R> find(String path) {
         Entry<R> entry = previous.get(path);
         if (entry == null) {
@@ -185,6 +197,21 @@ public final class TemplateCache<R> {
         return Optional.of(h);
     }
 
+    /** The result of the whole run remembered with {@code fingerprint}, when there is one. */
+    public Optional<R> findWhole(long fingerprint) {
+        Optional<R> found = previousWhole.filter(w -> w.fingerprint() == fingerprint).map(Whole::result);
+        found.ifPresent(result -> currentWhole = new Whole<>(fingerprint, result));
+        return found;
+    }
+
+    /** Remembers the result of the whole run, made from the templates {@code fingerprint} stands for. */
+    public void rememberWhole(long fingerprint, R result) {
+        if (file.isPresent()) {
+            currentWhole = new Whole<>(fingerprint, result);
+            changed = true;
+        }
+    }
+
     /** Writes the cache when it changed; says nothing and keeps the old one when that fails. */
     public void save() {
         if (file.isEmpty()) {
@@ -202,7 +229,8 @@ public final class TemplateCache<R> {
             return;
         }
         try {
-            CacheFolder.replace(file.get(), encode(kept));
+            CacheFolder.prepare(root);
+            CacheFolder.replace(file.get(), encode(kept, currentWhole != null ? Optional.of(currentWhole) : previousWhole));
             String name = file.get().getFileName().toString();
             CacheFolder.pruneOthers(file.get(), name.substring(0, name.lastIndexOf('-') + 1));
         } catch (IOException | RuntimeException e) {
@@ -297,6 +325,17 @@ public final class TemplateCache<R> {
     private record Stamp(String path, FileState state) {
     }
 
+    /** A result of the whole run and the fingerprint of the templates it came from. */
+    private record Whole<R>(long fingerprint, R result) {
+    }
+
+    /** What a cache file holds. */
+    private record Contents<R>(Map<String, Entry<R>> entries, Optional<Whole<R>> whole) {
+        static <R> Contents<R> empty() {
+            return new Contents<>(Map.of(), Optional.empty());
+        }
+    }
+
     private record Entry<R>(Stamp self, List<Stamp> dependencies, R result) {
         List<Stamp> stamps() {
             List<Stamp> all = new ArrayList<>(dependencies);
@@ -305,30 +344,30 @@ public final class TemplateCache<R> {
         }
     }
 
-    private Map<String, Entry<R>> read(Path file) {
+    private Contents<R> read(Path file) {
         if (!Files.isRegularFile(file)) {
-            return Map.of();
+            return Contents.empty();
         }
         try (InputStream in = new BufferedInputStream(Files.newInputStream(file), 1 << 16)) {
             byte[] bytes = in.readAllBytes();
             if (bytes.length < 8) {
-                return Map.of();
+                return Contents.empty();
             }
             CRC32C crc = new CRC32C();
             crc.update(bytes, 0, bytes.length - 8);
             long stored = java.nio.ByteBuffer.wrap(bytes, bytes.length - 8, 8).getLong();
             if (stored != crc.getValue()) {
-                return Map.of();
+                return Contents.empty();
             }
             return decode(new DataInputStream(new java.io.ByteArrayInputStream(bytes, 0, bytes.length - 8)));
         } catch (IOException | RuntimeException e) {
-            return Map.of();
+            return Contents.empty();
         }
     }
 
-    private Map<String, Entry<R>> decode(DataInputStream in) throws IOException {
+    private Contents<R> decode(DataInputStream in) throws IOException {
         if (!magic.equals(in.readUTF()) || in.readInt() != FORMAT) {
-            return Map.of();
+            return Contents.empty();
         }
         int count = in.readInt();
         Map<String, Entry<R>> entries = new LinkedHashMap<>();
@@ -341,10 +380,15 @@ public final class TemplateCache<R> {
             }
             entries.put(self.path(), new Entry<>(self, dependencies, codec.read(in, self.path())));
         }
-        return entries;
+        Optional<Whole<R>> whole = Optional.empty();
+        if (in.readBoolean()) {
+            long fingerprint = in.readLong();
+            whole = Optional.of(new Whole<>(fingerprint, codec.read(in, "")));
+        }
+        return new Contents<>(entries, whole);
     }
 
-    private byte[] encode(Map<String, Entry<R>> entries) throws IOException {
+    private byte[] encode(Map<String, Entry<R>> entries, Optional<Whole<R>> whole) throws IOException {
         ByteArrayOutputStream bytes = new ByteArrayOutputStream(1 << 16);
         DataOutputStream out = new DataOutputStream(bytes);
         out.writeUTF(magic);
@@ -357,6 +401,11 @@ public final class TemplateCache<R> {
                 writeStamp(out, dependency);
             }
             codec.write(out, entry.result());
+        }
+        out.writeBoolean(whole.isPresent());
+        if (whole.isPresent()) {
+            out.writeLong(whole.get().fingerprint());
+            codec.write(out, whole.get().result());
         }
         out.flush();
         CRC32C crc = new CRC32C();

@@ -53,6 +53,28 @@ class LintCommandsTest {
     }
 
     @Test
+    void aSecondCheckAnswersFromTheCacheAndNoCacheNeitherReadsNorWritesIt() throws IOException {
+        Path repo = repo("templates: {include: [\"prompts/**/*.md\"]}\n", "Be brief.  \n");
+        Cli.Run uncached = run("check", repo.toString(), "--no-cache", "--format", "json");
+        assertTrue(Files.notExists(repo.resolve(".tare")), "--no-cache writes nothing");
+        Cli.Run first = run("check", repo.toString(), "--format", "json");
+        try (java.util.stream.Stream<Path> cache = Files.list(repo.resolve(".tare/cache"))) {
+            assertTrue(cache.anyMatch(f -> f.getFileName().toString().startsWith("check-")), "the check kept what it found");
+        }
+        Files.setLastModifiedTime(repo.resolve("prompts/a.md"), java.nio.file.attribute.FileTime.fromMillis(0));
+        Cli.Run second = run("check", repo.toString(), "--format", "json");
+        assertEquals(uncached, first);
+        assertEquals(first, second);
+        // An edit that keeps the file's size and time is one the cache may miss: the warm check shows
+        // it answered from the cache, and --no-cache that it reads the file.
+        Files.writeString(repo.resolve("prompts/a.md"), "Be brief!!!\n");
+        Files.setLastModifiedTime(repo.resolve("prompts/a.md"), java.nio.file.attribute.FileTime.fromMillis(0));
+        assertEquals(first, run("check", repo.toString(), "--format", "json"));
+        assertTrue(!run("check", repo.toString(), "--no-cache", "--format", "json").out().contains("trailing-whitespace"),
+                "--no-cache reads the edited file");
+    }
+
+    @Test
     void configurationAndUsageErrorsExitTwoWithOneLine() throws IOException {
         Path repo = repo("rules: {disable: [no-such-rule]}\n", "Text.\n");
         Cli.Run bad = run("check", repo.toString());
