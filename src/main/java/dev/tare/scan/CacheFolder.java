@@ -1,6 +1,8 @@
 package dev.tare.scan;
 
+import java.io.BufferedOutputStream;
 import java.io.IOException;
+import java.io.OutputStream;
 import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -11,7 +13,7 @@ import java.util.List;
 import java.util.stream.Stream;
 
 /** The {@code .tare/cache} folder of a root: where it is, and writing files there whole. */
-final class CacheFolder {
+public final class CacheFolder {
     /** Caches of other builds or configurations kept beside the one written, newest first, per kind. */
     static final int KEPT_OTHERS = 3;
 
@@ -24,9 +26,9 @@ final class CacheFolder {
 
     /**
      * Creates the folder, and the {@code .gitignore} that keeps it out of git, when missing. A scan
-     * does this before it walks, so that the walk sees the root as the next run will.
+     * or check does this before it walks, so that the walk sees the root as the next run will.
      */
-    static Path prepare(Path root) throws IOException {
+    public static Path prepare(Path root) throws IOException {
         Path folder = Files.createDirectories(of(root));
         Path ignore = folder.getParent().resolve(".gitignore");
         if (!Files.exists(ignore)) {
@@ -35,12 +37,27 @@ final class CacheFolder {
         return folder;
     }
 
+    /** What writes a cache file's contents. */
+    interface Contents {
+        void writeTo(OutputStream out) throws IOException;
+    }
+
     /** Writes {@code bytes} to a temporary file beside {@code target} and moves it into place. */
     static void replace(Path target, byte[] bytes) throws IOException {
+        replace(target, out -> out.write(bytes));
+    }
+
+    /**
+     * Writes {@code contents} to a temporary file beside {@code target} and moves it into place: a
+     * cache of a large repository is tens of megabytes, written as it is made rather than held.
+     */
+    static void replace(Path target, Contents contents) throws IOException {
         Path folder = Files.createDirectories(target.getParent());
         Path temporary = Files.createTempFile(folder, "write-", ".partial");
         try {
-            Files.write(temporary, bytes);
+            try (OutputStream out = new BufferedOutputStream(Files.newOutputStream(temporary), 1 << 16)) {
+                contents.writeTo(out);
+            }
             try {
                 Files.move(temporary, target, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
             } catch (AtomicMoveNotSupportedException e) {

@@ -27,10 +27,11 @@ import java.util.stream.IntStream;
 import java.util.zip.CRC32C;
 
 /**
- * A whole rendered scan report kept in {@code .tare/cache}, with what it was made from: every
- * folder the walk listed, every template, partial, tool and ignore-rule file. When none of them
- * changed, a run prints the stored report without walking, reading, counting or rendering
- * anything. One file per build, configuration, scan options and output form.
+ * A whole rendered report of a scan or a check kept in {@code .tare/cache}, with what it was made
+ * from: every folder the walk listed, every template, partial, tool and ignore-rule file, and the
+ * command's exit status. When none of them changed, a run prints the stored report without walking,
+ * reading, counting, linting or rendering anything. One file per command, build, configuration,
+ * options and output form.
  *
  * <p>A folder is unchanged when its modification time is, and that time lies more than two seconds
  * before the run that stored it; a more recent folder (the root, whose {@code .tare} the first
@@ -39,64 +40,92 @@ import java.util.zip.CRC32C;
  * the run scan (where {@link TemplateCache} hashes its text). A scan that skipped a file is not stored,
  * since what made it fail may lie anywhere.
  *
- * <p>Written whole to a temporary file and moved into place with a checksum at its end, as
- * {@link TemplateCache} is; a file that cannot be read or written only means a scan.
+ * <p>The file holds the stamps, the report, the exit status and the report's length, then a
+ * checksum of all of it. It is written to a temporary file, the report as it is rendered (a check's
+ * report can be hundreds of megabytes), and moved into place whole, as {@link TemplateCache} is; a
+ * file that cannot be read or written only means the command runs.
  */
-final class StoredReport {
+public final class StoredReport {
     private static final int MAGIC = 0x74617265; // "tare"
-    private static final int FORMAT = 1;
+    private static final int FORMAT = 2;
+    /** The exit status, the report's length and the checksum, after the report. */
+    private static final int TRAILER = 4 + 8 + 8;
     private static final long RACY_NANOS = TemplateCache.RACY_NANOS;
     /** The stamp of a path that did not exist, and of a folder, which counts by its presence only. */
     private static final long ABSENT = -1;
     private static final long FOLDER = -2;
     private static final long UNREADABLE = Long.MIN_VALUE;
 
+    private final Path root;
     private final Path file;
     private final byte[] key;
 
-    private StoredReport(Path file, byte[] key) {
+    private StoredReport(Path root, Path file, byte[] key) {
+        this.root = root;
         this.file = file;
         this.key = key;
     }
 
-    /**
-     * The stored report for a scan described by {@code key} (scan key, output form, root and starts).
-     * The file's name is a 64-bit hash of the key, and the file holds the key itself: a hash
-     * needs no cryptographic code loaded at the start of every run, and the key makes a collision
-     * harmless.
-     */
-    static StoredReport of(Path root, String key) {
-        String full = Tare.buildIdentity() + "\n" + key;
-        return new StoredReport(CacheFolder.of(root).resolve("report-" + HexFormat.of().toHexDigits(TemplateCache.hash(full)) + ".bin"),
-                full.getBytes(StandardCharsets.UTF_8));
+    /** What writes a report as UTF-8 to a stream. */
+    public interface Body {
+        void writeTo(java.io.OutputStream out) throws IOException;
     }
 
     /**
-     * The stored report as UTF-8, when it exists, reads whole and nothing it was made from has
-     * changed. The file is mapped, not read: its report, megabytes long, goes from the page cache to
-     * standard output without passing through the heap. Files are only ever replaced whole (see
+     * A report as stored: its UTF-8 text (mapped from the file, read-only) and the exit status of
+     * the run that made it.
+     */
+    public record Report(ByteBuffer utf8, int status) {
+    }
+
+    /**
+     * The stored report of {@code command} ({@code scan}, {@code check}) for a run described by
+     * {@code key} (the command's cache key, output form, root and starts). The file's name is a
+     * 64-bit hash of the key, and the file holds the key itself: a hash needs no cryptographic code
+     * loaded at the start of every run, and the key makes a collision harmless.
+     */
+    public static StoredReport of(Path root, String command, String key) {
+        String full = Tare.buildIdentity() + "\n" + command + "\n" + key;
+        return new StoredReport(root, CacheFolder.of(root).resolve("report-" + command + "-"
+                + HexFormat.of().toHexDigits(TemplateCache.hash(full)) + ".bin"), full.getBytes(StandardCharsets.UTF_8));
+    }
+
+    /**
+     * The stored report, when it exists, reads whole and nothing it was made from has changed. The
+     * file is mapped, not read: its report, megabytes long, goes from the page cache to standard
+     * output without passing through the heap. Files are only ever replaced whole (see
      * {@link CacheFolder#replace}), so a mapping never sees one change under it.
      */
-    Optional<ByteBuffer> read() {
-        ByteBuffer bytes;
+    public Optional<Report> read() {
+        return map(file).flatMap(this::report);
+    }
+
+    private static Optional<ByteBuffer> map(Path file) {
         try (FileChannel channel = FileChannel.open(file, StandardOpenOption.READ)) {
             long size = channel.size();
-            if (size < 8 || size > Integer.MAX_VALUE) {
+            if (size < TRAILER || size > Integer.MAX_VALUE) {
                 return Optional.empty();
             }
-            bytes = channel.map(FileChannel.MapMode.READ_ONLY, 0, size);
+            return Optional.of(channel.map(FileChannel.MapMode.READ_ONLY, 0, size));
         } catch (IOException | RuntimeException e) {
             return Optional.empty();
         }
+    }
+
+    /** The report in {@code bytes} (a stored file, mapped) when it is whole and what it was made from is unchanged. */
+    private Optional<Report> report(ByteBuffer bytes) {
         try {
             int end = bytes.limit() - 8;
             CRC32C crc = new CRC32C();
             crc.update(bytes.duplicate().limit(end));
+            int status = bytes.getInt(end - 12);
+            long reportLength = bytes.getLong(end - 8);
             ByteBuffer in = bytes.duplicate().limit(end);
-            if (bytes.getLong(end) != crc.getValue()
+            if (bytes.getLong(end) != crc.getValue() || reportLength < 0 || reportLength > end - 12
                     || in.getInt() != MAGIC || in.getInt() != FORMAT || !Arrays.equals(bytes(in), key)) {
                 return Optional.empty();
             }
+            int reportStart = end - 12 - (int) reportLength;
             long vouchedUntil = in.getLong() - RACY_NANOS;
             int folderCount = in.getInt();
             String[] folders = new String[folderCount];
@@ -116,8 +145,10 @@ final class StoredReport {
                 sizes[i] = in.getLong();
                 times[i] = in.getLong();
             }
-            int reportLength = in.getInt();
-            ByteBuffer report = in.slice(in.position(), reportLength);
+            if (in.position() != reportStart) {
+                return Optional.empty();
+            }
+            ByteBuffer report = in.slice(reportStart, (int) reportLength);
             // One pass over folders and files, on every core: the stat calls are most of a warm run.
             boolean hold = IntStream.range(0, folderCount + fileCount).parallel().allMatch(i -> {
                 if (i < folderCount) {
@@ -130,7 +161,7 @@ final class StoredReport {
                 long[] now = stamp(Path.of(files[f]));
                 return now[0] == sizes[f] && (now[0] < 0 || now[1] == times[f] && times[f] < vouchedUntil);
             });
-            return hold ? Optional.of(report) : Optional.empty();
+            return hold ? Optional.of(new Report(report, status)) : Optional.empty();
         } catch (RuntimeException e) {
             // Truncated or from an older format that slipped past the checksum: a scan.
             return Optional.empty();
@@ -143,7 +174,7 @@ final class StoredReport {
      * for a scan that started at {@code startedNanos}. Empty when a file is too recent to vouch for
      * itself, since a report stored with it would never be used.
      */
-    Optional<byte[]> stamps(FileSelection selection, Collection<Path> files, long startedNanos) {
+    public Optional<byte[]> stamps(FileSelection selection, Collection<Path> files, long startedNanos) {
         try {
             ByteArrayOutputStream bytes = new ByteArrayOutputStream(64 * files.size() + (1 << 16));
             DataOutputStream out = new DataOutputStream(bytes);
@@ -180,19 +211,83 @@ final class StoredReport {
         }
     }
 
-    /** Stores {@code report} with the {@link #stamps} of what it was made from. */
-    void save(byte[] stamps, byte[] report) {
+    /** Stores {@code report} and the run's exit status with the {@link #stamps} of what it was made from. */
+    void save(byte[] stamps, byte[] report, int status) {
         try {
-            byte[] bytes = new byte[stamps.length + 4 + report.length + 8];
-            ByteBuffer out = ByteBuffer.wrap(bytes);
-            out.put(stamps).putInt(report.length).put(report);
-            CRC32C crc = new CRC32C();
-            crc.update(bytes, 0, out.position());
-            out.putLong(crc.getValue());
-            CacheFolder.replace(file, bytes);
-            CacheFolder.pruneOthers(file, "report-");
+            write(stamps, out -> out.write(report), status);
         } catch (IOException | RuntimeException e) {
             // An optimisation only: the report is printed either way.
+        }
+    }
+
+    /**
+     * Stores the report {@code render} writes, with the run's exit status and the {@link #stamps}
+     * of what it was made from, and gives it back mapped from the stored file; empty when it could
+     * not be stored (the caller then renders it where it goes), having printed nothing.
+     */
+    public Optional<ByteBuffer> store(byte[] stamps, Body render, int status) {
+        try {
+            write(stamps, render, status);
+            return read(file).map(report -> report.utf8());
+        } catch (IOException | RuntimeException e) {
+            return Optional.empty();
+        }
+    }
+
+    /** The report just written, checked whole but with no stamp compared: the run that wrote it made it. */
+    private static Optional<Report> read(Path file) {
+        return map(file).flatMap(bytes -> {
+            int end = bytes.limit() - 8;
+            CRC32C crc = new CRC32C();
+            crc.update(bytes.duplicate().limit(end));
+            long length = bytes.getLong(end - 8);
+            if (bytes.getLong(end) != crc.getValue() || length < 0 || length > end - 12) {
+                return Optional.empty();
+            }
+            return Optional.of(new Report(bytes.slice(end - 12 - (int) length, (int) length), bytes.getInt(end - 12)));
+        });
+    }
+
+    private void write(byte[] stamps, Body render, int status) throws IOException {
+        CacheFolder.prepare(root);
+        CacheFolder.replace(file, stream -> {
+            CRC32C crc = new CRC32C();
+            CountingOutput counted = new CountingOutput(new java.util.zip.CheckedOutputStream(stream, crc));
+            counted.write(stamps);
+            long before = counted.count();
+            render.writeTo(counted);
+            long length = counted.count() - before;
+            DataOutputStream trailer = new DataOutputStream(counted);
+            trailer.writeInt(status);
+            trailer.writeLong(length);
+            trailer.flush();
+            new DataOutputStream(stream).writeLong(crc.getValue());
+        });
+        CacheFolder.pruneOthers(file, file.getFileName().toString().substring(0, file.getFileName().toString().lastIndexOf('-') + 1));
+    }
+
+    /** Counts the bytes that pass through, so the report's length is known once it is written. */
+    private static final class CountingOutput extends java.io.FilterOutputStream {
+        private long count;
+
+        CountingOutput(java.io.OutputStream out) {
+            super(out);
+        }
+
+        @Override
+        public void write(int b) throws IOException {
+            out.write(b);
+            count++;
+        }
+
+        @Override
+        public void write(byte[] bytes, int offset, int length) throws IOException {
+            out.write(bytes, offset, length);
+            count += length;
+        }
+
+        long count() {
+            return count;
         }
     }
 

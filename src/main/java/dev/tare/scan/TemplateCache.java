@@ -2,11 +2,11 @@ package dev.tare.scan;
 
 import dev.tare.Tare;
 import java.io.BufferedInputStream;
-import java.io.ByteArrayOutputStream;
 import java.io.DataInputStream;
 import java.io.DataOutputStream;
 import java.io.IOException;
 import java.io.InputStream;
+import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.LinkOption;
@@ -23,6 +23,7 @@ import java.util.Optional;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.TimeUnit;
 import java.util.zip.CRC32C;
+import java.util.zip.CheckedOutputStream;
 
 /**
  * What earlier runs found per template, so that a template whose file and includes have not changed
@@ -230,7 +231,8 @@ public final class TemplateCache<R> {
         }
         try {
             CacheFolder.prepare(root);
-            CacheFolder.replace(file.get(), encode(kept, currentWhole != null ? Optional.of(currentWhole) : previousWhole));
+            Optional<Whole<R>> whole = currentWhole != null ? Optional.of(currentWhole) : previousWhole;
+            CacheFolder.replace(file.get(), out -> encode(out, kept, whole));
             String name = file.get().getFileName().toString();
             CacheFolder.pruneOthers(file.get(), name.substring(0, name.lastIndexOf('-') + 1));
         } catch (IOException | RuntimeException e) {
@@ -359,7 +361,7 @@ public final class TemplateCache<R> {
             if (stored != crc.getValue()) {
                 return Contents.empty();
             }
-            return decode(new DataInputStream(new java.io.ByteArrayInputStream(bytes, 0, bytes.length - 8)));
+            return decode(new DataInputStream(new ArrayInput(bytes, bytes.length - 8)));
         } catch (IOException | RuntimeException e) {
             return Contents.empty();
         }
@@ -388,9 +390,10 @@ public final class TemplateCache<R> {
         return new Contents<>(entries, whole);
     }
 
-    private byte[] encode(Map<String, Entry<R>> entries, Optional<Whole<R>> whole) throws IOException {
-        ByteArrayOutputStream bytes = new ByteArrayOutputStream(1 << 16);
-        DataOutputStream out = new DataOutputStream(bytes);
+    /** Writes the entries and the whole run's result, then a checksum of everything before it. */
+    private void encode(OutputStream stream, Map<String, Entry<R>> entries, Optional<Whole<R>> whole) throws IOException {
+        CRC32C crc = new CRC32C();
+        DataOutputStream out = new DataOutputStream(new ChunkedOutput(new CheckedOutputStream(stream, crc)));
         out.writeUTF(magic);
         out.writeInt(FORMAT);
         out.writeInt(entries.size());
@@ -408,11 +411,88 @@ public final class TemplateCache<R> {
             codec.write(out, whole.get().result());
         }
         out.flush();
-        CRC32C crc = new CRC32C();
-        crc.update(bytes.toByteArray());
-        out.writeLong(crc.getValue());
-        out.flush();
-        return bytes.toByteArray();
+        new DataOutputStream(stream).writeLong(crc.getValue());
+    }
+
+    /**
+     * A byte array read one byte at a time without a lock: {@code DataInputStream} reads each int
+     * as four single bytes, and {@code ByteArrayInputStream}'s reads are synchronized, which on a
+     * cache of tens of megabytes costs a second.
+     */
+    private static final class ArrayInput extends InputStream {
+        private final byte[] bytes;
+        private final int end;
+        private int at;
+
+        ArrayInput(byte[] bytes, int end) {
+            this.bytes = bytes;
+            this.end = end;
+        }
+
+        @Override
+        public int read() {
+            return at < end ? bytes[at++] & 0xff : -1;
+        }
+
+        @Override
+        public int read(byte[] into, int offset, int length) {
+            if (length == 0) {
+                return 0;
+            }
+            if (at >= end) {
+                return -1;
+            }
+            int n = Math.min(length, end - at);
+            System.arraycopy(bytes, at, into, offset, n);
+            at += n;
+            return n;
+        }
+    }
+
+    /**
+     * Bytes gathered into chunks without a lock before they go on: {@code DataOutputStream} writes
+     * each int as four single bytes, and {@code BufferedOutputStream}'s writes are synchronized.
+     */
+    private static final class ChunkedOutput extends OutputStream {
+        private final OutputStream out;
+        private final byte[] chunk = new byte[1 << 16];
+        private int used;
+
+        ChunkedOutput(OutputStream out) {
+            this.out = out;
+        }
+
+        @Override
+        public void write(int b) throws IOException {
+            if (used == chunk.length) {
+                flushChunk();
+            }
+            chunk[used++] = (byte) b;
+        }
+
+        @Override
+        public void write(byte[] bytes, int offset, int length) throws IOException {
+            if (length > chunk.length - used) {
+                flushChunk();
+                if (length > chunk.length) {
+                    out.write(bytes, offset, length);
+                    return;
+                }
+            }
+            System.arraycopy(bytes, offset, chunk, used, length);
+            used += length;
+        }
+
+        @Override
+        public void flush() throws IOException {
+            flushChunk();
+            out.flush();
+        }
+
+        private void flushChunk() throws IOException {
+            out.write(chunk, 0, used);
+            used = 0;
+        }
     }
 
     private static void writeStamp(DataOutputStream out, Stamp stamp) throws IOException {

@@ -81,11 +81,11 @@ public final class TemplateScan {
             String report = render.apply(scan(setup, options, progress).result());
             return ByteBuffer.wrap(report.getBytes(StandardCharsets.UTF_8));
         }
-        StoredReport stored = StoredReport.of(workspace.root(), setup.cacheKey() + "\n" + form + "\n"
+        StoredReport stored = StoredReport.of(workspace.root(), "scan", setup.cacheKey() + "\n" + form + "\n"
                 + workspace.displayName() + "\n" + workspace.starts());
-        Optional<ByteBuffer> kept = stored.read();
+        Optional<StoredReport.Report> kept = stored.read();
         if (kept.isPresent()) {
-            return kept.get();
+            return kept.get().utf8();
         }
         Scanned scanned = scan(setup, options, progress);
         // Writing the measurements and stamping the files for the stored report run beside the
@@ -101,7 +101,7 @@ public final class TemplateScan {
             return stored.stamps(scanned.selection(), files, scanned.startedNanos());
         });
         byte[] report = render.apply(scanned.result()).getBytes(StandardCharsets.UTF_8);
-        stamps.join().ifPresent(stamped -> stored.save(stamped, report));
+        stamps.join().ifPresent(stamped -> stored.save(stamped, report, 0));
         return ByteBuffer.wrap(report);
     }
 

@@ -16,7 +16,6 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.attribute.FileTime;
 import java.time.Instant;
-import java.time.temporal.ChronoUnit;
 import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.ExecutorService;
@@ -229,6 +228,121 @@ class CheckCacheTest {
         assertFalse(Files.exists(root.resolve(".tare")));
     }
 
+    @Test
+    void aStoredReportIsPrintedAgainWithItsStatusWhileNothingChanges() throws IOException {
+        Printed first = report("json", Severity.INFO);
+        assertTrue(first.failed(), "an info finding fails --fail-on info");
+        assertEquals(1, first.renders());
+        Printed second = report("json", Severity.INFO);
+        assertEquals(0, second.renders(), "printed from the store: nothing rendered");
+        assertEquals(first.text(), second.text());
+        assertTrue(second.failed(), "the stored exit status");
+        assertEquals(uncached("json", Severity.INFO), second.text());
+        assertFalse(report("json", Severity.ERROR).failed(), "another failing severity is another report");
+        assertEquals(1, report("text", Severity.INFO).renders(), "each format has its own report");
+        assertEquals(0, report("text", Severity.INFO).renders());
+        assertEquals(uncached("text", Severity.INFO), report("text", Severity.INFO).text());
+    }
+
+    @Test
+    void everyChangeThatCanChangeTheReportMakesANewOne() throws IOException {
+        report("json", Severity.ERROR);
+        List<Change> changes = List.of(
+                () -> write("prompts/outages.md", "# Outages\n\nGive the area, street by street.\n"),
+                () -> write("prompts/partials/policy.md", "Never share a customer's account number or balance."),
+                () -> write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\": \"Finds it.\"}]"),
+                () -> write("prompts/new.md", "A new template!!\n"),
+                () -> Files.delete(root.resolve("prompts/new.md")),
+                () -> write("prompts/.gitignore", "quiet.md\n"),
+                () -> write("house/style.yaml", read("house/style.yaml").replace("severity: info", "severity: warning")),
+                () -> write("tare-baseline.json", "{\"tool\": \"tare\", \"format\": 1, \"templates\": {}}\n"),
+                () -> write("tare.yaml", read("tare.yaml").replace("shared_block_tokens: 20", "shared_block_tokens: 25")));
+        for (Change change : changes) {
+            ageEveryFile();
+            change.make();
+            Printed after = report("json", Severity.ERROR);
+            assertEquals(1, after.renders(), "a change is rendered anew");
+            assertEquals(uncached("json", Severity.ERROR), after.text());
+            ageEveryFile();
+            assertEquals(after.text(), report("json", Severity.ERROR).text());
+        }
+    }
+
+    @Test
+    void anEditedPartialOutsideTheTemplatesMakesANewReport() throws IOException {
+        write("tare.yaml", read("tare.yaml").replace("\"prompts/**/*.md\"", "\"prompts/*.md\""));
+        ageEveryFile();
+        Printed before = report("json", Severity.ERROR);
+        assertFalse(before.text().contains("prompts/partials/policy.md"), "the partial is no template of the run");
+        write("prompts/partials/policy.md", "Never share a customer's account number, never guess a balance, never"
+                + " quote a tariff from memory and never promise a visit on a given day.");
+        ageEveryFile();
+        Printed after = report("json", Severity.ERROR);
+        assertEquals(uncached("json", Severity.ERROR), after.text());
+        assertTrue(after.failed() && !before.failed(), "reply.md is over its budget through its partial");
+    }
+
+    @Test
+    void aRunThatCannotVouchForItsReportStoresNone() throws IOException {
+        write("prompts/broken.md", "Hello {{> missing }} and goodbye.\n");
+        ageEveryFile();
+        report("json", Severity.ERROR);
+        assertEquals(1, report("json", Severity.ERROR).renders(), "which file would fix the include is not known");
+        Files.delete(root.resolve("prompts/broken.md"));
+        Files.write(root.resolve("prompts/unreadable.md"), new byte[] {(byte) 0xff, (byte) 0xfe, 0x41});
+        ageEveryFile();
+        report("json", Severity.ERROR);
+        assertEquals(1, report("json", Severity.ERROR).renders(), "a skipped file may fail for reasons anywhere");
+    }
+
+    @Test
+    void aCorruptStoredReportIsIgnoredAndReplaced() throws IOException {
+        String expected = report("json", Severity.ERROR).text();
+        Path stored;
+        try (Stream<Path> files = Files.list(root.resolve(".tare/cache"))) {
+            stored = files.filter(f -> f.getFileName().toString().startsWith("report-check-")).findFirst().orElseThrow();
+        }
+        byte[] bytes = Files.readAllBytes(stored);
+        bytes[bytes.length / 2] ^= 0x20;
+        Files.write(stored, bytes);
+        Printed again = report("json", Severity.ERROR);
+        assertEquals(1, again.renders());
+        assertEquals(expected, again.text());
+        Files.write(stored, java.util.Arrays.copyOf(bytes, 20));
+        assertEquals(expected, report("json", Severity.ERROR).text());
+        assertEquals(0, report("json", Severity.ERROR).renders());
+    }
+
+    /** A change to the repository, made by a test. */
+    private interface Change {
+        void make() throws IOException;
+    }
+
+    /** What {@link Check#report} printed, whether it failed and how often it rendered a report. */
+    private record Printed(String text, boolean failed, int renders) {
+    }
+
+    private Printed report(String form, Severity failOn) {
+        int[] renders = {0};
+        java.io.StringWriter direct = new java.io.StringWriter();
+        StringBuilder printed = new StringBuilder();
+        boolean failed = new Check(Workspace.open(List.of(root), Optional.empty()), new TokenizerRegistry()).report(
+                new CheckOptions(failOn, true), form, (result, out) -> {
+                    renders[0]++;
+                    out.write(render(form, result));
+                }, bytes -> printed.append(java.nio.charset.StandardCharsets.UTF_8.decode(bytes.duplicate())), direct);
+        return new Printed(printed.toString() + direct, failed, renders[0]);
+    }
+
+    private String uncached(String form, Severity failOn) {
+        return render(form, new Check(Workspace.open(List.of(root), Optional.empty()), new TokenizerRegistry())
+                .run(new CheckOptions(failOn, false)));
+    }
+
+    private static String render(String form, CheckResult result) {
+        return form.equals("json") ? dev.tare.report.CheckReport.json(result) : dev.tare.report.CheckReport.text(result);
+    }
+
     private CheckResult check(boolean cache) {
         return new Check(Workspace.open(List.of(root), Optional.empty()), new TokenizerRegistry())
                 .run(new CheckOptions(Severity.ERROR, cache));
@@ -269,7 +383,8 @@ class CheckCacheTest {
             }
         }
         try (Stream<Path> files = Files.walk(DEMO)) {
-            for (Path file : files.filter(Files::isRegularFile).toList()) {
+            // Other tests' runs on the demo leave their caches in its .tare folder.
+            for (Path file : files.filter(Files::isRegularFile).filter(f -> !f.startsWith(DEMO.resolve(".tare"))).toList()) {
                 Path target = root.resolve(DEMO.relativize(file).toString());
                 Files.createDirectories(target.getParent());
                 Files.copy(file, target);
@@ -278,9 +393,12 @@ class CheckCacheTest {
         ageEveryFile();
     }
 
-    /** Puts every file's time an hour back, out of the window in which a stamp cannot vouch for it. */
+    /**
+     * Puts every file's time at one moment long past, out of the window in which a stamp cannot
+     * vouch for it; always the same moment, so that a file no test touched keeps its stamp.
+     */
     private void ageEveryFile() throws IOException {
-        FileTime old = FileTime.from(Instant.now().minus(1, ChronoUnit.HOURS));
+        FileTime old = FileTime.from(Instant.parse("2026-01-05T09:00:00Z"));
         try (Stream<Path> files = Files.walk(root)) {
             for (Path file : files.filter(Files::isRegularFile).toList()) {
                 Files.setLastModifiedTime(file, old);
