@@ -79,7 +79,7 @@ final class CheckCommand implements Callable<Integer> {
             render.write(result, out);
             failed = result.failed();
         } else {
-            failed = check.report(options, format.name(), render, bytes -> StandardOutput.print(out, bytes), out);
+            failed = check.report(options, format.name(), render, stored -> StandardOutput.print(out, stored), out);
         }
         out.flush();
         return failed ? ExitCodes.FINDINGS : ExitCodes.OK;

@@ -1,5 +1,6 @@
 package dev.tare.cli;
 
+import dev.tare.scan.StoredReport;
 import java.io.IOException;
 import java.io.OutputStream;
 import java.io.OutputStreamWriter;
@@ -19,6 +20,31 @@ final class StandardOutput extends PrintWriter {
     StandardOutput(OutputStream stream) {
         super(new OutputStreamWriter(stream, StandardCharsets.UTF_8), true);
         this.stream = stream;
+    }
+
+    /**
+     * Prints a stored report to {@code out}: copied a chunk at a time onto standard output, decoded
+     * onto any other writer.
+     */
+    static void print(PrintWriter out, StoredReport.Report report) {
+        try {
+            if (out instanceof StandardOutput standard) {
+                standard.flush();
+                report.copyTo(standard.stream);
+                standard.stream.flush();
+            } else {
+                java.io.ByteArrayOutputStream bytes = new java.io.ByteArrayOutputStream();
+                report.copyTo(bytes);
+                out.print(bytes.toString(StandardCharsets.UTF_8));
+                out.flush();
+            }
+        } catch (IOException e) {
+            // As PrintWriter does: a closed pipe (tare check | head) is not an error of the check.
+            out.flush();
+            if (out instanceof StandardOutput standard) {
+                standard.setError();
+            }
+        }
     }
 
     /** Prints UTF-8 text to {@code out}: as bytes on standard output, as text on any other writer. */

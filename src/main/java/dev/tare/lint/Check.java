@@ -20,7 +20,6 @@ import dev.tare.template.TemplateSyntaxException;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.io.IOException;
 import java.io.Writer;
-import java.nio.ByteBuffer;
 import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.HashMap;
@@ -78,7 +77,7 @@ public final class Check {
 
     /**
      * Checks the files of the workspace as they are on disk, for a report that {@code render}
-     * writes, and prints it: through {@code print} as UTF-8, or straight to {@code direct}. With
+     * writes, and prints it: through {@code print} from the store, or straight to {@code direct}. With
      * {@link CheckOptions#cache()} the report is also kept whole in {@code .tare/cache}, and printed
      * from there while no folder walked and no file read has changed, with nothing walked, read,
      * linted or rendered (see {@link StoredReport}); otherwise the check runs as {@link #run} does.
@@ -86,7 +85,7 @@ public final class Check {
      * @param form what besides the check decides the report (its format), as a key
      * @return whether a finding is at or above the failing severity
      */
-    public boolean report(CheckOptions options, String form, ReportWriter render, Consumer<ByteBuffer> print,
+    public boolean report(CheckOptions options, String form, ReportWriter render, Consumer<StoredReport.Report> print,
                           Writer direct) {
         if (!options.cache()) {
             CheckResult result = run(options);
@@ -98,12 +97,14 @@ public final class Check {
                 + options.failOn() + "\n" + workspace.displayName() + "\n" + workspace.starts());
         Optional<StoredReport.Report> kept = stored.read();
         if (kept.isPresent()) {
-            print.accept(kept.get().utf8());
-            return kept.get().status() != 0;
+            try (StoredReport.Report report = kept.get()) {
+                print.accept(report);
+                return report.status() != 0;
+            }
         }
         Checked checked = runOnDisk(options, key);
         CheckResult result = checked.result();
-        Optional<ByteBuffer> written = checked.stamps(stored, workspace.root()).flatMap(stamps -> stored.store(stamps,
+        Optional<StoredReport.Report> written = checked.stamps(stored, workspace.root()).flatMap(stamps -> stored.store(stamps,
                 out -> {
                     Writer writer = new java.io.BufferedWriter(new java.io.OutputStreamWriter(out, StandardCharsets.UTF_8),
                             1 << 16);
@@ -111,7 +112,9 @@ public final class Check {
                     writer.flush();
                 }, result.failed() ? 1 : 0));
         if (written.isPresent()) {
-            print.accept(written.get());
+            try (StoredReport.Report report = written.get()) {
+                print.accept(report);
+            }
         } else {
             write(render, result, direct);
         }

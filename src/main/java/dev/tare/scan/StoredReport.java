@@ -72,10 +72,58 @@ public final class StoredReport {
     }
 
     /**
-     * A report as stored: its UTF-8 text (mapped from the file, read-only) and the exit status of
-     * the run that made it.
+     * A stored report: the file it is in, held open (a run that replaces the file meanwhile
+     * replaces a name, not what this reads), where its UTF-8 text lies, and the exit status of the
+     * run that made it. Close it once printed.
      */
-    public record Report(ByteBuffer utf8, int status) {
+    public static final class Report implements AutoCloseable {
+        private final FileChannel channel;
+        private final long start;
+        private final long length;
+        private final int status;
+
+        private Report(FileChannel channel, long start, long length, int status) {
+            this.channel = channel;
+            this.start = start;
+            this.length = length;
+            this.status = status;
+        }
+
+        /** The exit status of the run that made the report. */
+        public int status() {
+            return status;
+        }
+
+        /** The text, mapped read-only: for a report small enough to stay mapped while it is printed. */
+        public ByteBuffer map() throws IOException {
+            return channel.map(FileChannel.MapMode.READ_ONLY, start, length);
+        }
+
+        /**
+         * Copies the text to {@code out} a chunk at a time: a report of hundreds of megabytes, mapped,
+         * would count whole towards the process's resident memory.
+         */
+        public void copyTo(java.io.OutputStream out) throws IOException {
+            ByteBuffer chunk = ByteBuffer.allocate(1 << 16);
+            for (long at = start; at < start + length; ) {
+                chunk.clear().limit((int) Math.min(chunk.capacity(), start + length - at));
+                int n = channel.read(chunk, at);
+                if (n <= 0) {
+                    throw new IOException("the stored report " + length + " bytes long ended early");
+                }
+                out.write(chunk.array(), 0, n);
+                at += n;
+            }
+        }
+
+        @Override
+        public void close() {
+            try {
+                channel.close();
+            } catch (IOException e) {
+                // Only read from: nothing is lost.
+            }
+        }
     }
 
     /**
@@ -91,41 +139,71 @@ public final class StoredReport {
     }
 
     /**
-     * The stored report, when it exists, reads whole and nothing it was made from has changed. The
-     * file is mapped, not read: its report, megabytes long, goes from the page cache to standard
-     * output without passing through the heap. Files are only ever replaced whole (see
-     * {@link CacheFolder#replace}), so a mapping never sees one change under it.
+     * The stored report, when it exists, reads whole and nothing it was made from has changed. Only
+     * the stamps are read into the heap; the report stays in the file (see {@link Report}). Files
+     * are only ever replaced whole (see {@link CacheFolder#replace}).
      */
     public Optional<Report> read() {
-        return map(file).flatMap(this::report);
+        FileChannel channel;
+        try {
+            channel = FileChannel.open(file, StandardOpenOption.READ);
+        } catch (IOException | RuntimeException e) {
+            return Optional.empty();
+        }
+        Optional<Report> report = Optional.empty();
+        try {
+            report = whole(channel).filter(this::vouched);
+            return report;
+        } finally {
+            if (report.isEmpty()) {
+                close(channel);
+            }
+        }
     }
 
-    private static Optional<ByteBuffer> map(Path file) {
-        try (FileChannel channel = FileChannel.open(file, StandardOpenOption.READ)) {
+    /** The report in {@code channel} when the file is whole: its checksum holds over all before it. */
+    private static Optional<Report> whole(FileChannel channel) {
+        try {
             long size = channel.size();
-            if (size < TRAILER || size > Integer.MAX_VALUE) {
+            if (size < TRAILER) {
                 return Optional.empty();
             }
-            return Optional.of(channel.map(FileChannel.MapMode.READ_ONLY, 0, size));
+            ByteBuffer trailer = ByteBuffer.allocate(TRAILER);
+            readFully(channel, trailer, size - TRAILER);
+            int status = trailer.getInt(0);
+            long length = trailer.getLong(4);
+            long stored = trailer.getLong(12);
+            if (length < 0 || length > size - TRAILER) {
+                return Optional.empty();
+            }
+            CRC32C crc = new CRC32C();
+            ByteBuffer chunk = ByteBuffer.allocate(1 << 20);
+            for (long at = 0; at < size - 8; ) {
+                chunk.clear().limit((int) Math.min(chunk.capacity(), size - 8 - at));
+                readFully(channel, chunk, at);
+                chunk.flip();
+                crc.update(chunk);
+                at += chunk.limit();
+            }
+            return crc.getValue() == stored ? Optional.of(new Report(channel, size - TRAILER - length, length, status))
+                    : Optional.empty();
         } catch (IOException | RuntimeException e) {
             return Optional.empty();
         }
     }
 
-    /** The report in {@code bytes} (a stored file, mapped) when it is whole and what it was made from is unchanged. */
-    private Optional<Report> report(ByteBuffer bytes) {
+    /** Whether {@code report} was stored for this key and nothing it was made from has changed. */
+    private boolean vouched(Report report) {
         try {
-            int end = bytes.limit() - 8;
-            CRC32C crc = new CRC32C();
-            crc.update(bytes.duplicate().limit(end));
-            int status = bytes.getInt(end - 12);
-            long reportLength = bytes.getLong(end - 8);
-            ByteBuffer in = bytes.duplicate().limit(end);
-            if (bytes.getLong(end) != crc.getValue() || reportLength < 0 || reportLength > end - 12
-                    || in.getInt() != MAGIC || in.getInt() != FORMAT || !Arrays.equals(bytes(in), key)) {
-                return Optional.empty();
+            if (report.start > Integer.MAX_VALUE) {
+                return false;
             }
-            int reportStart = end - 12 - (int) reportLength;
+            ByteBuffer in = ByteBuffer.allocate((int) report.start);
+            readFully(report.channel, in, 0);
+            in.flip();
+            if (in.getInt() != MAGIC || in.getInt() != FORMAT || !Arrays.equals(bytes(in), key)) {
+                return false;
+            }
             long vouchedUntil = in.getLong() - RACY_NANOS;
             int folderCount = in.getInt();
             String[] folders = new String[folderCount];
@@ -145,12 +223,11 @@ public final class StoredReport {
                 sizes[i] = in.getLong();
                 times[i] = in.getLong();
             }
-            if (in.position() != reportStart) {
-                return Optional.empty();
+            if (in.hasRemaining()) {
+                return false;
             }
-            ByteBuffer report = in.slice(reportStart, (int) reportLength);
             // One pass over folders and files, on every core: the stat calls are most of a warm run.
-            boolean hold = IntStream.range(0, folderCount + fileCount).parallel().allMatch(i -> {
+            return IntStream.range(0, folderCount + fileCount).parallel().allMatch(i -> {
                 if (i < folderCount) {
                     Path folder = Path.of(folders[i]);
                     long[] now = stamp(folder);
@@ -161,10 +238,25 @@ public final class StoredReport {
                 long[] now = stamp(Path.of(files[f]));
                 return now[0] == sizes[f] && (now[0] < 0 || now[1] == times[f] && times[f] < vouchedUntil);
             });
-            return hold ? Optional.of(new Report(report, status)) : Optional.empty();
-        } catch (RuntimeException e) {
-            // Truncated or from an older format that slipped past the checksum: a scan.
-            return Optional.empty();
+        } catch (IOException | RuntimeException e) {
+            // Truncated or from an older format that slipped past the checksum: the command runs.
+            return false;
+        }
+    }
+
+    private static void readFully(FileChannel channel, ByteBuffer into, long position) throws IOException {
+        while (into.hasRemaining()) {
+            if (channel.read(into, position + into.position()) < 0) {
+                throw new IOException("ended early");
+            }
+        }
+    }
+
+    private static void close(FileChannel channel) {
+        try {
+            channel.close();
+        } catch (IOException e) {
+            // Only read from.
         }
     }
 
@@ -214,7 +306,7 @@ public final class StoredReport {
     /** Stores {@code report} and the run's exit status with the {@link #stamps} of what it was made from. */
     void save(byte[] stamps, byte[] report, int status) {
         try {
-            write(stamps, out -> out.write(report), status);
+            close(write(stamps, out -> out.write(report), status));
         } catch (IOException | RuntimeException e) {
             // An optimisation only: the report is printed either way.
         }
@@ -222,35 +314,27 @@ public final class StoredReport {
 
     /**
      * Stores the report {@code render} writes, with the run's exit status and the {@link #stamps}
-     * of what it was made from, and gives it back mapped from the stored file; empty when it could
-     * not be stored (the caller then renders it where it goes), having printed nothing.
+     * of what it was made from, and gives it back from the stored file; empty when it could not be
+     * stored (the caller then renders it where it goes), having printed nothing.
      */
-    public Optional<ByteBuffer> store(byte[] stamps, Body render, int status) {
+    public Optional<Report> store(byte[] stamps, Body render, int status) {
+        FileChannel written;
         try {
-            write(stamps, render, status);
-            return read(file).map(report -> report.utf8());
+            written = write(stamps, render, status);
         } catch (IOException | RuntimeException e) {
             return Optional.empty();
         }
+        Optional<Report> report = whole(written);
+        if (report.isEmpty()) {
+            close(written);
+        }
+        return report;
     }
 
-    /** The report just written, checked whole but with no stamp compared: the run that wrote it made it. */
-    private static Optional<Report> read(Path file) {
-        return map(file).flatMap(bytes -> {
-            int end = bytes.limit() - 8;
-            CRC32C crc = new CRC32C();
-            crc.update(bytes.duplicate().limit(end));
-            long length = bytes.getLong(end - 8);
-            if (bytes.getLong(end) != crc.getValue() || length < 0 || length > end - 12) {
-                return Optional.empty();
-            }
-            return Optional.of(new Report(bytes.slice(end - 12 - (int) length, (int) length), bytes.getInt(end - 12)));
-        });
-    }
-
-    private void write(byte[] stamps, Body render, int status) throws IOException {
+    /** Writes the file and gives it back open, as written, whatever another run puts in its place. */
+    private FileChannel write(byte[] stamps, Body render, int status) throws IOException {
         CacheFolder.prepare(root);
-        CacheFolder.replace(file, stream -> {
+        FileChannel written = CacheFolder.replace(file, stream -> {
             CRC32C crc = new CRC32C();
             CountingOutput counted = new CountingOutput(new java.util.zip.CheckedOutputStream(stream, crc));
             counted.write(stamps);
@@ -263,7 +347,13 @@ public final class StoredReport {
             trailer.flush();
             new DataOutputStream(stream).writeLong(crc.getValue());
         });
-        CacheFolder.pruneOthers(file, file.getFileName().toString().substring(0, file.getFileName().toString().lastIndexOf('-') + 1));
+        try {
+            String name = file.getFileName().toString();
+            CacheFolder.pruneOthers(file, name.substring(0, name.lastIndexOf('-') + 1));
+        } catch (IOException | RuntimeException e) {
+            // Old reports left behind are only disk space.
+        }
+        return written;
     }
 
     /** Counts the bytes that pass through, so the report's length is known once it is written. */

@@ -232,7 +232,7 @@ public final class TemplateCache<R> {
         try {
             CacheFolder.prepare(root);
             Optional<Whole<R>> whole = currentWhole != null ? Optional.of(currentWhole) : previousWhole;
-            CacheFolder.replace(file.get(), out -> encode(out, kept, whole));
+            CacheFolder.replace(file.get(), out -> encode(out, kept, whole)).close();
             String name = file.get().getFileName().toString();
             CacheFolder.pruneOthers(file.get(), name.substring(0, name.lastIndexOf('-') + 1));
         } catch (IOException | RuntimeException e) {

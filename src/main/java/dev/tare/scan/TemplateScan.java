@@ -85,7 +85,12 @@ public final class TemplateScan {
                 + workspace.displayName() + "\n" + workspace.starts());
         Optional<StoredReport.Report> kept = stored.read();
         if (kept.isPresent()) {
-            return kept.get().utf8();
+            try (StoredReport.Report report = kept.get()) {
+                // A scan's report is a few megabytes, mapped while it is printed.
+                return report.map();
+            } catch (IOException e) {
+                // Read a moment ago: should it fail now, the scan runs.
+            }
         }
         Scanned scanned = scan(setup, options, progress);
         // Writing the measurements and stamping the files for the stored report run beside the

@@ -330,7 +330,15 @@ class CheckCacheTest {
                 new CheckOptions(failOn, true), form, (result, out) -> {
                     renders[0]++;
                     out.write(render(form, result));
-                }, bytes -> printed.append(java.nio.charset.StandardCharsets.UTF_8.decode(bytes.duplicate())), direct);
+                }, stored -> {
+                    java.io.ByteArrayOutputStream bytes = new java.io.ByteArrayOutputStream();
+                    try {
+                        stored.copyTo(bytes);
+                    } catch (IOException e) {
+                        throw new java.io.UncheckedIOException(e);
+                    }
+                    printed.append(bytes.toString(java.nio.charset.StandardCharsets.UTF_8));
+                }, direct);
         return new Printed(printed.toString() + direct, failed, renders[0]);
     }
 
