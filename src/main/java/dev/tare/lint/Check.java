@@ -229,8 +229,9 @@ public final class Check {
         // The templates are linted on every core, each let go once linted; what each gave is taken in
         // path order, so the findings come in the order a single thread would give them.
         List<Linted> linted = selection.paths().parallelStream()
-                .map(path -> cache.find(path).map(kept -> new Linted(path, Optional.of(findings.configure(kept)),
-                                Optional.empty(), Optional.of(cache.dependencies(path)), true))
+                // What the cache gives was kept at the configured severities, which its key holds.
+                .map(path -> cache.find(path).map(kept -> new Linted(path, Optional.of(kept), Optional.empty(),
+                                Optional.of(cache.dependencies(path)), true))
                         .orElseGet(() -> lint(path, reader, loader, rules, each, across ? words : null, findings, cache)))
                 .toList();
         boolean everyWordGathered = true;
@@ -251,7 +252,7 @@ public final class Check {
             Optional<Long> fingerprint = cache.fingerprint(stamps.keySet());
             Optional<CheckedFile> kept = fingerprint.flatMap(cache::findWhole);
             if (kept.isPresent()) {
-                findings.configure(kept.get()).findings().forEach(findings::addConfigured);
+                kept.get().findings().forEach(findings::addConfigured);
             } else {
                 LintContext all = new LintContext(workspace.config(), tokenizers, loader.renderer(),
                         runTemplates(stamps, everyWordGathered ? words : null, loader, reader), catalog.ids(), Map.of(),
@@ -401,12 +402,6 @@ public final class Check {
 
         Findings(RuleCatalog catalog) {
             this.catalog = catalog;
-        }
-
-        /** The findings of a file, each as {@link #configure(Finding)} makes it. */
-        CheckedFile configure(CheckedFile checked) {
-            return new CheckedFile(checked.findings().stream().map(this::configure).toList(), checked.suppressions(),
-                    checked.hash());
         }
 
         /** The finding at its configured severity, with the one copy of its message; from any thread. */

@@ -16,11 +16,14 @@ import java.util.Set;
 /**
  * How a check keeps a {@link CheckedFile} in its {@link TemplateCache}. Strings are written with
  * their length as an int, not as modified UTF-8, which stops at 64 KiB: a rewrite's replacement can
- * be a whole block. A finding's path is written only when it is not the file's own.
+ * be a whole block. A finding's path is written only when it is not the file's own. Rule ids and
+ * messages are read as one copy each (one cache, read on one thread): many findings say the same.
  */
 final class CheckedFileCodec implements TemplateCache.Codec<CheckedFile> {
     private static final Severity[] SEVERITIES = Severity.values();
     private static final RewriteClass[] CLASSES = RewriteClass.values();
+
+    private final Map<String, String> read = new java.util.HashMap<>();
 
     @Override
     public void write(DataOutputStream out, CheckedFile checked) throws IOException {
@@ -91,9 +94,9 @@ final class CheckedFileCodec implements TemplateCache.Codec<CheckedFile> {
             int column = in.readInt();
             int endLine = in.readInt();
             int endColumn = in.readInt();
-            String rule = string(in);
+            String rule = once(string(in));
             Severity severity = SEVERITIES[in.readByte()];
-            String message = string(in);
+            String message = once(string(in));
             RewriteClass rewriteClass = CLASSES[in.readByte()];
             Optional<Rewrite> rewrite = Optional.empty();
             if (in.readBoolean()) {
@@ -130,6 +133,10 @@ final class CheckedFileCodec implements TemplateCache.Codec<CheckedFile> {
         }
         Optional<Integer> hash = in.readBoolean() ? Optional.of(in.readInt()) : Optional.empty();
         return new CheckedFile(findings, suppressions, hash);
+    }
+
+    private String once(String text) {
+        return read.computeIfAbsent(text, t -> t);
     }
 
     private static void string(DataOutputStream out, String text) throws IOException {
