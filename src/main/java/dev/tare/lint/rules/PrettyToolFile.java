@@ -61,8 +61,11 @@ final class PrettyToolFile implements ToolRule {
         Tokenizer tokenizer = context.tokenizer(template);
         int saving = tokenizer.count(source) - tokenizer.count(after);
         Rewrite rewrite = new Rewrite(List.of(new Edit(0, source.length(), after)), saving);
+        int lines = source.strip().split("\n", -1).length;
+        String layout = lines == 1 ? "tool file written with spaces between its JSON tokens"
+                : String.format(Locale.ROOT, "tool file laid out over %d lines", lines);
         return List.of(ToolFindings.at(template, context, DESCRIPTOR, 1, String.format(Locale.ROOT,
-                "tool file laid out over %d lines; minified it parses to the same JSON and saves %,d tokens"
-                        + " per call when sent as written", source.split("\n", -1).length, saving), Optional.of(rewrite)));
+                "%s; minified it parses to the same JSON and saves %,d tokens per call when sent as written", layout,
+                saving), Optional.of(rewrite)));
     }
 }
