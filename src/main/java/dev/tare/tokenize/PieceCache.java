@@ -7,24 +7,26 @@ import java.util.Arrays;
  * repeats the same words endlessly, so after the first few files nearly every piece is found here
  * and the merge never runs. Pieces are looked up by their place in the text being counted, without
  * copying them out, in an open-addressing table. Only short pieces are kept, and at most
- * {@link #MAX_ENTRIES} of them, so the memory it takes stays small and fixed; once full, it keeps
+ * {@link #MAX_ENTRIES} of them, so the memory it takes stays small and bounded; once full, it keeps
  * what it has. Not thread-safe: each counting thread has its own.
  *
- * <p>The table is laid out for the memory, not the arithmetic: with tens of thousands of pieces it
- * outgrows the processor's caches, and a lookup through a key array of its own and an id array of
- * its own cost four cache misses in a row (the slot's key reference, the key, the value reference,
- * the ids). Here a slot is one {@code long} holding where the key's chars are, its length, its
- * number of ids and a few bits of its hash, and the keys' chars lie one after another in one array:
- * a hit while counting reads the slot and the chars, and a piece of another length or hash is
- * passed over without reading its chars at all.
+ * <p>The table is laid out for the memory, not the arithmetic: profiles of the benchmark scan put a
+ * sixth of its samples in comparing a found key's chars, which is the first touch of memory the
+ * lookup did not have at hand. A lookup through a key array and an id array of their own reads four
+ * places in a row (the slot's key reference, the key, the value reference, the ids). Here a slot is
+ * one {@code long} holding where the key's chars are, its length, its number of ids and a few bits
+ * of its hash, and the keys' chars lie one after another in one array: a hit while counting reads
+ * the slot and the chars, and a piece of another length or hash is passed over without reading its
+ * chars at all.
  */
 final class PieceCache {
     /** Longer pieces are rare and unlikely to come again. */
     static final int MAX_PIECE_CHARS = 48;
     static final int MAX_ENTRIES = 1 << 16;
 
-    private static final int SLOTS = MAX_ENTRIES * 2;
-    private static final int MASK = SLOTS - 1;
+    /** The table's size when full: it stays at most half full, so that a lookup seldom probes far. */
+    private static final int MAX_SLOTS = MAX_ENTRIES * 2;
+    private static final int FIRST_SLOTS = 1 << 12;
     /** The bits of a slot that a lookup must match before comparing chars: the hash bits and the length. */
     private static final long MATCHED_BITS = 0xFFFF_00FF_0000_0000L;
     /** The most ids a slot can record (a 48-char piece has at most 144 UTF-8 bytes, one id each). */
@@ -33,10 +35,13 @@ final class PieceCache {
     /**
      * Per slot, 0 when empty: bits 48 to 63 hold hash bits the slot's index does not use, 40 to 47
      * the number of ids, 32 to 39 the key's length (never 0), 0 to 31 where its chars start in
-     * {@link #keyChars}.
+     * {@link #keyChars}. The table starts small and doubles as it fills: a few tens of thousands
+     * of pieces spread over the largest table would touch a different cache line for nearly every
+     * lookup, and prompt text has far fewer distinct pieces than that.
      */
-    private final long[] slots = new long[SLOTS];
-    private final int[][] values = new int[SLOTS][];
+    private long[] slots = new long[FIRST_SLOTS];
+    private int[][] values = new int[FIRST_SLOTS][];
+    private int mask = FIRST_SLOTS - 1;
     private char[] keyChars = new char[1 << 14];
     private int keyCharsUsed;
     private int size;
@@ -59,19 +64,44 @@ final class PieceCache {
         if (length > MAX_PIECE_CHARS || length == 0 || ids.length > MAX_IDS || size >= MAX_ENTRIES) {
             return;
         }
-        int hash = hash(text, start, end);
-        int slot = hash & MASK;
-        while (slots[slot] != 0) {
-            slot = (slot + 1) & MASK;
+        if ((size + 1) * 2 > slots.length) {
+            grow();
         }
         if (keyCharsUsed + length > keyChars.length) {
             keyChars = Arrays.copyOf(keyChars, Math.max(keyChars.length * 2, keyCharsUsed + length));
         }
         System.arraycopy(text, start, keyChars, keyCharsUsed, length);
-        slots[slot] = matchBits(hash, length) | ((long) ids.length << 40) | keyCharsUsed;
-        values[slot] = ids;
+        int hash = hash(text, start, end);
+        place(matchBits(hash, length) | ((long) ids.length << 40) | keyCharsUsed, hash, ids);
         keyCharsUsed += length;
         size++;
+    }
+
+    private void place(long entry, int hash, int[] ids) {
+        int slot = hash & mask;
+        while (slots[slot] != 0) {
+            slot = (slot + 1) & mask;
+        }
+        slots[slot] = entry;
+        values[slot] = ids;
+    }
+
+    /** Doubles the table, placing every entry again by the hash of its chars. */
+    private void grow() {
+        long[] oldSlots = slots;
+        int[][] oldValues = values;
+        int doubled = Math.min(oldSlots.length * 2, MAX_SLOTS);
+        slots = new long[doubled];
+        values = new int[doubled][];
+        mask = doubled - 1;
+        for (int i = 0; i < oldSlots.length; i++) {
+            long entry = oldSlots[i];
+            if (entry != 0) {
+                int keyStart = (int) entry;
+                int length = (int) (entry >>> 32) & 0xFF;
+                place(entry, hash(keyChars, keyStart, keyStart + length), oldValues[i]);
+            }
+        }
     }
 
     /** The slot holding {@code text[start, end)}, or -1. */
@@ -82,7 +112,7 @@ final class PieceCache {
         }
         int hash = hash(text, start, end);
         long wanted = matchBits(hash, length);
-        for (int slot = hash & MASK; ; slot = (slot + 1) & MASK) {
+        for (int slot = hash & mask; ; slot = (slot + 1) & mask) {
             long entry = slots[slot];
             if (entry == 0) {
                 return -1;
