@@ -94,7 +94,18 @@ public final class SafeReader {
         return null;
     }
 
+    /**
+     * The text of valid UTF-8, or an error naming the first bad byte. {@code new String} decodes
+     * into the string's own array, without a char buffer to copy from; it replaces a bad
+     * sequence with U+FFFD rather than failing, so a text holding U+FFFD is decoded again strictly,
+     * which either finds the bad byte or gives the same text (the file held that character itself).
+     */
     private static String decodeUtf8(byte[] bytes, int start) {
+        String text = new String(bytes, start, bytes.length - start, StandardCharsets.UTF_8);
+        return text.indexOf('\uFFFD') < 0 ? text : decodeStrictly(bytes, start);
+    }
+
+    private static String decodeStrictly(byte[] bytes, int start) {
         CharsetDecoder decoder = StandardCharsets.UTF_8.newDecoder()
                 .onMalformedInput(CodingErrorAction.REPORT)
                 .onUnmappableCharacter(CodingErrorAction.REPORT);

@@ -56,6 +56,45 @@ class SafeReaderTest {
     }
 
     @Test
+    void keepsAReplacementCharacterTheFileHolds() {
+        assertEquals("a\uFFFDb", decode("a\uFFFDb".getBytes(StandardCharsets.UTF_8)).text());
+        byte[] both = {(byte) 0xEF, (byte) 0xBF, (byte) 0xBD, '\n', 'x', (byte) 0xC3, '('};
+        assertEquals("not valid UTF-8 (bad byte sequence at offset 5, line 2); save the file as UTF-8", refusal(both));
+    }
+
+    /** Random bytes, mostly valid UTF-8: the text or the refusal is what a strict decoder says. */
+    @Test
+    void decodesAsAStrictDecoderOnRandomBytes() {
+        java.util.Random random = new java.util.Random(5);
+        String[] pieces = {"a", " ", "\n", "\u00e9", "\u20ac", "\ud83d\ude42", "\uFFFD", "\u4e2d"};
+        for (int round = 0; round < 3_000; round++) {
+            java.io.ByteArrayOutputStream out = new java.io.ByteArrayOutputStream();
+            for (int i = 0; i < 1 + random.nextInt(20); i++) {
+                byte[] piece = pieces[random.nextInt(pieces.length)].getBytes(StandardCharsets.UTF_8);
+                if (random.nextInt(15) == 0) {
+                    piece = java.util.Arrays.copyOf(piece, Math.max(1, piece.length - 1));
+                    piece[0] = random.nextBoolean() ? piece[0] : (byte) (0x80 + random.nextInt(0x7F));
+                }
+                out.write(piece, 0, piece.length);
+            }
+            byte[] bytes = out.toByteArray();
+            java.nio.charset.CharsetDecoder strict = StandardCharsets.UTF_8.newDecoder()
+                    .onMalformedInput(java.nio.charset.CodingErrorAction.REPORT);
+            String expected;
+            try {
+                expected = strict.decode(java.nio.ByteBuffer.wrap(bytes)).toString();
+            } catch (java.nio.charset.CharacterCodingException e) {
+                expected = null;
+            }
+            if (expected != null) {
+                assertEquals(expected, decode(bytes).text());
+            } else {
+                assertTrue(refusal(bytes).startsWith("not valid UTF-8"));
+            }
+        }
+    }
+
+    @Test
     void refusesFilesOverTheLimitNamingTheSetting() {
         String message = refusal(new byte[1025]);
         assertTrue(message.contains("1025 bytes > 1024"), message);
