@@ -108,4 +108,39 @@ class SafeReaderTest {
         assertEquals("caf\u00e9 \uD83D\uDCA7", text.text());
         assertEquals(10, text.byteSize());
     }
+
+    @Test
+    void readsFilesFromDiskUpToTheLimit(@org.junit.jupiter.api.io.TempDir Path dir) throws Exception {
+        Path empty = java.nio.file.Files.write(dir.resolve("empty.md"), new byte[0]);
+        assertEquals("", reader.read("empty.md", empty).text());
+        byte[] full = "x".repeat(1024).getBytes(StandardCharsets.UTF_8);
+        Path atLimit = java.nio.file.Files.write(dir.resolve("full.md"), full);
+        assertEquals(1024, reader.read("full.md", atLimit).text().length());
+        Path over = java.nio.file.Files.write(dir.resolve("over.md"), "x".repeat(1025).getBytes(StandardCharsets.UTF_8));
+        String message = assertThrows(TareException.class, () -> reader.read("over.md", over)).getMessage();
+        assertTrue(message.contains("1025 bytes > 1024"), message);
+    }
+
+    /** A file without a size (a pipe) is read in chunks, up to the limit. */
+    @Test
+    void readsAPipe(@org.junit.jupiter.api.io.TempDir Path dir) throws Exception {
+        Path pipe = dir.resolve("pipe.md");
+        boolean made;
+        try {
+            made = new ProcessBuilder("mkfifo", pipe.toString()).start().waitFor() == 0;
+        } catch (java.io.IOException e) {
+            made = false;
+        }
+        org.junit.jupiter.api.Assumptions.assumeTrue(made, "mkfifo is needed to make a pipe");
+        Thread writer = new Thread(() -> {
+            try {
+                java.nio.file.Files.writeString(pipe, "from a pipe");
+            } catch (java.io.IOException e) {
+                throw new java.io.UncheckedIOException(e);
+            }
+        });
+        writer.start();
+        assertEquals("from a pipe", reader.read("pipe.md", pipe).text());
+        writer.join();
+    }
 }
