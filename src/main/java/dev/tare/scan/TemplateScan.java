@@ -342,7 +342,8 @@ public final class TemplateScan {
         private Measurement measure(Template template, Rendering samples, int characters) {
             // With no sample in it, the sample rendering is the static one, and the same strings let
             // Counts see that at once.
-            boolean sampled = samples.variables().stream().anyMatch(o -> o.spec().flatMap(VariableSpec::sample).isPresent());
+            boolean sampled = samples.variables().stream()
+                    .anyMatch(occurrence -> occurrence.spec().flatMap(VariableSpec::sample).isPresent());
             Rendering empty = sampled ? loader.renderer().renderStatic(template) : samples;
             int declared = Estimates.declaredTokens(samples);
             Counts counts = new Counts();

@@ -18,6 +18,7 @@ import java.io.IOException;
 import java.util.HashMap;
 import java.util.Map;
 import java.util.OptionalInt;
+import java.util.Set;
 import org.yaml.snakeyaml.LoaderOptions;
 
 /**
@@ -63,7 +64,7 @@ public final class YamlDocument {
     }
 
     /** Every path with a recorded location: for comparing two readings of a document. */
-    java.util.Set<String> locatedPaths() {
+    Set<String> locatedPaths() {
         return locations.keySet();
     }
 
