@@ -15,6 +15,7 @@ import dev.tare.source.SourceText;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
 import dev.tare.template.TemplateKind;
+import dev.tare.template.VariableSpec;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.io.IOException;
@@ -318,7 +319,11 @@ public final class TemplateScan {
         }
 
         private Measurement measure(Template template, Rendering samples, int characters) {
-            Rendering empty = loader.renderer().renderStatic(template);
+            // With no sample in it, the sample rendering is the static one, and the same strings let
+            // Counts see that at once.
+            boolean sampled = samples.variables().stream()
+                    .anyMatch(occurrence -> occurrence.spec().flatMap(VariableSpec::sample).isPresent());
+            Rendering empty = sampled ? loader.renderer().renderStatic(template) : samples;
             int declared = Estimates.declaredTokens(samples);
             Counts counts = new Counts();
             List<Template> tools = toolsSentWith(template);

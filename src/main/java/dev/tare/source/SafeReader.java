@@ -2,15 +2,17 @@ package dev.tare.source;
 
 import dev.tare.TareException;
 import java.io.IOException;
-import java.io.InputStream;
 import java.nio.ByteBuffer;
 import java.nio.charset.CharsetDecoder;
 import java.nio.charset.CoderResult;
 import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.CharBuffer;
+import java.nio.channels.Channels;
+import java.nio.channels.SeekableByteChannel;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Arrays;
 
 /**
  * The one way Tare reads a template file: UTF-8 only, a leading byte-order mark stripped and
@@ -61,13 +63,39 @@ public final class SafeReader {
         return new SourceText(path, file, decodeUtf8(bytes, start), bom, bytes.length);
     }
 
+    /**
+     * The file's bytes, at most {@code maxBytes} of them. A file is read into one array of the size
+     * its channel reports, and one more byte is asked for to see that it ends there; what a file
+     * without a size (a pipe) or one that grew meanwhile holds beyond that is read in chunks, up to
+     * the limit. One array per file instead of a list of chunks and a copy: reading was a sixth of
+     * what a cold scan allocated.
+     */
     private byte[] readBounded(Path file) {
-        try (InputStream in = Files.newInputStream(file)) {
-            byte[] bytes = in.readNBytes((int) Math.min(Integer.MAX_VALUE - 8, maxBytes + 1));
-            if (bytes.length > maxBytes) {
-                throw new TareException(tooLarge(Files.size(file)));
+        try (SeekableByteChannel channel = Files.newByteChannel(file)) {
+            long size = channel.size();
+            if (size > maxBytes) {
+                throw new TareException(tooLarge(size));
             }
-            return bytes;
+            byte[] bytes = new byte[(int) size];
+            ByteBuffer buffer = ByteBuffer.wrap(bytes);
+            while (buffer.hasRemaining() && channel.read(buffer) >= 0) {
+                // until the array is full or the file ends early
+            }
+            if (buffer.hasRemaining()) {
+                return Arrays.copyOf(bytes, buffer.position());
+            }
+            ByteBuffer next = ByteBuffer.allocate(1);
+            if (channel.read(next) < 0) {
+                return bytes;
+            }
+            byte[] rest = Channels.newInputStream(channel).readNBytes((int) Math.min(Integer.MAX_VALUE - 8, maxBytes - size));
+            if (size + 1 + rest.length > maxBytes) {
+                throw new TareException(tooLarge(Math.max(Files.size(file), size + 1 + rest.length)));
+            }
+            byte[] all = Arrays.copyOf(bytes, bytes.length + 1 + rest.length);
+            all[bytes.length] = next.get(0);
+            System.arraycopy(rest, 0, all, bytes.length + 1, rest.length);
+            return all;
         } catch (IOException e) {
             throw new TareException("cannot be read (" + e.getClass().getSimpleName() + ": " + e.getMessage() + ")", e);
         }
@@ -94,7 +122,18 @@ public final class SafeReader {
         return null;
     }
 
+    /**
+     * The text of valid UTF-8, or an error naming the first bad byte. {@code new String} decodes
+     * into the string's own array, without a char buffer to copy from; it replaces a bad
+     * sequence with U+FFFD rather than failing, so a text holding U+FFFD is decoded again strictly,
+     * which either finds the bad byte or gives the same text (the file held that character itself).
+     */
     private static String decodeUtf8(byte[] bytes, int start) {
+        String text = new String(bytes, start, bytes.length - start, StandardCharsets.UTF_8);
+        return text.indexOf('\uFFFD') < 0 ? text : decodeStrictly(bytes, start);
+    }
+
+    private static String decodeStrictly(byte[] bytes, int start) {
         CharsetDecoder decoder = StandardCharsets.UTF_8.newDecoder()
                 .onMalformedInput(CodingErrorAction.REPORT)
                 .onUnmappableCharacter(CodingErrorAction.REPORT);

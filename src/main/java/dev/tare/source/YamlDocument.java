@@ -18,6 +18,7 @@ import java.io.IOException;
 import java.util.HashMap;
 import java.util.Map;
 import java.util.OptionalInt;
+import java.util.Set;
 import org.yaml.snakeyaml.LoaderOptions;
 
 /**
@@ -44,9 +45,27 @@ public final class YamlDocument {
         this.locations = locations;
     }
 
-    /** Parses YAML text (JSON is YAML too, but use {@link #parseJson} for JSON files' exact messages). */
+    /**
+     * Parses YAML text (JSON is YAML too, but use {@link #parseJson} for JSON files' exact messages).
+     * Documents in the plain subset most prompt files use are read by {@link SimpleYaml}, the rest
+     * (and every error) by Jackson's YAML parser, with the same results.
+     */
     public static YamlDocument parseYaml(String text) {
+        SimpleYaml.Read simple = SimpleYaml.read(text);
+        if (simple != null) {
+            return new YamlDocument(simple.root(), simple.locations());
+        }
         return parse(YAML, text);
+    }
+
+    /** Parses YAML text with Jackson's YAML parser only: what {@link SimpleYaml} is held to. */
+    static YamlDocument parseYamlInFull(String text) {
+        return parse(YAML, text);
+    }
+
+    /** Every path with a recorded location: for comparing two readings of a document. */
+    Set<String> locatedPaths() {
+        return locations.keySet();
     }
 
     /** Parses JSON text. */

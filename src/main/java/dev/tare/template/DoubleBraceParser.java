@@ -52,7 +52,7 @@ final class DoubleBraceParser extends SegmentParser {
         int close = triple ? closing(text, open, "{{{", "}}}", end, locator) : closing(text, open, "{{", "}}", end, locator);
         int width = triple ? 3 : 2;
         String source = text.substring(open, close);
-        String inner = stripControl(source.substring(width, source.length() - width));
+        String inner = stripControl(source, width, source.length() - width);
         Span span = out.span(open, close);
         if (inner.startsWith(">")) {
             String name = unquote(inner.substring(1).trim());
@@ -73,8 +73,8 @@ final class DoubleBraceParser extends SegmentParser {
     private int statement(String text, int open, int end, Locator locator, Builder out) {
         int close = closing(text, open, "{%", "%}", end, locator);
         String source = text.substring(open, close);
-        String inner = stripControl(source.substring(2, source.length() - 2));
-        String keyword = inner.split("\\s+", 2)[0];
+        String inner = stripControl(source, 2, source.length() - 2);
+        String keyword = inner.substring(0, wordEnd(inner));
         Span span = out.span(open, close);
         if (keyword.equals("include")) {
             Matcher quoted = QUOTED.matcher(inner);
@@ -118,16 +118,48 @@ final class DoubleBraceParser extends SegmentParser {
         return new Segment.Variable(name, source, span);
     }
 
-    /** Removes whitespace-control marks ({@code -}, {@code ~}, {@code +}) and surrounding blanks. */
-    private static String stripControl(String inner) {
-        String s = inner.strip();
-        if (!s.isEmpty() && "-~+".indexOf(s.charAt(0)) >= 0) {
-            s = s.substring(1);
+    /**
+     * {@code s[from, to)} without whitespace-control marks ({@code -}, {@code ~}, {@code +}) and the
+     * blanks around them: stripped, one mark taken off each end, stripped again. Worked out on
+     * offsets so that only the result is copied.
+     */
+    private static String stripControl(String s, int from, int to) {
+        int start = skipBlanks(s, from, to);
+        int end = dropBlanks(s, start, to);
+        if (start < end && "-~+".indexOf(s.charAt(start)) >= 0) {
+            start++;
         }
-        if (!s.isEmpty() && "-~+".indexOf(s.charAt(s.length() - 1)) >= 0) {
-            s = s.substring(0, s.length() - 1);
+        if (start < end && "-~+".indexOf(s.charAt(end - 1)) >= 0) {
+            end--;
         }
-        return s.strip();
+        start = skipBlanks(s, start, end);
+        return s.substring(start, dropBlanks(s, start, end));
+    }
+
+    /** The first offset in {@code [from, to)} that is not white space as {@link String#strip} sees it, else {@code to}. */
+    private static int skipBlanks(String s, int from, int to) {
+        while (from < to && Character.isWhitespace(s.charAt(from))) {
+            from++;
+        }
+        return from;
+    }
+
+    /** The end of {@code s[from, to)} with trailing white space (as {@link String#strip} sees it) left off. */
+    private static int dropBlanks(String s, int from, int to) {
+        while (to > from && Character.isWhitespace(s.charAt(to - 1))) {
+            to--;
+        }
+        return to;
+    }
+
+    /** The end of the statement's first word: the first character a regular expression's {@code \s} matches. */
+    private static int wordEnd(String inner) {
+        for (int i = 0; i < inner.length(); i++) {
+            if (" \t\n\013\f\r".indexOf(inner.charAt(i)) >= 0) {
+                return i;
+            }
+        }
+        return inner.length();
     }
 
     private static String unquote(String name) {

@@ -24,9 +24,30 @@ final class LineIndex implements Locator {
 
     /** An index of {@code text} whose first character stands at {@code line}, {@code column} of a file. */
     static LineIndex of(String text, int line, int column) {
+        return new LineIndex(text.indexOf('\r') < 0 ? newlineStarts(text) : anyBreakStarts(text), line, column);
+    }
+
+    /**
+     * Line starts of a text without {@code \r}. {@code String.indexOf} runs over the string's own
+     * bytes, which the first JIT tier (the launcher's for a scan) does several times faster than a
+     * loop of {@code charAt}, each of which checks its index and, on a UTF-16 string, its coder.
+     */
+    private static int[] newlineStarts(String text) {
         int[] starts = new int[16];
-        int count = 0;
-        starts[count++] = 0;
+        int count = 1;
+        for (int at = text.indexOf('\n'); at >= 0; at = text.indexOf('\n', at + 1)) {
+            if (count == starts.length) {
+                starts = Arrays.copyOf(starts, count * 2);
+            }
+            starts[count++] = at + 1;
+        }
+        return Arrays.copyOf(starts, count);
+    }
+
+    /** Line starts of any text: {@code \r\n}, {@code \n} and a lone {@code \r} each end a line. */
+    static int[] anyBreakStarts(String text) {
+        int[] starts = new int[16];
+        int count = 1;
         for (int i = 0; i < text.length(); i++) {
             char c = text.charAt(i);
             boolean ends = c == '\n' || (c == '\r' && (i + 1 == text.length() || text.charAt(i + 1) != '\n'));
@@ -37,7 +58,12 @@ final class LineIndex implements Locator {
                 starts[count++] = i + 1;
             }
         }
-        return new LineIndex(Arrays.copyOf(starts, count), line, column);
+        return Arrays.copyOf(starts, count);
+    }
+
+    /** The offsets where the indexed text's lines start, the first being 0. */
+    int[] starts() {
+        return starts.clone();
     }
 
     private int lineIndex(int offset) {

@@ -42,7 +42,8 @@ final class BytePairEncoding implements Tokenizer {
         int total = 0;
         for (int start = 0; start < length; ) {
             int end = pretokenizer.pieceEnd(chars, start, length);
-            total += piece(own.cache, chars, start, end).length;
+            int ids = own.cache.count(chars, start, end);
+            total += ids >= 0 ? ids : piece(own.cache, chars, start, end).length;
             start = end;
         }
         return total;

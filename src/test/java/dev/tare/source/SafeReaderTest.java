@@ -56,6 +56,45 @@ class SafeReaderTest {
     }
 
     @Test
+    void keepsAReplacementCharacterTheFileHolds() {
+        assertEquals("a\uFFFDb", decode("a\uFFFDb".getBytes(StandardCharsets.UTF_8)).text());
+        byte[] both = {(byte) 0xEF, (byte) 0xBF, (byte) 0xBD, '\n', 'x', (byte) 0xC3, '('};
+        assertEquals("not valid UTF-8 (bad byte sequence at offset 5, line 2); save the file as UTF-8", refusal(both));
+    }
+
+    /** Random bytes, mostly valid UTF-8: the text or the refusal is what a strict decoder says. */
+    @Test
+    void decodesAsAStrictDecoderOnRandomBytes() {
+        java.util.Random random = new java.util.Random(5);
+        String[] pieces = {"a", " ", "\n", "\u00e9", "\u20ac", "\ud83d\ude42", "\uFFFD", "\u4e2d"};
+        for (int round = 0; round < 3_000; round++) {
+            java.io.ByteArrayOutputStream out = new java.io.ByteArrayOutputStream();
+            for (int i = 0; i < 1 + random.nextInt(20); i++) {
+                byte[] piece = pieces[random.nextInt(pieces.length)].getBytes(StandardCharsets.UTF_8);
+                if (random.nextInt(15) == 0) {
+                    piece = java.util.Arrays.copyOf(piece, Math.max(1, piece.length - 1));
+                    piece[0] = random.nextBoolean() ? piece[0] : (byte) (0x80 + random.nextInt(0x7F));
+                }
+                out.write(piece, 0, piece.length);
+            }
+            byte[] bytes = out.toByteArray();
+            java.nio.charset.CharsetDecoder strict = StandardCharsets.UTF_8.newDecoder()
+                    .onMalformedInput(java.nio.charset.CodingErrorAction.REPORT);
+            String expected;
+            try {
+                expected = strict.decode(java.nio.ByteBuffer.wrap(bytes)).toString();
+            } catch (java.nio.charset.CharacterCodingException e) {
+                expected = null;
+            }
+            if (expected != null) {
+                assertEquals(expected, decode(bytes).text());
+            } else {
+                assertTrue(refusal(bytes).startsWith("not valid UTF-8"));
+            }
+        }
+    }
+
+    @Test
     void refusesFilesOverTheLimitNamingTheSetting() {
         String message = refusal(new byte[1025]);
         assertTrue(message.contains("1025 bytes > 1024"), message);
@@ -68,5 +107,40 @@ class SafeReaderTest {
         SourceText text = reader.read("a.md", file);
         assertEquals("caf\u00e9 \uD83D\uDCA7", text.text());
         assertEquals(10, text.byteSize());
+    }
+
+    @Test
+    void readsFilesFromDiskUpToTheLimit(@org.junit.jupiter.api.io.TempDir Path dir) throws Exception {
+        Path empty = java.nio.file.Files.write(dir.resolve("empty.md"), new byte[0]);
+        assertEquals("", reader.read("empty.md", empty).text());
+        byte[] full = "x".repeat(1024).getBytes(StandardCharsets.UTF_8);
+        Path atLimit = java.nio.file.Files.write(dir.resolve("full.md"), full);
+        assertEquals(1024, reader.read("full.md", atLimit).text().length());
+        Path over = java.nio.file.Files.write(dir.resolve("over.md"), "x".repeat(1025).getBytes(StandardCharsets.UTF_8));
+        String message = assertThrows(TareException.class, () -> reader.read("over.md", over)).getMessage();
+        assertTrue(message.contains("1025 bytes > 1024"), message);
+    }
+
+    /** A file without a size (a pipe) is read in chunks, up to the limit. */
+    @Test
+    void readsAPipe(@org.junit.jupiter.api.io.TempDir Path dir) throws Exception {
+        Path pipe = dir.resolve("pipe.md");
+        boolean made;
+        try {
+            made = new ProcessBuilder("mkfifo", pipe.toString()).start().waitFor() == 0;
+        } catch (java.io.IOException e) {
+            made = false;
+        }
+        org.junit.jupiter.api.Assumptions.assumeTrue(made, "mkfifo is needed to make a pipe");
+        Thread writer = new Thread(() -> {
+            try {
+                java.nio.file.Files.writeString(pipe, "from a pipe");
+            } catch (java.io.IOException e) {
+                throw new java.io.UncheckedIOException(e);
+            }
+        });
+        writer.start();
+        assertEquals("from a pipe", reader.read("pipe.md", pipe).text());
+        writer.join();
     }
 }
