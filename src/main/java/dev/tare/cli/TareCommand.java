@@ -85,6 +85,8 @@ public final class TareCommand implements Runnable {
         commandLine.setOut(out);
         commandLine.setErr(err);
         commandLine.setCaseInsensitiveEnumValuesAllowed(true);
+        // count reads its own @LIST files (see CountCommand); no other command takes lists.
+        commandLine.setExpandAtFiles(false);
         commandLine.setExecutionExceptionHandler(TareCommand::handleExecutionException);
         commandLine.setExecutionStrategy(parseResult -> {
             long started = System.nanoTime();

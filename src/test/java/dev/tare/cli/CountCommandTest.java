@@ -41,6 +41,23 @@ class CountCommandTest {
     }
 
     @Test
+    void anAtListNamesOneFilePerLineSpacesIncluded() throws Exception {
+        Path a = Files.writeString(dir.resolve("a.md"), "First file.\n");
+        Path b = Files.writeString(dir.resolve("with space.md"), "Second file, longer than the first.\n");
+        Path list = Files.writeString(dir.resolve("files.txt"), a + "\r\n\n" + b + "\n");
+        Cli.Run listed = Cli.run("count", "--format", "json", "@" + list);
+        Cli.Run named = Cli.run("count", "--format", "json", a.toString(), b.toString());
+        assertEquals(0, listed.exitCode(), listed.err());
+        assertEquals(named.out(), listed.out());
+        assertEquals(2, new ObjectMapper().readTree(listed.out()).get("files").size());
+
+        Cli.Run missing = Cli.run("count", "@" + dir.resolve("no-such-list.txt"));
+        assertEquals(2, missing.exitCode());
+        assertTrue(missing.err().startsWith("tare: ") && missing.err().contains("no-such-list.txt: the list of files"
+                + " cannot be read"), missing.err());
+    }
+
+    @Test
     void readsStandardInputForADash() throws Exception {
         InputStream saved = System.in;
         try {
