@@ -35,10 +35,10 @@ import java.util.zip.CRC32C;
  *
  * <p>A folder is unchanged when its modification time is, and that time lies more than two seconds
  * before the run that stored it; a more recent folder (the root, whose {@code .tare} the first
- * scan creates) is listed again and its names compared with the walk's. A file is unchanged when its
+ * run creates) is listed again and its names compared with the walk's. A file is unchanged when its
  * size and modification time are, and the time is that old; a file too recent to vouch for makes
- * the run scan (where {@link TemplateCache} hashes its text). A scan that skipped a file is not stored,
- * since what made it fail may lie anywhere.
+ * the command run (where {@link TemplateCache} hashes its text). A run that skipped a file is not
+ * stored, since what made it fail may lie anywhere.
  *
  * <p>The file holds the stamps, the report, the exit status and the report's length, then a
  * checksum of all of it. It is written to a temporary file, the report as it is rendered (a check's
