@@ -8,14 +8,13 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import dev.tare.baseline.Baseline;
 import dev.tare.baseline.BaselineFile;
 import dev.tare.scan.ScanOptions;
+import dev.tare.scan.StampedFiles;
 import dev.tare.scan.TemplateScan;
 import dev.tare.scan.Workspace;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.attribute.FileTime;
-import java.time.Instant;
 import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.ExecutorService;
@@ -44,24 +43,26 @@ class CheckCacheTest {
 
     @TempDir
     Path root;
+    private StampedFiles stamped;
 
     @BeforeEach
     void repository() throws IOException {
-        write("tare.yaml", "templates:\n  include: [\"prompts/**/*.md\", \"tools/*.json\"]\n  partials: prompts/partials\n"
+        stamped = new StampedFiles(root);
+        stamped.write("tare.yaml", "templates:\n  include: [\"prompts/**/*.md\", \"tools/*.json\"]\n  partials: prompts/partials\n"
                 + "targets:\n  - {name: hosted, tokenizer: o200k_base}\n"
                 + "rules: {limits: {shared_block_tokens: 20}, packs: [house]}\n");
-        write("house/style.yaml", "rules:\n  - id: shouting\n    summary: \"Repeated exclamation marks.\"\n"
+        stamped.write("house/style.yaml", "rules:\n  - id: shouting\n    summary: \"Repeated exclamation marks.\"\n"
                 + "    why: \"They cost tokens.\"\n    class: review\n    severity: info\n    scope: prose\n"
                 + "    find: '!!+'\n    replace: '!'\n    examples:\n      - before: \"Now!!\\n\"\n        after: \"Now!\\n\"\n");
-        write("prompts/partials/policy.md", "Never share a customer's account number.");
-        write("prompts/billing.md", "# Billing\n\n" + BLOCK + "\n\nExplain the bill!!  Use   plain words.\n");
-        write("prompts/outages.md", "# Outages\n\n" + BLOCK + "\n\nGive the area.\n");
-        write("prompts/quiet.md", "{# tare-ignore-file shared-block #}\n# Quiet\n\n" + BLOCK + "\n\nBe brief.\n");
-        write("prompts/reply.md", "---\nbudget: 20\ntools: [tools/lookup.json]\n---\nDear customer, {{> policy }}"
+        stamped.write("prompts/partials/policy.md", "Never share a customer's account number.");
+        stamped.write("prompts/billing.md", "# Billing\n\n" + BLOCK + "\n\nExplain the bill!!  Use   plain words.\n");
+        stamped.write("prompts/outages.md", "# Outages\n\n" + BLOCK + "\n\nGive the area.\n");
+        stamped.write("prompts/quiet.md", "{# tare-ignore-file shared-block #}\n# Quiet\n\n" + BLOCK + "\n\nBe brief.\n");
+        stamped.write("prompts/reply.md", "---\nbudget: 20\ntools: [tools/lookup.json]\n---\nDear customer, {{> policy }}"
                 + " Answer briefly.\n");
-        write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\": \"Finds an account.\","
+        stamped.write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\": \"Finds an account.\","
                 + " \"parameters\": {\"type\": \"object\", \"properties\": {\"id\": {\"type\": \"string\"}}}}]");
-        ageEveryFile();
+        stamped.ageEveryFile();
     }
 
     @Test
@@ -91,7 +92,7 @@ class CheckCacheTest {
     void anUnchangedSizeAndOldTimeVouchForAFileSoItIsNotLintedAgain() throws IOException {
         CheckResult before = check(true);
         // Same size, same old time, one more finding: the cache may trust the file's stamp, as it does.
-        replaceKeepingStamp("prompts/outages.md", read("prompts/outages.md").replace("Give the area.", "Give it!!!!!!!"));
+        stamped.replaceKeepingStamp("prompts/outages.md", stamped.read("prompts/outages.md").replace("Give the area.", "Give it!!!!!!!"));
         assertNotEquals(before.findings(), check(false).findings(), "the planted edit changes the findings");
         assertEquals(before.findings(), check(true).findings(), "the warm check answered from the cache");
     }
@@ -101,7 +102,7 @@ class CheckCacheTest {
         CheckResult before = check(true);
         assertEquals(1, count(before, "shared-block"), "billing and outages share the block; quiet silences it");
         // The block leaves outages.md, keeping its size and time: a fresh check finds it in billing only.
-        replaceKeepingStamp("prompts/outages.md", read("prompts/outages.md").replace(BLOCK, OTHER));
+        stamped.replaceKeepingStamp("prompts/outages.md", stamped.read("prompts/outages.md").replace(BLOCK, OTHER));
         assertEquals(0, count(check(false), "shared-block"), "the planted edit removes the shared block");
         assertEquals(before.findings(), check(true).findings(), "the cross-template findings came from the cache");
     }
@@ -109,7 +110,7 @@ class CheckCacheTest {
     @Test
     void anEditedTemplateIsLintedAgainAndTheCrossTemplateRulesRunAgain() throws IOException {
         check(true);
-        write("prompts/outages.md", "# Outages\n\n" + OTHER + "\n\nGive the area, then the time of the next update.\n");
+        stamped.write("prompts/outages.md", "# Outages\n\n" + OTHER + "\n\nGive the area, then the time of the next update.\n");
         CheckResult warm = check(true);
         assertEquals(check(false), warm);
         assertEquals(0, count(warm, "shared-block"));
@@ -120,7 +121,7 @@ class CheckCacheTest {
         check(true);
         // billing.md changes, so the cross-template rules run again; quiet.md comes from the cache, and
         // its file-wide directive must still silence the shared block there.
-        write("prompts/billing.md", "# Billing\n\n" + BLOCK + "\n\nExplain the bill in two short sentences.\n");
+        stamped.write("prompts/billing.md", "# Billing\n\n" + BLOCK + "\n\nExplain the bill in two short sentences.\n");
         CheckResult warm = check(true);
         assertEquals(check(false), warm);
         assertEquals(1, count(warm, "shared-block"));
@@ -132,12 +133,12 @@ class CheckCacheTest {
     void anEditedPartialOrToolFileRelintsWhatDependsOnIt() throws IOException {
         CheckResult before = check(true);
         assertEquals(0, count(before, "over-budget"));
-        write("prompts/partials/policy.md", "Never share a customer's account number, never guess a balance, never"
+        stamped.write("prompts/partials/policy.md", "Never share a customer's account number, never guess a balance, never"
                 + " quote a tariff from memory and never promise a visit on a given day.");
         CheckResult afterPartial = check(true);
         assertEquals(check(false), afterPartial);
         assertEquals(1, count(afterPartial, "over-budget"), "reply.md grew through its partial");
-        write("tools/lookup.json", "[\n  {\n    \"name\": \"lookup\",\n    \"description\": \"Finds an account.\"\n  }\n]\n");
+        stamped.write("tools/lookup.json", "[\n  {\n    \"name\": \"lookup\",\n    \"description\": \"Finds an account.\"\n  }\n]\n");
         CheckResult afterTool = check(true);
         assertEquals(check(false), afterTool);
         assertNotEquals(afterPartial.findings(), afterTool.findings());
@@ -145,23 +146,23 @@ class CheckCacheTest {
 
     @Test
     void aNewPartialThatChangesWhatAnIncludeMeansIsNoticed() throws IOException {
-        write("prompts/greeting.md", "Hello! {{> sign-off }}");
-        write("prompts/sign-off.md", "Bye.");
-        ageEveryFile();
+        stamped.write("prompts/greeting.md", "Hello! {{> sign-off }}");
+        stamped.write("prompts/sign-off.md", "Bye.");
+        stamped.ageEveryFile();
         check(true);
-        write("prompts/partials/sign-off.md", "With kind regards,   the customer care team of the water utility.");
+        stamped.write("prompts/partials/sign-off.md", "With kind regards,   the customer care team of the water utility.");
         assertEquals(check(false), check(true));
     }
 
     @Test
     void aTemplateWhoseIncludeDoesNotResolveIsNotRemembered() throws IOException {
-        write("prompts/broken.md", "Hello {{> missing }} and goodbye.\n");
-        ageEveryFile();
+        stamped.write("prompts/broken.md", "Hello {{> missing }} and goodbye.\n");
+        stamped.ageEveryFile();
         CheckResult before = check(true);
         assertEquals(1, count(before, "unresolved-include"));
         // Which file would fix the include is not known, so nothing vouches for the template: even an
         // edit that keeps its size and time is seen.
-        replaceKeepingStamp("prompts/broken.md", "Hello {{> missing }} and bye!!!!!\n");
+        stamped.replaceKeepingStamp("prompts/broken.md", "Hello {{> missing }} and bye!!!!!\n");
         assertEquals(check(false), check(true));
         assertTrue(check(true).findings().stream().anyMatch(f -> f.path().equals("prompts/broken.md")
                 && f.rule().equals("shouting")), "the planted edit was linted");
@@ -170,7 +171,7 @@ class CheckCacheTest {
     @Test
     void anEditedRulePackBaselineOrConfigurationMakesANewCache() throws IOException {
         check(true);
-        write("house/style.yaml", read("house/style.yaml").replace("severity: info", "severity: error"));
+        stamped.write("house/style.yaml", stamped.read("house/style.yaml").replace("severity: info", "severity: error"));
         assertEquals(check(false), check(true));
 
         Workspace workspace = Workspace.open(List.of(root), Optional.empty());
@@ -186,7 +187,7 @@ class CheckCacheTest {
         assertEquals(check(false), shrunk);
         assertNotEquals(recorded.findings(), shrunk.findings(), "billing.md now grew far beyond its baseline");
 
-        write("tare.yaml", read("tare.yaml").replace("shared_block_tokens: 20", "shared_block_tokens: 2000"));
+        stamped.write("tare.yaml", stamped.read("tare.yaml").replace("shared_block_tokens: 20", "shared_block_tokens: 2000"));
         CheckResult reconfigured = check(true);
         assertEquals(check(false), reconfigured);
         assertEquals(0, count(reconfigured, "shared-block"));
@@ -248,35 +249,35 @@ class CheckCacheTest {
     void everyChangeThatCanChangeTheReportMakesANewOne() throws IOException {
         report("json", Severity.ERROR);
         List<Change> changes = List.of(
-                () -> write("prompts/outages.md", "# Outages\n\nGive the area, street by street.\n"),
-                () -> write("prompts/partials/policy.md", "Never share a customer's account number or balance."),
-                () -> write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\": \"Finds it.\"}]"),
-                () -> write("prompts/new.md", "A new template!!\n"),
+                () -> stamped.write("prompts/outages.md", "# Outages\n\nGive the area, street by street.\n"),
+                () -> stamped.write("prompts/partials/policy.md", "Never share a customer's account number or balance."),
+                () -> stamped.write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\": \"Finds it.\"}]"),
+                () -> stamped.write("prompts/new.md", "A new template!!\n"),
                 () -> Files.delete(root.resolve("prompts/new.md")),
-                () -> write("prompts/.gitignore", "quiet.md\n"),
-                () -> write("house/style.yaml", read("house/style.yaml").replace("severity: info", "severity: warning")),
-                () -> write("tare-baseline.json", "{\"tool\": \"tare\", \"format\": 1, \"templates\": {}}\n"),
-                () -> write("tare.yaml", read("tare.yaml").replace("shared_block_tokens: 20", "shared_block_tokens: 25")));
+                () -> stamped.write("prompts/.gitignore", "quiet.md\n"),
+                () -> stamped.write("house/style.yaml", stamped.read("house/style.yaml").replace("severity: info", "severity: warning")),
+                () -> stamped.write("tare-baseline.json", "{\"tool\": \"tare\", \"format\": 1, \"templates\": {}}\n"),
+                () -> stamped.write("tare.yaml", stamped.read("tare.yaml").replace("shared_block_tokens: 20", "shared_block_tokens: 25")));
         for (Change change : changes) {
-            ageEveryFile();
+            stamped.ageEveryFile();
             change.make();
             Printed after = report("json", Severity.ERROR);
             assertEquals(1, after.renders(), "a change is rendered anew");
             assertEquals(uncached("json", Severity.ERROR), after.text());
-            ageEveryFile();
+            stamped.ageEveryFile();
             assertEquals(after.text(), report("json", Severity.ERROR).text());
         }
     }
 
     @Test
     void anEditedPartialOutsideTheTemplatesMakesANewReport() throws IOException {
-        write("tare.yaml", read("tare.yaml").replace("\"prompts/**/*.md\"", "\"prompts/*.md\""));
-        ageEveryFile();
+        stamped.write("tare.yaml", stamped.read("tare.yaml").replace("\"prompts/**/*.md\"", "\"prompts/*.md\""));
+        stamped.ageEveryFile();
         Printed before = report("json", Severity.ERROR);
         assertFalse(before.text().contains("prompts/partials/policy.md"), "the partial is no template of the run");
-        write("prompts/partials/policy.md", "Never share a customer's account number, never guess a balance, never"
+        stamped.write("prompts/partials/policy.md", "Never share a customer's account number, never guess a balance, never"
                 + " quote a tariff from memory and never promise a visit on a given day.");
-        ageEveryFile();
+        stamped.ageEveryFile();
         Printed after = report("json", Severity.ERROR);
         assertEquals(uncached("json", Severity.ERROR), after.text());
         assertTrue(after.failed() && !before.failed(), "reply.md is over its budget through its partial");
@@ -284,13 +285,13 @@ class CheckCacheTest {
 
     @Test
     void aRunThatCannotVouchForItsReportStoresNone() throws IOException {
-        write("prompts/broken.md", "Hello {{> missing }} and goodbye.\n");
-        ageEveryFile();
+        stamped.write("prompts/broken.md", "Hello {{> missing }} and goodbye.\n");
+        stamped.ageEveryFile();
         report("json", Severity.ERROR);
         assertEquals(1, report("json", Severity.ERROR).renders(), "which file would fix the include is not known");
         Files.delete(root.resolve("prompts/broken.md"));
         Files.write(root.resolve("prompts/unreadable.md"), new byte[] {(byte) 0xff, (byte) 0xfe, 0x41});
-        ageEveryFile();
+        stamped.ageEveryFile();
         report("json", Severity.ERROR);
         assertEquals(1, report("json", Severity.ERROR).renders(), "a skipped file may fail for reasons anywhere");
     }
@@ -364,24 +365,6 @@ class CheckCacheTest {
         return result.findings().stream().filter(f -> f.rule().equals(rule)).count();
     }
 
-    private String read(String path) throws IOException {
-        return Files.readString(root.resolve(path));
-    }
-
-    private void write(String path, String text) throws IOException {
-        Path file = root.resolve(path);
-        Files.createDirectories(file.getParent());
-        Files.writeString(file, text);
-    }
-
-    private void replaceKeepingStamp(String path, String text) throws IOException {
-        Path file = root.resolve(path);
-        FileTime stamp = Files.getLastModifiedTime(file);
-        assertEquals(Files.size(file), text.length(), "the planted text keeps the file's size");
-        Files.writeString(file, text);
-        Files.setLastModifiedTime(file, stamp);
-    }
-
     private void copyDemo() throws IOException {
         try (Stream<Path> files = Files.walk(root)) {
             for (Path file : files.sorted(java.util.Comparator.reverseOrder()).toList()) {
@@ -398,20 +381,7 @@ class CheckCacheTest {
                 Files.copy(file, target);
             }
         }
-        ageEveryFile();
-    }
-
-    /**
-     * Puts every file's time at one moment long past, out of the window in which a stamp cannot
-     * vouch for it; always the same moment, so that a file no test touched keeps its stamp.
-     */
-    private void ageEveryFile() throws IOException {
-        FileTime old = FileTime.from(Instant.parse("2026-01-05T09:00:00Z"));
-        try (Stream<Path> files = Files.walk(root)) {
-            for (Path file : files.filter(Files::isRegularFile).toList()) {
-                Files.setLastModifiedTime(file, old);
-            }
-        }
+        stamped.ageEveryFile();
     }
 
     private List<Path> cacheFiles() {

@@ -33,21 +33,23 @@ import org.junit.jupiter.api.io.TempDir;
 class ScanCacheTest {
     @TempDir
     Path root;
+    private StampedFiles stamped;
 
     @BeforeEach
     void repository() throws IOException {
-        write("tare.yaml", "templates: {include: [\"prompts/**/*.md\", \"tools/*.json\"]}\n"
+        stamped = new StampedFiles(root);
+        stamped.write("tare.yaml", "templates: {include: [\"prompts/**/*.md\", \"tools/*.json\"]}\n"
                 + "targets:\n  - {name: hosted, tokenizer: o200k_base, price: {input: 2.0, cached_input: 0.5, output: 8.0},"
                 + " output_tokens: 100, prefix_cache_min_tokens: 3, calls_per_day: 1000}\n"
                 + "  - {name: lite, tokenizer: cl100k_base, message_overhead_tokens: 4}\n");
-        write("prompts/partials/policy.md", "Never share a customer's account number.");
-        write("prompts/reply.md", "---\ntools: [tools/lookup.json]\nvariables: {name: {sample: \"Ada\"}}\n---\n"
+        stamped.write("prompts/partials/policy.md", "Never share a customer's account number.");
+        stamped.write("prompts/reply.md", "---\ntools: [tools/lookup.json]\nvariables: {name: {sample: \"Ada\"}}\n---\n"
                 + "Dear {{ name }}, {{> policy }} Answer briefly.");
-        write("prompts/other.md", "Summarise the meter reading dispute in two sentences.");
-        write("prompts/sibling.md", "Summarise the meter reading history for {{ account }}.");
-        write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\": \"Finds an account.\","
+        stamped.write("prompts/other.md", "Summarise the meter reading dispute in two sentences.");
+        stamped.write("prompts/sibling.md", "Summarise the meter reading history for {{ account }}.");
+        stamped.write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\": \"Finds an account.\","
                 + " \"parameters\": {\"type\": \"object\", \"properties\": {}}}]");
-        ageEveryFile();
+        stamped.ageEveryFile();
     }
 
     @Test
@@ -68,7 +70,7 @@ class ScanCacheTest {
         int before = tokens(scan(true), "prompts/other.md");
         // Same size, same old time, other words: the cache may trust the file's stamp, as it does.
         String text = Files.readString(root.resolve("prompts/other.md"));
-        replaceKeepingStamp("prompts/other.md", text.replace("meter reading dispute", "bill, in Welsh & Gaelic"
+        stamped.replaceKeepingStamp("prompts/other.md", text.replace("meter reading dispute", "bill, in Welsh & Gaelic"
                 .substring(0, 21)));
         assertNotEquals(before, tokens(fresh(), "prompts/other.md"), "the planted edit changes the count");
         assertEquals(before, tokens(scan(true), "prompts/other.md"), "the warm scan answered from the cache");
@@ -77,18 +79,18 @@ class ScanCacheTest {
     @Test
     void anEditedTemplateIsMeasuredAgain() throws IOException {
         scan(true);
-        write("prompts/other.md", "Summarise the meter reading dispute in two sentences, then list the next steps.");
+        stamped.write("prompts/other.md", "Summarise the meter reading dispute in two sentences, then list the next steps.");
         assertEquals(fresh().templates(), scan(true).templates());
     }
 
     @Test
     void anEditedPartialOrToolFileRemeasuresWhatDependsOnIt() throws IOException {
         ScanResult before = scan(true);
-        write("prompts/partials/policy.md", "Never share a customer's account number, and never guess a balance.");
+        stamped.write("prompts/partials/policy.md", "Never share a customer's account number, and never guess a balance.");
         ScanResult afterPartial = scan(true);
         assertEquals(fresh().templates(), afterPartial.templates());
         assertNotEquals(tokens(before, "prompts/reply.md"), tokens(afterPartial, "prompts/reply.md"));
-        write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\": \"Finds a customer's account by number.\","
+        stamped.write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\": \"Finds a customer's account by number.\","
                 + " \"parameters\": {\"type\": \"object\", \"properties\": {}}}]");
         ScanResult afterTool = scan(true);
         assertEquals(fresh().templates(), afterTool.templates());
@@ -97,17 +99,17 @@ class ScanCacheTest {
 
     @Test
     void aNewPartialThatChangesWhatAnIncludeMeansIsNoticed() throws IOException {
-        write("prompts/greeting.md", "Hello! {{> sign-off }}");
-        write("prompts/sign-off.md", "Bye.");
-        ageEveryFile();
+        stamped.write("prompts/greeting.md", "Hello! {{> sign-off }}");
+        stamped.write("prompts/sign-off.md", "Bye.");
+        stamped.ageEveryFile();
         scan(true);
-        write("prompts/partials/sign-off.md", "With kind regards, the customer care team of the water utility.");
+        stamped.write("prompts/partials/sign-off.md", "With kind regards, the customer care team of the water utility.");
         assertEquals(fresh().templates(), scan(true).templates());
     }
 
     @Test
     void aFileEditedWithinTheClockTickOfTheScanIsHashedNotTrusted() throws IOException {
-        write("prompts/recent.md", "Reply in English.");
+        stamped.write("prompts/recent.md", "Reply in English.");
         FileTime stamp = Files.getLastModifiedTime(root.resolve("prompts/recent.md"));
         scan(true);
         Files.writeString(root.resolve("prompts/recent.md"), "a b c d e f g h i"); // same size, more tokens
@@ -161,7 +163,7 @@ class ScanCacheTest {
         assertEquals(content(fresh()), content(first));
         // Same size, same old time, other words: only the stamps are checked, so the stored copy stands.
         String text = Files.readString(root.resolve("prompts/other.md"));
-        replaceKeepingStamp("prompts/other.md", text.replace("meter reading dispute", "bill, in Welsh & Gaelic"
+        stamped.replaceKeepingStamp("prompts/other.md", text.replace("meter reading dispute", "bill, in Welsh & Gaelic"
                 .substring(0, 21)));
         assertEquals(first, report("json"));
         assertNotEquals(content(fresh()), content(first), "the planted edit changes the scan");
@@ -171,7 +173,7 @@ class ScanCacheTest {
     @Test
     void aReportIsStoredInAGitWorktreeWhoseGitEntryIsAFile() throws IOException {
         // In a linked worktree .git is a file naming the real folder, so .git/info/exclude cannot exist.
-        write(".git", "gitdir: /somewhere/else/.git/worktrees/other\n");
+        stamped.write(".git", "gitdir: /somewhere/else/.git/worktrees/other\n");
         ageEverything();
         String first = report("json");
         assertEquals(first, report("json"));
@@ -193,17 +195,17 @@ class ScanCacheTest {
         Files.createDirectories(root.resolve(".git"));
         ageEverything();
         List<Change> changes = List.of(
-                new Change("an edited template", () -> write("prompts/other.md", "Summarise the dispute, then list the next steps.")),
-                new Change("a new template", () -> write("prompts/new.md", "Greet the customer by name.")),
-                new Change("a template in a new folder", () -> write("prompts/billing/late.md", "Explain the late fee.")),
+                new Change("an edited template", () -> stamped.write("prompts/other.md", "Summarise the dispute, then list the next steps.")),
+                new Change("a new template", () -> stamped.write("prompts/new.md", "Greet the customer by name.")),
+                new Change("a template in a new folder", () -> stamped.write("prompts/billing/late.md", "Explain the late fee.")),
                 new Change("a removed template", () -> Files.delete(root.resolve("prompts/sibling.md"))),
-                new Change("an edited partial", () -> write("prompts/partials/policy.md", "Never guess a customer's balance.")),
-                new Change("an edited tool file", () -> write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\":"
+                new Change("an edited partial", () -> stamped.write("prompts/partials/policy.md", "Never guess a customer's balance.")),
+                new Change("an edited tool file", () -> stamped.write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\":"
                         + " \"Finds a customer's account by number.\", \"parameters\": {\"type\": \"object\"}}]")),
-                new Change("a new .gitignore", () -> write("prompts/billing/.gitignore", "late.md\n")),
-                new Change("an edited .gitignore", () -> write("prompts/billing/.gitignore", "other.md\n")),
-                new Change("a root .gitignore", () -> write(".gitignore", "prompts/new.md\n")),
-                new Change("git's own exclude file", () -> write(".git/info/exclude", "prompts/billing/\n")));
+                new Change("a new .gitignore", () -> stamped.write("prompts/billing/.gitignore", "late.md\n")),
+                new Change("an edited .gitignore", () -> stamped.write("prompts/billing/.gitignore", "other.md\n")),
+                new Change("a root .gitignore", () -> stamped.write(".gitignore", "prompts/new.md\n")),
+                new Change("git's own exclude file", () -> stamped.write(".git/info/exclude", "prompts/billing/\n")));
         for (Change change : changes) {
             ageEverything();
             String before = report("json");
@@ -217,22 +219,22 @@ class ScanCacheTest {
 
     @Test
     void anEditedPartialOrToolFileOutsideTheTemplatesMakesANewReport() throws IOException {
-        write("tare.yaml", "templates: {include: [\"prompts/*.md\"], partials: shared}\n"
+        stamped.write("tare.yaml", "templates: {include: [\"prompts/*.md\"], partials: shared}\n"
                 + "targets:\n  - {name: lite, tokenizer: cl100k_base}\n");
-        write("shared/policy.md", "Never share a customer's account number.");
+        stamped.write("shared/policy.md", "Never share a customer's account number.");
         ageEverything();
         String before = report("json");
         assertEquals(List.of("prompts/other.md", "prompts/reply.md", "prompts/sibling.md"),
                 fresh().templates().stream().map(ScannedTemplate::path).toList(),
                 "the partial and the tool file are no templates here, only dependencies");
-        write("shared/policy.md", "Never share a customer's account number, and never guess a balance.");
+        stamped.write("shared/policy.md", "Never share a customer's account number, and never guess a balance.");
         String afterPartial = report("json");
         assertNotEquals(before, afterPartial);
         assertEquals(content(fresh()), content(afterPartial));
         ageEverything();
         String stored = report("json");
         assertEquals(stored, report("json"));
-        write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\": \"Finds a customer's account by number.\","
+        stamped.write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\": \"Finds a customer's account by number.\","
                 + " \"parameters\": {\"type\": \"object\", \"properties\": {}}}]");
         String afterTool = report("json");
         assertNotEquals(stored, afterTool);
@@ -245,7 +247,7 @@ class ScanCacheTest {
         FileTime recent = FileTime.from(Instant.now());
         Files.setLastModifiedTime(prompts, recent);
         String before = report("json");
-        write("prompts/new.md", "Greet the customer by name.");
+        stamped.write("prompts/new.md", "Greet the customer by name.");
         Files.setLastModifiedTime(root.resolve("prompts/new.md"), FileTime.from(Instant.now().minus(1, ChronoUnit.HOURS)));
         Files.setLastModifiedTime(prompts, recent); // as if the file came within the same clock tick
         String after = report("json");
@@ -255,7 +257,7 @@ class ScanCacheTest {
 
     @Test
     void aFileTooRecentToVouchForItselfStoresNoReport() throws IOException {
-        write("prompts/recent.md", "Reply in English.");
+        stamped.write("prompts/recent.md", "Reply in English.");
         String first = report("json");
         assertTrue(reportFiles().isEmpty(), "a report that could never be used is not written");
         assertNotEquals(first, report("json"));
@@ -263,7 +265,7 @@ class ScanCacheTest {
 
     @Test
     void aScanThatSkippedAFileStoresNoReport() throws IOException {
-        write("prompts/broken.md", "Dear {{ name, ");
+        stamped.write("prompts/broken.md", "Dear {{ name, ");
         ageEverything();
         String first = report("json");
         assertTrue(content(first).contains("prompts/broken.md"), "skipped with its reason: " + first);
@@ -370,30 +372,6 @@ class ScanCacheTest {
 
     private static int tokens(ScanResult result, String path) {
         return result.templates().stream().filter(t -> t.path().equals(path)).findFirst().orElseThrow().staticTokens();
-    }
-
-    private void write(String path, String text) throws IOException {
-        Path file = root.resolve(path);
-        Files.createDirectories(file.getParent());
-        Files.writeString(file, text);
-    }
-
-    private void replaceKeepingStamp(String path, String text) throws IOException {
-        Path file = root.resolve(path);
-        FileTime stamp = Files.getLastModifiedTime(file);
-        assertEquals(Files.size(file), text.length(), "the planted text keeps the file's size");
-        Files.writeString(file, text);
-        Files.setLastModifiedTime(file, stamp);
-    }
-
-    /** Puts every file's time an hour back, out of the window in which a stamp cannot vouch for it. */
-    private void ageEveryFile() throws IOException {
-        FileTime old = FileTime.from(Instant.now().minus(1, ChronoUnit.HOURS));
-        try (Stream<Path> files = Files.walk(root)) {
-            for (Path file : files.filter(Files::isRegularFile).toList()) {
-                Files.setLastModifiedTime(file, old);
-            }
-        }
     }
 
     private List<Path> cacheFiles() {
