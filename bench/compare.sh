@@ -53,38 +53,33 @@ timed() {
   echo "timing $1 ..." >&2
 }
 
-rm -rf "$corpus/.tare"
-timed "tare scan, cold"
-bench_time 0 "$work/scan" ./tare scan "$corpus" --format json
-row "tare scan, cold" "$bench_wall" "$bench_rss_mib" "$bench_cpu" "$bench_other_cpu"
-# A warm scan takes a fraction of a second, so one run says little: the median of a few (the other
-# columns are that run's). Its output must be the cold scan's, byte for byte.
-cp "$work/scan" "$work/scan.cold"
+# cold_and_warm NAME EXITS COMMAND...: times COMMAND once cold (row "NAME, cold") and then warm, from
+# what the cold run left in .tare/cache. A warm run takes a fraction of a second, so one run says
+# little: the warm row is the median of a few (its other columns are that run's), and every warm
+# run must print the cold run's bytes.
 warm_runs="${BENCH_WARM_RUNS:-5}"
-timed "tare scan, warm (median of $warm_runs)"
-: >"$work/warm"
-for _ in $(seq 1 "$warm_runs"); do
-  bench_time 0 "$work/scan" ./tare scan "$corpus" --format json
-  cmp -s "$work/scan.cold" "$work/scan" || { echo "compare.sh: the warm scan printed other bytes than the cold one" >&2; exit 1; }
-  printf '%s\t%s\t%s\t%s\n' "$bench_wall" "$bench_rss_mib" "$bench_cpu" "$bench_other_cpu" >>"$work/warm"
-done
-IFS=$'\t' read -r wall rss cpu other < <(sort -g "$work/warm" | sed -n "$(( (warm_runs + 1) / 2 ))p")
-row "tare scan, warm" "$wall" "$rss" "$cpu" "$other"
-timed "tare check, cold"
-bench_time "0 1" "$work/check" ./tare check "$corpus" --format json
-row "tare check, cold" "$bench_wall" "$bench_rss_mib" "$bench_cpu" "$bench_other_cpu"
-# The second check answers from .tare/cache; as with the scan, the median of a few, each checked
-# byte for byte against the cold one.
-cp "$work/check" "$work/check.cold"
-timed "tare check, warm (median of $warm_runs)"
-: >"$work/warm"
-for _ in $(seq 1 "$warm_runs"); do
-  bench_time "0 1" "$work/check" ./tare check "$corpus" --format json
-  cmp -s "$work/check.cold" "$work/check" || { echo "compare.sh: the warm check printed other bytes than the cold one" >&2; exit 1; }
-  printf '%s\t%s\t%s\t%s\n' "$bench_wall" "$bench_rss_mib" "$bench_cpu" "$bench_other_cpu" >>"$work/warm"
-done
-IFS=$'\t' read -r wall rss cpu other < <(sort -g "$work/warm" | sed -n "$(( (warm_runs + 1) / 2 ))p")
-row "tare check, warm" "$wall" "$rss" "$cpu" "$other"
+cold_and_warm() {
+  local name="$1" exits="$2" wall rss cpu other
+  shift 2
+  timed "$name, cold"
+  bench_time "$exits" "$work/out" "$@"
+  row "$name, cold" "$bench_wall" "$bench_rss_mib" "$bench_cpu" "$bench_other_cpu"
+  cp "$work/out" "$work/out.cold"
+  timed "$name, warm (median of $warm_runs)"
+  : >"$work/warm"
+  for _ in $(seq 1 "$warm_runs"); do
+    bench_time "$exits" "$work/out" "$@"
+    cmp -s "$work/out.cold" "$work/out" || { echo "compare.sh: the warm $name printed other bytes than the cold one" >&2; exit 1; }
+    printf '%s\t%s\t%s\t%s\n' "$bench_wall" "$bench_rss_mib" "$bench_cpu" "$bench_other_cpu" >>"$work/warm"
+  done
+  IFS=$'\t' read -r wall rss cpu other < <(sort -g "$work/warm" | sed -n "$(( (warm_runs + 1) / 2 ))p")
+  row "$name, warm" "$wall" "$rss" "$cpu" "$other"
+}
+
+rm -rf "$corpus/.tare"
+cold_and_warm "tare scan" 0 ./tare scan "$corpus" --format json
+# The scan's caches do not serve the check: its first run is cold.
+cold_and_warm "tare check" "0 1" ./tare check "$corpus" --format json
 timed "tare fix --dry-run"
 bench_time "0 1" "$work/fix" ./tare fix "$corpus" --dry-run
 row "tare fix --dry-run" "$bench_wall" "$bench_rss_mib" "$bench_cpu" "$bench_other_cpu"
