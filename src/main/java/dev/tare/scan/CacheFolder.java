@@ -39,8 +39,8 @@ public final class CacheFolder {
         return folder;
     }
 
-    /** What writes a cache file's contents. */
-    interface Contents {
+    /** What writes a file's contents (a cache, a report) to a stream. */
+    public interface Body {
         void writeTo(OutputStream out) throws IOException;
     }
 
@@ -56,7 +56,7 @@ public final class CacheFolder {
      * @return the file as written, open for reading (a concurrent run may replace {@code target}
      *         the moment after); the caller closes it
      */
-    static FileChannel replace(Path target, Contents contents) throws IOException {
+    static FileChannel replace(Path target, Body contents) throws IOException {
         Path folder = Files.createDirectories(target.getParent());
         Path temporary = Files.createTempFile(folder, "write-", ".partial");
         FileChannel written = null;

@@ -66,11 +66,6 @@ public final class StoredReport {
         this.key = key;
     }
 
-    /** What writes a report as UTF-8 to a stream. */
-    public interface Body {
-        void writeTo(java.io.OutputStream out) throws IOException;
-    }
-
     /**
      * A stored report: the file it is in, held open (a run that replaces the file meanwhile
      * replaces a name, not what this reads), where its UTF-8 text lies, and the exit status of the
@@ -306,7 +301,7 @@ public final class StoredReport {
     /** Stores {@code report} and the run's exit status with the {@link #stamps} of what it was made from. */
     void save(byte[] stamps, byte[] report, int status) {
         try {
-            close(write(stamps, out -> out.write(report), status));
+            write(stamps, out -> out.write(report), status).close();
         } catch (IOException | RuntimeException e) {
             // An optimisation only: the report is printed either way.
         }
@@ -317,22 +312,19 @@ public final class StoredReport {
      * of what it was made from, and gives it back from the stored file; empty when it could not be
      * stored (the caller then renders it where it goes), having printed nothing.
      */
-    public Optional<Report> store(byte[] stamps, Body render, int status) {
-        FileChannel written;
+    public Optional<Report> store(byte[] stamps, CacheFolder.Body render, int status) {
         try {
-            written = write(stamps, render, status);
+            return Optional.of(write(stamps, render, status));
         } catch (IOException | RuntimeException e) {
             return Optional.empty();
         }
-        Optional<Report> report = whole(written);
-        if (report.isEmpty()) {
-            close(written);
-        }
-        return report;
     }
 
-    /** Writes the file and gives it back open, as written, whatever another run puts in its place. */
-    private FileChannel write(byte[] stamps, Body render, int status) throws IOException {
+    /**
+     * Writes the file and gives back its report, from the file held open as written, whatever
+     * another run puts in its place: the stamps, then the report, then the {@link #TRAILER}.
+     */
+    private Report write(byte[] stamps, CacheFolder.Body render, int status) throws IOException {
         CacheFolder.prepare(root);
         FileChannel written = CacheFolder.replace(file, stream -> {
             CRC32C crc = new CRC32C();
@@ -353,7 +345,12 @@ public final class StoredReport {
         } catch (IOException | RuntimeException e) {
             // Old reports left behind are only disk space.
         }
-        return written;
+        try {
+            return new Report(written, stamps.length, written.size() - TRAILER - stamps.length, status);
+        } catch (IOException | RuntimeException e) {
+            close(written);
+            throw e;
+        }
     }
 
     /** Counts the bytes that pass through, so the report's length is known once it is written. */
