@@ -23,7 +23,7 @@ final class CheckedFileCodec implements TemplateCache.Codec<CheckedFile> {
     private static final Severity[] SEVERITIES = Severity.values();
     private static final RewriteClass[] CLASSES = RewriteClass.values();
 
-    private final Map<String, String> read = new java.util.HashMap<>();
+    private final Map<String, String> copies = new java.util.HashMap<>();
 
     @Override
     public void write(DataOutputStream out, CheckedFile checked) throws IOException {
@@ -136,7 +136,7 @@ final class CheckedFileCodec implements TemplateCache.Codec<CheckedFile> {
     }
 
     private String once(String text) {
-        return read.computeIfAbsent(text, t -> t);
+        return copies.computeIfAbsent(text, t -> t);
     }
 
     private static void string(DataOutputStream out, String text) throws IOException {
