@@ -18,6 +18,11 @@ import java.util.Arrays;
  * of its hash, and the keys' chars lie one after another in one array: a hit while counting reads
  * the slot and the chars, and a piece of another length or hash is passed over without reading its
  * chars at all.
+ *
+ * <p>Most pieces of prompt text are a few ASCII characters, and those have a table of their own
+ * whose key is the piece itself: up to {@link #PACKED_CHARS} characters of seven bits, packed into
+ * two {@code long}s. Packing is one short loop over the piece, where hashing and comparing were
+ * two, and a hit compares two numbers that lie next to the ids' count.
  */
 final class PieceCache {
     /** Longer pieces are rare and unlikely to come again. */
@@ -31,6 +36,11 @@ final class PieceCache {
     private static final long MATCHED_BITS = 0xFFFF_00FF_0000_0000L;
     /** The most ids a slot can record (a 48-char piece has at most 144 UTF-8 bytes, one id each). */
     private static final int MAX_IDS = 0xFF;
+    /** The longest piece packed: nine chars of seven bits in the first long, eight in the second. */
+    static final int PACKED_CHARS = 17;
+    private static final int FIRST_LONG_CHARS = 9;
+    /** The bits of a packed slot's second long that hold chars; the top byte holds the count. */
+    private static final long PACKED_CHAR_BITS = 0x00FF_FFFF_FFFF_FFFFL;
 
     /**
      * Per slot, 0 when empty: bits 48 to 63 hold hash bits the slot's index does not use, 40 to 47
@@ -44,16 +54,38 @@ final class PieceCache {
     private int mask = FIRST_SLOTS - 1;
     private char[] keyChars = new char[1 << 14];
     private int keyCharsUsed;
+    /** Entries in both tables together. */
     private int size;
+
+    /**
+     * The table of packed pieces: per slot, the first long holds the piece's first nine chars (0
+     * when the slot is empty) and the second the rest, with the number of ids in its top byte.
+     */
+    private long[] packed = new long[FIRST_SLOTS * 2];
+    private int[][] packedValues = new int[FIRST_SLOTS][];
+    private int packedMask = FIRST_SLOTS - 1;
+    private int packedSize;
+    /** The second long of the piece {@link #pack} packed last. */
+    private long packedHigh;
 
     /** The number of ids of {@code text[start, end)} when it is cached, else -1. */
     int count(char[] text, int start, int end) {
+        long low = pack(text, start, end);
+        if (low != 0) {
+            int slot = findPacked(low, packedHigh);
+            return slot < 0 ? -1 : (int) (packed[2 * slot + 1] >>> 56);
+        }
         int slot = find(text, start, end);
         return slot < 0 ? -1 : (int) (slots[slot] >>> 40) & MAX_IDS;
     }
 
     /** The cached ids of {@code text[start, end)}, or null. */
     int[] get(char[] text, int start, int end) {
+        long low = pack(text, start, end);
+        if (low != 0) {
+            int slot = findPacked(low, packedHigh);
+            return slot < 0 ? null : packedValues[slot];
+        }
         int slot = find(text, start, end);
         return slot < 0 ? null : values[slot];
     }
@@ -64,7 +96,12 @@ final class PieceCache {
         if (length > MAX_PIECE_CHARS || length == 0 || ids.length > MAX_IDS || size >= MAX_ENTRIES) {
             return;
         }
-        if ((size + 1) * 2 > slots.length) {
+        long low = pack(text, start, end);
+        if (low != 0) {
+            putPacked(low, packedHigh, ids);
+            return;
+        }
+        if ((size - packedSize + 1) * 2 > slots.length) {
             grow();
         }
         if (keyCharsUsed + length > keyChars.length) {
@@ -84,6 +121,88 @@ final class PieceCache {
         }
         slots[slot] = entry;
         values[slot] = ids;
+    }
+
+    /**
+     * {@code text[start, end)} packed when it is at most {@link #PACKED_CHARS} ASCII chars and none
+     * is NUL: the first long, with the second left in {@link #packedHigh}; else 0. Each long holds
+     * its chars as the digits of a number in base 128 whose first digit is not 0, so the number
+     * also tells how many chars it holds, and two pieces pack alike only when they are equal.
+     */
+    private long pack(char[] text, int start, int end) {
+        if (end - start > PACKED_CHARS) {
+            return 0;
+        }
+        int split = Math.min(end, start + FIRST_LONG_CHARS);
+        long low = 0;
+        for (int i = start; i < split; i++) {
+            char c = text[i];
+            if (c == 0 || c > 0x7F) {
+                return 0;
+            }
+            low = low << 7 | c;
+        }
+        long high = 0;
+        for (int i = split; i < end; i++) {
+            char c = text[i];
+            if (c == 0 || c > 0x7F) {
+                return 0;
+            }
+            high = high << 7 | c;
+        }
+        packedHigh = high;
+        return low;
+    }
+
+    private int findPacked(long low, long high) {
+        for (int slot = packedHash(low, high) & packedMask; ; slot = (slot + 1) & packedMask) {
+            long first = packed[2 * slot];
+            if (first == 0) {
+                return -1;
+            }
+            if (first == low && (packed[2 * slot + 1] & PACKED_CHAR_BITS) == high) {
+                return slot;
+            }
+        }
+    }
+
+    private void putPacked(long low, long high, int[] ids) {
+        if ((packedSize + 1) * 2 > packedValues.length) {
+            growPacked();
+        }
+        placePacked(low, high | (long) ids.length << 56, ids);
+        packedSize++;
+        size++;
+    }
+
+    private void placePacked(long low, long highAndCount, int[] ids) {
+        int slot = packedHash(low, highAndCount & PACKED_CHAR_BITS) & packedMask;
+        while (packed[2 * slot] != 0) {
+            slot = (slot + 1) & packedMask;
+        }
+        packed[2 * slot] = low;
+        packed[2 * slot + 1] = highAndCount;
+        packedValues[slot] = ids;
+    }
+
+    private void growPacked() {
+        long[] oldPacked = packed;
+        int[][] oldValues = packedValues;
+        int doubled = Math.min(oldValues.length * 2, MAX_SLOTS);
+        packed = new long[doubled * 2];
+        packedValues = new int[doubled][];
+        packedMask = doubled - 1;
+        for (int i = 0; i < oldValues.length; i++) {
+            if (oldPacked[2 * i] != 0) {
+                placePacked(oldPacked[2 * i], oldPacked[2 * i + 1], oldValues[i]);
+            }
+        }
+    }
+
+    /** A mixed hash of a packed piece, whose low bits pick the slot. */
+    private static int packedHash(long low, long high) {
+        long h = (low ^ Long.rotateLeft(high, 32)) * 0x9E3779B97F4A7C15L;
+        return (int) (h >>> 32) ^ (int) h;
     }
 
     /** Doubles the table, placing every entry again by the hash of its chars. */
