@@ -3,11 +3,7 @@ package dev.tare.source;
 import dev.tare.TareException;
 import java.io.IOException;
 import java.nio.ByteBuffer;
-import java.nio.charset.CharsetDecoder;
-import java.nio.charset.CoderResult;
-import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
-import java.nio.CharBuffer;
 import java.nio.channels.Channels;
 import java.nio.channels.SeekableByteChannel;
 import java.nio.file.Files;
@@ -46,6 +42,32 @@ public final class SafeReader {
      * index) under the same rules as {@link #read}.
      */
     public SourceText decode(String path, Path file, byte[] bytes) {
+        int start = textStart(bytes);
+        return new SourceText(path, file, decodeUtf8(bytes, start), start > 0, bytes.length);
+    }
+
+    /**
+     * A file's text decoded into a char array, for reading many files one after another without a
+     * {@code String} each (counting does this): {@code buffer} when it is large enough, else a new
+     * array, which the caller can pass next time.
+     */
+    public record Chars(String path, char[] array, int length) {
+    }
+
+    /** Reads {@code file} as {@link #read} does, into {@code buffer} or a larger array. */
+    public Chars readChars(String path, Path file, char[] buffer) {
+        return decodeChars(path, readBounded(file), buffer);
+    }
+
+    /** Decodes bytes as {@link #decode} does, into {@code buffer} or a larger array. */
+    public Chars decodeChars(String path, byte[] bytes, char[] buffer) {
+        int start = textStart(bytes);
+        char[] chars = buffer.length >= bytes.length - start ? buffer : new char[bytes.length - start];
+        return new Chars(path, chars, decodeOrRefuse(bytes, start, chars));
+    }
+
+    /** Where the text of {@code bytes} starts (after a UTF-8 byte-order mark), once size and encoding are checked. */
+    private int textStart(byte[] bytes) {
         if (bytes.length > maxBytes) {
             throw new TareException(tooLarge(bytes.length));
         }
@@ -54,13 +76,7 @@ public final class SafeReader {
             throw new TareException(bomProblem + "; save the file as UTF-8");
         }
         boolean bom = bytes.length >= 3 && (bytes[0] & 0xFF) == 0xEF && (bytes[1] & 0xFF) == 0xBB && (bytes[2] & 0xFF) == 0xBF;
-        int start = bom ? 3 : 0;
-        for (int i = start; i < bytes.length; i++) {
-            if (bytes[i] == 0) {
-                throw new TareException("binary file (NUL byte at offset " + i + ")");
-            }
-        }
-        return new SourceText(path, file, decodeUtf8(bytes, start), bom, bytes.length);
+        return bom ? 3 : 0;
     }
 
     /**
@@ -123,32 +139,35 @@ public final class SafeReader {
     }
 
     /**
-     * The text of valid UTF-8, or an error naming the first bad byte. {@code new String} decodes
-     * into the string's own array, without a char buffer to copy from; it replaces a bad
-     * sequence with U+FFFD rather than failing, so a text holding U+FFFD is decoded again strictly,
-     * which either finds the bad byte or gives the same text (the file held that character itself).
+     * The text of valid UTF-8 without NUL, or an error naming the first bad byte. {@code new String}
+     * decodes into the string's own array, without a char buffer to copy from; it replaces a bad
+     * sequence with U+FFFD rather than failing, so a text holding U+FFFD or NUL is decoded again
+     * strictly, which either finds the bad byte or gives the same text (the file held U+FFFD itself).
      */
     private static String decodeUtf8(byte[] bytes, int start) {
         String text = new String(bytes, start, bytes.length - start, StandardCharsets.UTF_8);
-        return text.indexOf('\uFFFD') < 0 ? text : decodeStrictly(bytes, start);
+        if (text.indexOf('\uFFFD') < 0 && text.indexOf('\0') < 0) {
+            return text;
+        }
+        char[] chars = new char[bytes.length - start];
+        return new String(chars, 0, decodeOrRefuse(bytes, start, chars));
     }
 
-    private static String decodeStrictly(byte[] bytes, int start) {
-        CharsetDecoder decoder = StandardCharsets.UTF_8.newDecoder()
-                .onMalformedInput(CodingErrorAction.REPORT)
-                .onUnmappableCharacter(CodingErrorAction.REPORT);
-        ByteBuffer in = ByteBuffer.wrap(bytes, start, bytes.length - start);
-        CharBuffer out = CharBuffer.allocate(bytes.length - start);
-        CoderResult result = decoder.decode(in, out, true);
-        if (result.isError()) {
-            throw new TareException(invalidUtf8(bytes, in.position()));
+    /**
+     * Decodes {@code bytes} from {@code start} into {@code chars}: the number of chars, or an error
+     * that calls a file with a NUL byte anywhere binary, and otherwise names the first bad sequence.
+     */
+    private static int decodeOrRefuse(byte[] bytes, int start, char[] chars) {
+        int length = StrictUtf8.decode(bytes, start, bytes.length, chars);
+        if (length >= 0) {
+            return length;
         }
-        result = decoder.flush(out);
-        if (result.isError()) {
-            throw new TareException(invalidUtf8(bytes, in.position()));
+        for (int i = start; i < bytes.length; i++) {
+            if (bytes[i] == 0) {
+                throw new TareException("binary file (NUL byte at offset " + i + ")");
+            }
         }
-        out.flip();
-        return out.toString();
+        throw new TareException(invalidUtf8(bytes, -1 - length));
     }
 
     private static String invalidUtf8(byte[] bytes, int offset) {

@@ -37,8 +37,15 @@ final class BytePairEncoding implements Tokenizer {
     @Override
     public int count(String text) {
         Scratch own = scratch.get();
-        int length = text.length();
-        char[] chars = own.chars(text);
+        return count(own, own.chars(text), text.length());
+    }
+
+    @Override
+    public int count(char[] text, int length) {
+        return count(scratch.get(), text, length);
+    }
+
+    private int count(Scratch own, char[] chars, int length) {
         int total = 0;
         for (int start = 0; start < length; ) {
             int end = pretokenizer.pieceEnd(chars, start, length);

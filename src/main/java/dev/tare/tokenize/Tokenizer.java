@@ -13,6 +13,15 @@ public interface Tokenizer {
     /** The number of tokens in {@code text}; the same as {@code encode(text).length}, often faster. */
     int count(String text);
 
+    /**
+     * The number of tokens in {@code text[0, length)}, the same as {@link #count(String)} of those
+     * chars: for a caller that has the text in an array already, which an encoder can count where it
+     * lies. The array is not kept or changed.
+     */
+    default int count(char[] text, int length) {
+        return count(new String(text, 0, length));
+    }
+
     /** The token ids of {@code text}, in order. */
     int[] encode(String text);
 

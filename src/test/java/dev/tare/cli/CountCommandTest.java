@@ -82,6 +82,14 @@ class CountCommandTest {
     }
 
     @Test
+    void aFolderIsReportedAsOne() throws Exception {
+        Path folder = Files.createDirectory(dir.resolve("prompts"));
+        Cli.Run run = Cli.run("count", folder.toString());
+        assertEquals(2, run.exitCode());
+        assertTrue(run.err().contains("prompts: is a folder; count takes files"), run.err());
+    }
+
+    @Test
     void unknownTokenizerIsAUsageError() {
         Cli.Run run = Cli.run("count", "--tokenizer", "nonsense", "pom.xml");
         assertEquals(2, run.exitCode());

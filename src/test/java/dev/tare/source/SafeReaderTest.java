@@ -94,6 +94,58 @@ class SafeReaderTest {
         }
     }
 
+    /** Decoding into a char array accepts and refuses exactly what decoding into a string does, with the same words. */
+    @Test
+    void decodingIntoCharsAgreesWithDecodingIntoAString() {
+        java.util.Random random = new java.util.Random(11);
+        String[] pieces = {"a", "\n", "\u00e9", "\ud83d\ude42", "\uFFFD", "\u0000", "\uFEFF"};
+        char[] buffer = new char[4];
+        for (int round = 0; round < 3_000; round++) {
+            java.io.ByteArrayOutputStream out = new java.io.ByteArrayOutputStream();
+            for (int i = 0; i < random.nextInt(12); i++) {
+                byte[] piece = pieces[random.nextInt(pieces.length)].getBytes(StandardCharsets.UTF_8);
+                out.write(piece, 0, random.nextInt(8) == 0 ? piece.length - 1 : piece.length);
+            }
+            byte[] bytes = out.toByteArray();
+            String expected;
+            try {
+                expected = decode(bytes).text();
+            } catch (TareException e) {
+                expected = "refused: " + e.getMessage();
+            }
+            String actual;
+            try {
+                SafeReader.Chars chars = reader.decodeChars("t.md", bytes, buffer);
+                actual = new String(chars.array(), 0, chars.length());
+                buffer = chars.array();
+            } catch (TareException e) {
+                actual = "refused: " + e.getMessage();
+            }
+            assertEquals(expected, actual, () -> java.util.Arrays.toString(bytes));
+        }
+    }
+
+    @Test
+    void decodesCharsIntoTheBufferGivenWhenItIsLargeEnough(@org.junit.jupiter.api.io.TempDir Path dir) throws Exception {
+        Path file = java.nio.file.Files.write(dir.resolve("a.md"), new byte[] {(byte) 0xEF, (byte) 0xBB, (byte) 0xBF, 'h', 'i'});
+        char[] buffer = new char[2];
+        SafeReader.Chars chars = reader.readChars("a.md", file, buffer);
+        assertTrue(chars.array() == buffer, "the buffer given is used");
+        assertEquals("hi", new String(chars.array(), 0, chars.length()));
+        assertEquals("a.md", chars.path());
+        SafeReader.Chars larger = reader.decodeChars("b.md", "hello".getBytes(StandardCharsets.UTF_8), buffer);
+        assertEquals("hello", new String(larger.array(), 0, larger.length()));
+    }
+
+    /** A file with a NUL byte anywhere is called binary, even where a bad sequence comes first. */
+    @Test
+    void callsAFileWithANulBinaryBeforeCallingItInvalid() {
+        byte[] bytes = {(byte) 0xC3, '(', 0};
+        assertEquals("binary file (NUL byte at offset 2)", refusal(bytes));
+        String message = assertThrows(TareException.class, () -> reader.decodeChars("t.md", bytes, new char[8])).getMessage();
+        assertEquals("binary file (NUL byte at offset 2)", message);
+    }
+
     @Test
     void refusesFilesOverTheLimitNamingTheSetting() {
         String message = refusal(new byte[1025]);

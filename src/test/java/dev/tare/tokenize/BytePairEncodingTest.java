@@ -42,6 +42,9 @@ class BytePairEncodingTest {
             String text = TrickyText.next(random, 60).replace("\uD800", "");
             assertArrayEquals(theirs.encodeOrdinary(text).toArray(), ours.encode(text), () -> name + " on " + text);
             assertEquals(theirs.countTokensOrdinary(text), ours.count(text), () -> name + " count on " + text);
+            // Counted where it lies in a longer array, whose chars past the text must not be read.
+            char[] array = (text + "word 123 !?").toCharArray();
+            assertEquals(theirs.countTokensOrdinary(text), ours.count(array, text.length()), () -> name + " count of chars " + text);
         }
     }
 

@@ -1,0 +1,88 @@
+package dev.tare.source;
+
+/**
+ * Decodes well-formed UTF-8 into UTF-16 chars in one pass, stopping at the first byte sequence
+ * that is not well formed (Table 3-7 of the Unicode Standard: no overlong forms, no surrogates,
+ * nothing past U+10FFFF) or is a NUL. It fills a caller's array, so that counting many files needs
+ * neither a {@code String} per file nor the copy out of it, and it reports where the input went
+ * wrong, which the JDK's decoders say only through an exception or a replacement character.
+ * {@code StrictUtf8Test} holds it to the JDK's strict decoder on random bytes.
+ */
+final class StrictUtf8 {
+    private StrictUtf8() {
+    }
+
+    /**
+     * Decodes {@code bytes[start, end)} into {@code out} from index 0, which must hold
+     * {@code end - start} chars: the number of chars written, or {@code -1 - offset} where
+     * {@code offset} is the index in {@code bytes} of the first sequence that is not well formed or
+     * of the first NUL byte.
+     */
+    static int decode(byte[] bytes, int start, int end, char[] out) {
+        int i = start;
+        int j = 0;
+        while (i < end) {
+            int b = bytes[i];
+            if (b > 0) {
+                out[j++] = (char) b;
+                i++;
+                continue;
+            }
+            int lead = b & 0xFF;
+            if (lead >= 0xC2 && lead <= 0xDF) {
+                if (i + 1 >= end || !continuation(bytes[i + 1])) {
+                    return -1 - i;
+                }
+                out[j++] = (char) ((lead & 0x1F) << 6 | bytes[i + 1] & 0x3F);
+                i += 2;
+            } else if (lead >= 0xE0 && lead <= 0xEF) {
+                if (i + 2 >= end || !secondOfThree(lead, bytes[i + 1]) || !continuation(bytes[i + 2])) {
+                    return -1 - i;
+                }
+                out[j++] = (char) ((lead & 0x0F) << 12 | (bytes[i + 1] & 0x3F) << 6 | bytes[i + 2] & 0x3F);
+                i += 3;
+            } else if (lead >= 0xF0 && lead <= 0xF4) {
+                if (i + 3 >= end || !secondOfFour(lead, bytes[i + 1]) || !continuation(bytes[i + 2])
+                        || !continuation(bytes[i + 3])) {
+                    return -1 - i;
+                }
+                int cp = (lead & 0x07) << 18 | (bytes[i + 1] & 0x3F) << 12 | (bytes[i + 2] & 0x3F) << 6 | bytes[i + 3] & 0x3F;
+                out[j++] = Character.highSurrogate(cp);
+                out[j++] = Character.lowSurrogate(cp);
+                i += 4;
+            } else {
+                // NUL, a continuation byte without a lead, or a lead byte no well-formed sequence has.
+                return -1 - i;
+            }
+        }
+        return j;
+    }
+
+    private static boolean continuation(byte b) {
+        return (b & 0xC0) == 0x80;
+    }
+
+    /** The second byte of a three-byte sequence: E0 needs A0..BF (not overlong), ED 80..9F (not a surrogate). */
+    private static boolean secondOfThree(int lead, byte b) {
+        int second = b & 0xFF;
+        if (lead == 0xE0) {
+            return second >= 0xA0 && second <= 0xBF;
+        }
+        if (lead == 0xED) {
+            return second >= 0x80 && second <= 0x9F;
+        }
+        return continuation(b);
+    }
+
+    /** The second byte of a four-byte sequence: F0 needs 90..BF (not overlong), F4 80..8F (not past U+10FFFF). */
+    private static boolean secondOfFour(int lead, byte b) {
+        int second = b & 0xFF;
+        if (lead == 0xF0) {
+            return second >= 0x90 && second <= 0xBF;
+        }
+        if (lead == 0xF4) {
+            return second >= 0x80 && second <= 0x8F;
+        }
+        return continuation(b);
+    }
+}
