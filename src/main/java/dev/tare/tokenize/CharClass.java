@@ -24,11 +24,14 @@ final class CharClass {
     static final int LOWER_PART = 1 << 5;
 
     private static final byte[] TABLE = new byte[256];
+    /** The class bits of the ASCII chars, for the splitters' loops to read without a call. */
+    static final byte[] ASCII = new byte[0x80];
 
     static {
         for (int c = 0; c < TABLE.length; c++) {
             TABLE[c] = (byte) classify(c);
         }
+        System.arraycopy(TABLE, 0, ASCII, 0, ASCII.length);
     }
 
     private CharClass() {

@@ -6,7 +6,7 @@ import static dev.tare.tokenize.CharClass.NUMBER;
 import static dev.tare.tokenize.Pretokenizer.Steps.classAt;
 import static dev.tare.tokenize.Pretokenizer.Steps.contraction;
 import static dev.tare.tokenize.Pretokenizer.Steps.next;
-import static dev.tare.tokenize.Pretokenizer.Steps.run;
+import static dev.tare.tokenize.Pretokenizer.Steps.letters;
 import static dev.tare.tokenize.Pretokenizer.Steps.symbols;
 import static dev.tare.tokenize.Pretokenizer.Steps.threeDigits;
 import static dev.tare.tokenize.Pretokenizer.Steps.whitespace;
@@ -23,22 +23,23 @@ final class Cl100kPieces implements Pretokenizer {
 
     @Override
     public int pieceEnd(char[] text, int start, int length) {
-        int end = contraction(text, start, length);
-        if (end > start) {
-            return end;
+        if (text[start] == '\'') {
+            int end = contraction(text, start, length);
+            if (end > start) {
+                return end;
+            }
         }
         int bits = classAt(text, start, length);
         int after = next(text, start, length);
-        if ((bits & (NEWLINE | LETTER | NUMBER)) == 0 && after < length && (classAt(text, after, length) & LETTER) != 0) {
-            return run(text, after, length, LETTER);
-        }
-        if ((bits & LETTER) != 0) {
-            return run(text, after, length, LETTER);
+        // A letter, or one mark that is not a letter, number or line break before a letter: a word.
+        if ((bits & LETTER) != 0
+                || (bits & (NEWLINE | NUMBER)) == 0 && after < length && (classAt(text, after, length) & LETTER) != 0) {
+            return letters(text, after, length);
         }
         if ((bits & NUMBER) != 0) {
             return threeDigits(text, after, length);
         }
-        end = symbols(text, start, length, "\r\n");
+        int end = symbols(text, start, length, "\r\n");
         return end >= 0 ? end : whitespace(text, start, length, true);
     }
 }

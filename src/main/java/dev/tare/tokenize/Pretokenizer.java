@@ -20,19 +20,44 @@ interface Pretokenizer {
         private Steps() {
         }
 
+        /** The class bits of the code point at {@code at}: small enough for the first JIT tier to inline. */
         static int classAt(char[] text, int at, int length) {
+            char c = text[at];
+            return c < 0x80 ? CharClass.ASCII[c] : classOfNonAscii(text, at, length);
+        }
+
+        private static int classOfNonAscii(char[] text, int at, int length) {
             char c = text[at];
             return Character.isHighSurrogate(c) ? CharClass.of(Character.codePointAt(text, at, length)) : CharClass.of(c);
         }
 
         static int next(char[] text, int at, int length) {
-            return at + 1 < length && Character.isHighSurrogate(text[at]) && Character.isLowSurrogate(text[at + 1])
+            return Character.isHighSurrogate(text[at]) && at + 1 < length && Character.isLowSurrogate(text[at + 1])
                     ? at + 2 : at + 1;
         }
 
         /** The end of the run of code points having any of {@code bits}, from {@code at}. */
         static int run(char[] text, int at, int length, int bits) {
             return runWhile(text, at, length, bits, bits);
+        }
+
+        /**
+         * {@code run(text, at, length, CharClass.LETTER)}, with a loop of its own for ASCII letters:
+         * words are most of prompt text, and this is the hottest loop of counting.
+         */
+        static int letters(char[] text, int at, int length) {
+            byte[] ascii = CharClass.ASCII;
+            while (at < length) {
+                char c = text[at];
+                if (c >= 0x80) {
+                    return run(text, at, length, CharClass.LETTER);
+                }
+                if ((ascii[c] & CharClass.LETTER) == 0) {
+                    return at;
+                }
+                at++;
+            }
+            return at;
         }
 
         /** The end of the run of code points having none of {@code bits}, from {@code at}. */
@@ -43,11 +68,20 @@ interface Pretokenizer {
         /**
          * The end of the run of code points whose class bits, masked by {@code mask}, are nonzero when
          * {@code wanted} is: one loop for both kinds of run, reading a char at a time and joining a
-         * surrogate pair only where one stands, since this is the hottest loop of counting.
+         * surrogate pair only where one stands.
          */
         private static int runWhile(char[] text, int at, int length, int mask, int wanted) {
+            boolean want = wanted != 0;
+            byte[] ascii = CharClass.ASCII;
             while (at < length) {
                 char c = text[at];
+                if (c < 0x80) {
+                    if (((ascii[c] & mask) != 0) != want) {
+                        break;
+                    }
+                    at++;
+                    continue;
+                }
                 int bits;
                 int width = 1;
                 if (Character.isHighSurrogate(c) && at + 1 < length && Character.isLowSurrogate(text[at + 1])) {
@@ -56,7 +90,7 @@ interface Pretokenizer {
                 } else {
                     bits = CharClass.of(c);
                 }
-                if (((bits & mask) != 0) != (wanted != 0)) {
+                if (((bits & mask) != 0) != want) {
                     break;
                 }
                 at += width;
