@@ -103,7 +103,7 @@ public final class CheckReport {
             generator.writeFieldName("summary");
             Json.tree(generator, summary(result));
             generator.writeFieldName("skipped");
-            ArrayNode skipped = Json.MAPPER.createArrayNode();
+            ArrayNode skipped = Json.mapper().createArrayNode();
             for (SkippedFile file : result.skipped()) {
                 skipped.addObject().put("path", file.path()).put("reason", file.reason());
             }
@@ -157,7 +157,7 @@ public final class CheckReport {
     }
 
     private static ObjectNode summary(CheckResult result) {
-        ObjectNode summary = Json.MAPPER.createObjectNode();
+        ObjectNode summary = Json.mapper().createObjectNode();
         summary.put("templates", result.templates());
         summary.put("rules", result.rules().size());
         summary.put("findings", result.findings().size());
@@ -179,7 +179,7 @@ public final class CheckReport {
      * rewrite, a fix. Columns are Unicode code points; paths are relative to {@value #ROOT_BASE}.
      */
     public static String sarif(CheckResult result) {
-        ObjectNode log = Json.MAPPER.createObjectNode();
+        ObjectNode log = Json.mapper().createObjectNode();
         log.put("$schema", SARIF_SCHEMA);
         log.put("version", "2.1.0");
         ObjectNode run = log.putArray("runs").addObject();

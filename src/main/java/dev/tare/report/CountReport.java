@@ -1,7 +1,5 @@
 package dev.tare.report;
 
-import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
 
 /** Renders whole-file token counts. */
@@ -36,17 +34,24 @@ public final class CountReport {
         return "Tokens on " + tokenizer + "\n\n" + table.render();
     }
 
-    /** The JSON document of the design contract. */
+    /** The JSON document of the design contract, written as it is made: it may name many thousand files. */
     public static String json(String tokenizer, List<Entry> entries) {
-        ObjectNode root = Json.report();
-        root.put("tokenizer", tokenizer);
-        ArrayNode files = root.putArray("files");
-        long total = 0;
-        for (Entry entry : entries) {
-            files.addObject().put("path", entry.path()).put("tokens", entry.tokens()).put("chars", entry.chars());
-            total += entry.tokens();
-        }
-        root.putObject("total").put("tokens", total);
-        return Json.write(root);
+        return Json.stream(out -> {
+            out.writeStringField("tokenizer", tokenizer);
+            out.writeArrayFieldStart("files");
+            long total = 0;
+            for (Entry entry : entries) {
+                out.writeStartObject();
+                out.writeStringField("path", entry.path());
+                out.writeNumberField("tokens", entry.tokens());
+                out.writeNumberField("chars", entry.chars());
+                out.writeEndObject();
+                total += entry.tokens();
+            }
+            out.writeEndArray();
+            out.writeObjectFieldStart("total");
+            out.writeNumberField("tokens", total);
+            out.writeEndObject();
+        });
     }
 }

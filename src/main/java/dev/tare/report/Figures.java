@@ -27,7 +27,7 @@ final class Figures {
 
     /** The FOOTPRINT object of the JSON contract: the keys the target has inputs for. */
     static ObjectNode json(Footprint f) {
-        ObjectNode node = Json.MAPPER.createObjectNode();
+        ObjectNode node = Json.mapper().createObjectNode();
         node.put("input_tokens", f.inputTokens());
         node.put("framing_tokens", f.framingTokens());
         f.cachedInputTokens().ifPresent(v -> node.put("cached_input_tokens", v));

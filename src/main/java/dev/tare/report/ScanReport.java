@@ -111,7 +111,7 @@ public final class ScanReport {
             }
             out.writeEndArray();
             out.writeFieldName("totals");
-            out.writeTree(totals(result));
+            Json.tree(out, totals(result));
             out.writeArrayFieldStart("skipped");
             for (SkippedFile file : result.skipped()) {
                 out.writeStartObject();
@@ -141,7 +141,7 @@ public final class ScanReport {
                 prefix(footprint, share);
             }
             out.writeFieldName(entry.getKey());
-            out.writeTree(footprint);
+            Json.tree(out, footprint);
         }
         out.writeEndObject();
         out.writeEndObject();
@@ -157,7 +157,7 @@ public final class ScanReport {
 
     private static ObjectNode totals(ScanResult result) {
         ScanResult.Totals totals = result.totals();
-        ObjectNode totalNode = Json.MAPPER.createObjectNode();
+        ObjectNode totalNode = Json.mapper().createObjectNode();
         totalNode.put("templates", totals.templates());
         totalNode.put("partials", totals.partials());
         totalNode.put("static_tokens", totals.staticTokens());

@@ -156,7 +156,7 @@ public final class TargetsReport {
     }
 
     private static ObjectNode model(ModelShape m) {
-        ObjectNode node = Json.MAPPER.createObjectNode();
+        ObjectNode node = Json.mapper().createObjectNode();
         node.put("origin", m.origin());
         node.put("params", m.params());
         node.put("params_computed", m.paramsComputed());
@@ -168,7 +168,7 @@ public final class TargetsReport {
     }
 
     private static ObjectNode device(Device d) {
-        ObjectNode node = Json.MAPPER.createObjectNode();
+        ObjectNode node = Json.mapper().createObjectNode();
         node.put("origin", d.origin());
         d.memoryGib().ifPresent(v -> node.put("memory_gib", v));
         d.usableFraction().ifPresent(v -> node.put("usable_fraction", v));
