@@ -54,6 +54,8 @@ final class CountCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         Tokenizer counter = new TokenizerRegistry().get(tokenizer, Path.of("."));
+        // Its vocabulary loads while the list is read and the first files are: every file needs it.
+        TokenizerRegistry.prepare(List.of(counter));
         SafeReader reader = new SafeReader(MAX_BYTES);
         PrintWriter err = spec.commandLine().getErr();
         // Files are read and counted on every core; the report keeps the order they were named in.
