@@ -12,17 +12,17 @@ import static dev.tare.tokenize.Pretokenizer.Steps.threeDigits;
 import static dev.tare.tokenize.Pretokenizer.Steps.whitespace;
 
 /** The splitting pattern of {@code cl100k_base}: contractions, words with one leading mark, digits in threes. */
-final class Cl100kPieces implements Pretokenizer {
+final class Cl100kPieces extends Pretokenizer {
     static final String PATTERN = "(?i:'s|'t|'re|'ve|'m|'ll|'d)|[^\\r\\n\\p{L}\\p{N}]?\\p{L}+|\\p{N}{1,3}"
             + "| ?[^\\s\\p{L}\\p{N}]+[\\r\\n]*|\\s*[\\r\\n]+|\\s+(?!\\S)|\\s+";
 
     @Override
-    public String pattern() {
+    String pattern() {
         return PATTERN;
     }
 
     @Override
-    public int pieceEnd(char[] text, int start, int length) {
+    int pieceEnd(char[] text, int start, int length) {
         if (text[start] == '\'') {
             int end = contraction(text, start, length);
             if (end > start) {

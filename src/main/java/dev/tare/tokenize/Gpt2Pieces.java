@@ -10,16 +10,16 @@ import static dev.tare.tokenize.Pretokenizer.Steps.runWithout;
 import static dev.tare.tokenize.Pretokenizer.Steps.whitespace;
 
 /** The splitting pattern of {@code r50k_base} and {@code p50k_base}: lower-case contractions, runs of one class. */
-final class Gpt2Pieces implements Pretokenizer {
+final class Gpt2Pieces extends Pretokenizer {
     static final String PATTERN = "'(?:[sdmt]|ll|ve|re)| ?\\p{L}+| ?\\p{N}+| ?[^\\s\\p{L}\\p{N}]+|\\s+(?!\\S)|\\s+";
 
     @Override
-    public String pattern() {
+    String pattern() {
         return PATTERN;
     }
 
     @Override
-    public int pieceEnd(char[] text, int start, int length) {
+    int pieceEnd(char[] text, int start, int length) {
         if (text[start] == '\'' && start + 1 < length) {
             char a = text[start + 1];
             if (a == 's' || a == 'd' || a == 'm' || a == 't') {

@@ -14,7 +14,7 @@ import static dev.tare.tokenize.Pretokenizer.Steps.threeDigits;
 import static dev.tare.tokenize.Pretokenizer.Steps.whitespace;
 
 /** The splitting pattern of {@code o200k_base}: words split at case changes, digits in threes. */
-final class O200kPieces implements Pretokenizer {
+final class O200kPieces extends Pretokenizer {
     static final String PATTERN = String.join("|",
             "[^\\r\\n\\p{L}\\p{N}]?[\\p{Lu}\\p{Lt}\\p{Lm}\\p{Lo}\\p{M}]*[\\p{Ll}\\p{Lm}\\p{Lo}\\p{M}]+(?i:'s|'t|'re|'ve|'m|'ll|'d)?",
             "[^\\r\\n\\p{L}\\p{N}]?[\\p{Lu}\\p{Lt}\\p{Lm}\\p{Lo}\\p{M}]+[\\p{Ll}\\p{Lm}\\p{Lo}\\p{M}]*(?i:'s|'t|'re|'ve|'m|'ll|'d)?",
@@ -25,12 +25,12 @@ final class O200kPieces implements Pretokenizer {
             "\\s+");
 
     @Override
-    public String pattern() {
+    String pattern() {
         return PATTERN;
     }
 
     @Override
-    public int pieceEnd(char[] text, int start, int length) {
+    int pieceEnd(char[] text, int start, int length) {
         int bits = classAt(text, start, length);
         int after = next(text, start, length);
         boolean prefix = (bits & (NEWLINE | LETTER | NUMBER)) == 0 && after < length;
