@@ -39,6 +39,20 @@ class StrictUtf8Test {
         }
     }
 
+    /** Runs of ASCII are read eight bytes at a time: a NUL or a byte past ASCII is found at every place in one. */
+    @Test
+    void findsANulOrAByteBeyondAsciiAtEveryPlaceOfALongRun() {
+        for (int at = 0; at < 20; at++) {
+            for (int odd : new int[] {0x00, 0x7F, 0x80, 0xC3, 0xE2, 0xFF}) {
+                byte[] bytes = "abcdefghijklmnopqrst".getBytes(StandardCharsets.US_ASCII);
+                bytes[at] = (byte) odd;
+                assertSameAsJdk(bytes);
+            }
+            byte[] accented = ("abcdefghijklmnopqrst".substring(0, at) + "\u00e9xyz").getBytes(StandardCharsets.UTF_8);
+            assertSameAsJdk(accented);
+        }
+    }
+
     @Test
     void refusesANulByteAtItsOffset() {
         char[] out = new char[4];
