@@ -52,7 +52,7 @@ final class HookCommand implements Runnable {
      * would spend more CPU than it saves there, on the core the work needs.
      */
     static List<String> jvmOptions(Path jar) {
-        List<String> options = new ArrayList<>(List.of("-XX:+UseSerialGC", "-XX:TieredStopAtLevel=1"));
+        List<String> options = new ArrayList<>(List.of("-XX:+UseSerialGC", "-XX:TieredStopAtLevel=1", "-XX:MaxTenuringThreshold=0"));
         options.addAll(ClassArchive.options(Path.of(System.getProperty("java.home")), jar));
         return options;
     }

@@ -171,6 +171,7 @@ class ClassArchiveIT {
         String option = archive.getFileName().toString().endsWith(".aot") ? "-XX:AOTCache=" : "-XX:SharedArchiveFile=";
         assertTrue(hook.contains("'" + option + archive + "'"), hook);
         assertTrue(hook.contains("'-XX:TieredStopAtLevel=1'"), "the launcher's options for the hook: " + hook);
+        assertTrue(hook.contains("'-XX:MaxTenuringThreshold=0'"), "the launcher's options for the hook: " + hook);
         assertEquals("", commit(repo), "a clean commit prints nothing");
     }
 

@@ -79,19 +79,22 @@ class LauncherIT {
     }
 
     @Test
-    void shortRunsUseTheFirstJitTierOnlyAFullCheckOrFixBothAndEveryRunTheSerialCollector() throws Exception {
+    void shortRunsUseTheFirstJitTierOnlyAndPromoteAtOnceAFullCheckOrFixNeitherAndEveryRunTheSerialCollector() throws Exception {
         Pattern firstTierOnly = Pattern.compile("TieredStopAtLevel\\s+= 1\\s");
         Pattern serial = Pattern.compile("UseSerialGC\\s+= true\\s");
+        Pattern promotedAtOnce = Pattern.compile("MaxTenuringThreshold\\s+= 0\\s");
         Map<String, String> flags = Map.of("TARE_JAVA_OPTS", "-XX:+PrintFlagsFinal");
         for (String[] command : new String[][] {{"hook", "run"}, {"check", "--staged"}, {"scan"}, {"count"}}) {
             String out = launch(flags, append(command, "--help")).out();
             assertTrue(firstTierOnly.matcher(out).find(), String.join(" ", command));
             assertTrue(serial.matcher(out).find(), String.join(" ", command));
+            assertTrue(promotedAtOnce.matcher(out).find(), String.join(" ", command));
         }
         for (String[] command : new String[][] {{"check"}, {"fix"}}) {
             String out = launch(flags, append(command, "--help")).out();
             assertTrue(out.contains("TieredStopAtLevel"), out);
             assertFalse(firstTierOnly.matcher(out).find(), String.join(" ", command) + " keeps the optimizing compiler");
+            assertFalse(promotedAtOnce.matcher(out).find(), String.join(" ", command) + " keeps the default tenuring");
             assertTrue(serial.matcher(out).find(), String.join(" ", command));
         }
     }
