@@ -23,6 +23,14 @@ bench_require() {
   command -v java >/dev/null 2>&1 || { echo "$name: java is not on PATH; install a JDK 17+ or set JAVA_HOME" >&2; exit 2; }
 }
 
+# bench_whole_number SCRIPT SETTING VALUE: exits with 2 and says so unless VALUE, the value of the
+# environment setting SETTING, is a whole number above zero (SCRIPT prefixes the message).
+bench_whole_number() {
+  case "$3" in
+    '' | *[!0-9]* | 0) echo "$1: $2 must be a whole number above zero (got '$3')" >&2; exit 2 ;;
+  esac
+}
+
 # bench_corpus: prints the corpus folder for BENCH_COUNT and BENCH_SEED, generating it first when it is
 # missing or older than the generator. It is written aside and moved in, so that an interrupted
 # generation never leaves a half corpus behind.

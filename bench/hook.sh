@@ -39,9 +39,7 @@ if [ ! -x "$timer" ] || ! "$timer" -f %e true >/dev/null 2>&1; then
 fi
 command -v java >/dev/null 2>&1 || { echo "hook.sh: java is not on PATH; install a JDK 17+ or set JAVA_HOME" >&2; exit 2; }
 command -v git >/dev/null 2>&1 || { echo "hook.sh: git is needed; install it and try again" >&2; exit 2; }
-case "$runs" in
-  '' | *[!0-9]* | 0) echo "hook.sh: BENCH_RUNS must be a whole number above zero (got '$runs')" >&2; exit 2 ;;
-esac
+bench_whole_number hook.sh BENCH_RUNS "$runs"
 
 "$project/tare" --version >/dev/null
 jar="$project/target/tare.jar"

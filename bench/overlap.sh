@@ -22,9 +22,7 @@ if [ ! -x "$timer" ] || ! "$timer" -v true >/dev/null 2>&1; then
   echo "overlap.sh: GNU time is needed at $timer; install it (on Debian or Ubuntu: sudo apt-get install time) and try again" >&2
   exit 2
 fi
-case "$runs" in
-  '' | *[!0-9]* | 0) echo "overlap.sh: BENCH_RUNS must be a whole number above zero (got '$runs')" >&2; exit 2 ;;
-esac
+bench_whole_number overlap.sh BENCH_RUNS "$runs"
 
 cd "$repo"
 ./tare --version >/dev/null

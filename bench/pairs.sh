@@ -15,9 +15,7 @@ set -euo pipefail
 source "$(dirname "${BASH_SOURCE[0]}")/common.sh"
 bench_require pairs.sh
 pairs="${BENCH_PAIRS:-3}"
-case "$pairs" in
-  '' | *[!0-9]* | 0) echo "pairs.sh: BENCH_PAIRS must be a whole number above zero (got '$pairs')" >&2; exit 2 ;;
-esac
+bench_whole_number pairs.sh BENCH_PAIRS "$pairs"
 
 cd "$bench_repo"
 ./tare --version >/dev/null

@@ -13,9 +13,7 @@ set -euo pipefail
 source "$(dirname "${BASH_SOURCE[0]}")/common.sh"
 runs="${BENCH_RUNS:-3}"
 bench_require scan.sh
-case "$runs" in
-  '' | *[!0-9]* | 0) echo "scan.sh: BENCH_RUNS must be a whole number above zero (got '$runs')" >&2; exit 2 ;;
-esac
+bench_whole_number scan.sh BENCH_RUNS "$runs"
 
 cd "$bench_repo"
 ./tare --version >/dev/null
