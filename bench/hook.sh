@@ -20,6 +20,9 @@
 # Environment: JAVA_HOME (run, and build if needed, with that JDK), BENCH_RUNS, BENCH_OPTIONS.
 set -euo pipefail
 
+# For bench_whole_number; this script keeps its own JDK and timer checks.
+source "$(dirname "${BASH_SOURCE[0]}")/common.sh"
+
 here="$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)"
 project="$(cd "$here/.." && pwd)"
 runs="${BENCH_RUNS:-10}"

@@ -8,6 +8,9 @@
 # folder; default bench/out/corpus, generated when missing), BENCH_MIN_TOKENS (default 50).
 set -euo pipefail
 
+# For bench_whole_number; this script keeps its own JDK and timer checks.
+source "$(dirname "${BASH_SOURCE[0]}")/common.sh"
+
 here="$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)"
 repo="$(cd "$here/.." && pwd)"
 runs="${BENCH_RUNS:-3}"
