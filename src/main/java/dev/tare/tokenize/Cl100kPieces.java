@@ -5,8 +5,8 @@ import static dev.tare.tokenize.CharClass.NEWLINE;
 import static dev.tare.tokenize.CharClass.NUMBER;
 import static dev.tare.tokenize.Pretokenizer.Steps.classAt;
 import static dev.tare.tokenize.Pretokenizer.Steps.contraction;
-import static dev.tare.tokenize.Pretokenizer.Steps.letters;
 import static dev.tare.tokenize.Pretokenizer.Steps.next;
+import static dev.tare.tokenize.Pretokenizer.Steps.run;
 import static dev.tare.tokenize.Pretokenizer.Steps.symbols;
 import static dev.tare.tokenize.Pretokenizer.Steps.threeDigits;
 import static dev.tare.tokenize.Pretokenizer.Steps.whitespace;
@@ -34,7 +34,7 @@ final class Cl100kPieces extends Pretokenizer {
         // A letter, or one mark that is not a letter, number or line break before a letter: a word.
         if ((bits & LETTER) != 0
                 || (bits & (NEWLINE | NUMBER)) == 0 && after < length && (classAt(text, after, length) & LETTER) != 0) {
-            return letters(text, after, length);
+            return run(text, after, length, LETTER);
         }
         if ((bits & NUMBER) != 0) {
             return threeDigits(text, after, length);

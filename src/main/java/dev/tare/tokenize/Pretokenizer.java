@@ -40,23 +40,19 @@ abstract class Pretokenizer {
                     ? at + 2 : at + 1;
         }
 
-        /** The end of the run of code points having any of {@code bits}, from {@code at}. */
-        static int run(char[] text, int at, int length, int bits) {
-            return runWhile(text, at, length, bits, bits);
-        }
-
         /**
-         * {@code run(text, at, length, CharClass.LETTER)}, with a loop of its own for ASCII letters:
-         * words are most of prompt text, and this is the hottest loop of counting.
+         * The end of the run of code points having any of {@code bits}, from {@code at}: the runs of
+         * letters, numbers and word parts that words are made of, the hottest loop of counting. ASCII
+         * chars take a loop of their own, which tests one bit of a table entry and nothing else.
          */
-        static int letters(char[] text, int at, int length) {
+        static int run(char[] text, int at, int length, int bits) {
             byte[] ascii = CharClass.ASCII;
             while (at < length) {
                 char c = text[at];
                 if (c >= 0x80) {
-                    return run(text, at, length, CharClass.LETTER);
+                    return runWhile(text, at, length, bits, bits);
                 }
-                if ((ascii[c] & CharClass.LETTER) == 0) {
+                if ((ascii[c] & bits) == 0) {
                     return at;
                 }
                 at++;
