@@ -15,7 +15,7 @@ import java.util.Set;
 /**
  * A reader for the plain subset of YAML that chat files and front matter are nearly always written
  * in: block mappings with plain keys, block sequences, literal block scalars ({@code |} and
- * {@code |-}), one-line flow mappings and sequences of scalars, quoted strings on one line (double
+ * {@code |-}), one-line flow mappings (their keys plain or quoted) and sequences of scalars, quoted strings on one line (double
  * quotes with the escapes {@code \" \\ \n \t \r \\uXXXX}), plain strings, whole numbers, empty
  * values and comments. Anything else (an anchor, a tag, a folded or multi-line scalar, a tab, a word
  * YAML might read as a boolean or null, a duplicate key, an unusual character) makes it give up, and
@@ -330,8 +330,20 @@ final class SimpleYaml {
             return at + 1;
         }
         while (true) {
-            int keyEnd = flowKeyEnd(at, end);
-            String key = text.substring(at, keyEnd);
+            int keyEnd;
+            String key;
+            if (at < end && (chars[at] == '"' || chars[at] == '\'')) {
+                // A quoted key, as configuration files write a glob: {"prompts/**": 7000}.
+                int close = closingQuote(at, end);
+                key = unquote(at, close);
+                keyEnd = close + 1;
+                if (keyEnd + 1 >= end || chars[keyEnd] != ':' || chars[keyEnd + 1] != ' ') {
+                    throw Unsupported.INSTANCE;
+                }
+            } else {
+                keyEnd = flowKeyEnd(at, end);
+                key = text.substring(at, keyEnd);
+            }
             if (object.has(key)) {
                 throw Unsupported.INSTANCE;
             }

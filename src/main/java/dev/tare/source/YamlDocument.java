@@ -32,7 +32,11 @@ public final class YamlDocument {
     /** The deepest nesting accepted; real prompt and config files stay far below it. */
     public static final int MAX_DEPTH = 64;
 
-    private static final JsonFactory YAML = yamlFactory();
+    /** Jackson's YAML parser, made on first use: a document {@link SimpleYaml} reads never loads it. */
+    private static final class Yaml {
+        static final JsonFactory FACTORY = yamlFactory();
+    }
+
     private static final JsonFactory JSON = JsonFactory.builder()
             .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
             .build();
@@ -55,12 +59,12 @@ public final class YamlDocument {
         if (simple != null) {
             return new YamlDocument(simple.root(), simple.locations());
         }
-        return parse(YAML, text);
+        return parse(Yaml.FACTORY, text);
     }
 
     /** Parses YAML text with Jackson's YAML parser only: what {@link SimpleYaml} is held to. */
     static YamlDocument parseYamlInFull(String text) {
-        return parse(YAML, text);
+        return parse(Yaml.FACTORY, text);
     }
 
     /** Every path with a recorded location: for comparing two readings of a document. */

@@ -57,7 +57,8 @@ class SimpleYamlTest {
                         + "        indented more\n    \n  - role: user\n    content: |-\n      Hi\n\n\nbudget: 500\n",
                 "messages:\n- role: user  # who\n  content: 'its'\n- role: assistant\n  content: \"\ud83d\ude42 ok\"\ntools: [a.md, \"b c\", 7]\n",
                 "\nvariables:\n  a: {sample: \"\ud83d\ude42\ud83d\ude42\", tokens: 5}\n  b: []\n  c: {}\ntarget: hosted-main\n",
-                "a:\n  b:\n    c: -12\n  d: x y z\n");
+                "a:\n  b:\n    c: -12\n  d: x y z\n",
+                "budgets: {default: 4000, \"prompts/planning/**\": 12000, 'drafts/*': 10}\n");
         for (String text : accepted) {
             assertTrue(sameReading(text), () -> "not accepted:\n" + text);
         }
@@ -203,7 +204,8 @@ class SimpleYamlTest {
     private static String flowMapping(Random random) {
         String[] values = {"{tokens: 276}", "{sample: \"21:50\"}", "{sample: gold, tokens: 3}", "{}", "{a: 1,b: 2}",
             "{a: }", "{a: [1]}", "{a:1}", "{ a: x , b: 'y' }", "{sample: \"\ud83d\ude42\", tokens: 5} # c", "{a: yes}",
-            "{a: 1, a: 2}", "{a: x: y}"};
+            "{a: 1, a: 2}", "{a: x: y}", "{default: 4000, \"prompts/planning/**\": 12000}", "{'k': v, \"a b\": 2}",
+            "{\"a\": 1, a: 2}", "{\"\": 1}", "{\"x\":1}", "{\"e\\\"q\": 1}", "{\"on\": 1}", "{\"a.b\": [x]}", "{'it''s': 1}"};
         return values[random.nextInt(values.length)];
     }
 
