@@ -23,15 +23,13 @@ final class CharClass {
     /** {@code [\p{Ll}\p{Lm}\p{Lo}\p{M}]}: the lower-case part of a word. */
     static final int LOWER_PART = 1 << 5;
 
-    private static final byte[] TABLE = new byte[256];
-    /** The class bits of the ASCII chars, for the splitters' loops to read without a call. */
-    static final byte[] ASCII = new byte[0x80];
+    /** The class bits of the Latin-1 chars, which the splitters' loops also read directly, without a call. */
+    static final byte[] LATIN_1 = new byte[0x100];
 
     static {
-        for (int c = 0; c < TABLE.length; c++) {
-            TABLE[c] = (byte) classify(c);
+        for (int c = 0; c < LATIN_1.length; c++) {
+            LATIN_1[c] = (byte) classify(c);
         }
-        System.arraycopy(TABLE, 0, ASCII, 0, ASCII.length);
     }
 
     private CharClass() {
@@ -39,7 +37,7 @@ final class CharClass {
 
     /** The class bits of code point {@code cp}. */
     static int of(int cp) {
-        return cp < TABLE.length ? TABLE[cp] : classify(cp);
+        return cp < LATIN_1.length ? LATIN_1[cp] : classify(cp);
     }
 
     private static int classify(int cp) {
