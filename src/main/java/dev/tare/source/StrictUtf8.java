@@ -65,13 +65,13 @@ final class StrictUtf8 {
                 out[j++] = (char) ((lead & 0x1F) << 6 | bytes[i + 1] & 0x3F);
                 i += 2;
             } else if (lead >= 0xE0 && lead <= 0xEF) {
-                if (i + 2 >= end || !secondOfThree(lead, bytes[i + 1]) || !continuation(bytes[i + 2])) {
+                if (i + 2 >= end || !second(lead, bytes[i + 1]) || !continuation(bytes[i + 2])) {
                     return -1 - i;
                 }
                 out[j++] = (char) ((lead & 0x0F) << 12 | (bytes[i + 1] & 0x3F) << 6 | bytes[i + 2] & 0x3F);
                 i += 3;
             } else if (lead >= 0xF0 && lead <= 0xF4) {
-                if (i + 3 >= end || !secondOfFour(lead, bytes[i + 1]) || !continuation(bytes[i + 2])
+                if (i + 3 >= end || !second(lead, bytes[i + 1]) || !continuation(bytes[i + 2])
                         || !continuation(bytes[i + 3])) {
                     return -1 - i;
                 }
@@ -91,27 +91,18 @@ final class StrictUtf8 {
         return (b & 0xC0) == 0x80;
     }
 
-    /** The second byte of a three-byte sequence: E0 needs A0..BF (not overlong), ED 80..9F (not a surrogate). */
-    private static boolean secondOfThree(int lead, byte b) {
+    /**
+     * The second byte of a three- or four-byte sequence, as Table 3-7 narrows it after four leads:
+     * E0 (not overlong), ED (not a surrogate), F0 (not overlong) and F4 (not past U+10FFFF).
+     */
+    private static boolean second(int lead, byte b) {
         int second = b & 0xFF;
-        if (lead == 0xE0) {
-            return second >= 0xA0 && second <= 0xBF;
-        }
-        if (lead == 0xED) {
-            return second >= 0x80 && second <= 0x9F;
-        }
-        return continuation(b);
-    }
-
-    /** The second byte of a four-byte sequence: F0 needs 90..BF (not overlong), F4 80..8F (not past U+10FFFF). */
-    private static boolean secondOfFour(int lead, byte b) {
-        int second = b & 0xFF;
-        if (lead == 0xF0) {
-            return second >= 0x90 && second <= 0xBF;
-        }
-        if (lead == 0xF4) {
-            return second >= 0x80 && second <= 0x8F;
-        }
-        return continuation(b);
+        return switch (lead) {
+            case 0xE0 -> second >= 0xA0 && second <= 0xBF;
+            case 0xED -> second >= 0x80 && second <= 0x9F;
+            case 0xF0 -> second >= 0x90 && second <= 0xBF;
+            case 0xF4 -> second >= 0x80 && second <= 0x8F;
+            default -> continuation(b);
+        };
     }
 }
