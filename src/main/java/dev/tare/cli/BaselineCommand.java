@@ -19,7 +19,7 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare baseline}: records every template's estimated tokens per target for later comparison. */
-@Command(name = "baseline", mixinStandardHelpOptions = true,
+@Command(name = "baseline", mixinStandardHelpOptions = true, addMethodSubcommands = false,
         description = {"Records each template's estimated tokens on each target in the baseline file"
                 + " (baseline.file in tare.yaml, default tare-baseline.json), sorted and stable for review diffs.",
                 "Commit it; 'tare check' then fails when a template grows beyond baseline.tolerance_percent."})

@@ -22,7 +22,7 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare calibrate}: fits a target's scale and overheads to the usage a provider reported. */
-@Command(name = "calibrate", mixinStandardHelpOptions = true,
+@Command(name = "calibrate", mixinStandardHelpOptions = true, addMethodSubcommands = false,
         description = {"Fits a target's scale and framing overheads, by least squares, to input-token counts a provider"
                 + " reported. Each line of the log is {\"messages\": [{role, content}], \"tools\": [...], \"reported_input_tokens\": N}.",
                 "Prints the fitted values as lines to paste into tare.yaml, and the error before and after the fit."})

@@ -19,7 +19,7 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare check}: runs the rules over every template and fails on findings at or above a severity. */
-@Command(name = "check", mixinStandardHelpOptions = true,
+@Command(name = "check", mixinStandardHelpOptions = true, addMethodSubcommands = false,
         description = {"Runs every enabled rule over the templates of a repository and prints the findings"
                 + " (path:line:column, severity, rule, message, and the token saving where a rewrite exists).",
                 "Exits 1 when a finding is at or above --fail-on, 0 otherwise, 2 on a usage or configuration error.",

@@ -20,7 +20,7 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare cost}: the footprint of one prompt size, or one template, on one target. */
-@Command(name = "cost", mixinStandardHelpOptions = true,
+@Command(name = "cost", mixinStandardHelpOptions = true, addMethodSubcommands = false,
         description = {"Estimates the footprint of one prompt on one configured target: cost per call and per month"
                 + " on priced targets; prefill compute and time, decode time, weight and KV-cache memory and"
                 + " concurrent requests on targets with a model and a device.",

@@ -22,7 +22,7 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare count}: raw token counts of whole files. */
-@Command(name = "count", mixinStandardHelpOptions = true,
+@Command(name = "count", mixinStandardHelpOptions = true, addMethodSubcommands = false,
         description = {"Counts the tokens of whole files exactly as the tokenizer sees them: no template parsing,"
                 + " front matter included, a leading byte-order mark left out, special-token strings counted as text.",
                 "A file that cannot be read is reported and the others are still counted; the exit code is then 2."})

@@ -10,7 +10,7 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare explain RULE}: what a rule flags, why it costs, an example and what to write instead. */
-@Command(name = "explain", mixinStandardHelpOptions = true,
+@Command(name = "explain", mixinStandardHelpOptions = true, addMethodSubcommands = false,
         description = {"Explains one rule in four parts: what it flags, why it costs, a worked example (the same"
                 + " one 'tare rules test' runs) and what to write instead."})
 final class ExplainCommand implements Callable<Integer> {

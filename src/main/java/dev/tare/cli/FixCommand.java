@@ -22,7 +22,7 @@ import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
 /** {@code tare fix}: applies the rules' rewrites, verified, and prints the diff and the saving. */
-@Command(name = "fix", mixinStandardHelpOptions = true,
+@Command(name = "fix", mixinStandardHelpOptions = true, addMethodSubcommands = false,
         description = {"Applies the rewrites the rules offer to the templates of a repository and prints a unified"
                 + " diff per file and the tokens saved per file, per rule and in total on each target's tokenizer.",
                 "Only safe rewrites are applied unless --include-review is given. Every rewritten file is checked"

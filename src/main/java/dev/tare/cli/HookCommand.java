@@ -23,7 +23,7 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare hook}: the git pre-commit hook. */
-@Command(name = "hook", mixinStandardHelpOptions = true,
+@Command(name = "hook", mixinStandardHelpOptions = true, addMethodSubcommands = false,
         description = "Installs or removes the git pre-commit hook that checks staged templates before each commit.")
 final class HookCommand implements Runnable {
     /** The hook's subcommands by name, in the order help lists them; added by {@link TareCommand}, which builds only the one that runs. */
@@ -80,7 +80,7 @@ final class HookCommand implements Runnable {
         return "'" + word.replace("'", "'\\''") + "'";
     }
 
-    @Command(name = "install", mixinStandardHelpOptions = true,
+    @Command(name = "install", mixinStandardHelpOptions = true, addMethodSubcommands = false,
             description = "Adds a pre-commit hook to the git repository of the current folder. A hook Tare did not write is left"
                     + " alone unless --chain (keep it and run it first) or --force (replace it, keeping a backup copy).")
     static final class Install implements Callable<Integer> {
@@ -114,7 +114,7 @@ final class HookCommand implements Runnable {
         }
     }
 
-    @Command(name = "uninstall", mixinStandardHelpOptions = true,
+    @Command(name = "uninstall", mixinStandardHelpOptions = true, addMethodSubcommands = false,
             description = "Removes Tare's pre-commit hook (only Tare's), putting back a hook it chained.")
     static final class Uninstall implements Callable<Integer> {
         @Spec
@@ -136,7 +136,7 @@ final class HookCommand implements Runnable {
         }
     }
 
-    @Command(name = "run", mixinStandardHelpOptions = true,
+    @Command(name = "run", mixinStandardHelpOptions = true, addMethodSubcommands = false,
             description = "What the installed hook runs before each commit: with hook.fix set in tare.yaml, applies safe"
                     + " rewrites to fully staged templates and stages them; then checks the staged templates (their staged"
                     + " content) and stops the commit when a finding is at or above error.")

@@ -16,7 +16,7 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare init}: writes a commented starter {@code tare.yaml}, never over an existing one. */
-@Command(name = "init", mixinStandardHelpOptions = true,
+@Command(name = "init", mixinStandardHelpOptions = true, addMethodSubcommands = false,
         description = "Writes a commented starter tare.yaml into a folder (default: the current one). An existing tare.yaml is never replaced.")
 final class InitCommand implements Callable<Integer> {
     @Spec

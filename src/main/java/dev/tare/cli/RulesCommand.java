@@ -14,7 +14,7 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare rules}: lists every rule; {@code tare rules test} runs every rule's examples. */
-@Command(name = "rules", mixinStandardHelpOptions = true,
+@Command(name = "rules", mixinStandardHelpOptions = true, addMethodSubcommands = false,
         description = {"Lists every rule: the built-in ones, the packs shipped with Tare and the packs named in"
                 + " rules.packs of tare.yaml, with each rule's rewrite class, severity in force and summary."},
         subcommands = RulesCommand.Test.class)
@@ -45,7 +45,7 @@ final class RulesCommand implements Callable<Integer> {
     }
 
     /** {@code tare rules test}: runs every rule's worked examples and reports the ones that fail. */
-    @Command(name = "test", mixinStandardHelpOptions = true,
+    @Command(name = "test", mixinStandardHelpOptions = true, addMethodSubcommands = false,
             description = {"Runs the worked examples of every rule (rule packs and built-in rules): each rule must"
                     + " flag its 'before' text, must not flag its 'after' text, and its rewrites must turn one into"
                     + " the other exactly. Exits 1 when an example fails."})

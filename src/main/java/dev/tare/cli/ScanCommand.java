@@ -23,7 +23,7 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare scan}: the token footprint of every template in a repository. */
-@Command(name = "scan", mixinStandardHelpOptions = true,
+@Command(name = "scan", mixinStandardHelpOptions = true, addMethodSubcommands = false,
         description = {"Counts the tokens of every template in a repository: static tokens (every variable empty),"
                 + " estimated tokens (variables filled with their declared samples or sizes) and input tokens on each target.",
                 "Files that cannot be read or parsed are listed with the reason and never stop the scan."})

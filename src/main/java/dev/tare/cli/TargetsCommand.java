@@ -15,7 +15,7 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare targets}: the configured targets and what each can estimate, or the shipped catalog. */
-@Command(name = "targets", mixinStandardHelpOptions = true,
+@Command(name = "targets", mixinStandardHelpOptions = true, addMethodSubcommands = false,
         description = {"Lists the targets of tare.yaml: each one's tokenizer, price, model, precisions and device,"
                 + " the footprint figures it can estimate, and the keys it lacks for the others.",
                 "With --catalog, lists the model shapes and devices shipped with Tare that a target may name"

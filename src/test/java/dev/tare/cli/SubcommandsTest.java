@@ -1,6 +1,8 @@
 package dev.tare.cli;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.PrintWriter;
 import java.io.StringWriter;
@@ -55,5 +57,30 @@ class SubcommandsTest {
             annotated.add(command.getAnnotation(Command.class).name());
         }
         assertEquals(List.copyOf(TareCommand.SUBCOMMANDS.keySet()), annotated);
+    }
+
+    /**
+     * Start-up work picocli can skip: looking for command methods (Tare has none, and a command that
+     * leaves the default on makes picocli reflect over its methods on every run) and the java.time and
+     * java.sql converters (no option takes those types).
+     */
+    @Test
+    void everyCommandSkipsTheStartUpWorkItDoesNotNeed() {
+        PrintWriter sink = new PrintWriter(new StringWriter());
+        List<String> scanningForMethods = new ArrayList<>();
+        List<CommandLine> pending = new ArrayList<>(List.of(TareCommand.commandLine(sink, sink)));
+        while (!pending.isEmpty()) {
+            CommandLine command = pending.remove(pending.size() - 1);
+            pending.addAll(command.getSubcommands().values());
+            boolean ours = command.getCommandSpec().userObject().getClass().getName().startsWith("dev.tare.");
+            if (ours && command.getCommandSpec().isAddMethodSubcommands()) {
+                scanningForMethods.add(command.getCommandSpec().qualifiedName());
+            }
+        }
+        assertEquals(List.of(), scanningForMethods);
+        String excluded = System.getProperty(TareCommand.CONVERTER_EXCLUDES);
+        assertTrue(java.time.Duration.class.getName().matches(excluded), excluded);
+        assertTrue(java.sql.Timestamp.class.getName().matches(excluded), excluded);
+        assertFalse(java.nio.file.Path.class.getName().matches(excluded), excluded);
     }
 }
