@@ -78,58 +78,61 @@ final class LongRuns {
      * @param weight the estimated tokens of each word number, with a space before it
      */
     static LongRuns of(WordStream stream, int[] weight, double minimum) {
-        int[] source = stream.text;
-        int n = source.length;
         // First pass: how much is kept, so that the arrays are made once at their size.
         int size = 1;
         int runs = 0;
-        for (int p = 0; p < n; ) {
-            int end = runEnd(source, p);
-            if (end > p && estimate(stream, weight, p, end) >= minimum) {
-                size += 1 + end - p;
+        WordStream.Reader reader = stream.reader();
+        long estimate = 0;
+        int length = 0;
+        for (int id = reader.next(); id >= 0; id = reader.next()) {
+            if (id != WordStream.SEPARATOR) {
+                estimate += weight[id] + reader.gap();
+                length++;
+                continue;
+            }
+            if (length > 0 && estimate >= minimum) {
+                size += 1 + length;
                 runs++;
             }
-            p = Math.max(end, p + 1);
+            estimate = 0;
+            length = 0;
         }
         int[] text = new int[size];
         byte[] gaps = new byte[size];
         int[] runStarts = new int[runs + 1];
         int[] runOrigins = new int[runs + 1];
+        // Second pass: each run is gathered until its break, then kept or dropped whole.
+        int[] runIds = new int[64];
+        byte[] runGaps = new byte[64];
         int k = 0;
         int r = 0;
-        for (int p = 0; p < n; ) {
-            int end = runEnd(source, p);
-            if (end > p && estimate(stream, weight, p, end) >= minimum) {
-                runStarts[r] = k;
-                runOrigins[r++] = p;
-                text[k++] = WordStream.SEPARATOR;
-                for (int q = p; q < end; q++) {
-                    text[k] = source[q];
-                    gaps[k++] = stream.gaps[q];
+        int p = 0;
+        reader = stream.reader();
+        for (int id = reader.next(); id >= 0; id = reader.next(), p++) {
+            if (id != WordStream.SEPARATOR) {
+                if (length == runIds.length) {
+                    runIds = Arrays.copyOf(runIds, length * 2);
+                    runGaps = Arrays.copyOf(runGaps, length * 2);
                 }
+                runIds[length] = id;
+                runGaps[length++] = (byte) reader.gap();
+                estimate += weight[id] + reader.gap();
+                continue;
             }
-            p = Math.max(end, p + 1);
+            if (length > 0 && estimate >= minimum) {
+                runStarts[r] = k;
+                runOrigins[r++] = p - length;
+                text[k++] = WordStream.SEPARATOR;
+                System.arraycopy(runIds, 0, text, k, length);
+                System.arraycopy(runGaps, 0, gaps, k, length);
+                k += length;
+            }
+            estimate = 0;
+            length = 0;
         }
         text[k] = WordStream.SEPARATOR;
         runStarts[r] = k;
-        runOrigins[r] = n;
+        runOrigins[r] = stream.length();
         return new LongRuns(text, weight, gaps, stream.starts, stream.table.size(), runStarts, runOrigins);
-    }
-
-    /** The end of the run of words starting at {@code p} ({@code p} itself at a break). */
-    private static int runEnd(int[] source, int p) {
-        int end = p;
-        while (end < source.length && source[end] != WordStream.SEPARATOR) {
-            end++;
-        }
-        return end;
-    }
-
-    private static long estimate(WordStream stream, int[] weight, int from, int to) {
-        long estimate = 0;
-        for (int q = from; q < to; q++) {
-            estimate += weight[stream.text[q]] + stream.gaps[q];
-        }
-        return estimate;
     }
 }

@@ -91,7 +91,8 @@ public final class SharedBlocks {
         int[] weight = new int[stream.table.size() + 1];
         Arrays.fill(weight, -1);
         weight[WordStream.SEPARATOR] = 0;
-        for (int id : stream.text) {
+        WordStream.Reader reader = stream.reader();
+        for (int id = reader.next(); id >= 0; id = reader.next()) {
             if (weight[id] < 0) {
                 weight[id] = tokenizer.count(" " + stream.table.word(id));
             }

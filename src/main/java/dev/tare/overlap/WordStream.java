@@ -6,47 +6,84 @@ import java.util.Arrays;
  * Every template's words laid end to end as numbers, one text for the whole repository, with
  * {@link #SEPARATOR} at every break (the start of each template and message, each placeholder) and
  * in place of each word that occurs only once in the repository, which no shared block can hold.
+ *
+ * <p>The text is read front to back through a {@link Reader} and never laid out as one array: each
+ * template's numbers stay {@link VarInts}, one to three bytes a word, where an array of the whole
+ * text takes four, and was made while the templates' own numbers were still held.
  */
 final class WordStream {
     /** The number that stands for a break. */
     static final int SEPARATOR = 0;
 
-    final int[] text;
-    /** The tokens the whitespace before each word likely adds beyond one space (see {@link TemplateWords.Sink#word}). */
-    final byte[] gaps;
-    /** Where each template's words start in {@link #text}, and one more: where the closing break stands. */
+    /** Where each template's words start in the text, and one more: where the closing break stands. */
     final int[] starts;
     final WordTable table;
+    /** Each template's word numbers as {@link VarInts}, in the order of {@link #starts}. */
+    private final byte[][] ids;
+    /**
+     * Per template, the tokens the whitespace before each word likely adds beyond one space (see
+     * {@link TemplateWords.Sink#word}).
+     */
+    private final byte[][] gaps;
+    /** How often each word number occurs in the text. */
+    private final int[] counts;
 
-    private WordStream(int[] text, byte[] gaps, int[] starts, WordTable table) {
-        this.text = text;
-        this.gaps = gaps;
+    WordStream(int[] starts, WordTable table, byte[][] ids, byte[][] gaps, int[] counts) {
         this.starts = starts;
         this.table = table;
+        this.ids = ids;
+        this.gaps = gaps;
+        this.counts = counts;
     }
 
-    /**
-     * The stream over words already laid end to end, with the closing break still to come: a word
-     * that occurs once becomes a break.
-     */
-    static WordStream of(int[] words, byte[] gaps, int[] starts, WordTable table) {
-        int[] text = words;
-        text[text.length - 1] = SEPARATOR;
-        int[] counts = new int[table.size() + 1];
-        for (int id : text) {
-            counts[id]++;
+    /** The number of positions: every template's words and breaks, then the closing break. */
+    int length() {
+        return starts[starts.length - 1] + 1;
+    }
+
+    /** A reader at the text's first position. */
+    Reader reader() {
+        return new Reader();
+    }
+
+    /** Reads the text position by position. */
+    final class Reader {
+        private int template = -1;
+        private int index;
+        private VarInts.Reader numbers;
+        private int gap;
+        private boolean closed;
+
+        private Reader() {
         }
-        for (int i = 0; i < text.length; i++) {
-            if (counts[text[i]] == 1) {
-                text[i] = SEPARATOR;
+
+        /**
+         * The number at the next position ({@link #SEPARATOR} at a break or for a word that occurs
+         * once), or -1 past the closing break.
+         */
+        int next() {
+            while (numbers == null || index == gaps[template].length) {
+                if (template + 1 == ids.length) {
+                    gap = 0;
+                    if (closed) {
+                        return -1;
+                    }
+                    closed = true;
+                    return SEPARATOR;
+                }
+                template++;
+                index = 0;
+                numbers = new VarInts.Reader(ids[template]);
             }
+            int id = numbers.next();
+            gap = gaps[template][index++];
+            return counts[id] == 1 ? SEPARATOR : id;
         }
-        return new WordStream(text, gaps, starts, table);
-    }
 
-    /** The index of the template whose words include position {@code position}. */
-    int templateAt(int position) {
-        return templateAt(starts, position);
+        /** The gap before the word {@link #next} read last. */
+        int gap() {
+            return gap;
+        }
     }
 
     /** The index of the template whose words include {@code position}, given where each template starts. */
