@@ -79,16 +79,18 @@ class LauncherIT {
     }
 
     @Test
-    void shortRunsUseTheFirstJitTierOnlyAndPromoteAtOnceAFullCheckOrFixNeitherAndEveryRunTheSerialCollector() throws Exception {
+    void shortRunsUseTheFirstJitTierOnlyAndPromoteAtOnceAFullCheckOrFixTrimsNativeMemoryAndEveryRunTheSerialCollector() throws Exception {
         Pattern firstTierOnly = Pattern.compile("TieredStopAtLevel\\s+= 1\\s");
         Pattern serial = Pattern.compile("UseSerialGC\\s+= true\\s");
         Pattern promotedAtOnce = Pattern.compile("MaxTenuringThreshold\\s+= 0\\s");
+        Pattern trimmed = Pattern.compile("TrimNativeHeapInterval\\s+= 5000\\s");
         Map<String, String> flags = Map.of("TARE_JAVA_OPTS", "-XX:+PrintFlagsFinal");
         for (String[] command : new String[][] {{"hook", "run"}, {"check", "--staged"}, {"scan"}, {"count"}}) {
             String out = launch(flags, append(command, "--help")).out();
             assertTrue(firstTierOnly.matcher(out).find(), String.join(" ", command));
             assertTrue(serial.matcher(out).find(), String.join(" ", command));
             assertTrue(promotedAtOnce.matcher(out).find(), String.join(" ", command));
+            assertFalse(trimmed.matcher(out).find(), String.join(" ", command));
         }
         for (String[] command : new String[][] {{"check"}, {"fix"}}) {
             String out = launch(flags, append(command, "--help")).out();
@@ -96,6 +98,11 @@ class LauncherIT {
             assertFalse(firstTierOnly.matcher(out).find(), String.join(" ", command) + " keeps the optimizing compiler");
             assertFalse(promotedAtOnce.matcher(out).find(), String.join(" ", command) + " keeps the default tenuring");
             assertTrue(serial.matcher(out).find(), String.join(" ", command));
+            // The JVM lists the option when it has it (JDK 17.0.9, 21.0.1, 22 and later); an older one
+            // would not have started with it.
+            if (out.contains("TrimNativeHeapInterval")) {
+                assertTrue(trimmed.matcher(out).find(), String.join(" ", command) + " gives freed native memory back");
+            }
         }
     }
 
