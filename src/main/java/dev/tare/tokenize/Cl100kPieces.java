@@ -3,6 +3,8 @@ package dev.tare.tokenize;
 import static dev.tare.tokenize.CharClass.LETTER;
 import static dev.tare.tokenize.CharClass.NEWLINE;
 import static dev.tare.tokenize.CharClass.NUMBER;
+import static dev.tare.tokenize.Pretokenizer.Steps.asciiLetters;
+import static dev.tare.tokenize.Pretokenizer.Steps.asciiWordEnd;
 import static dev.tare.tokenize.Pretokenizer.Steps.classAt;
 import static dev.tare.tokenize.Pretokenizer.Steps.contraction;
 import static dev.tare.tokenize.Pretokenizer.Steps.next;
@@ -29,6 +31,10 @@ final class Cl100kPieces extends Pretokenizer {
                 return end;
             }
         }
+        int word = asciiWord(text, start, length);
+        if (word >= 0) {
+            return word;
+        }
         int bits = classAt(text, start, length);
         int after = next(text, start, length);
         // A letter, or one mark that is not a letter, number or line break before a letter: a word.
@@ -41,5 +47,21 @@ final class Cl100kPieces extends Pretokenizer {
         }
         int end = symbols(text, start, length, "\r\n");
         return end >= 0 ? end : whitespace(text, start, length, true);
+    }
+
+    /**
+     * A word on ASCII alone: an optional mark, then letters, ending before an ASCII char that is
+     * not a letter (or at the end). Its end, or -1 (see {@link Pretokenizer.Steps#asciiWordEnd}).
+     */
+    private static int asciiWord(char[] text, int start, int length) {
+        int letters = asciiLetters(text, start, length);
+        if (letters < 0) {
+            return -1;
+        }
+        int at = letters;
+        while (at < length && (text[at] | 0x20) >= 'a' && (text[at] | 0x20) <= 'z') {
+            at++;
+        }
+        return asciiWordEnd(text, letters, at, length);
     }
 }
