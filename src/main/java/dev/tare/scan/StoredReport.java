@@ -23,6 +23,7 @@ import java.util.HexFormat;
 import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.TimeUnit;
+import java.util.function.IntPredicate;
 import java.util.stream.IntStream;
 import java.util.zip.CRC32C;
 
@@ -201,38 +202,40 @@ public final class StoredReport {
             }
             long vouchedUntil = in.getLong() - RACY_NANOS;
             int folderCount = in.getInt();
-            String[] folders = new String[folderCount];
+            int[] folderAt = new int[folderCount];
             long[] folderTimes = new long[folderCount];
             long[] folderNames = new long[folderCount];
             for (int i = 0; i < folderCount; i++) {
-                folders[i] = string(in);
+                folderAt[i] = skipString(in);
                 folderTimes[i] = in.getLong();
                 folderNames[i] = in.getLong();
             }
             int fileCount = in.getInt();
-            String[] files = new String[fileCount];
+            int[] fileAt = new int[fileCount];
             long[] sizes = new long[fileCount];
             long[] times = new long[fileCount];
             for (int i = 0; i < fileCount; i++) {
-                files[i] = string(in);
+                fileAt[i] = skipString(in);
                 sizes[i] = in.getLong();
                 times[i] = in.getLong();
             }
             if (in.hasRemaining()) {
                 return false;
             }
-            // One pass over folders and files, on every core: the stat calls are most of a warm run.
-            return IntStream.range(0, folderCount + fileCount).parallel().allMatch(i -> {
+            IntPredicate unchanged = i -> {
                 if (i < folderCount) {
-                    Path folder = Path.of(folders[i]);
+                    Path folder = Path.of(string(in, folderAt[i]));
                     long[] now = stamp(folder);
                     return now[0] == FOLDER && now[1] == folderTimes[i]
                             && (folderTimes[i] < vouchedUntil || namesHash(folder) == folderNames[i]);
                 }
                 int f = i - folderCount;
-                long[] now = stamp(Path.of(files[f]));
+                long[] now = stamp(Path.of(string(in, fileAt[f])));
                 return now[0] == sizes[f] && (now[0] < 0 || now[1] == times[f] && times[f] < vouchedUntil);
-            });
+            };
+            // One pass over folders and files, on every core: the stat calls are most of a warm run,
+            // and each path's string is made by the thread that needs it.
+            return IntStream.range(0, folderCount + fileCount).parallel().allMatch(unchanged);
         } catch (IOException | RuntimeException e) {
             // Truncated or from an older format that slipped past the checksum: the command runs.
             return false;
@@ -424,7 +427,22 @@ public final class StoredReport {
         return bytes;
     }
 
-    private static String string(ByteBuffer in) {
-        return new String(bytes(in), StandardCharsets.UTF_8);
+    /** Passes over a string written by {@link #string(DataOutputStream, String)} and returns where it starts (its length first). */
+    private static int skipString(ByteBuffer in) {
+        int at = in.position();
+        int length = in.getInt();
+        if (length < 0 || length > in.remaining()) {
+            throw new java.nio.BufferUnderflowException();
+        }
+        in.position(in.position() + length);
+        return at;
+    }
+
+    /**
+     * The string whose length stands at {@code at} in {@code in} (a heap buffer, which absolute reads
+     * leave as it is, so threads may share it).
+     */
+    private static String string(ByteBuffer in, int at) {
+        return new String(in.array(), in.arrayOffset() + at + Integer.BYTES, in.getInt(at), StandardCharsets.UTF_8);
     }
 }
