@@ -8,8 +8,8 @@ import java.util.Arrays;
  * in place of each word that occurs only once in the repository, which no shared block can hold.
  *
  * <p>The text is read front to back through a {@link Reader} and never laid out as one array: each
- * template's numbers stay {@link VarInts}, one to three bytes a word, where an array of the whole
- * text takes four, and was made while the templates' own numbers were still held.
+ * template's numbers stay {@link VarInts}, one to three bytes a word, where one {@code int} array of
+ * the whole text would take four, on top of the templates' own numbers while it was filled.
  */
 final class WordStream {
     /** The number that stands for a break. */
