@@ -74,14 +74,14 @@ public final class RepositoryWords {
         int[] renumbered = new int[table.size() + 1];
         int[] counts = new int[table.size() + 1];
         WordTable ordered = new WordTable();
-        Sequence again = new Sequence();
+        VarInts.Writer numbers = new VarInts.Writer();
         int size = 0;
         int t = 0;
         for (String path : new ArrayList<>(words.keySet())) {
             Words list = words.remove(path);
             starts[t] = size;
             VarInts.Reader reader = new VarInts.Reader(list.ids);
-            again.clear();
+            numbers.clear();
             for (byte gap : list.gaps) {
                 int id = reader.next();
                 if (id != WordStream.SEPARATOR && renumbered[id] == 0) {
@@ -90,9 +90,9 @@ public final class RepositoryWords {
                 }
                 int number = id == WordStream.SEPARATOR ? id : renumbered[id];
                 counts[number]++;
-                again.add(number, gap);
+                numbers.write(number);
             }
-            ids[t] = again.ids();
+            ids[t] = numbers.toArray();
             gaps[t++] = list.gaps;
             size += list.gaps.length;
         }
@@ -108,33 +108,20 @@ public final class RepositoryWords {
 
     /** A growing list of word numbers and gaps. */
     private static final class Sequence {
-        private byte[] ids = new byte[256];
-        private int idBytes;
+        private final VarInts.Writer ids = new VarInts.Writer();
         private byte[] gaps = new byte[256];
         private int size;
 
         void add(int id, int gap) {
-            if (idBytes + VarInts.MAX_BYTES > ids.length) {
-                ids = Arrays.copyOf(ids, ids.length * 2);
-            }
+            ids.write(id);
             if (size == gaps.length) {
                 gaps = Arrays.copyOf(gaps, gaps.length * 2);
             }
-            idBytes = VarInts.write(id, ids, idBytes);
             gaps[size++] = (byte) gap;
         }
 
         Words copy() {
-            return new Words(ids(), Arrays.copyOf(gaps, size));
-        }
-
-        byte[] ids() {
-            return Arrays.copyOf(ids, idBytes);
-        }
-
-        void clear() {
-            idBytes = 0;
-            size = 0;
+            return new Words(ids.toArray(), Arrays.copyOf(gaps, size));
         }
     }
 }

@@ -1,5 +1,7 @@
 package dev.tare.overlap;
 
+import java.util.Arrays;
+
 /**
  * Non-negative {@code int}s written one after another in as few bytes as they need: seven bits a
  * byte, lowest first, with the top bit set on every byte but a number's last (the LEB128 form of
@@ -27,6 +29,29 @@ final class VarInts {
         }
         out[at++] = (byte) value;
         return at;
+    }
+
+    /** A growing array of numbers written one after another. */
+    static final class Writer {
+        private byte[] bytes = new byte[256];
+        private int size;
+
+        void write(int value) {
+            if (size + MAX_BYTES > bytes.length) {
+                bytes = Arrays.copyOf(bytes, bytes.length * 2);
+            }
+            size = VarInts.write(value, bytes, size);
+        }
+
+        /** The numbers written so far, in an array of their own. */
+        byte[] toArray() {
+            return Arrays.copyOf(bytes, size);
+        }
+
+        /** Starts again from no numbers, keeping the room. */
+        void clear() {
+            size = 0;
+        }
     }
 
     /** Reads the numbers of one array in the order they were written. */

@@ -6,6 +6,7 @@ import dev.tare.source.WalkedFolder;
 import java.io.ByteArrayOutputStream;
 import java.io.DataOutputStream;
 import java.io.IOException;
+import java.nio.BufferUnderflowException;
 import java.nio.ByteBuffer;
 import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
@@ -432,7 +433,7 @@ public final class StoredReport {
         int at = in.position();
         int length = in.getInt();
         if (length < 0 || length > in.remaining()) {
-            throw new java.nio.BufferUnderflowException();
+            throw new BufferUnderflowException();
         }
         in.position(in.position() + length);
         return at;

@@ -69,6 +69,22 @@ class VarIntsTest {
     }
 
     @Test
+    void aWriterGrowsAndStartsAgainWhenCleared() {
+        VarInts.Writer writer = new VarInts.Writer();
+        for (int i = 0; i < 1_000; i++) {
+            writer.write(i * 1_000_003 & Integer.MAX_VALUE);
+        }
+        VarInts.Reader reader = new VarInts.Reader(writer.toArray());
+        for (int i = 0; i < 1_000; i++) {
+            assertEquals(i * 1_000_003 & Integer.MAX_VALUE, reader.next());
+        }
+        writer.clear();
+        writer.write(300);
+        assertEquals(2, writer.toArray().length);
+        assertEquals(300, new VarInts.Reader(writer.toArray()).next());
+    }
+
+    @Test
     void refusesANegativeNumber() {
         assertThrows(IllegalArgumentException.class, () -> VarInts.write(-1, new byte[VarInts.MAX_BYTES], 0));
     }
