@@ -2,8 +2,10 @@
 # Times a cold `tare scan CORPUS --format json` end to end (JVM start included, CORPUS/.tare removed
 # first) on the synthetic corpus of bench/GenerateCorpus.java, a few runs in a row, each followed by
 # the same scan warm (from the .tare/cache the cold one left, its output checked byte for byte against
-# the cold one's), and prints wall time, throughput and peak RSS of each, the medians and the
-# cold/warm ratio. bench/compare.sh times the other commands and the reference tokenizer beside it.
+# the cold one's), then `tare scan --help` as often (the floor: JVM start and the command line, no
+# work), and prints wall time, throughput and peak RSS of each, the medians, the cold/warm ratio and
+# the warm scan's time beyond the floor. bench/compare.sh times the other commands and the reference
+# tokenizer beside it.
 #
 # Environment: JAVA_HOME (run and build with that JDK), BENCH_RUNS (default 3), BENCH_COUNT and
 # BENCH_SEED (corpus size and seed, passed to the generator), TARE_JAVA_OPTS (extra JVM options,
@@ -30,10 +32,13 @@ echo "command: ./tare scan ${corpus#"$bench_repo"/} --format json > /dev/null"
 echo
 printf '%-9s %8s %8s %13s %7s %12s\n' run wall_s MB/s peak_rss_MiB cpu_s other_cpu_s
 
+# line RUN [BYTES]: one row of the table for the run just timed; BYTES defaults to the corpus's (0: no
+# throughput, for a run that reads no template).
 line() {
-  awk -v run="$1" -v wall="$bench_wall" -v bytes="$bytes" -v rss="$bench_rss_mib" -v cpu="$bench_cpu" \
+  awk -v run="$1" -v wall="$bench_wall" -v bytes="${2:-$bytes}" -v rss="$bench_rss_mib" -v cpu="$bench_cpu" \
     -v other="$bench_other_cpu" \
-    'BEGIN { printf "%-9s %8.2f %8.1f %13.0f %7.2f %12.1f\n", run, wall, bytes / 1e6 / wall, rss, cpu, other }'
+    'BEGIN { rate = bytes > 0 ? sprintf("%8.1f", bytes / 1e6 / wall) : sprintf("%8s", "-")
+             printf "%-9s %8.2f %s %13.0f %7.2f %12.1f\n", run, wall, rate, rss, cpu, other }'
 }
 median() {
   sort -g | awk '{ w[NR] = $1 } END { print (NR % 2) ? w[(NR + 1) / 2] : (w[NR / 2] + w[NR / 2 + 1]) / 2 }'
@@ -53,9 +58,20 @@ for run in $(seq 1 "$runs"); do
   line "$run warm"
 done
 
+# The floor under a warm scan: starting the JVM and building the scan command's model, with no work
+# (picocli also renders the usage text).
+floor_walls=()
+for run in $(seq 1 "$runs"); do
+  bench_time 0 "$work/help" ./tare scan --help
+  floor_walls+=("$bench_wall")
+  line "$run floor" 0
+done
+
 cold="$(printf '%s\n' "${walls[@]}" | median)"
 warm="$(printf '%s\n' "${warm_walls[@]}" | median)"
-awk -v wall="$cold" -v warm="$warm" -v bytes="$bytes" \
-  'BEGIN { printf "\nmedian wall cold %.2f s, %.1f MB/s; warm %.2f s; cold/warm %.1f (MB = 10^6 bytes of template files; RSS in MiB, as reported by GNU time)\n", wall, bytes / 1e6 / wall, warm, wall / warm }'
+floor="$(printf '%s\n' "${floor_walls[@]}" | median)"
+awk -v wall="$cold" -v warm="$warm" -v floor="$floor" -v bytes="$bytes" \
+  'BEGIN { printf "\nmedian wall cold %.2f s, %.1f MB/s; warm %.2f s; cold/warm %.1f (MB = 10^6 bytes of template files; RSS in MiB, as reported by GNU time)\n", wall, bytes / 1e6 / wall, warm, wall / warm
+           printf "floor (./tare scan --help: JVM start and the command line, no work) %.2f s: the warm scan spends %.2f s beyond it\n", floor, warm - floor }'
 echo "cpu_s: user + system seconds of the run; other_cpu_s: CPU seconds other processes used meanwhile (near 0 on a quiet machine)"
 echo "Times and memory are measurements of this machine at this moment, an estimate of what another run will see."
