@@ -82,16 +82,10 @@ public final class TemplateScan {
             String report = render.apply(scan(setup, options, progress).result());
             return ByteBuffer.wrap(report.getBytes(StandardCharsets.UTF_8));
         }
-        StoredReport stored = StoredReport.of(workspace.root(), "scan", setup.cacheKey() + "\n" + form + "\n"
-                + workspace.displayName() + "\n" + workspace.starts());
-        Optional<StoredReport.Report> kept = stored.read();
+        StoredReport stored = storedReport(setup, form);
+        Optional<ByteBuffer> kept = mapped(stored);
         if (kept.isPresent()) {
-            try (StoredReport.Report report = kept.get()) {
-                // A scan's report is a few megabytes, mapped while it is printed.
-                return report.map();
-            } catch (IOException e) {
-                // Read a moment ago: should it fail now, the scan runs.
-            }
+            return kept.get();
         }
         Scanned scanned = scan(setup, options, progress);
         // Writing the measurements and stamping the files for the stored report run beside the
@@ -109,6 +103,33 @@ public final class TemplateScan {
         byte[] report = render.apply(scanned.result()).getBytes(StandardCharsets.UTF_8);
         stamps.join().ifPresent(stamped -> stored.save(stamped, report, 0));
         return ByteBuffer.wrap(report);
+    }
+
+    /**
+     * The report an earlier run of {@link #report} stored for the same options and {@code form}, when
+     * nothing it was made from has changed; empty otherwise, and always with the cache off. Nothing
+     * is scanned either way.
+     */
+    public Optional<ByteBuffer> storedReport(ScanOptions options, String form) {
+        return options.cache() ? mapped(storedReport(setUp(options), form)) : Optional.empty();
+    }
+
+    private StoredReport storedReport(Setup setup, String form) {
+        return StoredReport.of(workspace.root(), "scan", setup.cacheKey() + "\n" + form + "\n"
+                + workspace.displayName() + "\n" + workspace.starts());
+    }
+
+    /** The report in {@code stored}, mapped (a scan's report is a few megabytes), when it still holds. */
+    private static Optional<ByteBuffer> mapped(StoredReport stored) {
+        Optional<StoredReport.Report> kept = stored.read();
+        if (kept.isPresent()) {
+            try (StoredReport.Report report = kept.get()) {
+                return Optional.of(report.map());
+            } catch (IOException e) {
+                // Read a moment ago: should it fail now, the scan runs.
+            }
+        }
+        return Optional.empty();
     }
 
     /** What a scan is asked for, resolved: the targets, the primary tokenizer's name and the cache key. */
