@@ -16,7 +16,7 @@ public final class Cli {
     public static Run run(String... args) {
         StringWriter out = new StringWriter();
         StringWriter err = new StringWriter();
-        int code = TareCommand.commandLine(new PrintWriter(out, true), new PrintWriter(err, true), args).execute(args);
+        int code = Main.run(args, new PrintWriter(out, true), new PrintWriter(err, true));
         return new Run(code, out.toString(), err.toString());
     }
 
