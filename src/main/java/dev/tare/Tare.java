@@ -7,8 +7,9 @@ import java.util.Properties;
 
 /** Facts about this build of Tare that every output carries. */
 public final class Tare {
-    private static final Properties BUILD = load();
-    private static final String VERSION = BUILD.getProperty("version", "unknown");
+    /** The version, then {@code +} and the time the build was made (semantic versioning's build metadata). */
+    private static final String IDENTITY = identity();
+    private static final String VERSION = IDENTITY.substring(0, IDENTITY.indexOf('+'));
 
     private Tare() {
     }
@@ -23,18 +24,28 @@ public final class Tare {
      * builds of one development version can count differently.
      */
     public static String buildIdentity() {
-        return VERSION + " " + BUILD.getProperty("build", "unknown");
+        return IDENTITY;
     }
 
-    private static Properties load() {
+    /**
+     * From the jar's manifest ({@code Implementation-Version}, which the build writes as version +
+     * build time) when Tare runs from its jar: the class-data archive holds the manifest, so a run
+     * whose classes all come from the archive need not open the jar at all. From
+     * {@code version.properties} when it runs from a build's classes folder.
+     */
+    private static String identity() {
+        String manifest = Tare.class.getPackage().getImplementationVersion();
+        if (manifest != null && manifest.indexOf('+') > 0) {
+            return manifest;
+        }
         Properties properties = new Properties();
         try (InputStream in = Tare.class.getResourceAsStream("version.properties")) {
             if (in != null) {
                 properties.load(in);
             }
-            return properties;
         } catch (IOException e) {
             throw new UncheckedIOException(e);
         }
+        return properties.getProperty("version", "unknown") + "+" + properties.getProperty("build", "unknown");
     }
 }

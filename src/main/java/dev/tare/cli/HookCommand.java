@@ -54,6 +54,10 @@ final class HookCommand implements Runnable {
     static List<String> jvmOptions(Path jar) {
         List<String> options = new ArrayList<>(List.of("-XX:+UseSerialGC", "-XX:TieredStopAtLevel=1", "-XX:MaxTenuringThreshold=0"));
         options.addAll(ClassArchive.options(Path.of(System.getProperty("java.home")), jar));
+        if (Runtime.version().feature() >= 22) {
+            // The jar's manifest says so too, but a JVM reads that only when started with -jar.
+            options.add("--enable-native-access=ALL-UNNAMED");
+        }
         return options;
     }
 
@@ -70,10 +74,10 @@ final class HookCommand implements Runnable {
         for (String option : jvmOptions(Path.of(location))) {
             command.append(' ').append(quote(option));
         }
-        if (location.endsWith(".jar")) {
-            return command + " -jar " + quote(location);
-        }
-        return command + " -cp " + quote(System.getProperty("java.class.path")) + " dev.tare.cli.Main";
+        // The main class named, as the launcher does: a run whose classes all come from the class-data
+        // archive then never opens the jar.
+        String classPath = location.endsWith(".jar") ? location : System.getProperty("java.class.path");
+        return command + " -cp " + quote(classPath) + " " + Main.class.getName();
     }
 
     private static String quote(String word) {

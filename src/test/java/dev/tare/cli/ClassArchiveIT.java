@@ -172,6 +172,8 @@ class ClassArchiveIT {
         assertTrue(hook.contains("'" + option + archive + "'"), hook);
         assertTrue(hook.contains("'-XX:TieredStopAtLevel=1'"), "the launcher's options for the hook: " + hook);
         assertTrue(hook.contains("'-XX:MaxTenuringThreshold=0'"), "the launcher's options for the hook: " + hook);
+        assertTrue(hook.contains(" -cp '" + PROJECT.resolve("target/tare.jar") + "' dev.tare.cli.Main"),
+                "the main class named, as the launcher does: " + hook);
         assertEquals("", commit(repo), "a clean commit prints nothing");
     }
 

@@ -64,6 +64,14 @@ class LauncherIT {
     }
 
     @Test
+    void theJvmIsGivenTheMainClassSoThatAWarmScanNeedNotOpenTheJar() throws Exception {
+        // The JDK that runs the tests has a release file, so the launcher knows its version.
+        String settings = launch(Map.of("TARE_JAVA_OPTS", "-XshowSettings:properties"), "scan", "--help").err();
+        assertTrue(settings.contains("sun.java.command = dev.tare.cli.Main scan --help"), settings);
+        assertTrue(settings.matches("(?s).*java\\.class\\.path = \\S*tare\\.jar\\s.*"), settings);
+    }
+
+    @Test
     void usageErrorsExitTwoThroughTheRealProcess() throws Exception {
         Result launched = launch("scan", "--no-such-flag");
         assertEquals(2, launched.exitCode());
