@@ -1,37 +1,36 @@
 package dev.tare.cli;
 
 import dev.tare.scan.StoredReport;
+import java.io.FileOutputStream;
 import java.io.IOException;
-import java.io.OutputStream;
 import java.io.OutputStreamWriter;
 import java.io.PrintWriter;
 import java.nio.ByteBuffer;
-import java.nio.channels.Channels;
-import java.nio.channels.WritableByteChannel;
+import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
 
 /**
  * Standard output as the writer commands print to, which also takes text already encoded in UTF-8
- * as it is: a stored scan report of many megabytes goes out without being decoded and encoded again.
+ * as it is: a stored report of many megabytes goes out through the file descriptor's channel, without
+ * being decoded and encoded again, or even copied through the heap.
  */
 final class StandardOutput extends PrintWriter {
-    private final OutputStream stream;
+    private final FileOutputStream stream;
 
-    StandardOutput(OutputStream stream) {
+    StandardOutput(FileOutputStream stream) {
         super(new OutputStreamWriter(stream, StandardCharsets.UTF_8), true);
         this.stream = stream;
     }
 
     /**
-     * Prints a stored report to {@code out}: copied a chunk at a time onto standard output, decoded
-     * onto any other writer.
+     * Prints a stored report to {@code out}: handed from its file to standard output by the kernel
+     * where it can ({@link FileChannel#transferTo}), decoded onto any other writer.
      */
     static void print(PrintWriter out, StoredReport.Report report) {
         try {
             if (out instanceof StandardOutput standard) {
                 standard.flush();
-                report.copyTo(standard.stream);
-                standard.stream.flush();
+                report.transferTo(standard.stream.getChannel());
             } else {
                 java.io.ByteArrayOutputStream bytes = new java.io.ByteArrayOutputStream();
                 report.copyTo(bytes);
@@ -52,12 +51,12 @@ final class StandardOutput extends PrintWriter {
         if (out instanceof StandardOutput standard) {
             standard.flush();
             try {
-                WritableByteChannel channel = Channels.newChannel(standard.stream);
+                // Written from the buffer itself: a stored report, mapped, goes out without a copy in the heap.
+                FileChannel channel = standard.stream.getChannel();
                 ByteBuffer rest = utf8.duplicate();
                 while (rest.hasRemaining()) {
                     channel.write(rest);
                 }
-                standard.stream.flush();
             } catch (IOException e) {
                 // As PrintWriter does: a closed pipe (tare scan | head) is not an error of the scan.
                 standard.setError();

@@ -97,6 +97,20 @@ public final class StoredReport {
         }
 
         /**
+         * Hands the text to {@code target} from the file, through the kernel where it can (a report
+         * of hundreds of megabytes, mapped, would count whole towards the process's resident memory).
+         */
+        public void transferTo(java.nio.channels.WritableByteChannel target) throws IOException {
+            for (long at = start; at < start + length; ) {
+                long moved = channel.transferTo(at, start + length - at, target);
+                if (moved <= 0) {
+                    throw new IOException("the stored report " + length + " bytes long ended early");
+                }
+                at += moved;
+            }
+        }
+
+        /**
          * Copies the text to {@code out} a chunk at a time: a report of hundreds of megabytes, mapped,
          * would count whole towards the process's resident memory.
          */
