@@ -63,8 +63,15 @@ if ! { git_in_repo init -q && git_in_repo add -A && git_in_repo rm -q -r --cache
   training=(check .)
 fi
 
+# Every JVM here starts as the launcher starts Tare: the main class named and, from JDK 22 on, native
+# access enabled on the command line. A JDK 25 cache made without that option is refused by a JVM
+# started with it ("Mismatched values for property jdk.module.enable.native.access").
+start=(-cp "$jar" dev.tare.cli.Main)
+native=()
+[ "$feature" -ge 22 ] && native=(--enable-native-access=ALL-UNNAMED)
+
 record() {
-  (cd "$repo" && "$java" "$@" -jar "$jar" "${training[@]}") >"$work/training.log" 2>&1
+  (cd "$repo" && "$java" "$@" ${native[@]+"${native[@]}"} "${start[@]}" "${training[@]}") >"$work/training.log" 2>&1
   # Exit code 1 is expected: the demo's templates carry planted findings. 2 or more is a failure.
   [ $? -le 1 ]
 }
@@ -77,7 +84,8 @@ record() {
 add_repeated_scan() {
   find "$repo" -exec touch -t 202601010000 {} + || return 0
   for run in 1 2; do
-    (cd "$repo" && "$java" -XX:DumpLoadedClassList="$work/scan$run.lst" -jar "$jar" scan . --format json) \
+    (cd "$repo" && "$java" -XX:DumpLoadedClassList="$work/scan$run.lst" ${native[@]+"${native[@]}"} "${start[@]}" \
+      scan . --format json) \
       >>"$work/training.log" 2>&1 || return 0
   done
   # Each class once, in the order first loaded.
@@ -88,12 +96,13 @@ add_repeated_scan() {
 
 if [ "$kind" = aot ]; then
   record -XX:AOTMode=record -XX:AOTConfiguration="$work/tare.aotconf" \
-    && "$java" -XX:AOTMode=create -XX:AOTConfiguration="$work/tare.aotconf" -XX:AOTCache="$work/tare.aot" \
-      -cp "$jar" >"$work/dump.log" 2>&1
+    && "$java" ${native[@]+"${native[@]}"} -XX:AOTMode=create -XX:AOTConfiguration="$work/tare.aotconf" \
+      -XX:AOTCache="$work/tare.aot" -cp "$jar" >"$work/dump.log" 2>&1
 else
   record -XX:DumpLoadedClassList="$work/classes.lst" \
-    && { add_repeated_scan; "$java" -Xshare:dump -XX:SharedClassListFile="$work/classes.lst" \
-      -XX:SharedArchiveFile="$work/tare.jsa" -cp "$jar" >"$work/dump.log" 2>&1; }
+    && { add_repeated_scan; "$java" ${native[@]+"${native[@]}"} -Xshare:dump \
+      -XX:SharedClassListFile="$work/classes.lst" -XX:SharedArchiveFile="$work/tare.jsa" -cp "$jar" \
+      >"$work/dump.log" 2>&1; }
 fi
 status=$?
 if [ "$status" -ne 0 ] || [ ! -s "$work/tare.$kind" ]; then
