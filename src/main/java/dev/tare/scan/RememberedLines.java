@@ -19,7 +19,8 @@ import java.util.zip.CRC32C;
  * A few lines of text kept in a root's {@code .tare/cache} under a key, and given back only to a
  * run that asks with the same key: what a command line asked for, so that the same command run
  * again need not be parsed again. The file's name is a 64-bit hash of the key and the file holds the
- * key itself, which makes a collision harmless, then the lines and a checksum. Files are written
+ * key itself, which makes a collision harmless, then the lines (as {@link StoredReport} writes
+ * strings) and a checksum. Files are written
  * whole (see {@link CacheFolder#replace}); one that cannot be read or written only means the lines
  * are not remembered.
  */
@@ -56,7 +57,7 @@ public final class RememberedLines {
         Path file = file(root, kind, key);
         try {
             CacheFolder.prepare(root);
-            CacheFolder.replace(file, bytes(key, lines));
+            CacheFolder.replace(file, contents(key, lines));
             CacheFolder.pruneOthers(file, kind + "-");
         } catch (IOException | RuntimeException e) {
             // Only a shortcut: the command runs the long way next time.
@@ -67,15 +68,15 @@ public final class RememberedLines {
         return CacheFolder.of(root).resolve(kind + "-" + HexFormat.of().toHexDigits(TemplateCache.hash(key)) + ".bin");
     }
 
-    private static byte[] bytes(String key, List<String> lines) throws IOException {
+    private static byte[] contents(String key, List<String> lines) throws IOException {
         ByteArrayOutputStream bytes = new ByteArrayOutputStream();
         DataOutputStream out = new DataOutputStream(bytes);
         out.writeInt(MAGIC);
         out.writeInt(FORMAT);
-        string(out, key);
+        StoredReport.string(out, key);
         out.writeInt(lines.size());
         for (String line : lines) {
-            string(out, line);
+            StoredReport.string(out, line);
         }
         out.flush();
         CRC32C crc = new CRC32C();
@@ -97,7 +98,8 @@ public final class RememberedLines {
                 return Optional.empty();
             }
             in.limit(end);
-            if (in.getInt() != MAGIC || in.getInt() != FORMAT || !Arrays.equals(bytes(in), key.getBytes(StandardCharsets.UTF_8))) {
+            if (in.getInt() != MAGIC || in.getInt() != FORMAT
+                    || !Arrays.equals(StoredReport.bytes(in), key.getBytes(StandardCharsets.UTF_8))) {
                 return Optional.empty();
             }
             int count = in.getInt();
@@ -106,27 +108,11 @@ public final class RememberedLines {
             }
             List<String> lines = new ArrayList<>(count);
             for (int i = 0; i < count; i++) {
-                lines.add(new String(bytes(in), StandardCharsets.UTF_8));
+                lines.add(new String(StoredReport.bytes(in), StandardCharsets.UTF_8));
             }
             return in.hasRemaining() ? Optional.empty() : Optional.of(List.copyOf(lines));
         } catch (BufferUnderflowException | IllegalArgumentException e) {
             return Optional.empty();
         }
-    }
-
-    private static void string(DataOutputStream out, String text) throws IOException {
-        byte[] bytes = text.getBytes(StandardCharsets.UTF_8);
-        out.writeInt(bytes.length);
-        out.write(bytes);
-    }
-
-    private static byte[] bytes(ByteBuffer in) {
-        int length = in.getInt();
-        if (length < 0 || length > in.remaining()) {
-            throw new BufferUnderflowException();
-        }
-        byte[] bytes = new byte[length];
-        in.get(bytes);
-        return bytes;
     }
 }

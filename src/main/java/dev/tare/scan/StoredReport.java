@@ -427,7 +427,8 @@ public final class StoredReport {
         }
     }
 
-    private static void string(DataOutputStream out, String text) throws IOException {
+    /** Writes {@code text} in UTF-8, its length first (as {@link RememberedLines} does too). */
+    static void string(DataOutputStream out, String text) throws IOException {
         bytes(out, text.getBytes(StandardCharsets.UTF_8));
     }
 
@@ -436,8 +437,13 @@ public final class StoredReport {
         out.write(bytes);
     }
 
-    private static byte[] bytes(ByteBuffer in) {
-        byte[] bytes = new byte[in.getInt()];
+    /** Reads what {@link #string(DataOutputStream, String)} wrote, as bytes; a length past the end throws. */
+    static byte[] bytes(ByteBuffer in) {
+        int length = in.getInt();
+        if (length < 0 || length > in.remaining()) {
+            throw new BufferUnderflowException();
+        }
+        byte[] bytes = new byte[length];
         in.get(bytes);
         return bytes;
     }
