@@ -88,7 +88,8 @@ final class ScanReplay {
                 .append(Locale.getDefault().toLanguageTag()).append('\n');
         for (String name : new TreeSet<>(System.getProperties().stringPropertyNames())) {
             String value = System.getProperty(name);
-            boolean tareDefault = name.equals(TareCommand.CONVERTER_EXCLUDES) && TareCommand.UNUSED_CONVERTERS.equals(value);
+            boolean tareDefault = name.equals(TareCommand.CONVERTER_EXCLUDES)
+                    && TareCommand.UNUSED_CONVERTERS.equals(value);
             if (name.startsWith("picocli.") && !tareDefault) {
                 key.append(name).append('=').append(value).append('\n');
             }
