@@ -68,7 +68,7 @@ fi
 # started with it ("Mismatched values for property jdk.module.enable.native.access").
 start=(-cp "$jar" dev.tare.cli.Main)
 native=()
-[ "$feature" -ge 22 ] && native=(--enable-native-access=ALL-UNNAMED)
+if [ "$feature" -ge 22 ]; then native=(--enable-native-access=ALL-UNNAMED); fi
 
 record() {
   (cd "$repo" && "$java" "$@" ${native[@]+"${native[@]}"} "${start[@]}" "${training[@]}") >"$work/training.log" 2>&1
