@@ -4,8 +4,8 @@
 # the same scan warm (from the .tare/cache the cold one left, its output checked byte for byte against
 # the cold one's), then `tare scan --help` as often (for scale: a JVM start that builds picocli's
 # model of the command and does no work, which a warm scan skips), and prints wall time, throughput
-# and peak RSS of each, the medians and the cold/warm ratio. bench/compare.sh times the other commands and the reference
-# tokenizer beside it.
+# and peak RSS of each, the medians and the cold/warm ratio. bench/compare.sh times the other
+# commands and the reference tokenizer beside it.
 #
 # Environment: JAVA_HOME (run and build with that JDK), BENCH_RUNS (default 3), BENCH_COUNT and
 # BENCH_SEED (corpus size and seed, passed to the generator), TARE_JAVA_OPTS (extra JVM options,

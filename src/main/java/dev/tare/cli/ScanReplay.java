@@ -64,10 +64,8 @@ final class ScanReplay {
         }
     }
 
+    /** Prints the report stored for {@code request} when it still holds (only a stored request is remembered). */
     private static OptionalInt print(ScanRequest request, PrintWriter out) {
-        if (!request.stored()) {
-            return OptionalInt.empty();
-        }
         Optional<ByteBuffer> report = new TemplateScan(request.workspace(), new TokenizerRegistry())
                 .storedReport(request.options(), request.form());
         if (report.isEmpty()) {
