@@ -1,36 +1,36 @@
 package dev.tare.lint;
 
+import dev.tare.structure.Fence;
+import dev.tare.structure.Region;
+import dev.tare.structure.Role;
+import dev.tare.structure.Structure;
 import dev.tare.template.Message;
 import java.util.ArrayList;
-import java.util.EnumMap;
+import java.util.EnumSet;
 import java.util.List;
-import java.util.Map;
 import java.util.Optional;
+import java.util.Set;
 
 /**
- * One message of a template as rules see it: its content, the regions prose rules leave alone, its
- * fenced blocks, and the way back from content offsets to the file.
+ * One message of a template as rules see it: its content, its structure (the regions and fenced
+ * blocks that say what is prose and what must stay as written), and the way back from content
+ * offsets to the file.
  */
 public final class MessageText {
+    /** Text that is not prose at all: prose rules never read or edit it. */
+    private static final Set<Role> NOT_PROSE = EnumSet.of(Role.FENCED_CODE, Role.INDENTED_CODE, Role.INLINE_CODE,
+            Role.HTML, Role.PLACEHOLDER, Role.URL, Role.RAW);
+
     private final int index;
     private final Message message;
-    private final List<Region> regions;
-    private final List<Fence> fences;
+    private final Structure structure;
     private final ContentMap map;
-    /** Every region, and the regions of each kind, indexed for overlap questions. */
-    private final RegionIndex all;
-    private final Map<Region.Kind, RegionIndex> byKind = new EnumMap<>(Region.Kind.class);
 
-    MessageText(int index, Message message, List<Region> regions, List<Fence> fences, ContentMap map) {
+    MessageText(int index, Message message, Structure structure, ContentMap map) {
         this.index = index;
         this.message = message;
-        this.regions = List.copyOf(regions);
-        this.fences = List.copyOf(fences);
+        this.structure = structure;
         this.map = map;
-        this.all = new RegionIndex(this.regions);
-        for (Region.Kind kind : Region.Kind.values()) {
-            byKind.put(kind, new RegionIndex(this.regions.stream().filter(r -> r.kind() == kind).toList()));
-        }
     }
 
     /** The position of this message in its template, from 0. */
@@ -48,48 +48,49 @@ public final class MessageText {
         return message.content();
     }
 
-    /** The protected regions, sorted by start. */
-    public List<Region> regions() {
-        return regions;
+    /** The message's structure model. */
+    public Structure structure() {
+        return structure;
     }
 
     /** The fenced code blocks, in order. */
     public List<Fence> fences() {
-        return fences;
+        return structure.fences();
     }
 
-    /** Whether {@code [start, end)} touches a protected region (see {@link Region#overlaps}). */
+    /** Whether {@code [start, end)} touches text that is not prose: code, HTML, a placeholder, a URL or a raw section. */
     public boolean isProtected(int start, int end) {
-        return all.overlaps(start, end);
+        return structure.touching(start, end).stream().anyMatch(r -> NOT_PROSE.contains(r.role()));
     }
 
-    /** Whether {@code [start, end)} touches a protected region of the given kinds. */
-    public boolean touches(int start, int end, Region.Kind... kinds) {
-        for (Region.Kind kind : kinds) {
-            if (byKind.get(kind).overlaps(start, end)) {
-                return true;
-            }
-        }
-        return false;
+    /** Whether a whitespace-only edit of {@code [start, end)} is safe (see {@link Structure#allowsWhitespaceEdit}). */
+    public boolean allowsWhitespaceEdit(int start, int end) {
+        return structure.allowsWhitespaceEdit(start, end);
     }
 
-    /** The regions of {@code kind} that touch {@code [start, end)}, sorted by start. */
-    public List<Region> touching(int start, int end, Region.Kind kind) {
-        return byKind.get(kind).touching(start, end);
+    /** Whether {@code [start, end)} touches a region of one of {@code roles}. */
+    public boolean touches(int start, int end, Role... roles) {
+        Set<Role> wanted = roles.length == 0 ? EnumSet.noneOf(Role.class) : EnumSet.of(roles[0], roles);
+        return structure.touching(start, end).stream().anyMatch(r -> wanted.contains(r.role()));
     }
 
-    /** The stretches of content outside every protected region, in order, as {@code [start, end)} pairs. */
+    /** The regions of {@code role} that touch {@code [start, end)}, sorted by start. */
+    public List<Region> touching(int start, int end, Role role) {
+        return structure.touching(start, end).stream().filter(r -> r.role() == role).toList();
+    }
+
+    /** The stretches of content outside code, HTML, placeholders, URLs and raw sections, in order, as {@code [start, end)} pairs. */
     public List<int[]> prose() {
         List<int[]> ranges = new ArrayList<>();
-        int at = 0;
-        for (Region region : regions) {
-            if (region.start() > at) {
-                ranges.add(new int[] {at, region.start()});
+        for (Region region : structure.regions()) {
+            if (NOT_PROSE.contains(region.role())) {
+                continue;
             }
-            at = Math.max(at, region.end());
-        }
-        if (at < content().length()) {
-            ranges.add(new int[] {at, content().length()});
+            if (!ranges.isEmpty() && ranges.get(ranges.size() - 1)[1] == region.start()) {
+                ranges.get(ranges.size() - 1)[1] = region.end();
+            } else {
+                ranges.add(new int[] {region.start(), region.end()});
+            }
         }
         return ranges;
     }

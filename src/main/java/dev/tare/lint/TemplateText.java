@@ -1,5 +1,6 @@
 package dev.tare.lint;
 
+import dev.tare.structure.Structure;
 import dev.tare.template.Message;
 import dev.tare.template.Template;
 import dev.tare.tokenize.Tokenizer;
@@ -29,8 +30,7 @@ public final class TemplateText {
         for (int i = 0; i < template.messages().size(); i++) {
             Message message = template.messages().get(i);
             int base = template.isChat() ? 0 : template.bodyStart();
-            List<Fence> fences = Regions.fences(message.content());
-            List<Region> regions = Regions.of(message.content(), message.segments(), base, fences);
+            Structure structure = Structure.of(message.content(), message.segments(), base, i);
             ContentMap map = switch (template.kind()) {
                 case CHAT -> maps.get(i);
                 // A tool's text is its definition re-serialized as minified JSON, not the file's text:
@@ -38,7 +38,7 @@ public final class TemplateText {
                 case TOOLS -> ContentMap.approximate(lines.lineStart(toolLine(message)), message.content().length());
                 default -> ContentMap.shifted(template.bodyStart(), message.content().length());
             };
-            built.add(new MessageText(i, message, regions, fences, map));
+            built.add(new MessageText(i, message, structure, map));
         }
         this.messages = List.copyOf(built);
     }

@@ -1,10 +1,10 @@
 package dev.tare.rewrite;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import dev.tare.lint.EditKind;
-import dev.tare.lint.Fence;
+import dev.tare.structure.Fence;
 import dev.tare.lint.MessageText;
-import dev.tare.lint.Region;
+import dev.tare.structure.Region;
+import dev.tare.structure.Role;
 import dev.tare.lint.StrictJson;
 import dev.tare.lint.TemplateText;
 import dev.tare.template.Segment;
@@ -19,7 +19,7 @@ import java.util.TreeMap;
  * The checks a rewritten file must pass before it may be written, comparing the original text with
  * the final one (both parsed again by the template parser): the same messages, metadata and front
  * matter; the same multiset of variables, includes and tags; the same code spans and fenced code
- * (a fenced {@code json} block re-laid out by a JSON-layout rule must hold an equal JSON tree, and so
+ * (a fenced {@code json} block laid out anew must hold an equal JSON tree, and so
  * must a message that was all JSON); no non-whitespace character removed or written by a whitespace
  * rule, and the non-whitespace characters otherwise in the same order; no paragraph break removed or
  * added between the characters that stayed; the same final-newline state; no line-ending style the
@@ -54,7 +54,7 @@ final class Invariants {
         placeholders(before, after, problems);
         TemplateText beforeText = TemplateText.of(before);
         TemplateText afterText = TemplateText.of(after);
-        code(beforeText, afterText, trace.used(EditKind.JSON_LAYOUT), problems);
+        code(beforeText, afterText, problems);
         nonWhitespace(trace, problems);
         paragraphs(trace, messageRanges(beforeText), sourceFences(beforeText), sourceFences(afterText), problems);
         finalNewline(original, rewritten, problems);
@@ -95,7 +95,7 @@ final class Invariants {
         return counts;
     }
 
-    private static void code(TemplateText before, TemplateText after, boolean jsonLayout, List<String> problems) {
+    private static void code(TemplateText before, TemplateText after, List<String> problems) {
         for (int m = 0; m < before.messages().size(); m++) {
             MessageText was = before.messages().get(m);
             MessageText is = after.messages().get(m);
@@ -109,7 +109,7 @@ final class Invariants {
             for (int f = 0; f < was.fences().size(); f++) {
                 Fence a = was.fences().get(f);
                 Fence b = is.fences().get(f);
-                if (!text(was, a).equals(text(is, b)) && !(jsonLayout && sameJson(was, a, is, b))) {
+                if (!text(was, a).equals(text(is, b)) && !sameJson(was, a, is, b)) {
                     problems.add("the fenced code block at line " + before.line(was, a.start()) + " changed");
                 }
             }
@@ -119,8 +119,8 @@ final class Invariants {
 
     private static List<String> spans(MessageText message) {
         List<String> spans = new ArrayList<>();
-        for (Region region : message.regions()) {
-            if (region.kind() == Region.Kind.INLINE_CODE) {
+        for (Region region : message.structure().regions()) {
+            if (region.role() == Role.INLINE_CODE) {
                 spans.add(message.content().substring(region.start(), region.end()));
             }
         }

@@ -3,7 +3,8 @@ package dev.tare.lint.rules;
 import dev.tare.TareException;
 import dev.tare.lint.LintContext;
 import dev.tare.lint.MessageText;
-import dev.tare.lint.Region;
+import dev.tare.structure.Region;
+import dev.tare.structure.Role;
 import dev.tare.lint.TemplateText;
 import dev.tare.scan.Estimates;
 import dev.tare.template.Message;
@@ -50,7 +51,7 @@ final class Sections {
             labels.add(prefix.isEmpty() ? "text before the first heading" : prefix);
             for (Line line : Line.of(content)) {
                 var heading = HEADING.matcher(line.text(content));
-                if (heading.matches() && !message.touches(line.start(), line.end(), Region.Kind.FENCED_CODE)) {
+                if (heading.matches() && !message.touches(line.start(), line.end(), Role.FENCED_CODE)) {
                     cuts.get(cuts.size() - 1)[1] = line.start();
                     cuts.add(new int[] {line.start(), 0});
                     labels.add((prefix.isEmpty() ? "" : prefix + ", ") + "'" + heading.group(1).strip() + "'");
@@ -95,7 +96,7 @@ final class Sections {
         StringBuilder plain = new StringBuilder();
         int at = start;
         int includeTokens = 0;
-        for (Region region : message.touching(start, end, Region.Kind.PLACEHOLDER)) {
+        for (Region region : message.touching(start, end, Role.PLACEHOLDER)) {
             plain.append(content, at, Math.max(at, region.start()));
             at = Math.max(at, region.end());
         }

@@ -1,4 +1,4 @@
-package dev.tare.lint;
+package dev.tare.structure;
 
 /**
  * A fenced code block of a message.
