@@ -276,8 +276,7 @@ public final class Check {
         List<Finding> configured = findings.sorted();
         skipped.sort(null);
         List<RuleDescriptor> descriptors = rules.stream().map(Rule::descriptor)
-                .map(d -> new RuleDescriptor(d.id(), d.summary(), d.why(), d.instead(), catalog.severity(d),
-                        d.rewriteClass(), d.examples(), d.origin()))
+                .map(d -> d.withSeverity(catalog.severity(d)))
                 .toList();
         return new Linting(new CheckResult(workspace.root().toString(), descriptors, configured, skipped, stamps.size(),
                 options.failOn()), dependencies, complete);

@@ -186,10 +186,23 @@ public final class PackLoader {
             if (rewriteClass != RewriteClass.NONE && replace.isEmpty()) {
                 throw problem(path, "missing 'replace'; class " + rewriteClass.label() + " needs the text to write instead");
             }
+            if (rewriteClass == RewriteClass.SAFE) {
+                // Safe is a promise that no word changes; a pattern can keep it only by touching whitespace alone.
+                Optional<String> whyNot = WhitespaceOnlyRewrite.whyNot(find.pattern(), replace.get());
+                if (whyNot.isPresent()) {
+                    throw problem(path + ".class", "class safe is only for rewrites that change nothing but whitespace, and "
+                            + whyNot.get() + "; declare class review");
+                }
+            }
+            Optional<EditKind> editKind = switch (rewriteClass) {
+                case SAFE -> Optional.of(EditKind.WHITESPACE);
+                case REVIEW -> Optional.of(EditKind.TEXT);
+                case NONE -> Optional.empty();
+            };
             String instead = optionalText("instead").orElse(replace.map(r -> r.isEmpty()
                     ? "Leave the matched text out." : "Write '" + r + "' in its place.").orElse("Rephrase so the pattern no longer matches."));
             RuleDescriptor descriptor = new RuleDescriptor(id, text("summary"), text("why"), instead, severity,
-                    rewriteClass, examples(), file);
+                    editKind, examples(), file);
             return new PatternRule(descriptor, find, scope, replace, optionalText("message"));
         }
 

@@ -2,6 +2,7 @@ package dev.tare.lint;
 
 import com.google.re2j.Matcher;
 import com.google.re2j.Pattern;
+import dev.tare.structure.Role;
 import dev.tare.template.Template;
 import java.util.ArrayList;
 import java.util.List;
@@ -64,8 +65,12 @@ final class PatternRule implements Rule {
     }
 
     private boolean allowed(MessageText message, int start, int end) {
+        if (descriptor.rewriteClass() == RewriteClass.SAFE) {
+            // A safe pack rule edits whitespace only, and only where the structure model allows that.
+            return message.allowsWhitespaceEdit(start, end);
+        }
         return scope == Scope.PROSE ? !message.isProtected(start, end)
-                : !message.touches(start, end, Region.Kind.PLACEHOLDER);
+                : !message.touches(start, end, Role.PLACEHOLDER);
     }
 
     private String describe(String matched, Optional<Rewrite> rewrite, Matcher matcher) {

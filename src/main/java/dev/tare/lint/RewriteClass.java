@@ -12,6 +12,18 @@ public enum RewriteClass {
     /** The rule only reports; it offers no rewrite. */
     NONE;
 
+    /** What the class promises, in one sentence for {@code tare rules} and {@code tare explain}. */
+    public String meaning() {
+        return switch (this) {
+            case SAFE -> "Safe rewrites change no word the model is told: only whitespace in prose, invisible characters"
+                    + " or JSON layout. 'tare fix' applies them unattended after checking exactly that, and drops any that"
+                    + " fails the check.";
+            case REVIEW -> "Review rewrites change what the prompt says. 'tare fix' applies them only with"
+                    + " --include-review; read the diff and evaluate the prompt before it ships.";
+            case NONE -> "The rule only reports; it offers no rewrite.";
+        };
+    }
+
     /** The lower-case name used in rule packs and output. */
     public String label() {
         return name().toLowerCase(Locale.ROOT);

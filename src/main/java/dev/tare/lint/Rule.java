@@ -15,9 +15,4 @@ public interface Rule {
 
     /** The findings of this rule in {@code template}, in any order. */
     List<Finding> check(Template template, LintContext context);
-
-    /** What this rule's rewrites change; the rewrite engine verifies the rest is kept. */
-    default EditKind editKind() {
-        return EditKind.TEXT;
-    }
 }

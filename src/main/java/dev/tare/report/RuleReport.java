@@ -2,9 +2,11 @@ package dev.tare.report;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.ExampleRunner;
 import dev.tare.lint.RuleCatalog;
+import dev.tare.lint.RewriteClass;
 import dev.tare.lint.RuleDescriptor;
 import java.util.List;
 import java.util.Map;
@@ -16,16 +18,18 @@ public final class RuleReport {
 
     /** A table of every rule: id, class, severity in force, origin and summary. */
     public static String list(RuleCatalog catalog) {
-        TextTable table = new TextTable(List.of("RULE", "CLASS", "SEVERITY", "FROM", "SUMMARY"));
+        TextTable table = new TextTable(List.of("RULE", "CLASS", "EDITS", "SEVERITY", "FROM", "SUMMARY"));
         for (RuleDescriptor rule : catalog.descriptors()) {
             String severity = catalog.isDisabled(rule.id()) ? "off" : catalog.severity(rule).label();
-            table.row(List.of(rule.id(), rule.rewriteClass().label(), severity, rule.origin(), rule.summary()));
+            table.row(List.of(rule.id(), rule.rewriteClass().label(), rule.editKind().map(EditKind::label).orElse("-"),
+                    severity, rule.origin(), rule.summary()));
         }
         return table.render() + "\n" + CheckReport.plural(catalog.descriptors().size(), "rule")
-                + ". 'tare explain RULE' shows what a rule flags, why, an example and what to write instead.\n";
+                + ". 'tare explain RULE' shows what a rule flags, why, an example and what to write instead.\n"
+                + RewriteClass.SAFE.meaning() + "\n" + RewriteClass.REVIEW.meaning() + "\n";
     }
 
-    /** The rule list as JSON: {@code {"tool", "version", "rules": [{id, class, severity, default_severity, enabled, origin, summary}]}}. */
+    /** The rule list as JSON: {@code {"tool", "version", "rules": [{id, class, edit_kind, severity, default_severity, enabled, origin, summary}]}}. */
     public static String listJson(RuleCatalog catalog) {
         ObjectNode root = Json.report();
         ArrayNode rules = root.putArray("rules");
@@ -33,6 +37,7 @@ public final class RuleReport {
             ObjectNode node = rules.addObject();
             node.put("id", rule.id());
             node.put("class", rule.rewriteClass().label());
+            rule.editKind().ifPresent(kind -> node.put("edit_kind", kind.label()));
             node.put("severity", catalog.severity(rule).label());
             node.put("default_severity", rule.severity().label());
             node.put("enabled", !catalog.isDisabled(rule.id()));
@@ -48,7 +53,7 @@ public final class RuleReport {
     public static String explainText(RuleDescriptor rule) {
         StringBuilder out = new StringBuilder();
         out.append(rule.id()).append(" (").append(rule.severity().label()).append(", ")
-                .append(rule.rewriteClass() == dev.tare.lint.RewriteClass.NONE ? "no rewrite" : rule.rewriteClass().label() + " rewrite")
+                .append(rule.rewriteClass() == RewriteClass.NONE ? "no rewrite" : rule.rewriteClass().label() + " rewrite")
                 .append(", ").append(rule.origin()).append(")\n\n");
         out.append("What it flags\n  ").append(rule.summary()).append("\n\n");
         out.append("Why it costs\n  ").append(rule.why()).append("\n\n");
@@ -65,6 +70,8 @@ public final class RuleReport {
             out.append('\n');
         }
         out.append("What to write instead\n  ").append(rule.instead()).append('\n');
+        out.append("\nIts rewrite\n  ").append(rule.editKind().map(kind -> kind.meaning() + " ").orElse(""))
+                .append(rule.rewriteClass().meaning()).append('\n');
         return out.toString();
     }
 

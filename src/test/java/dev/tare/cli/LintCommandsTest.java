@@ -109,6 +109,21 @@ class LintCommandsTest {
     }
 
     @Test
+    void rulesAndExplainSayWhatSafeMeansAndWhichRulesAreReview() {
+        Cli.Run rules = run("rules");
+        assertTrue(rules.out().contains("Safe rewrites change no word the model is told"), rules.out());
+        assertTrue(rules.out().lines().anyMatch(line -> line.startsWith("repeated-instruction ") && line.contains(" review ")
+                && line.contains(" text ")), rules.out());
+        assertTrue(rules.out().lines().anyMatch(line -> line.startsWith("trailing-whitespace ") && line.contains(" safe ")
+                && line.contains(" whitespace ")), rules.out());
+        Cli.Run json = run("rules", "--format", "json");
+        assertTrue(json.out().contains("\"edit_kind\" : \"invisible\""), json.out());
+        String explained = run("explain", "space-run").out();
+        assertTrue(explained.contains("Its rewrite\n  It removes or shortens whitespace in prose only"), explained);
+        assertTrue(run("explain", "repeated-instruction").out().contains("applies them only with --include-review"));
+    }
+
+    @Test
     void explainingAnUnknownRuleSuggestsTheNearestOne() {
         Cli.Run result = run("explain", "pretty-jsn");
         assertEquals(2, result.exitCode());

@@ -38,12 +38,12 @@ class ChatRewriteTest {
 
     @Test
     void literalBlocksAreRewrittenInPlace() {
-        String yaml = "messages:\n  - role: system\n    content: |\n      First line.  \n      Second   line.\n\n\n\n      Third.\n";
-        assertEquals("messages:\n  - role: system\n    content: |\n      First line.\n      Second   line.\n\n\n\n      Third.\n",
+        String yaml = "messages:\n  - role: system\n    content: |\n      First line.  \n      Second  line.\n\n\n\n      Third.\n";
+        assertEquals("messages:\n  - role: system\n    content: |\n      First line.\n      Second  line.\n\n\n\n      Third.\n",
                 RuleHarness.fixed(rule("trailing-whitespace"), "a.chat.yaml", yaml));
         assertEquals("messages:\n  - role: system\n    content: |\n      First line.  \n      Second line.\n\n\n\n      Third.\n",
                 RuleHarness.fixed(rule("space-run"), "a.chat.yaml", yaml));
-        assertEquals("messages:\n  - role: system\n    content: |\n      First line.  \n      Second   line.\n\n      Third.\n",
+        assertEquals("messages:\n  - role: system\n    content: |\n      First line.  \n      Second  line.\n\n      Third.\n",
                 RuleHarness.fixed(rule("blank-lines"), "a.chat.yaml", yaml));
         List<Finding> found = RuleHarness.findings(rule("space-run"), "a.chat.yaml", yaml, Map.of());
         assertEquals(5, found.get(0).line());

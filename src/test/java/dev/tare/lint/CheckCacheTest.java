@@ -55,7 +55,7 @@ class CheckCacheTest {
                 + "    why: \"They cost tokens.\"\n    class: review\n    severity: info\n    scope: prose\n"
                 + "    find: '!!+'\n    replace: '!'\n    examples:\n      - before: \"Now!!\\n\"\n        after: \"Now!\\n\"\n");
         stamped.write("prompts/partials/policy.md", "Never share a customer's account number.");
-        stamped.write("prompts/billing.md", "# Billing\n\n" + BLOCK + "\n\nExplain the bill!!  Use   plain words.\n");
+        stamped.write("prompts/billing.md", "# Billing\n\n" + BLOCK + "\n\nExplain the bill!!  Use  plain words.\n");
         stamped.write("prompts/outages.md", "# Outages\n\n" + BLOCK + "\n\nGive the area.\n");
         stamped.write("prompts/quiet.md", "{# tare-ignore-file shared-block #}\n# Quiet\n\n" + BLOCK + "\n\nBe brief.\n");
         stamped.write("prompts/reply.md", "---\nbudget: 20\ntools: [tools/lookup.json]\n---\nDear customer, {{> policy }}"

@@ -29,7 +29,7 @@ import java.util.TreeMap;
  * Templates that shrank are reported by {@link BaselineShrink}.
  */
 final class BaselineGrowth implements Rule {
-    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("baseline-growth", Severity.ERROR, RewriteClass.NONE,
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("baseline-growth", Severity.ERROR,
             "A template that grew beyond the tolerance over its committed baseline.",
             "A prompt that grows is paid for on every call from then on; the baseline makes growth a decision"
                     + " taken in review rather than an accident.",

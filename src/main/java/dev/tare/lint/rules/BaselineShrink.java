@@ -15,7 +15,7 @@ import java.util.Map;
 
 /** A template that is smaller than its committed baseline: worth recording, so the gain is kept. */
 final class BaselineShrink implements Rule {
-    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("baseline-shrink", Severity.INFO, RewriteClass.NONE,
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("baseline-shrink", Severity.INFO,
             "A template that shrank since its committed baseline.",
             "Until the baseline is lowered, the template may grow back to its old size without anyone noticing.",
             "Run 'tare baseline' and commit the file to keep the saving.",

@@ -17,7 +17,7 @@ import java.util.List;
 
 /** Two or more blank lines in a row (three or more line breaks), outside fenced code. */
 final class BlankLines implements Rule {
-    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("blank-lines", Severity.WARNING, RewriteClass.SAFE,
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("blank-lines", Severity.WARNING, EditKind.WHITESPACE,
             "Two or more blank lines in a row.",
             "One blank line already separates paragraphs; every further line break is a token sent on every"
                     + " call that tells the model nothing.",
@@ -30,10 +30,6 @@ final class BlankLines implements Rule {
         return DESCRIPTOR;
     }
 
-    @Override
-    public EditKind editKind() {
-        return EditKind.WHITESPACE;
-    }
 
     @Override
     public List<Finding> check(Template template, LintContext context) {
@@ -57,7 +53,7 @@ final class BlankLines implements Rule {
                 int end = lines.get(i - 1).next();
                 boolean atStart = first == 0;
                 boolean atEnd = i == lines.size();
-                if (count < 2 || message.isProtected(start, end)) {
+                if (count < 2 || !message.allowsWhitespaceEdit(start, end)) {
                     continue;
                 }
                 String replacement = atStart || atEnd ? "" : lines.get(first).lineBreak(content);

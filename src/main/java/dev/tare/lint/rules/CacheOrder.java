@@ -33,7 +33,7 @@ import java.util.Optional;
  * counts where it stands), so that the two agree on where a template's per-call part starts.
  */
 final class CacheOrder implements Rule {
-    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("cache-order", Severity.WARNING, RewriteClass.NONE,
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("cache-order", Severity.WARNING,
             "Per-call text (a variable) placed ahead of a long static part, so no prefix of the prompt can be cached.",
             "Prefix caches reuse the leading tokens that are identical on every call; one variable near the top"
                     + " makes every call start differently, so the whole static part is paid at the full price and"

@@ -1,6 +1,7 @@
 package dev.tare.lint.rules;
 
 import dev.tare.lint.Edit;
+import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
@@ -49,7 +50,7 @@ final class CostlyCharacter implements Rule {
     private static final List<Integer> WARNINGS = List.of(0x26A0);
 
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("costly-character", Severity.INFO,
-            RewriteClass.REVIEW,
+            EditKind.TEXT,
             "A typographic character or emoji that costs more tokens than its plain form on the template's tokenizer.",
             "Tokenizers learn mostly from plain text, so many arrows, check marks, quotes and emoji are split"
                     + " into several byte tokens; the plain form says the same for less on every call.",

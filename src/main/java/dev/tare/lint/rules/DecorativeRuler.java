@@ -1,6 +1,7 @@
 package dev.tare.lint.rules;
 
 import dev.tare.lint.Edit;
+import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
@@ -24,7 +25,7 @@ final class DecorativeRuler implements Rule {
     static final int MIN_RUN = 5;
 
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("decorative-ruler", Severity.WARNING,
-            RewriteClass.REVIEW,
+            EditKind.TEXT,
             "A line drawn with a long run of =, -, *, # or _ as a visual ruler.",
             "Long rulers are for human eyes; the model gets the same break from three characters, and runs of"
                     + " symbols tokenize poorly, so every extra character can be paid for on every call.",

@@ -1,6 +1,7 @@
 package dev.tare.lint.rules;
 
 import dev.tare.lint.Edit;
+import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
@@ -10,6 +11,7 @@ import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
 import dev.tare.lint.TemplateText;
+import dev.tare.structure.Role;
 import dev.tare.template.Template;
 import java.util.ArrayList;
 import java.util.List;
@@ -17,13 +19,18 @@ import java.util.Locale;
 
 /**
  * Characters that show nothing or look like a plain space: zero-width spaces and joiners, word
- * joiners, soft hyphens, byte-order marks inside the text, and no-break spaces. A zero-width joiner
- * inside an emoji sequence, and a zero-width non-joiner between letters of scripts that use it, carry
- * meaning and are left alone.
+ * joiners, soft hyphens, byte-order marks inside the text, and no-break spaces, outside code and
+ * anything laid out verbatim. A zero-width joiner or non-joiner is removed only between Latin
+ * letters, digits or punctuation: next to a letter or mark of another script (Devanagari half forms
+ * such as क्‍ष, Persian and Arabic word shapes) or inside an emoji sequence it changes what the text
+ * shows, and is left alone.
  */
 final class InvisibleCharacter implements Rule {
+    /** Text a safe rewrite keeps byte for byte; the other roles outside prose are skipped by {@code prose()}. */
+    private static final Role[] VERBATIM = {Role.TABLE_ROW, Role.TAB_SEPARATED, Role.ALIGNED};
+
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("invisible-character", Severity.WARNING,
-            RewriteClass.SAFE,
+            EditKind.INVISIBLE,
             "Invisible characters: zero-width spaces and joiners, soft hyphens, stray byte-order marks and no-break spaces.",
             "They are invisible in an editor, yet each costs tokens on every call, and inside a word it splits"
                     + " the word into rarer, costlier pieces.",
@@ -46,7 +53,7 @@ final class InvisibleCharacter implements Rule {
                 for (int i = range[0]; i < range[1]; i++) {
                     char c = content.charAt(i);
                     String replacement = replacement(content, i);
-                    if (replacement == null) {
+                    if (replacement == null || message.touches(i, i + 1, VERBATIM)) {
                         continue;
                     }
                     findings.add(text.finding(DESCRIPTOR, message, i, i + 1,
@@ -66,8 +73,7 @@ final class InvisibleCharacter implements Rule {
         return switch (c) {
             case '\u200B', '\u2060', '\uFEFF', '\u00AD' -> "";
             case '\u00A0', '\u202F', '\u2007' -> " ";
-            case '\u200D' -> nearEmoji(content, i) ? null : "";
-            case '\u200C' -> betweenLatin(content, i) ? "" : null;
+            case '\u200D', '\u200C' -> betweenLatin(content, i) ? "" : null;
             default -> null;
         };
     }
@@ -86,21 +92,13 @@ final class InvisibleCharacter implements Rule {
         };
     }
 
-    private static boolean nearEmoji(String content, int i) {
-        return (i > 0 && isPictographic(content.codePointBefore(i)))
-                || (i + 1 < content.length() && isPictographic(content.codePointAt(i + 1)));
-    }
-
-    private static boolean isPictographic(int codePoint) {
-        int type = Character.getType(codePoint);
-        return type == Character.OTHER_SYMBOL || codePoint == 0xFE0F || (codePoint >= 0x1F3FB && codePoint <= 0x1F3FF);
-    }
-
     private static boolean betweenLatin(String content, int i) {
         return i > 0 && i + 1 < content.length() && isLatin(content.codePointBefore(i)) && isLatin(content.codePointAt(i + 1));
     }
 
+    /** ASCII, or a Latin letter: text whose shapes no joiner changes. */
     private static boolean isLatin(int codePoint) {
-        return codePoint < 0x80 || Character.UnicodeScript.of(codePoint) == Character.UnicodeScript.LATIN;
+        return codePoint < 0x80 || (Character.isLetter(codePoint)
+                && Character.UnicodeScript.of(codePoint) == Character.UnicodeScript.LATIN);
     }
 }

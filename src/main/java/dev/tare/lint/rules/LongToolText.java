@@ -22,7 +22,7 @@ final class LongToolText implements ToolRule {
     static final int DESCRIPTION_TOKENS = 60;
     static final int ENUM_TOKENS = 40;
 
-    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("long-tool-text", Severity.INFO, RewriteClass.NONE,
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("long-tool-text", Severity.INFO,
             "A tool description, parameter description or enum list over its token limit.",
             "Tool definitions are sent with every call whether or not the tool is used; a long description is paid"
                     + " on calls that never touch the tool.",

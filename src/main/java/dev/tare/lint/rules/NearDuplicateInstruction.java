@@ -1,6 +1,7 @@
 package dev.tare.lint.rules;
 
 import dev.tare.lint.Edit;
+import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
@@ -20,7 +21,8 @@ import java.util.Map;
 import java.util.Optional;
 
 /**
- * Two sentences of one template that say nearly the same thing: the cosine similarity of their
+ * Two instructions of one message and one conditional branch that say nearly the same thing (only
+ * sentences the structure model reads as instructions, as for repeated-instruction): the cosine similarity of their
  * content-word counts (computed as commons-text's {@code CosineSimilarity} computes it; common
  * function words left out, number words read as digits) is at least
  * {@value #MIN_COSINE} and their Levenshtein similarity (one minus the edit distance over the longer
@@ -41,8 +43,8 @@ final class NearDuplicateInstruction implements Rule {
             "must", "should", "would", "only", "also", "into", "out", "about");
 
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("near-duplicate-instruction", Severity.INFO,
-            RewriteClass.REVIEW,
-            "A sentence that nearly repeats an earlier one in the same template.",
+            EditKind.TEXT,
+            "An instruction that nearly repeats an earlier one in the same message.",
             "Saying a rule twice in other words costs tokens on every call and leaves the model two versions"
                     + " to reconcile when they differ in detail.",
             "Keep the clearer sentence and delete the other.",
@@ -67,7 +69,7 @@ final class NearDuplicateInstruction implements Rule {
             List<Sentences.Sentence> sentences = Sentences.of(message);
             for (int index = 0; index < sentences.size() && all.size() < MAX_SENTENCES; index++) {
                 Sentences.Sentence sentence = sentences.get(index);
-                if (sentence.words() >= Sentences.MIN_WORDS + 2) {
+                if (sentence.instruction() && sentence.words() >= Sentences.MIN_WORDS + 2) {
                     all.add(new Located(message, sentence, sentences, index,
                             WordVector.of(words(sentence.text()), vocabulary), sentence.text().toLowerCase(Locale.ROOT)));
                 }
@@ -78,6 +80,9 @@ final class NearDuplicateInstruction implements Rule {
             Located later = all.get(j);
             for (int i = 0; i < j; i++) {
                 Located earlier = all.get(i);
+                if (earlier.message() != later.message() || earlier.sentence().branch() != later.sentence().branch()) {
+                    continue;
+                }
                 if (earlier.sentence().text().equals(later.sentence().text())) {
                     break;
                 }

@@ -26,7 +26,7 @@ import java.util.stream.Collectors;
  * {@code budgets} in {@code tare.yaml}, else the configured default.
  */
 final class OverBudget implements Rule {
-    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("over-budget", Severity.ERROR, RewriteClass.NONE,
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("over-budget", Severity.ERROR,
             "A template whose estimated tokens exceed its budget.",
             "The budget is the team's agreed price of the prompt; every token over it is paid on every call,"
                     + " adds prefill time and takes cache memory from other requests.",

@@ -4,11 +4,12 @@ import com.fasterxml.jackson.databind.JsonNode;
 import dev.tare.lint.Edit;
 import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
-import dev.tare.lint.Fence;
+import dev.tare.structure.Fence;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
 import dev.tare.lint.MessageText;
-import dev.tare.lint.Region;
+import dev.tare.structure.Region;
+import dev.tare.structure.Role;
 import dev.tare.lint.RewriteClass;
 import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
@@ -21,29 +22,26 @@ import java.util.List;
 import java.util.Optional;
 
 /**
- * Pretty-printed JSON in a fenced {@code json} block, or a message that is nothing but pretty-printed
- * JSON. The rewrite is the same value minified, and it is offered only after both sides are parsed
- * (strictly: duplicate keys and trailing text refused, numbers kept exact) and found to be equal JSON
- * trees, and every placeholder inside is kept in order.
+ * A message that is nothing but pretty-printed JSON: a payload the model reads as data, whose layout
+ * tells it nothing. The rewrite is the same value minified, and it is offered only after both sides
+ * are parsed (strictly: duplicate keys and trailing text refused, numbers kept exact) and found to be
+ * equal JSON trees, and every placeholder inside is kept in order. JSON shown inside prose is
+ * {@link PrettyJsonBlock}'s.
  */
 final class PrettyJson implements Rule {
-    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("pretty-json", Severity.WARNING, RewriteClass.SAFE,
-            "JSON written pretty-printed (indented, one member per line) in a fenced json block or as a whole message.",
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("pretty-json", Severity.WARNING, EditKind.JSON_LAYOUT,
+            "A message that is all JSON, written pretty-printed (indented, one member per line).",
             "Indentation and line breaks are tokens; a model reads minified JSON just as well, so the layout"
                     + " is paid for on every call.",
             "Write the JSON on one line, without spaces between members.",
-            Example.of("Reply with JSON like this:\n```json\n{\n  \"intent\": \"billing\",\n  \"urgent\": false\n}\n```\n",
-                    "Reply with JSON like this:\n```json\n{\"intent\":\"billing\",\"urgent\":false}\n```\n"));
+            Example.of("{\n  \"intent\": \"billing\",\n  \"urgent\": false\n}\n",
+                    "{\"intent\":\"billing\",\"urgent\":false}\n"));
 
     @Override
     public RuleDescriptor descriptor() {
         return DESCRIPTOR;
     }
 
-    @Override
-    public EditKind editKind() {
-        return EditKind.JSON_LAYOUT;
-    }
 
     @Override
     public List<Finding> check(Template template, LintContext context) {
@@ -51,24 +49,22 @@ final class PrettyJson implements Rule {
         List<Finding> findings = new ArrayList<>();
         for (MessageText message : text.messages()) {
             String content = message.content();
-            for (Fence fence : message.fences()) {
-                if (fence.closed() && fence.language().equals("json")) {
-                    String lineBreak = finalLineBreak(content, fence.bodyStart(), fence.bodyEnd());
-                    check(text, message, fence.bodyStart(), fence.bodyEnd(), lineBreak, context, template)
-                            .ifPresent(findings::add);
-                }
-            }
             String stripped = content.strip();
             if (message.fences().isEmpty() && (stripped.startsWith("{") || stripped.startsWith("["))) {
                 int start = content.indexOf(stripped.charAt(0));
-                check(text, message, start, start + stripped.length(), "", context, template).ifPresent(findings::add);
+                minified(DESCRIPTOR, text, message, start, start + stripped.length(), "", context, template)
+                        .ifPresent(findings::add);
             }
         }
         return findings;
     }
 
-    private Optional<Finding> check(TemplateText text, MessageText message, int start, int end, String lineBreak,
-                                    LintContext context, Template template) {
+    /**
+     * A finding of {@code rule} offering {@code [start, end)} of the message minified (followed by
+     * {@code lineBreak}), when that text is pretty-printed JSON.
+     */
+    static Optional<Finding> minified(RuleDescriptor rule, TemplateText text, MessageText message, int start, int end,
+                                      String lineBreak, LintContext context, Template template) {
         String json = message.content().substring(start, end);
         if (json.strip().isEmpty() || !json.contains("\n")) {
             return Optional.empty();
@@ -83,7 +79,7 @@ final class PrettyJson implements Rule {
         }
         int lines = (int) json.chars().filter(c -> c == '\n').count();
         var rewrite = text.rewrite(message, List.of(new Edit(start, end, replacement)), context.tokenizer(template));
-        return Optional.of(text.finding(DESCRIPTOR, message, start, end,
+        return Optional.of(text.finding(rule, message, start, end,
                 "pretty-printed JSON over " + lines + " lines; the same JSON minified fits on one"
                         + rewrite.map(r -> " and saves " + r.savingTokens() + " tokens").orElse(""),
                 rewrite, List.of()));
@@ -103,7 +99,7 @@ final class PrettyJson implements Rule {
     private static boolean keepsPlaceholders(MessageText message, int start, int end, String minified) {
         String content = message.content();
         int at = 0;
-        for (Region region : message.touching(start, end, Region.Kind.PLACEHOLDER)) {
+        for (Region region : message.touching(start, end, Role.PLACEHOLDER)) {
             if (region.start() < start || region.end() > end) {
                 continue;
             }
@@ -116,7 +112,7 @@ final class PrettyJson implements Rule {
         return true;
     }
 
-    private static String finalLineBreak(String content, int start, int end) {
+    static String finalLineBreak(String content, int start, int end) {
         if (end - start >= 2 && content.startsWith("\r\n", end - 2)) {
             return "\r\n";
         }

@@ -3,6 +3,7 @@ package dev.tare.lint.rules;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import dev.tare.lint.Edit;
+import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
@@ -23,7 +24,7 @@ import java.util.Optional;
  * its indentation is paid on every call; minified, it parses to the same JSON tree.
  */
 final class PrettyToolFile implements ToolRule {
-    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("pretty-tool-file", Severity.WARNING, RewriteClass.SAFE,
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("pretty-tool-file", Severity.WARNING, EditKind.JSON_LAYOUT,
             "A JSON tool file written with indentation and line breaks.",
             "If the application sends the file as written, every space and line break of the layout is paid on every call"
                     + " (Tare counts tool definitions minified, so its own figures assume you minify).",

@@ -17,7 +17,7 @@ import java.util.List;
 
 /** A tab between words of a prose line; leading tabs (indentation) and trailing ones are other matters. */
 final class ProseTab implements Rule {
-    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("prose-tab", Severity.WARNING, RewriteClass.SAFE,
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("prose-tab", Severity.WARNING, EditKind.WHITESPACE,
             "A tab between words of a line of prose.",
             "A tab inside prose usually costs a token of its own where a space would merge with the next word.",
             "Use a single space.",
@@ -28,10 +28,6 @@ final class ProseTab implements Rule {
         return DESCRIPTOR;
     }
 
-    @Override
-    public EditKind editKind() {
-        return EditKind.WHITESPACE;
-    }
 
     @Override
     public List<Finding> check(Template template, LintContext context) {
@@ -42,7 +38,7 @@ final class ProseTab implements Rule {
             for (Line line : Line.of(content)) {
                 for (int[] run : line.blanksBetweenWords(content)) {
                     boolean tab = content.substring(run[0], run[1]).indexOf('\t') >= 0;
-                    if (tab && !message.isProtected(run[0], run[1])) {
+                    if (tab && message.allowsWhitespaceEdit(run[0], run[1])) {
                         findings.add(text.finding(DESCRIPTOR, message, run[0], run[1], "a tab between words; use one space",
                                 text.rewrite(message, List.of(new Edit(run[0], run[1], " ")), context.tokenizer(template)),
                                 List.of()));

@@ -1,6 +1,7 @@
 package dev.tare.lint.rules;
 
 import dev.tare.lint.Edit;
+import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
@@ -19,13 +20,16 @@ import java.util.Map;
 import java.util.Optional;
 
 /**
- * A sentence that appears word for word earlier in the same template (whitespace aside). Dropping the
- * later copy is safe outside code and lists, when the copy holds no placeholder, code or URL.
+ * An instruction that appears word for word earlier in the same message and the same conditional
+ * branch (whitespace aside). Only sentences the structure model reads as instructions count: never
+ * examples, dialogue, quotes, code, headings or XML-style sections, where repeating a line is part
+ * of what the model is shown. Dropping the later copy changes the prompt's text, so it is a review
+ * rewrite: the copy may be there for emphasis, or read differently where it stands.
  */
 final class RepeatedInstruction implements Rule {
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("repeated-instruction", Severity.WARNING,
-            RewriteClass.SAFE,
-            "A sentence repeated word for word within one template.",
+            EditKind.TEXT,
+            "An instruction repeated word for word within one message.",
             "The model already read the instruction; the second copy adds tokens to every call, and when the"
                     + " copies drift apart in later edits they start to contradict each other.",
             "State each instruction once, where it belongs.",
@@ -42,34 +46,29 @@ final class RepeatedInstruction implements Rule {
     public List<Finding> check(Template template, LintContext context) {
         TemplateText text = context.text(template);
         List<Finding> findings = new ArrayList<>();
-        Map<String, Located> first = new HashMap<>();
         for (MessageText message : text.messages()) {
+            Map<String, Sentences.Sentence> first = new HashMap<>();
             List<Sentences.Sentence> sentences = Sentences.of(message);
             for (int index = 0; index < sentences.size(); index++) {
                 Sentences.Sentence sentence = sentences.get(index);
-                int at = index;
-                if (sentence.words() < Sentences.MIN_WORDS) {
+                if (!sentence.instruction() || sentence.words() < Sentences.MIN_WORDS) {
                     continue;
                 }
-                Located earlier = first.putIfAbsent(sentence.text(), new Located(message, sentence));
+                Sentences.Sentence earlier = first.putIfAbsent(sentence.branch() + "\u0000" + sentence.text(), sentence);
                 if (earlier == null) {
                     continue;
                 }
                 Optional<Rewrite> rewrite = message.isProtected(sentence.start(), sentence.end()) ? Optional.empty()
-                        : Sentences.removal(message.content(), sentences, at, false)
+                        : Sentences.removal(message.content(), sentences, index, false)
                                 .filter(r -> !message.isProtected(r[0], r[1]))
                                 .flatMap(r -> text.rewrite(message, List.of(new Edit(r[0], r[1], "")), context.tokenizer(template)));
-                int line = text.line(earlier.message(), earlier.sentence().start());
+                int line = text.line(message, earlier.start());
                 findings.add(text.finding(DESCRIPTOR, message, sentence.start(), sentence.end(),
                         "repeats the sentence on line " + line + " word for word"
-                                + (rewrite.isPresent() ? "; drop this copy" : "; keep one copy"),
-                        rewrite, List.of(text.related(earlier.message(), earlier.sentence().start(), "first copy"))));
+                                + (rewrite.isPresent() ? "; drop this copy after checking the prompt reads the same" : "; keep one copy"),
+                        rewrite, List.of(text.related(message, earlier.start(), "first copy"))));
             }
         }
         return findings;
-    }
-
-    /** A sentence and the message it stands in. */
-    record Located(MessageText message, Sentences.Sentence sentence) {
     }
 }

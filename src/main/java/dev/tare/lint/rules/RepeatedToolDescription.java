@@ -22,7 +22,6 @@ import java.util.Optional;
  */
 final class RepeatedToolDescription implements ToolRule {
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("repeated-tool-description", Severity.WARNING,
-            RewriteClass.NONE,
             "A sentence repeated across tool descriptions, or a parameter description that repeats its tool's.",
             "Every definition goes out with every call: a sentence written into three tools is paid three times a call.",
             "Say it once: in the one tool it belongs to, or in the system prompt if it applies to every tool.",

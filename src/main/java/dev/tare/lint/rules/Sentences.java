@@ -1,7 +1,8 @@
 package dev.tare.lint.rules;
 
 import dev.tare.lint.MessageText;
-import dev.tare.lint.Region;
+import dev.tare.structure.Region;
+import dev.tare.structure.Role;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.regex.Pattern;
@@ -9,7 +10,8 @@ import java.util.regex.Pattern;
 /**
  * The sentences of a message's prose, for the repeated-instruction rules. Text is cut into units
  * (paragraphs, list items, headings; fenced code and lines that are only a tag end a unit) and units
- * into sentences at {@code .}, {@code !} or {@code ?} followed by whitespace.
+ * into sentences at {@code .}, {@code !} or {@code ?} followed by whitespace. Each sentence knows
+ * whether the structure model reads it as an instruction, and its conditional branch.
  */
 final class Sentences {
     /** Sentences shorter than this (in words) are too common to count as repeated instructions. */
@@ -20,15 +22,23 @@ final class Sentences {
     private Sentences() {
     }
 
+    /** Words that make a sentence point at its neighbours, so that a copy elsewhere says something else. */
+    private static final Pattern POINTS_AROUND = Pattern.compile(
+            "(?i)\\b(?:above|below|following|preceding|previous|foregoing|hereafter)\\b");
+
     /**
      * One sentence.
      *
-     * @param start      offset of its first character in the content
-     * @param end        offset just past its last character
-     * @param text       its text with runs of whitespace made single spaces
-     * @param unit       the unit it belongs to
+     * @param start       offset of its first character in the content
+     * @param end         offset just past its last character
+     * @param text        its text with runs of whitespace made single spaces
+     * @param unit        the unit it belongs to
+     * @param instruction whether it reads as an instruction of its own: prose or a list item outside
+     *                    examples, quotes and XML-style sections, in one conditional branch, and not a
+     *                    lead-in to what follows (ending in a colon) or a pointer to its neighbours
+     * @param branch      its conditional branch (see {@link dev.tare.structure.Region#branch()})
      */
-    record Sentence(int start, int end, String text, Unit unit) {
+    record Sentence(int start, int end, String text, Unit unit, boolean instruction, int branch) {
         int words() {
             return text.split(" ").length;
         }
@@ -51,7 +61,7 @@ final class Sentences {
         List<Unit> units = units(message, content);
         List<Sentence> sentences = new ArrayList<>();
         for (Unit unit : units) {
-            split(content, unit, sentences);
+            split(message, unit, sentences);
         }
         return sentences;
     }
@@ -65,7 +75,8 @@ final class Sentences {
         boolean listItem = false;
         for (Line line : Line.of(content)) {
             String text = line.text(content);
-            boolean breaks = line.isBlank(content) || message.touches(line.start(), line.end(), Region.Kind.FENCED_CODE)
+            boolean breaks = line.isBlank(content) || message.touches(line.start(), line.end(), Role.FENCED_CODE,
+                    Role.INDENTED_CODE, Role.HTML, Role.TABLE_ROW, Role.SECTION_TAG)
                     || onlyPlaceholders(message, line, content);
             var item = LIST_ITEM.matcher(text);
             boolean startsItem = item.find();
@@ -98,28 +109,30 @@ final class Sentences {
     private static boolean onlyPlaceholders(MessageText message, Line line, String content) {
         for (int i = line.start(); i < line.end(); i++) {
             char c = content.charAt(i);
-            if (c != ' ' && c != '\t' && !message.touches(i, i + 1, Region.Kind.PLACEHOLDER)) {
+            if (c != ' ' && c != '\t' && !message.touches(i, i + 1, Role.PLACEHOLDER)) {
                 return false;
             }
         }
         return true;
     }
 
-    private static void split(String content, Unit unit, List<Sentence> out) {
+    private static void split(MessageText message, Unit unit, List<Sentence> out) {
+        String content = message.content();
         int start = unit.start();
         for (int i = unit.start(); i < unit.end(); i++) {
             char c = content.charAt(i);
             boolean ends = (c == '.' || c == '!' || c == '?')
                     && (i + 1 == unit.end() || Character.isWhitespace(content.charAt(i + 1)));
             if (ends) {
-                add(content, start, i + 1, unit, out);
+                add(message, start, i + 1, unit, out);
                 start = i + 1;
             }
         }
-        add(content, start, unit.end(), unit, out);
+        add(message, start, unit.end(), unit, out);
     }
 
-    private static void add(String content, int from, int to, Unit unit, List<Sentence> out) {
+    private static void add(MessageText message, int from, int to, Unit unit, List<Sentence> out) {
+        String content = message.content();
         int start = from;
         while (start < to && Character.isWhitespace(content.charAt(start))) {
             start++;
@@ -129,7 +142,10 @@ final class Sentences {
             end--;
         }
         if (end > start) {
-            out.add(new Sentence(start, end, content.substring(start, end).replaceAll("\\s+", " "), unit));
+            String text = content.substring(start, end).replaceAll("\\s+", " ");
+            boolean instruction = message.structure().isInstruction(start, end) && !text.endsWith(":")
+                    && !POINTS_AROUND.matcher(text).find();
+            out.add(new Sentence(start, end, text, unit, instruction, message.structure().branchAt(start)));
         }
     }
 

@@ -6,6 +6,7 @@ import dev.tare.footprint.Footprint;
 import dev.tare.footprint.Footprints;
 import dev.tare.lint.CrossTemplateRule;
 import dev.tare.lint.Edit;
+import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Extraction;
 import dev.tare.lint.Finding;
@@ -50,7 +51,7 @@ import java.util.TreeMap;
 final class SharedBlock implements CrossTemplateRule {
     static final int MIN_TOKENS = 50;
 
-    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("shared-block", Severity.WARNING, RewriteClass.REVIEW,
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("shared-block", Severity.WARNING, EditKind.TEXT,
             "A block of text that two or more templates hold, each copy pasted in its own file.",
             "Every copy is paid on every call of its template, and copies drift apart as each is edited on its own;"
                     + " the templates share nothing a reader or a prefix cache can see as one piece.",

@@ -17,7 +17,7 @@ import java.util.List;
 
 /** Two or more spaces between words of a prose line (indentation is left alone). */
 final class SpaceRun implements Rule {
-    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("space-run", Severity.WARNING, RewriteClass.SAFE,
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("space-run", Severity.WARNING, EditKind.WHITESPACE,
             "Two or more spaces between words inside a line of prose.",
             "Tokenizers give runs of spaces tokens of their own, so double spaces after full stops or for"
                     + " alignment are paid for on every call without changing what the model reads.",
@@ -29,10 +29,6 @@ final class SpaceRun implements Rule {
         return DESCRIPTOR;
     }
 
-    @Override
-    public EditKind editKind() {
-        return EditKind.WHITESPACE;
-    }
 
     @Override
     public List<Finding> check(Template template, LintContext context) {
@@ -44,7 +40,7 @@ final class SpaceRun implements Rule {
                 for (int[] run : line.blanksBetweenWords(content)) {
                     // A run with a tab in it is prose-tab's; this rule takes runs of spaces only.
                     boolean spacesOnly = content.substring(run[0], run[1]).indexOf('\t') < 0;
-                    if (spacesOnly && run[1] - run[0] >= 2 && !message.isProtected(run[0], run[1])) {
+                    if (spacesOnly && run[1] - run[0] >= 2 && message.allowsWhitespaceEdit(run[0], run[1])) {
                         findings.add(text.finding(DESCRIPTOR, message, run[0], run[1],
                                 (run[1] - run[0]) + " spaces in a row; one is enough",
                                 text.rewrite(message, List.of(new Edit(run[0], run[1], " ")), context.tokenizer(template)),

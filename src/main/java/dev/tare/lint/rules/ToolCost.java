@@ -24,7 +24,7 @@ import java.util.Locale;
  * tokens where the target has one. Informational: the cost of a tool is the case for or against it.
  */
 final class ToolCost implements ToolRule {
-    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("tool-cost", Severity.INFO, RewriteClass.NONE,
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("tool-cost", Severity.INFO,
             "What each tool definition costs per call on each target.",
             "A tool's definition is input on every call it is sent with, used or not.",
             "Send a tool only with the prompts that can use it, and keep its definition short.",

@@ -18,7 +18,7 @@ import java.util.List;
 /** Spaces and tabs at the end of a prose line. */
 final class TrailingWhitespace implements Rule {
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("trailing-whitespace", Severity.WARNING,
-            RewriteClass.SAFE,
+            EditKind.WHITESPACE,
             "Spaces or tabs at the end of a line of prose.",
             "The model never needs them, yet they are sent and paid for on every call, and they can keep the"
                     + " line break after them from merging with neighbouring text into one token.",
@@ -30,10 +30,6 @@ final class TrailingWhitespace implements Rule {
         return DESCRIPTOR;
     }
 
-    @Override
-    public EditKind editKind() {
-        return EditKind.WHITESPACE;
-    }
 
     @Override
     public List<Finding> check(Template template, LintContext context) {
@@ -46,7 +42,7 @@ final class TrailingWhitespace implements Rule {
                 while (start > line.start() && (content.charAt(start - 1) == ' ' || content.charAt(start - 1) == '\t')) {
                     start--;
                 }
-                if (start == line.end() || message.isProtected(start, line.end())) {
+                if (start == line.end() || !message.allowsWhitespaceEdit(start, line.end())) {
                     continue;
                 }
                 int width = line.end() - start;

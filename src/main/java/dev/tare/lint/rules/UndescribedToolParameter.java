@@ -15,7 +15,6 @@ import java.util.List;
 /** A tool parameter without a description, which leaves the model to guess what to put there. */
 final class UndescribedToolParameter implements ToolRule {
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("undescribed-tool-parameter", Severity.INFO,
-            RewriteClass.NONE,
             "A tool parameter with no description.",
             "A model that guesses an argument wrongly makes a failed call and a retry, and the retry resends the whole prompt.",
             "Give the parameter a short description with an example value.",

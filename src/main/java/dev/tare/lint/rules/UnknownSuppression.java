@@ -16,7 +16,6 @@ import java.util.List;
 /** An inline {@code tare-ignore} directive that names a rule Tare does not know, so it silences nothing. */
 final class UnknownSuppression implements Rule {
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("unknown-suppression", Severity.WARNING,
-            RewriteClass.NONE,
             "A tare-ignore directive that names an unknown rule.",
             "A misspelt directive silences nothing, so the finding it was meant for still fails the check, or"
                     + " the directive lingers as dead text that may be sent to the model.",

@@ -17,7 +17,6 @@ import java.util.Optional;
 /** An include that cannot be pasted in: a missing file, a cycle, runaway nesting or a path outside the root. */
 final class UnresolvedInclude implements Rule {
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("unresolved-include", Severity.ERROR,
-            RewriteClass.NONE,
             "An include that cannot be resolved: the file is missing, includes form a cycle, or the path leads outside the repository.",
             "The rendered prompt is not what the template says, so the model gets broken text and no footprint of"
                     + " the template can be measured.",

@@ -24,7 +24,7 @@ import java.util.Set;
  * at all; loop variables and names inside sections are local and never reported.
  */
 final class UnsizedVariable implements Rule {
-    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("unsized-variable", Severity.INFO, RewriteClass.NONE,
+    static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("unsized-variable", Severity.INFO,
             "A variable with neither a token size nor a sample value.",
             "Estimated tokens, budgets and costs count a variable only through its declared size or sample;"
                     + " without one the estimate silently leaves the variable out and reads low.",

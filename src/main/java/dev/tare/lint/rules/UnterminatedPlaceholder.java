@@ -19,7 +19,6 @@ import java.util.Optional;
  */
 final class UnterminatedPlaceholder implements SyntaxErrorRule {
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("unterminated-placeholder", Severity.ERROR,
-            RewriteClass.NONE,
             "A placeholder, tag or include that is opened but never closed.",
             "The template engine will fail on it or send the braces and everything after them literally, so"
                     + " the model gets broken text; no token count of the file can be trusted either.",

@@ -19,7 +19,6 @@ import java.util.Set;
 /** A variable declared in front matter (or beside a chat file's messages) that nothing in the template reads. */
 final class UnusedVariable implements Rule {
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("unused-variable", Severity.WARNING,
-            RewriteClass.NONE,
             "A declared variable that the template and its includes never use.",
             "A stale declaration makes readers and estimates believe the prompt carries text it no longer"
                     + " sends; when it has a size, budgets are checked against tokens that never go out.",

@@ -35,6 +35,27 @@ class InvisibleCharacterTest {
     }
 
     @Test
+    void aJoinerThatAScriptNeedsIsKept() {
+        // Devanagari ka, virama, zero-width joiner, ssa: the joiner asks for the half form of ka.
+        String devanagari = "Write \u0915\u094D\u200D\u0937 as it is.\n";
+        assertTrue(findings(rule, devanagari).isEmpty());
+        assertEquals(devanagari, fixed(rule, devanagari));
+        assertEquals("Confirm the adjustment.\n", fixed(rule, "Confirm the ad\u200Djustment.\n"), "between Latin letters it is noise");
+    }
+
+    @Test
+    void laidOutTextIsLeftAsItIs() {
+        String table = "| name | note |\n|---|---|\n| a\u200Bb | c |\n";
+        assertTrue(findings(rule, table).isEmpty(), "a table row stays byte for byte");
+    }
+
+    @Test
+    void itsEditsAreInvisibleKindAndSafe() {
+        assertEquals(java.util.Optional.of(dev.tare.lint.EditKind.INVISIBLE), InvisibleCharacter.DESCRIPTOR.editKind());
+        assertEquals(dev.tare.lint.RewriteClass.SAFE, InvisibleCharacter.DESCRIPTOR.rewriteClass());
+    }
+
+    @Test
     void insideCodeNothingIsTouched() {
         assertTrue(findings(rule, "`a\u200Bb`\n").isEmpty());
         assertTrue(findings(rule, "Plain text.\n").isEmpty());

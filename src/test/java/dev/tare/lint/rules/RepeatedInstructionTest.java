@@ -64,6 +64,39 @@ class RepeatedInstructionTest {
     }
 
     @Test
+    void droppingACopyIsAReviewRewrite() {
+        assertEquals(RewriteClass.REVIEW, RepeatedInstruction.DESCRIPTOR.rewriteClass());
+        assertEquals(java.util.Optional.of(dev.tare.lint.EditKind.TEXT), RepeatedInstruction.DESCRIPTOR.editKind());
+    }
+
+    @Test
+    void linesOfExamplesDialogueHeadingsAndSectionsAreNotInstructions() {
+        String examples = "Classify the message.\n\nInput: my bill doubled this month\nOutput: billing question asked\n\n"
+                + "Input: my tap water is brown\nOutput: billing question asked\n";
+        assertTrue(findings(exact, examples).isEmpty(), "an example's line repeats in the next example");
+        String dialogue = "Anna: Is the meter outside the house?\nBen: I will check it now.\nAnna: Is the meter outside the house?\n";
+        assertTrue(findings(exact, dialogue).isEmpty(), "a transcript repeats what was said");
+        String headings = "# Leaks\n\n## Steps to take now\n\nCall.\n\n# Bills\n\n## Steps to take now\n\nPay.\n";
+        assertTrue(findings(exact, headings).isEmpty(), "a heading repeated once per section");
+        String tagged = "<first>\nRead the account notes first.\n</first>\n<second>\nRead the account notes first.\n</second>\n";
+        assertTrue(findings(exact, tagged).isEmpty());
+        String pointing = "Rule one: be brief.\n\nThe above rule matches both examples below:\n\nRule two: be kind.\n\n"
+                + "The above rule matches both examples below:\n";
+        assertTrue(findings(exact, pointing).isEmpty(), "a sentence that points at its neighbours says something else each time");
+    }
+
+    @Test
+    void copiesInDifferentBranchesOrMessagesAreNotRepeats() {
+        String branches = "Offer the payment plan to this customer.\n\n{% if premium %}\nOffer the payment plan to this customer.\n{% endif %}\n";
+        assertTrue(findings(exact, branches).isEmpty(), "the copy inside the branch is sent only with it");
+        String chat = "messages:\n  - role: system\n    content: Always confirm the street address first.\n"
+                + "  - role: user\n    content: Always confirm the street address first.\n";
+        assertTrue(findings(exact, "a.chat.yaml", chat, java.util.Map.of()).isEmpty(), "each message is read on its own");
+        String same = "Offer the payment plan to this customer.\n\nOffer the payment plan to this customer.\n";
+        assertEquals(1, findings(exact, same).size(), "the same sentence twice in one message is a repeat");
+    }
+
+    @Test
     void aReworderRuleIsANearDuplicateForReview() {
         String text = "Never agree to a plan longer than twelve months without a supervisor.\n\n"
                 + "Do not agree to any plan longer than 12 months unless a supervisor approves it.\n";

@@ -79,11 +79,19 @@ class WhitespaceRulesTest {
 
     @Test
     void spaceRunsBetweenWordsBecomeOneSpace() {
-        String text = "End.  Next   word.\n    indented  line\n";
+        String text = "End.  Next  word.\n    indented  line\n";
         List<Finding> found = findings(spaces, text);
         assertEquals(3, found.size());
         assertEquals(5, found.get(0).column());
         assertEquals("End. Next word.\n    indented line\n", fixed(spaces, text));
+    }
+
+    @Test
+    void aLineLaidOutWithThreeOrMoreSpacesIsLeftAlone() {
+        // A run of three spaces is layout (a scale, columns, a drawing), not a typing slip.
+        assertTrue(findings(spaces, "Rate it:   1   2   3\n").isEmpty());
+        assertTrue(findings(spaces, "Name  Role\nAnna  Lead\n").isEmpty(), "gaps ending in one column line up");
+        assertEquals(1, findings(spaces, "Rate it:  then stop.\n").size());
     }
 
     @Test
