@@ -26,8 +26,10 @@ import java.util.TreeMap;
 /**
  * Rewrites one file to a fixpoint without writing it: in each round the rules check the current
  * text, the selected rewrites that do not overlap are applied, and the rules run again, until they
- * offer nothing more (at most {@value #MAX_ROUNDS} rounds). The final text is then verified against
- * the original, and the bytes that would be written are read back.
+ * offer nothing more (at most {@value #MAX_ROUNDS} rounds). Safe rewrites run to their own fixpoint
+ * first and are checked against what safe promises ({@link SafePromise}); review rewrites, when
+ * asked for, follow. The final text is then verified against the original, and the bytes that
+ * would be written are read back.
  */
 final class FilePlanner {
     /** Rounds after which a file whose rewrites keep changing it is given up on. */
@@ -53,61 +55,111 @@ final class FilePlanner {
 
     Plan plan(SourceText original, Template template) {
         List<Tokenizer> counters = tokenizersFor(template);
-        Trace trace = new Trace(original.text());
-        List<Finding> findings = findings(original, original.text());
-        Map<String, Integer> reviewLeft = selection.reviewLeft(findings);
-        int[] start = tokens(template, counters);
-        int[] current = start.clone();
-        Map<String, Tally> tallies = new TreeMap<>();
-        int rounds = 0;
-        while (true) {
-            List<Candidate> offered = selection.candidates(findings, trace.current());
-            if (offered.isEmpty()) {
-                break;
+        Rounds work = new Rounds(original, counters, tokens(template, counters), findings(original, original.text()));
+        Map<String, Integer> reviewLeft = selection.reviewLeft(work.findings);
+        // Safe rewrites go first, to their fixpoint, and must keep what safe promises before any review
+        // rewrite is added on top: a safe rewrite that fails is dropped, never written.
+        Optional<String> stuck = work.run(candidate -> candidate.rewriteClass() == RewriteClass.SAFE);
+        if (stuck.isEmpty() && work.rounds > 0) {
+            List<String> broken = parse(original, work.trace.current())
+                    .map(after -> SafePromise.broken(template, after))
+                    .orElse(List.of("after the safe rewrites the file no longer parses"));
+            if (!broken.isEmpty()) {
+                List<String> problems = new ArrayList<>(broken);
+                problems.add("the safe rewrites came from " + String.join(", ", work.tallies.keySet())
+                        + "; please report this, and fix the file by hand");
+                return new Plan(Optional.of(work.fix(FileFix.Outcome.DROPPED, problems)), reviewLeft);
             }
-            if (rounds == MAX_ROUNDS) {
-                return new Plan(Optional.of(fix(original, trace, FileFix.Outcome.DROPPED, tallies, counters, start, current,
-                        rounds, List.of("its rewrites still change it after " + MAX_ROUNDS + " rounds (rules "
-                                + String.join(", ", offered.stream().map(Candidate::rule).distinct().sorted().toList())
-                                + " keep offering edits), so applying them twice would not give the same text"))), reviewLeft);
-            }
-            rounds++;
-            String roundText = trace.current();
-            List<Trace.AuthoredEdit> applied = new ArrayList<>();
-            for (List<Candidate> group : byRule(Overlaps.choose(offered))) {
-                Candidate first = group.get(0);
-                for (Candidate candidate : group) {
-                    for (Edit edit : candidate.edits()) {
-                        applied.add(new Trace.AuthoredEdit(edit, new Trace.Author(candidate.rule(), candidate.kind())));
-                    }
-                }
-                applied.sort((a, b) -> a.edit().compareTo(b.edit()));
-                String text = Rewrite.apply(roundText, applied.stream().map(Trace.AuthoredEdit::edit).toList());
-                Optional<Template> parsed = parse(original, text);
-                if (parsed.isEmpty()) {
-                    return new Plan(Optional.of(fix(original, trace, FileFix.Outcome.DROPPED, tallies, counters, start,
-                            current, rounds, List.of("after the edits of " + first.rule() + " the file no longer parses"))),
-                            reviewLeft);
-                }
-                int[] counts = tokens(parsed.get(), counters);
-                Tally tally = tallies.computeIfAbsent(first.rule(), r -> new Tally(first.rewriteClass(), counters.size()));
-                tally.add(group.size(), current, counts);
-                current = counts;
-            }
-            trace.apply(applied);
-            findings = findings(original, trace.current());
         }
-        if (rounds == 0) {
+        if (stuck.isEmpty()) {
+            stuck = work.run(candidate -> true);
+        }
+        if (stuck.isPresent()) {
+            return new Plan(Optional.of(work.fix(FileFix.Outcome.DROPPED, List.of(stuck.get()))), reviewLeft);
+        }
+        if (work.rounds == 0) {
             return new Plan(Optional.empty(), reviewLeft);
         }
-        List<String> problems = new ArrayList<>(verify(original, template, trace));
+        List<String> problems = new ArrayList<>(verify(original, template, work.trace));
         if (!problems.isEmpty()) {
-            problems.add("the edits came from " + String.join(", ", tallies.keySet())
+            problems.add("the edits came from " + String.join(", ", work.tallies.keySet())
                     + "; please report this, and fix the file by hand");
         }
         FileFix.Outcome outcome = problems.isEmpty() ? FileFix.Outcome.PLANNED : FileFix.Outcome.DROPPED;
-        return new Plan(Optional.of(fix(original, trace, outcome, tallies, counters, start, current, rounds, problems)),
-                reviewLeft);
+        return new Plan(Optional.of(work.fix(outcome, problems)), reviewLeft);
+    }
+
+    /** The rounds of rewriting one file: its text so far with where each character came from, and what each rule saved. */
+    private final class Rounds {
+        private final SourceText original;
+        private final List<Tokenizer> counters;
+        private final int[] start;
+        private final Trace trace;
+        private final Map<String, Tally> tallies = new TreeMap<>();
+        private int[] current;
+        private List<Finding> findings;
+        private int rounds;
+
+        Rounds(SourceText original, List<Tokenizer> counters, int[] start, List<Finding> findings) {
+            this.original = original;
+            this.counters = counters;
+            this.start = start;
+            this.current = start.clone();
+            this.trace = new Trace(original.text());
+            this.findings = findings;
+        }
+
+        /**
+         * Applies the rewrites {@code wanted} admits, round after round, until the rules offer no more
+         * of them; the reason the file cannot be fixed when it never settles or stops parsing.
+         */
+        Optional<String> run(java.util.function.Predicate<Candidate> wanted) {
+            while (true) {
+                List<Candidate> offered = selection.candidates(findings, trace.current()).stream().filter(wanted).toList();
+                if (offered.isEmpty()) {
+                    return Optional.empty();
+                }
+                if (rounds == MAX_ROUNDS) {
+                    return Optional.of("its rewrites still change it after " + MAX_ROUNDS + " rounds (rules "
+                            + String.join(", ", offered.stream().map(Candidate::rule).distinct().sorted().toList())
+                            + " keep offering edits), so applying them twice would not give the same text");
+                }
+                rounds++;
+                String roundText = trace.current();
+                List<Trace.AuthoredEdit> applied = new ArrayList<>();
+                for (List<Candidate> group : byRule(Overlaps.choose(offered))) {
+                    Candidate first = group.get(0);
+                    for (Candidate candidate : group) {
+                        for (Edit edit : candidate.edits()) {
+                            applied.add(new Trace.AuthoredEdit(edit, new Trace.Author(candidate.rule(), candidate.kind())));
+                        }
+                    }
+                    applied.sort((a, b) -> a.edit().compareTo(b.edit()));
+                    String text = Rewrite.apply(roundText, applied.stream().map(Trace.AuthoredEdit::edit).toList());
+                    Optional<Template> parsed = parse(original, text);
+                    if (parsed.isEmpty()) {
+                        return Optional.of("after the edits of " + first.rule() + " the file no longer parses");
+                    }
+                    int[] counts = tokens(parsed.get(), counters);
+                    Tally tally = tallies.computeIfAbsent(first.rule(), r -> new Tally(first.rewriteClass(), counters.size()));
+                    tally.add(group.size(), current, counts);
+                    current = counts;
+                }
+                trace.apply(applied);
+                findings = findings(original, trace.current());
+            }
+        }
+
+        FileFix fix(FileFix.Outcome outcome, List<String> problems) {
+            List<RuleSaving> rules = new ArrayList<>();
+            tallies.forEach((rule, tally) -> rules.add(tally.saving(rule, counters)));
+            List<TokenChange> tokens = new ArrayList<>();
+            for (int k = 0; k < counters.size(); k++) {
+                tokens.add(new TokenChange(counters.get(k).name(), start[k], current[k]));
+            }
+            return new FileFix(original.path(), outcome, original.text(), trace.current(), rules, tokens, rounds, problems,
+                    false);
+        }
     }
 
     private List<String> verify(SourceText original, Template before, Trace trace) {
@@ -126,18 +178,6 @@ final class FilePlanner {
             problems.add("the bytes to be written would not read back: " + e.getMessage());
         }
         return problems;
-    }
-
-    private FileFix fix(SourceText original, Trace trace, FileFix.Outcome outcome, Map<String, Tally> tallies,
-                        List<Tokenizer> counters, int[] start, int[] current, int rounds, List<String> problems) {
-        List<RuleSaving> rules = new ArrayList<>();
-        tallies.forEach((rule, tally) -> rules.add(tally.saving(rule, counters)));
-        List<TokenChange> tokens = new ArrayList<>();
-        for (int k = 0; k < counters.size(); k++) {
-            tokens.add(new TokenChange(counters.get(k).name(), start[k], current[k]));
-        }
-        return new FileFix(original.path(), outcome, original.text(), trace.current(), rules, tokens, rounds, problems,
-                false);
     }
 
     /** The findings of every rule in {@code text}, read as the file {@code original}. */

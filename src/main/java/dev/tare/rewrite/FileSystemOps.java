@@ -41,6 +41,15 @@ public interface FileSystemOps {
         }
     }
 
+    /**
+     * Whether this process may write {@code file}, as the operating system decides it: for the
+     * file's owner that follows its write bit, and a superuser may write a file whose bits say
+     * read-only, as every other Unix tool does.
+     */
+    default boolean isWritable(Path file) {
+        return Files.isWritable(file);
+    }
+
     /** The POSIX permissions of a file, where the file system has them. */
     default Optional<Set<PosixFilePermission>> permissions(Path file) throws IOException {
         PosixFileAttributeView view = Files.getFileAttributeView(file, PosixFileAttributeView.class);

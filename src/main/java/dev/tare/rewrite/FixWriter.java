@@ -3,14 +3,11 @@ package dev.tare.rewrite;
 import dev.tare.source.SourceText;
 import java.io.IOException;
 import java.nio.file.Path;
-import java.nio.file.attribute.PosixFilePermission;
-import java.util.Optional;
-import java.util.Set;
 
 /**
  * Writes verified rewrites through {@link SafeFileWriter}: each file is fully rewritten or left as it
- * was. A file that changed since it was read, a read-only file and a failed write are reported on the
- * file's fix and leave the file untouched.
+ * was. A file that changed since it was read, a file this process may not write and a failed write
+ * are reported on the file's fix and leave the file untouched; a written file keeps its permissions.
  */
 final class FixWriter {
     private final FileSystemOps files;
@@ -26,9 +23,8 @@ final class FixWriter {
         }
         try {
             Path target = target(original.file());
-            Optional<Set<PosixFilePermission>> permissions = files.permissions(target);
-            if (permissions.isPresent() && !permissions.get().contains(PosixFilePermission.OWNER_WRITE)) {
-                return fix.with(FileFix.Outcome.NOT_WRITTEN, "it is read-only, so it was left as it is;"
+            if (!files.isWritable(target)) {
+                return fix.with(FileFix.Outcome.NOT_WRITTEN, "it is read-only for you, so it was left as it is;"
                         + " make it writable to fix it, or apply the diff by hand");
             }
             SafeFileWriter.Outcome outcome = new SafeFileWriter(files).replace(target,

@@ -2,6 +2,7 @@ package dev.tare.rewrite;
 
 import dev.tare.TareException;
 import dev.tare.lint.Edit;
+import dev.tare.lint.EditKind;
 import dev.tare.lint.Finding;
 import dev.tare.lint.RewriteClass;
 import dev.tare.lint.Rule;
@@ -71,7 +72,8 @@ final class RewriteSelection {
             }
             if (!edits.isEmpty()) {
                 Rule rule = catalog.rule(finding.rule());
-                candidates.add(new Candidate(finding.rule(), finding.rewriteClass(), rule.editKind(), edits));
+                candidates.add(new Candidate(finding.rule(), finding.rewriteClass(),
+                        rule.descriptor().editKind().orElse(EditKind.TEXT), edits));
             }
         }
         return candidates;

@@ -178,11 +178,6 @@ final class Trace {
         return List.copyOf(breaches);
     }
 
-    /** Whether a rule whose rewrites change {@code kind} contributed an edit. */
-    boolean used(EditKind kind) {
-        return authors.stream().anyMatch(a -> a.kind() == kind);
-    }
-
     /** The 1-based line of {@code offset} in {@code text}. */
     static int lineOf(String text, int offset) {
         int line = 1;

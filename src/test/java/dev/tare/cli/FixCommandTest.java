@@ -165,14 +165,33 @@ class FixCommandTest {
     }
 
     @Test
-    void aReadOnlyFileIsNotRewritten() throws IOException {
+    void aFileTheUserMayNotWriteIsNotRewritten() throws IOException {
         repo();
         Path file = write("prompts/a.md", "Fix  me.\n");
-        Files.setPosixFilePermissions(file, Set.of(PosixFilePermission.OWNER_READ, PosixFilePermission.GROUP_READ));
-        Cli.Run run = Cli.run("fix", dir.toString());
+        // Tests may run as a superuser, whom the operating system lets write anything: refuse through the seam.
+        FileSystemOps readOnly = new FileSystemOps() {
+            @Override
+            public boolean isWritable(Path target) {
+                return false;
+            }
+        };
+        Cli.Run run = runWith(readOnly, "fix", dir.toString());
         assertEquals(1, run.exitCode());
-        assertTrue(run.out().contains("it is read-only"), run.out());
+        assertTrue(run.out().contains("it is read-only for you"), run.out());
         assertEquals("Fix  me.\n", Files.readString(file));
+    }
+
+    @Test
+    void aWrittenFileKeepsItsPermissions() throws IOException {
+        repo();
+        Path file = write("prompts/a.md", "Fix  me.\n");
+        Set<PosixFilePermission> readOnly = Set.of(PosixFilePermission.OWNER_READ, PosixFilePermission.GROUP_READ);
+        Files.setPosixFilePermissions(file, readOnly);
+        org.junit.jupiter.api.Assumptions.assumeTrue(Files.isWritable(file), "only a superuser may write a read-only file");
+        Cli.Run run = Cli.run("fix", dir.toString());
+        assertEquals(0, run.exitCode(), run.out());
+        assertEquals("Fix me.\n", Files.readString(file));
+        assertEquals(readOnly, Files.getPosixFilePermissions(file));
     }
 
     @Test
@@ -273,12 +292,12 @@ class FixCommandTest {
     void rewritesThatNeverSettleAreDropped() throws IOException {
         Files.writeString(dir.resolve("tare.yaml"), CONFIG + "rules: {packs: [rules]}\n");
         write("rules/flip.yaml", "rules:\n"
-                + "  - {id: flip-on, summary: \"on to off.\", why: \"test.\", class: safe, severity: info, scope: prose,"
+                + "  - {id: flip-on, summary: \"on to off.\", why: \"test.\", class: review, severity: info, scope: prose,"
                 + " find: '\\bon\\b', replace: 'off', examples: [{before: \"on\\n\", after: \"off\\n\"}]}\n"
-                + "  - {id: flip-off, summary: \"off to on.\", why: \"test.\", class: safe, severity: info, scope: prose,"
+                + "  - {id: flip-off, summary: \"off to on.\", why: \"test.\", class: review, severity: info, scope: prose,"
                 + " find: '\\boff\\b', replace: 'on', examples: [{before: \"off\\n\", after: \"on\\n\"}]}\n");
         Path file = write("prompts/a.md", "Switch it on.\n");
-        Cli.Run run = Cli.run("fix", dir.toString());
+        Cli.Run run = Cli.run("fix", dir.toString(), "--include-review");
         assertEquals(1, run.exitCode(), run.err());
         assertTrue(run.out().contains("still change it after 8 rounds"), run.out());
         assertEquals("Switch it on.\n", Files.readString(file));

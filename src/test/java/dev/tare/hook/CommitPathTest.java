@@ -100,24 +100,22 @@ class CommitPathTest {
         assertTrue(blocked.output().contains("error baseline-growth: grew from"), blocked.output());
     }
 
-    private static final String PRETTY = "Reply with JSON like this:\n\n```json\n{\n  \"account\": \"BW-1\",\n  \"balance\": 12,\n"
-            + "  \"status\": \"open\"\n}\n```\n";
+    private static final String SPACED = "Reply  briefly.  Read  the  account  number  back.  Then  ask  one  question.\n";
 
     @Test
     void withHookFixACommitPassesAfterSafeRewritesAndTheFixIsStaged() throws Exception {
         dev.tare.tokenize.Tokenizer o200k = new dev.tare.tokenize.TokenizerRegistry().get("o200k_base", repo);
-        String minified = PRETTY.replace("{\n  \"account\": \"BW-1\",\n  \"balance\": 12,\n  \"status\": \"open\"\n}",
-                "{\"account\":\"BW-1\",\"balance\":12,\"status\":\"open\"}");
-        int budget = (o200k.count(PRETTY) + o200k.count(minified)) / 2;
-        assertTrue(o200k.count(minified) <= budget && budget < o200k.count(PRETTY), "the budget lies between the two");
+        String fixed = SPACED.replace("  ", " ");
+        int budget = (o200k.count(SPACED) + o200k.count(fixed)) / 2;
+        assertTrue(o200k.count(fixed) <= budget && budget < o200k.count(SPACED), "the budget lies between the two");
         Files.writeString(repo.resolve("tare.yaml"), "templates: {include: [\"prompts/*.md\"]}\nbudgets: {default: "
                 + budget + "}\nhook: {fix: true}\n");
-        Files.writeString(repo.resolve("prompts/a.md"), PRETTY);
+        Files.writeString(repo.resolve("prompts/a.md"), SPACED);
         Git.run(repo, "add", ".");
-        Commit passed = commit("pretty JSON, minified by the hook");
+        Commit passed = commit("double spaces, made single by the hook");
         assertEquals(0, passed.exitCode(), passed.output());
-        assertEquals(minified, Files.readString(repo.resolve("prompts/a.md")));
-        assertEquals(minified, Git.run(repo, "show", "HEAD:prompts/a.md"), "the committed file is the fixed one");
+        assertEquals(fixed, Files.readString(repo.resolve("prompts/a.md")));
+        assertEquals(fixed, Git.run(repo, "show", "HEAD:prompts/a.md"), "the committed file is the fixed one");
     }
 
     @Test
