@@ -141,7 +141,7 @@ final class SafeRewriteProperties {
                 if (counterpart.isEmpty()) {
                     out.add(new Violation(line + 1, "tabs", "the tab-separated line " + show(text) + " is gone or reworded"));
                 } else if (!tabsBetweenWords(text).equals(tabsBetweenWords(counterpart.get()))) {
-                    out.add(new Violation(line + 1, "tabs", show(text) + " became " + show(counterpart.get())));
+                    out.add(new Violation(line + 1, "tabs", change(text, counterpart.get())));
                 }
             }
             boolean tableRow = isTableRow(text);
@@ -150,7 +150,7 @@ final class SafeRewriteProperties {
                 if (counterpart.isEmpty()) {
                     out.add(new Violation(line + 1, property, "the line " + show(text) + " is gone or reworded"));
                 } else if (!text.stripTrailing().equals(counterpart.get().stripTrailing())) {
-                    out.add(new Violation(line + 1, property, show(text) + " became " + show(counterpart.get())));
+                    out.add(new Violation(line + 1, property, change(text, counterpart.get())));
                 }
             }
         }
@@ -171,19 +171,31 @@ final class SafeRewriteProperties {
     record Located(String text, int line) {
     }
 
-    /** A fenced code block: its opening line, info string and body lines as written (carriage returns kept). */
-    record Fence(int line, String opening, String info, List<String> body) {
+    /**
+     * A fenced code block: its opening line, info string and body lines as written (carriage returns
+     * kept), and for a json block whose body parses, its value in one canonical spelling.
+     */
+    record Fence(int line, String opening, String info, List<String> body, Optional<String> jsonValue) {
+        static Fence of(int line, String opening, String info, List<String> body) {
+            return new Fence(line, opening, info, body, isJson(info) ? canonicalJson(String.join("\n", body)) : Optional.empty());
+        }
+
         boolean isJson() {
+            return isJson(info);
+        }
+
+        private static boolean isJson(String info) {
             return info.split("\\s+", 2)[0].toLowerCase(Locale.ROOT).equals("json");
         }
 
-        /** The block's JSON value in a canonical spelling, when it is a json block whose body parses. */
-        Optional<String> jsonValue() {
-            if (!isJson()) {
-                return Optional.empty();
-            }
+        boolean sameContent(Fence other) {
+            return jsonValue.isPresent() ? jsonValue.equals(other.jsonValue) : body.equals(other.body);
+        }
+
+        /** Keys sorted, no layout: two spellings of one JSON value (RFC 8259) read the same. */
+        private static Optional<String> canonicalJson(String text) {
             try {
-                JsonNode node = JSON.readTree(String.join("\n", body));
+                JsonNode node = JSON.readTree(text);
                 if (node == null || node.isMissingNode()) {
                     return Optional.empty();
                 }
@@ -191,11 +203,6 @@ final class SafeRewriteProperties {
             } catch (IOException e) {
                 return Optional.empty();
             }
-        }
-
-        boolean sameContent(Fence other) {
-            Optional<String> value = jsonValue();
-            return value.isPresent() ? value.equals(other.jsonValue()) : body.equals(other.body);
         }
     }
 
@@ -232,7 +239,7 @@ final class SafeRewriteProperties {
                 while (end < lines.size() && !closing.matcher(lines.get(end)).matches()) {
                     end++;
                 }
-                Fence fence = new Fence(i + 1, lines.get(i).strip(), opening.group(2).strip(), raw.subList(i + 1, end));
+                Fence fence = Fence.of(i + 1, lines.get(i).strip(), opening.group(2).strip(), raw.subList(i + 1, end));
                 fences.add(fence);
                 for (int j = i + 1; j < end; j++) {
                     bodyOf[j] = fence;
@@ -382,6 +389,20 @@ final class SafeRewriteProperties {
     private static String quote(List<Located> located, int from, int to) {
         String joined = String.join(" ", texts(located.subList(from, to)));
         return joined.isEmpty() ? "nothing" : show(joined);
+    }
+
+    /** Two versions of a line, from a little before where they first differ, so that a long line shows its change. */
+    private static String change(String before, String after) {
+        int same = 0;
+        while (same < before.length() && same < after.length() && before.charAt(same) == after.charAt(same)) {
+            same++;
+        }
+        int from = Math.max(0, same - 30);
+        if (from > 0 && Character.isLowSurrogate(before.charAt(from))) {
+            from--;
+        }
+        String cut = from > 0 ? "'..." : "'";
+        return cut + show(before.substring(from)).substring(1) + " became " + cut + show(after.substring(from)).substring(1);
     }
 
     /** Text in quotes, with tabs, carriage returns and invisible characters spelled out, cut to 80 characters. */
