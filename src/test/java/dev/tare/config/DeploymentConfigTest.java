@@ -51,7 +51,7 @@ class DeploymentConfigTest {
                     device: {memory_gib: 16, usable_fraction: 0.75, peak_tflops: 25, bandwidth_gbps: 120, efficiency: 0.4}
                 """);
         ModelShape m = t.model().orElseThrow();
-        assertEquals(3.8e9, m.params());
+        assertEquals(3.8e9, m.paramsTotal());
         assertEquals(32, m.layers());
         assertEquals(8, m.kvHeads());
         assertEquals(96, m.headDim());
@@ -112,7 +112,7 @@ class DeploymentConfigTest {
                     tokenizer: o200k_base
                     model: {config: models/m/config.json}
                 """).model().orElseThrow();
-        assertEquals(1_234_567_890, m.params());
+        assertEquals(1_234_567_890, m.paramsTotal());
         assertFalse(m.paramsComputed());
         assertEquals(24, m.layers());
         assertEquals(4, m.kvHeads());
@@ -139,7 +139,7 @@ class DeploymentConfigTest {
                     tokenizer: o200k_base
                     model: {config: models/small/config.json, layers: 24}
                 """).model().orElseThrow();
-        assertEquals(493_961_216, m.params(), 0.5);
+        assertEquals(493_961_216, m.paramsTotal(), 0.5);
         assertTrue(m.paramsComputed());
         assertEquals(64, m.headDim());
         assertEquals(2, m.kvHeads());
@@ -158,7 +158,7 @@ class DeploymentConfigTest {
                 """).model().orElseThrow();
         assertEquals(8, m.layers());
         assertEquals(32, m.headDim());
-        assertEquals(5000, m.params());
+        assertEquals(5000, m.paramsTotal());
     }
 
     @Test

@@ -17,7 +17,7 @@ class CatalogTest {
         for (Catalog.ModelEntry entry : catalog.models()) {
             ModelShape m = entry.shape();
             assertFalse(entry.source().isBlank(), entry.name());
-            assertTrue(m.params() > 0 && m.layers() > 0 && m.headDim() > 0, entry.name());
+            assertTrue(m.paramsTotal() > 0 && m.layers() > 0 && m.headDim() > 0, entry.name());
             assertEquals(0, m.heads() % m.kvHeads(), entry.name() + ": kv_heads divides heads");
         }
         for (Catalog.DeviceEntry entry : catalog.devices()) {
@@ -50,7 +50,7 @@ class CatalogTest {
      */
     @Test
     void computedParamsAreNearTheStatedSizes() {
-        assertEquals(7_615_283_200.0, catalog.model("qwen2-7b").orElseThrow().shape().params(), 0.5);
+        assertEquals(7_615_283_200.0, catalog.model("qwen2-7b").orElseThrow().shape().paramsTotal(), 0.5);
         assertNear(0.49e9, "qwen2-0.5b");
         assertNear(1.54e9, "qwen2-1.5b");
         assertNear(7.62e9, "qwen2-7b");
@@ -59,7 +59,7 @@ class CatalogTest {
     }
 
     private void assertNear(double stated, String name) {
-        double computed = catalog.model(name).orElseThrow().shape().params();
+        double computed = catalog.model(name).orElseThrow().shape().paramsTotal();
         assertTrue(Math.abs(computed - stated) / stated < 0.01, name + ": " + computed + " vs stated " + stated);
     }
 }
