@@ -142,7 +142,25 @@ final class TargetSections {
                         .append(" per token"));
         head.append('\n');
         target.device().ifPresent(d -> head.append("  device  ").append(Figures.device(d)).append('\n'));
-        return head.append(table.render()).toString();
+        head.append("  load    ").append(target.batch() == 1 ? "batch 1 (decode for one request at a time)"
+                : Figures.count(target.batch()) + " concurrent requests (decode step of the batch)").append('\n');
+        head.append(table.render());
+        for (String line : cautions(target, templates)) {
+            head.append(line).append('\n');
+        }
+        return head.toString();
+    }
+
+    /** The target's cautions, then one line per template whose call exceeds the model's context. */
+    static List<String> cautions(TargetConfig target, List<ScannedTemplate> templates) {
+        List<String> lines = new ArrayList<>(dev.tare.footprint.Cautions.of(target));
+        for (ScannedTemplate template : templates) {
+            Footprint f = template.targets().get(target.name());
+            if (f != null) {
+                dev.tare.footprint.Cautions.contextLine(target, f, template.path()).ifPresent(lines::add);
+            }
+        }
+        return lines;
     }
 
     /** The mark of a calibrated target's figures. */
