@@ -197,7 +197,8 @@ final class ModelConfigFile {
                             int qkRope) {
             OptionalLong stated = r.wholeLong(PARAMS);
             OptionalInt vocab = r.optional(VOCAB);
-            boolean tied = tied();
+            // Whether the output layer is tied matters only where the embeddings can be counted.
+            boolean tied = vocab.isPresent() && hidden.isPresent() && tied();
             if (vocab.isPresent() && hidden.isPresent()) {
                 shape.embeddings(Formulas.embeddingParams(vocab.getAsInt(), hidden.getAsInt(), tied),
                         (double) vocab.getAsInt() * hidden.getAsInt());

@@ -27,34 +27,49 @@ final class Figures {
 
     /** The FOOTPRINT object of the JSON contract: the keys the target has inputs for. */
     static ObjectNode json(Footprint f) {
+        java.util.Map<String, Object> values = new java.util.HashMap<>();
+        f.cachedInputTokens().ifPresent(v -> values.put("cached_input_tokens", v));
+        f.costPerCall().ifPresent(v -> values.put("cost_per_call", v));
+        f.costPerMonth().ifPresent(v -> values.put("cost_per_month", v));
+        f.currency().ifPresent(v -> values.put("currency", v));
+        f.prefillFlops().ifPresent(v -> values.put("prefill_flops", BigDecimal.valueOf(Math.rint(v)).toBigInteger()));
+        f.prefillMillis().ifPresent(v -> values.put("prefill_ms", v));
+        f.decodeMillisPerToken().ifPresent(v -> values.put("decode_ms_per_token", v));
+        f.weightBytes().ifPresent(v -> values.put("weight_bytes", v));
+        f.kvBytesPerToken().ifPresent(v -> values.put("kv_bytes_per_token", v));
+        f.kvCacheBytes().ifPresent(v -> values.put("kv_cache_bytes", v));
+        f.maxConcurrent().ifPresent(v -> values.put("max_concurrent", v));
+        f.load().ifPresent(load -> {
+            values.put("params_total", load.paramsTotal());
+            values.put("params_active", load.paramsActive());
+            values.put("concurrency", load.concurrency());
+            load.decodeBytesPerStep().ifPresent(v -> values.put("decode_bytes_per_step", v));
+            load.tokensPerSecond().ifPresent(v -> values.put("tokens_per_second", v));
+            load.tokensPerSecondTotal().ifPresent(v -> values.put("tokens_per_second_total", v));
+            load.timeToFirstTokenMillis().ifPresent(v -> values.put("time_to_first_token_ms", v));
+            load.endToEndMillis().ifPresent(v -> values.put("end_to_end_ms", v));
+            load.contextLimit().ifPresent(v -> values.put("context_limit", v));
+        });
         ObjectNode node = Json.mapper().createObjectNode();
         node.put("input_tokens", f.inputTokens());
         node.put("framing_tokens", f.framingTokens());
-        f.cachedInputTokens().ifPresent(v -> node.put("cached_input_tokens", v));
-        f.costPerCall().ifPresent(v -> node.put("cost_per_call", v));
-        f.costPerMonth().ifPresent(v -> node.put("cost_per_month", v));
-        f.currency().ifPresent(v -> node.put("currency", v));
-        f.prefillFlops().ifPresent(v -> node.put("prefill_flops", BigDecimal.valueOf(Math.rint(v)).toBigInteger()));
-        f.prefillMillis().ifPresent(v -> node.put("prefill_ms", v));
-        f.decodeMillisPerToken().ifPresent(v -> node.put("decode_ms_per_token", v));
-        f.weightBytes().ifPresent(v -> node.put("weight_bytes", v));
-        f.kvBytesPerToken().ifPresent(v -> node.put("kv_bytes_per_token", v));
-        f.kvCacheBytes().ifPresent(v -> node.put("kv_cache_bytes", v));
-        f.maxConcurrent().ifPresent(v -> node.put("max_concurrent", v));
-        f.load().ifPresent(load -> {
-            node.put("params_total", load.paramsTotal());
-            node.put("params_active", load.paramsActive());
-            node.put("concurrency", load.concurrency());
-            load.decodeBytesPerStep().ifPresent(v -> node.put("decode_bytes_per_step", v));
-            load.tokensPerSecond().ifPresent(v -> node.put("tokens_per_second", v));
-            load.tokensPerSecondTotal().ifPresent(v -> node.put("tokens_per_second_total", v));
-            load.timeToFirstTokenMillis().ifPresent(v -> node.put("time_to_first_token_ms", v));
-            load.endToEndMillis().ifPresent(v -> node.put("end_to_end_ms", v));
-            load.contextLimit().ifPresent(v -> node.put("context_limit", v));
-            if (f.exceedsContext()) {
-                node.put("exceeds_context", true);
+        for (String key : Coverage.KEYS) {
+            Object value = values.get(key);
+            if (value instanceof Integer v) {
+                node.put(key, v);
+            } else if (value instanceof Long v) {
+                node.put(key, v);
+            } else if (value instanceof Double v) {
+                node.put(key, v);
+            } else if (value instanceof java.math.BigInteger v) {
+                node.put(key, v);
+            } else if (value instanceof String v) {
+                node.put(key, v);
             }
-        });
+        }
+        if (f.exceedsContext()) {
+            node.put("exceeds_context", true);
+        }
         if (f.calibrated()) {
             node.put("calibrated", true);
         }
