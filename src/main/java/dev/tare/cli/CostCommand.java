@@ -60,7 +60,8 @@ final class CostCommand implements Callable<Integer> {
     private Integer concurrency;
 
     @Option(names = "--sweep", paramLabel = "KEY=V1,V2", description = "Sweep a setting across values (repeatable): "
-            + "weight_bits, kv_bits (numbers or fp32, fp16, bf16, fp8, int8, int4), memory_gib, usable_fraction,"
+            + "weight_bits, kv_bits (numbers or fp32, fp16, bf16, fp8, int8, int4, int4-g32, int4-g128, int3-g32, int2-g32),"
+            + " memory_gib, usable_fraction,"
             + " peak_tflops, bandwidth_gbps, efficiency, bandwidth_efficiency, concurrency, input_tokens, output_tokens.")
     private List<String> sweeps = new ArrayList<>();
 
