@@ -115,6 +115,10 @@ public final class TargetsReport {
         out.append(devices.render()).append("\nSources:\n");
         catalog.devices().forEach(e -> out.append("  ").append(e.name()).append(": ").append(e.source())
                 .append(e.fromMemory() ? " (from memory)" : "").append('\n'));
+        out.append("\nPrecisions weight_bits and kv_bits may name (or give a number of bits such as 4.5):\n");
+        dev.tare.footprint.Precision.names().forEach((name, bits) -> out.append("  ").append(name).append(" = ")
+                .append(dev.tare.footprint.Precision.label(bits)).append(" bits: ")
+                .append(dev.tare.footprint.Precision.meaning(name)).append('\n'));
         return out.append('\n').append(Figures.ESTIMATE_NOTE).append('\n').toString();
     }
 

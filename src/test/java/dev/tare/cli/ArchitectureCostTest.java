@@ -141,4 +141,18 @@ class ArchitectureCostTest {
         assertEquals(2, run.exitCode());
         assertTrue(run.err().contains("--concurrency must be 1 or more"), run.err());
     }
+    @Test
+    void scanAndTargetsCarryTheQuantizationCaution() throws IOException {
+        Files.writeString(root.resolve("tare.yaml"), "templates: {include: [\"*.md\"]}\ntargets:\n  - name: low\n"
+                + "    tokenizer: o200k_base\n    model: {config: dense-8b.json}\n    weight_bits: int3-g32\n"
+                + "    kv_bits: 16\n    device: gpu-80gb\n", StandardCharsets.UTF_8);
+        Files.writeString(root.resolve("short.md"), "Answer billing questions.\n", StandardCharsets.UTF_8);
+        Cli.Run scan = Cli.run("scan", root.toString(), "--config", config);
+        assertEquals(0, scan.exitCode(), scan.err());
+        assertTrue(scan.out().contains("Quality after quantizing must be measured on your own tasks"), scan.out());
+        Cli.Run json = Cli.run("scan", root.toString(), "--config", config, "--format", "json");
+        assertTrue(JSON.readTree(json.out()).get("cautions").toString().contains("Quality after quantizing"), json.out());
+        Cli.Run targets = Cli.run("targets", "--config", config);
+        assertTrue(targets.out().contains("Quality after quantizing"), targets.out());
+    }
 }
