@@ -192,6 +192,10 @@ public final class CostReport {
     private record Column(String header, Function<Footprint, String> cell) {
     }
 
+    private static String cell(OptionalDouble value) {
+        return value.isPresent() ? Figures.significant(value.getAsDouble()) : "";
+    }
+
     /** The columns any row has a value for, so that a priced target shows cost and a device target memory and time. */
     private static List<Column> columns(CostEstimate.Result result) {
         List<Column> all = List.of(
@@ -205,12 +209,9 @@ public final class CostReport {
                 new Column("PREFILL MS", f -> f.prefillMillis().isPresent() ? Figures.significant(f.prefillMillis().getAsDouble()) : ""),
                 new Column("DECODE MS/TOKEN", f -> f.decodeMillisPerToken().isPresent()
                         ? Figures.significant(f.decodeMillisPerToken().getAsDouble()) : ""),
-                new Column("TOKENS/S TOTAL", f -> f.load().flatMap(l -> l.tokensPerSecondTotal().isPresent()
-                        ? java.util.Optional.of(Figures.significant(l.tokensPerSecondTotal().getAsDouble()))
-                        : java.util.Optional.empty()).orElse("")),
-                new Column("TTFT MS", f -> f.load().flatMap(l -> l.concurrency() > 1 && l.timeToFirstTokenMillis().isPresent()
-                        ? java.util.Optional.of(Figures.significant(l.timeToFirstTokenMillis().getAsDouble()))
-                        : java.util.Optional.empty()).orElse("")));
+                new Column("TOKENS/S TOTAL", f -> f.load().map(l -> cell(l.tokensPerSecondTotal())).orElse("")),
+                new Column("TTFT MS", f -> f.load().filter(l -> l.concurrency() > 1)
+                        .map(l -> cell(l.timeToFirstTokenMillis())).orElse("")));
         boolean swepTokens = result.sweep().stream().anyMatch(a -> a.key().endsWith("_tokens"));
         List<Column> shown = new ArrayList<>();
         for (Column column : all) {

@@ -84,13 +84,7 @@ public final class MarkdownReport {
         if (priced) {
             out.append("Cost per month adds up every template as if each got the target's `calls_per_day`.\n\n");
         }
-        List<ScannedTemplate> counted = overview.scan().templates().stream().filter(ScannedTemplate::countsInTotals)
-                .toList();
-        List<String> cautions = new ArrayList<>();
-        for (TargetTotals t : overview.targets()) {
-            TargetSections.cautions(t.target(), counted).stream().filter(l -> !cautions.contains(l))
-                    .forEach(cautions::add);
-        }
+        List<String> cautions = TargetSections.cautions(overview.scan());
         cautions.forEach(line -> out.append("> ").append(text(line)).append("\n"));
         if (!cautions.isEmpty()) {
             out.append('\n');

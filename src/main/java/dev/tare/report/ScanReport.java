@@ -112,12 +112,7 @@ public final class ScanReport {
             out.writeEndArray();
             out.writeFieldName("totals");
             Json.tree(out, totals(result));
-            List<String> cautions = new java.util.ArrayList<>();
-            List<ScannedTemplate> counted = result.templates().stream().filter(ScannedTemplate::countsInTotals).toList();
-            for (dev.tare.config.TargetConfig target : result.targetConfigs()) {
-                TargetSections.cautions(target, counted).stream().filter(l -> !cautions.contains(l))
-                        .forEach(cautions::add);
-            }
+            List<String> cautions = TargetSections.cautions(result);
             if (!cautions.isEmpty()) {
                 out.writeArrayFieldStart("cautions");
                 for (String line : cautions) {

@@ -1,6 +1,7 @@
 package dev.tare.report;
 
 import dev.tare.config.TargetConfig;
+import dev.tare.footprint.Cautions;
 import dev.tare.footprint.Coverage;
 import dev.tare.footprint.Footprint;
 import dev.tare.overlap.PrefixShare;
@@ -153,12 +154,22 @@ final class TargetSections {
 
     /** The target's cautions, then one line per template whose call exceeds the model's context. */
     static List<String> cautions(TargetConfig target, List<ScannedTemplate> templates) {
-        List<String> lines = new ArrayList<>(dev.tare.footprint.Cautions.of(target));
+        List<String> lines = new ArrayList<>(Cautions.of(target));
         for (ScannedTemplate template : templates) {
             Footprint f = template.targets().get(target.name());
             if (f != null) {
-                dev.tare.footprint.Cautions.contextLine(target, f, template.path()).ifPresent(lines::add);
+                Cautions.contextLine(target, f, template.path()).ifPresent(lines::add);
             }
+        }
+        return lines;
+    }
+
+    /** Every target's cautions over the templates counted in totals, each line once. */
+    static List<String> cautions(ScanResult result) {
+        List<ScannedTemplate> counted = result.templates().stream().filter(ScannedTemplate::countsInTotals).toList();
+        List<String> lines = new ArrayList<>();
+        for (TargetConfig target : result.targetConfigs()) {
+            cautions(target, counted).stream().filter(l -> !lines.contains(l)).forEach(lines::add);
         }
         return lines;
     }

@@ -4,10 +4,12 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.tare.config.TargetConfig;
 import dev.tare.footprint.Catalog;
+import dev.tare.footprint.Cautions;
 import dev.tare.footprint.Coverage;
 import dev.tare.footprint.Device;
 import dev.tare.footprint.Formulas;
 import dev.tare.footprint.ModelShape;
+import dev.tare.footprint.Precision;
 import java.util.List;
 import java.util.Map;
 import java.util.OptionalDouble;
@@ -40,7 +42,7 @@ public final class TargetsReport {
             target.device().ifPresent(d -> details.append("  device   ").append(Figures.device(d)).append('\n'));
             target.concurrency().ifPresent(c -> details.append("  load     ").append(Figures.count(c))
                     .append(" concurrent requests\n"));
-            for (String line : dev.tare.footprint.Cautions.of(target)) {
+            for (String line : Cautions.of(target)) {
                 details.append("  caution  ").append(line).append('\n');
             }
             for (String line : Figures.missing(target, coverage)) {
@@ -75,7 +77,7 @@ public final class TargetsReport {
             target.kvBits().ifPresent(v -> node.put("kv_bits", v));
             target.device().ifPresent(d -> node.set("device", device(d)));
             target.concurrency().ifPresent(v -> node.put("concurrency", v));
-            Figures.cautions(node, dev.tare.footprint.Cautions.of(target));
+            Figures.cautions(node, Cautions.of(target));
             node.putPOJO("computes", coverage.computes());
             ObjectNode missing = node.putObject("missing");
             for (Map.Entry<String, List<String>> entry : coverage.missing().entrySet()) {
@@ -116,9 +118,9 @@ public final class TargetsReport {
         catalog.devices().forEach(e -> out.append("  ").append(e.name()).append(": ").append(e.source())
                 .append(e.fromMemory() ? " (from memory)" : "").append('\n'));
         out.append("\nPrecisions weight_bits and kv_bits may name (or give a number of bits such as 4.5):\n");
-        dev.tare.footprint.Precision.names().forEach((name, bits) -> out.append("  ").append(name).append(" = ")
-                .append(dev.tare.footprint.Precision.label(bits)).append(" bits: ")
-                .append(dev.tare.footprint.Precision.meaning(name)).append('\n'));
+        Precision.names().forEach((name, bits) -> out.append("  ").append(name).append(" = ")
+                .append(Precision.label(bits)).append(" bits: ")
+                .append(Precision.meaning(name)).append('\n'));
         return out.append('\n').append(Figures.ESTIMATE_NOTE).append('\n').toString();
     }
 
