@@ -76,28 +76,36 @@ public final class CostReport {
      * quantization caution when any row has low bits.
      */
     private static List<String> cautions(CostEstimate.Result result) {
-        List<String> lines = new ArrayList<>(Cautions.of(result.target(), result.footprint()));
-        if (!result.rows().isEmpty()) {
-            lines.add(Cautions.SWEEP);
-            boolean low = false;
-            for (Sweep.Row row : result.rows()) {
-                OptionalDouble weights = result.target().weightBits();
-                OptionalDouble kv = result.target().kvBits();
-                for (int i = 0; i < result.sweep().size(); i++) {
-                    String key = result.sweep().get(i).key();
-                    if (key.equals("weight_bits")) {
-                        weights = OptionalDouble.of(row.settings().get(i));
-                    } else if (key.equals("kv_bits")) {
-                        kv = OptionalDouble.of(row.settings().get(i));
-                    }
+        if (result.rows().isEmpty()) {
+            return Cautions.of(result.target(), result.footprint());
+        }
+        // A sweep's rows differ in what fits, so only the target's own cautions and each row's context apply.
+        List<String> lines = new ArrayList<>(Cautions.of(result.target()));
+        lines.remove(Cautions.QUANTIZATION);
+        boolean mixture = result.target().model().map(m -> m.experts().present()).orElse(false);
+        if (mixture && result.sweep().stream().anyMatch(a -> a.key().equals("concurrency"))
+                && !lines.contains(Cautions.EXPERTS)) {
+            lines.add(Cautions.EXPERTS);
+        }
+        lines.add(Cautions.SWEEP);
+        boolean low = false;
+        for (Sweep.Row row : result.rows()) {
+            OptionalDouble weights = result.target().weightBits();
+            OptionalDouble kv = result.target().kvBits();
+            for (int i = 0; i < result.sweep().size(); i++) {
+                String key = result.sweep().get(i).key();
+                if (key.equals("weight_bits")) {
+                    weights = OptionalDouble.of(row.settings().get(i));
+                } else if (key.equals("kv_bits")) {
+                    kv = OptionalDouble.of(row.settings().get(i));
                 }
-                low |= Cautions.lowPrecision(weights, kv);
-                Cautions.contextLine(result.target(), row.footprint(), "").filter(l -> !lines.contains(l))
-                        .ifPresent(lines::add);
             }
-            if (low && !lines.contains(Cautions.QUANTIZATION)) {
-                lines.add(Cautions.QUANTIZATION);
-            }
+            low |= Cautions.lowPrecision(weights, kv);
+            Cautions.contextLine(result.target(), row.footprint(), "").filter(l -> !lines.contains(l))
+                    .ifPresent(lines::add);
+        }
+        if (low) {
+            lines.add(Cautions.QUANTIZATION);
         }
         return lines;
     }
