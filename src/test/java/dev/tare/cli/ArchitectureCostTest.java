@@ -112,6 +112,11 @@ class ArchitectureCostTest {
         String noLowBits = run("--target", "dense-8b", "--tokens", "2000", "--sweep", "weight_bits=16,8").out();
         assertTrue(noLowBits.contains("quality is not"), "every sweep says quality is not estimated");
         assertFalse(noLowBits.contains("Quality after quantizing"), noLowBits);
+        // a sweep of load on a mixture of experts says how the experts read per step are estimated
+        String load = run("--target", "moe-8x7b", "--tokens", "2000", "--sweep", "concurrency=1,16",
+                "--sweep", "weight_bits=4.5").out();
+        assertTrue(load.contains("uniform routing") && load.contains("from memory"), load);
+        assertFalse(load.contains("do not fit in the device's usable memory"), "rows decide what fits: " + load);
     }
 
     @Test
