@@ -98,7 +98,7 @@ public final class TargetsReport {
             ModelShape m = entry.shape();
             models.row(List.of(entry.name(), Figures.params(m.paramsTotal()) + (m.paramsComputed() ? "*" : ""),
                     Figures.params(m.paramsActive()), String.valueOf(m.layers()), String.valueOf(m.heads()),
-                    String.valueOf(m.kvHeads()), String.valueOf(m.headDim()),
+                    m.kv().latent() ? "latent" : String.valueOf(m.kvHeads()), String.valueOf(m.headDim()),
                     Figures.bytes(Formulas.kvBytesPerToken(m, 16)), entry.description()));
         }
         out.append(models.render()).append("* params computed from the shape (embeddings, attention and feed-forward"
