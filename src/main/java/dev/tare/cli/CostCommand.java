@@ -23,7 +23,8 @@ import picocli.CommandLine.Model.CommandSpec;
 @Command(name = "cost", mixinStandardHelpOptions = true, addMethodSubcommands = false,
         description = {"Estimates the footprint of one prompt on one configured target: cost per call and per month"
                 + " on priced targets; prefill compute and time, decode time, weight and KV-cache memory and"
-                + " concurrent requests on targets with a model and a device.",
+                + " concurrent requests on targets with a model and a device; with --concurrency N, decode step time,"
+                + " tokens per second and time to first token with N requests served at once.",
                 "Give the prompt size with --tokens, or a template FILE measured as 'tare scan' measures it.",
                 "--sweep repeats the estimate across values, for example --sweep weight_bits=16,8,4 --sweep kv_bits=16,8,"
                 + " to see what quantizing weights or the KV cache does on that device.",
@@ -54,9 +55,14 @@ final class CostCommand implements Callable<Integer> {
             description = "Leading input tokens served from the prefix cache (targets with prefix_cache_min_tokens). Default: 0.")
     private Integer cachedTokens;
 
+    @Option(names = "--concurrency", paramLabel = "N", description = "Requests served at once: decode step time,"
+            + " tokens per second and time to first token at that load. Default: the target's concurrency, else 1.")
+    private Integer concurrency;
+
     @Option(names = "--sweep", paramLabel = "KEY=V1,V2", description = "Sweep a setting across values (repeatable): "
-            + "weight_bits, kv_bits (numbers or fp32, fp16, bf16, fp8, int8, int4), memory_gib, usable_fraction,"
-            + " peak_tflops, bandwidth_gbps, efficiency, input_tokens, output_tokens.")
+            + "weight_bits, kv_bits (numbers or fp32, fp16, bf16, fp8, int8, int4, int4-g32, int4-g128, int3-g32, int2-g32),"
+            + " memory_gib, usable_fraction,"
+            + " peak_tflops, bandwidth_gbps, efficiency, bandwidth_efficiency, concurrency, input_tokens, output_tokens.")
     private List<String> sweeps = new ArrayList<>();
 
     @Option(names = "--format", paramLabel = "FORMAT", description = "Output format: ${COMPLETION-CANDIDATES}. Default: ${DEFAULT-VALUE}.")
@@ -72,6 +78,9 @@ final class CostCommand implements Callable<Integer> {
         nonNegative(commandLine, "--tokens", tokens);
         nonNegative(commandLine, "--output-tokens", outputTokens);
         nonNegative(commandLine, "--cached-tokens", cachedTokens);
+        if (concurrency != null && concurrency < 1) {
+            throw new CommandLine.ParameterException(commandLine, "--concurrency must be 1 or more (got " + concurrency + ")");
+        }
         if (file != null && !Files.isRegularFile(file)) {
             throw new CommandLine.ParameterException(commandLine, file + ": no such file");
         }
@@ -83,7 +92,7 @@ final class CostCommand implements Callable<Integer> {
         Optional<String> relative = Optional.ofNullable(file).map(f -> workspace.root()
                 .relativize(f.toAbsolutePath().normalize()).toString().replace('\\', '/'));
         CostEstimate.Result result = CostEstimate.run(workspace, new CostEstimate.Request(target, optional(tokens),
-                relative, optional(outputTokens), optional(cachedTokens), axes));
+                relative, optional(outputTokens), optional(cachedTokens), axes, optional(concurrency)));
         String report = format == Format.json ? CostReport.json(result) : CostReport.text(result);
         commandLine.getOut().print(report);
         commandLine.getOut().flush();

@@ -29,7 +29,7 @@ public final class ConfigLoader {
     private static final Set<String> TEMPLATES = Set.of("include", "exclude", "placeholder", "partials", "max_file_bytes");
     private static final Set<String> TARGET = Set.of("name", "tokenizer", "price", "prefix_cache_min_tokens",
             "message_overhead_tokens", "reply_overhead_tokens", "calls_per_day", "output_tokens", "model", "weight_bits",
-            "kv_bits", "device", "scale", "tool_overhead_tokens");
+            "kv_bits", "device", "scale", "tool_overhead_tokens", "concurrency");
     private static final Set<String> PRICE = Set.of("input", "cached_input", "output", "currency");
     private static final Set<String> BASELINE = Set.of("file", "tolerance_percent");
     private static final Set<String> RULES = Set.of("disable", "severity", "packs", "limits");
@@ -162,7 +162,8 @@ public final class ConfigLoader {
                     deployment.model(target, path), deployment.bits(target, "weight_bits", path),
                     deployment.bits(target, "kv_bits", path), deployment.device(target, path),
                     scale(in, target, path),
-                    in.wholeNumber(target, "tool_overhead_tokens", path + ".tool_overhead_tokens", 0).orElse(0)));
+                    in.wholeNumber(target, "tool_overhead_tokens", path + ".tool_overhead_tokens", 0).orElse(0),
+                    in.wholeNumber(target, "concurrency", path + ".concurrency", 1)));
         }
         return targets;
     }

@@ -6,6 +6,7 @@ import dev.tare.footprint.Catalog;
 import dev.tare.footprint.Device;
 import dev.tare.footprint.ModelShape;
 import dev.tare.footprint.Precision;
+import dev.tare.footprint.ShapeBuilder;
 import java.nio.file.Path;
 import java.util.Optional;
 import java.util.OptionalDouble;
@@ -14,10 +15,11 @@ import java.util.Set;
 
 /** Reads a target's model, precisions and device, resolving catalog names and model config files. */
 final class DeploymentReader {
-    private static final Set<String> MODEL = Set.of("catalog", "config", "params", "layers", "heads", "kv_heads",
-            "head_dim");
+    private static final Set<String> MODEL = Set.of("catalog", "config", "params", "params_active", "layers", "heads",
+            "kv_heads", "head_dim", "experts", "experts_per_token", "window", "windowed_layers", "kv_latent_width",
+            "context_limit");
     private static final Set<String> DEVICE = Set.of("catalog", "memory_gib", "usable_fraction", "peak_tflops",
-            "bandwidth_gbps", "efficiency");
+            "bandwidth_gbps", "efficiency", "bandwidth_efficiency");
 
     private final ConfigReader in;
     private final Path root;
@@ -50,10 +52,17 @@ final class DeploymentReader {
         Optional<ModelShape> base = catalog.map(name -> catalogModel(name, at + ".catalog"))
                 .or(() -> config.map(file -> ModelConfigFile.read(root, file, in, at + ".config")));
         OptionalDouble params = positive(node, "params", at);
+        OptionalDouble active = positive(node, "params_active", at);
         OptionalInt layers = in.wholeNumber(node, "layers", at + ".layers", 1);
         OptionalInt heads = in.wholeNumber(node, "heads", at + ".heads", 1);
         OptionalInt kvHeads = in.wholeNumber(node, "kv_heads", at + ".kv_heads", 1);
         OptionalInt headDim = in.wholeNumber(node, "head_dim", at + ".head_dim", 1);
+        OptionalInt experts = in.wholeNumber(node, "experts", at + ".experts", 1);
+        OptionalInt perToken = in.wholeNumber(node, "experts_per_token", at + ".experts_per_token", 1);
+        OptionalInt window = in.wholeNumber(node, "window", at + ".window", 1);
+        OptionalInt windowed = in.wholeNumber(node, "windowed_layers", at + ".windowed_layers", 0);
+        OptionalInt latent = in.wholeNumber(node, "kv_latent_width", at + ".kv_latent_width", 1);
+        OptionalInt context = in.wholeNumber(node, "context_limit", at + ".context_limit", 1);
         if (base.isEmpty()) {
             for (String key : new String[] {"params", "layers", "heads", "head_dim"}) {
                 if (!node.has(key)) {
@@ -62,18 +71,52 @@ final class DeploymentReader {
                 }
             }
         }
-        ModelShape shape = base.orElse(new ModelShape(0, 0, 0, 0, 0, "inline", false));
-        boolean overridden = base.isPresent() && (params.isPresent() || layers.isPresent() || heads.isPresent()
-                || kvHeads.isPresent() || headDim.isPresent());
+        ShapeBuilder shape = base.map(ShapeBuilder::new).orElseGet(ShapeBuilder::new);
+        boolean overridden = base.isPresent() && MODEL.stream().anyMatch(k -> !k.equals("catalog") && !k.equals("config")
+                && node.has(k));
         int h = heads.orElse(shape.heads());
         int kv = kvHeads.orElse(base.isPresent() ? shape.kvHeads() : h);
         if (kv > h || h % kv != 0) {
             throw in.problem(at + (kvHeads.isPresent() ? ".kv_heads" : ".heads"), "kv_heads (" + kv
                     + ") must divide heads (" + h + ") evenly: each KV head serves a whole group of query heads");
         }
-        return Optional.of(new ModelShape(params.orElse(shape.params()), layers.orElse(shape.layers()), h, kv,
-                headDim.orElse(shape.headDim()), overridden ? shape.origin() + " with overrides" : shape.origin(),
-                params.isEmpty() && shape.paramsComputed()));
+        ModelShape start = shape.build();
+        shape.attention(layers.orElse(start.layers()), h, kv, headDim.orElse(start.headDim()));
+        params.ifPresent(shape::paramsTotal);
+        active.ifPresent(shape::paramsActive);
+        latent.ifPresent(shape::latentKv);
+        context.ifPresent(shape::contextLimit);
+        if (window.isPresent() || windowed.isPresent()) {
+            int tokens = window.orElse(start.kv().window());
+            if (tokens == 0) {
+                throw in.problem(at + ".windowed_layers", "names windowed layers but no window; add window: TOKENS");
+            }
+            int count = windowed.orElse(layers.orElse(start.layers()));
+            if (count > layers.orElse(start.layers())) {
+                throw in.problem(at + ".windowed_layers", count + " windowed layers is more than the "
+                        + layers.orElse(start.layers()) + " layers; give at most that many");
+            }
+            shape.window(count, tokens);
+        }
+        if (experts.isPresent() || perToken.isPresent()) {
+            int e = experts.orElse(shape.experts());
+            int k = perToken.orElse(start.experts().perToken());
+            if (e == 0 || k == 0 || k > e) {
+                throw in.problem(at + ".experts_per_token", "give experts and experts_per_token together, with"
+                        + " experts_per_token at most experts (got " + k + " of " + e + ")");
+            }
+            shape.experts(e, k, -1);
+        }
+        ModelShape built = shape.origin(overridden ? start.origin() + " with overrides" : start.origin()).build();
+        if (built.paramsActive() > built.paramsTotal()) {
+            throw in.problem(at + ".params_active", "is more than params (" + built.paramsActive() + " > "
+                    + built.paramsTotal() + "); active params are the part of the total one token uses");
+        }
+        if (built.experts().present() && built.paramsActive() == built.paramsTotal()) {
+            throw in.problem(at + ".params_active", "is missing or equal to params for a mixture of experts; give"
+                    + " the params one token uses (params_active), which are fewer than the total");
+        }
+        return Optional.of(built);
     }
 
     /** {@code weight_bits} or {@code kv_bits}: a precision name or a number of bits. */
@@ -121,7 +164,8 @@ final class DeploymentReader {
                 or(fraction(node, "usable_fraction", at), start.usableFraction()),
                 or(positive(node, "peak_tflops", at), start.peakTflops()),
                 or(positive(node, "bandwidth_gbps", at), start.bandwidthGbps()),
-                or(fraction(node, "efficiency", at), start.efficiency())));
+                or(fraction(node, "efficiency", at), start.efficiency()),
+                or(fraction(node, "bandwidth_efficiency", at), start.bandwidthEfficiency())));
     }
 
     private ModelShape catalogModel(String name, String at) {

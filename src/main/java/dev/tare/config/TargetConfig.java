@@ -25,16 +25,42 @@ import java.util.OptionalInt;
  * @param scale                 multiplier on counted text tokens, for a target whose tokenizer is not
  *                              public and is counted with a stand-in (1 when not calibrated)
  * @param toolOverheadTokens    tokens the provider adds per tool definition sent with a call
+ * @param concurrency           requests served at once (the decode batch); batch 1 when not set
  */
 public record TargetConfig(String name, String tokenizer, Optional<Price> price, OptionalInt prefixCacheMinTokens,
                            int messageOverheadTokens, int replyOverheadTokens, OptionalDouble callsPerDay,
                            OptionalInt outputTokens, Optional<ModelShape> model, OptionalDouble weightBits,
-                           OptionalDouble kvBits, Optional<Device> device, double scale, int toolOverheadTokens) {
+                           OptionalDouble kvBits, Optional<Device> device, double scale, int toolOverheadTokens,
+                           OptionalInt concurrency) {
 
     public TargetConfig {
         if (!(scale > 0) || Double.isInfinite(scale)) {
             throw new IllegalArgumentException("scale must be positive: " + scale);
         }
+        if (concurrency.isPresent() && concurrency.getAsInt() < 1) {
+            throw new IllegalArgumentException("concurrency must be 1 or more: " + concurrency.getAsInt());
+        }
+    }
+
+    /** A target that serves one request at a time unless told otherwise. */
+    public TargetConfig(String name, String tokenizer, Optional<Price> price, OptionalInt prefixCacheMinTokens,
+                        int messageOverheadTokens, int replyOverheadTokens, OptionalDouble callsPerDay,
+                        OptionalInt outputTokens, Optional<ModelShape> model, OptionalDouble weightBits,
+                        OptionalDouble kvBits, Optional<Device> device, double scale, int toolOverheadTokens) {
+        this(name, tokenizer, price, prefixCacheMinTokens, messageOverheadTokens, replyOverheadTokens, callsPerDay,
+                outputTokens, model, weightBits, kvBits, device, scale, toolOverheadTokens, OptionalInt.empty());
+    }
+
+    /** The same target serving {@code requests} requests at once. */
+    public TargetConfig withConcurrency(int requests) {
+        return new TargetConfig(name, tokenizer, price, prefixCacheMinTokens, messageOverheadTokens,
+                replyOverheadTokens, callsPerDay, outputTokens, model, weightBits, kvBits, device, scale,
+                toolOverheadTokens, OptionalInt.of(requests));
+    }
+
+    /** The decode batch: {@code concurrency}, else 1. */
+    public int batch() {
+        return concurrency.orElse(1);
     }
 
     /** A target without calibration: scale 1 and no per-tool overhead. */

@@ -122,19 +122,39 @@ public final class Catalog {
         int kvHeads = node.get("kv_heads").asInt();
         int headDim = node.get("head_dim").asInt();
         boolean computed = !node.has("params");
+        ShapeBuilder shape = new ShapeBuilder().origin("catalog model " + name).attention(layers, heads, kvHeads, headDim);
+        if (node.has("vocab_size") && node.has("hidden_size")) {
+            long vocab = node.get("vocab_size").asLong();
+            long hidden = node.get("hidden_size").asLong();
+            boolean tied = node.path("tied_embeddings").asBoolean(false);
+            shape.embeddings(Formulas.embeddingParams(vocab, hidden, tied), (double) vocab * hidden);
+        }
         double params = computed
                 ? Formulas.decoderParams(node.get("vocab_size").asLong(), node.get("hidden_size").asLong(), layers,
                 heads, kvHeads, headDim, node.get("intermediate_size").asLong(),
                 node.get("gated_feed_forward").asBoolean(), node.get("tied_embeddings").asBoolean())
                 : node.get("params").asDouble();
-        ModelShape shape = new ModelShape(params, layers, heads, kvHeads, headDim, "catalog model " + name, computed);
-        return new ModelEntry(name, shape, node.get("description").asText(), node.get("source").asText(),
+        shape.params(params, node.has("params_active") ? node.get("params_active").asDouble() : params, computed);
+        if (node.has("kv_latent_width")) {
+            shape.latentKv(node.get("kv_latent_width").asLong());
+        }
+        if (node.has("window")) {
+            shape.window(node.path("windowed_layers").asInt(layers), node.get("window").asInt());
+        }
+        if (node.has("experts")) {
+            shape.experts(node.get("experts").asInt(), node.get("experts_per_token").asInt(), -1);
+        }
+        if (node.has("context_limit")) {
+            shape.contextLimit(node.get("context_limit").asInt());
+        }
+        return new ModelEntry(name, shape.build(), node.get("description").asText(), node.get("source").asText(),
                 node.get("from_memory").asBoolean());
     }
 
     private static DeviceEntry device(String name, JsonNode node) {
         Device device = new Device("catalog device " + name, number(node, "memory_gib"), number(node, "usable_fraction"),
-                number(node, "peak_tflops"), number(node, "bandwidth_gbps"), number(node, "efficiency"));
+                number(node, "peak_tflops"), number(node, "bandwidth_gbps"), number(node, "efficiency"),
+                number(node, "bandwidth_efficiency"));
         return new DeviceEntry(name, device, node.get("description").asText(), node.get("source").asText(),
                 node.get("from_memory").asBoolean());
     }

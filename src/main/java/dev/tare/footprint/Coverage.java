@@ -17,8 +17,12 @@ import java.util.Map;
 public record Coverage(List<String> computes, Map<String, List<String>> missing, boolean outputConfigured) {
     /** The FOOTPRINT keys of the JSON contract, in order. */
     public static final List<String> KEYS = List.of("input_tokens", "framing_tokens", "cached_input_tokens",
-            "cost_per_call", "cost_per_month", "currency", "prefill_flops", "prefill_ms", "decode_ms_per_token",
-            "weight_bytes", "kv_bytes_per_token", "kv_cache_bytes", "max_concurrent");
+            "cost_per_call", "cost_per_month", "currency", "params_total", "params_active", "prefill_flops",
+            "prefill_ms", "decode_ms_per_token", "tokens_per_second", "time_to_first_token_ms", "weight_bytes",
+            "kv_bytes_per_token", "kv_cache_bytes", "max_concurrent", "context_limit", "concurrency",
+            "decode_bytes_per_step", "tokens_per_second_total", "end_to_end_ms");
+    /** Keys shown when known and never reported missing: a model may simply not state them. */
+    private static final List<String> INFORMATIONAL = List.of("context_limit");
 
     public Coverage {
         computes = List.copyOf(computes);
@@ -38,22 +42,34 @@ public record Coverage(List<String> computes, Map<String, List<String>> missing,
         List<String> model = absent(target.model().isEmpty(), "model");
         List<String> weights = join(model, absent(target.weightBits().isEmpty(), "weight_bits"));
         List<String> cache = join(model, absent(target.kvBits().isEmpty(), "kv_bits"));
+        needs.put("params_total", model);
+        needs.put("params_active", model);
         needs.put("prefill_flops", model);
-        needs.put("prefill_ms", join(weights, device(target, "peak_tflops", "efficiency", "bandwidth_gbps")));
-        needs.put("decode_ms_per_token", join(join(weights, absent(target.kvBits().isEmpty(), "kv_bits")),
-                device(target, "bandwidth_gbps")));
+        List<String> prefill = join(weights, device(target, "peak_tflops", "efficiency", "bandwidth_gbps"));
+        needs.put("prefill_ms", prefill);
+        List<String> decode = join(join(weights, absent(target.kvBits().isEmpty(), "kv_bits")),
+                device(target, "bandwidth_gbps"));
+        needs.put("decode_ms_per_token", decode);
+        needs.put("tokens_per_second", decode);
+        needs.put("time_to_first_token_ms", prefill);
         needs.put("weight_bytes", weights);
         needs.put("kv_bytes_per_token", cache);
         needs.put("kv_cache_bytes", cache);
         needs.put("max_concurrent", join(join(weights, absent(target.kvBits().isEmpty(), "kv_bits")),
                 device(target, "memory_gib", "usable_fraction")));
+        needs.put("context_limit", join(model, absent(target.model().isPresent()
+                && target.model().get().contextLimit().isEmpty(), "model.context_limit")));
+        needs.put("concurrency", model);
+        needs.put("decode_bytes_per_step", decode);
+        needs.put("tokens_per_second_total", decode);
+        needs.put("end_to_end_ms", join(prefill, decode));
         List<String> computes = new ArrayList<>();
         Map<String, List<String>> missing = new LinkedHashMap<>();
         for (String key : KEYS) {
             List<String> lacking = needs.get(key);
             if (lacking.isEmpty()) {
                 computes.add(key);
-            } else {
+            } else if (!INFORMATIONAL.contains(key)) {
                 missing.put(key, lacking);
             }
         }
@@ -83,6 +99,7 @@ public record Coverage(List<String> computes, Map<String, List<String>> missing,
                 case "peak_tflops" -> device.peakTflops().isPresent();
                 case "bandwidth_gbps" -> device.bandwidthGbps().isPresent();
                 case "efficiency" -> device.efficiency().isPresent();
+                case "bandwidth_efficiency" -> device.bandwidthEfficiency().isPresent();
                 default -> throw new IllegalArgumentException("not a device key: " + key);
             };
             if (!present) {

@@ -19,25 +19,55 @@ import java.util.OptionalLong;
  * @param currency             the currency of the costs
  * @param prefillFlops         floating-point operations to process the prompt
  * @param prefillMillis        time before the first output token, in milliseconds
- * @param decodeMillisPerToken time per output token once the prompt is in the cache, in milliseconds
+ * @param decodeMillisPerToken time of one decode step (one output token for each of the {@code concurrency}
+ *                             requests) once the prompts are in the cache, in milliseconds
  * @param weightBytes          memory the weights take at the target's weight precision
  * @param kvBytesPerToken      KV-cache memory per token at the target's KV precision
  * @param kvCacheBytes         KV-cache memory of one request of I + O tokens
  * @param maxConcurrent        requests of this size whose KV caches fit beside the weights
  * @param calibrated           whether the token counts were scaled by the target's calibration, which
  *                             makes every figure here a calibrated estimate
+ * @param load                 the model's params and the figures under load, on targets with a model
  */
 public record Footprint(int inputTokens, int framingTokens, int outputTokens, OptionalInt cachedInputTokens,
                         OptionalDouble costPerCall, OptionalDouble costPerMonth, Optional<String> currency,
                         OptionalDouble prefillFlops, OptionalDouble prefillMillis,
                         OptionalDouble decodeMillisPerToken, OptionalLong weightBytes, OptionalLong kvBytesPerToken,
-                        OptionalLong kvCacheBytes, OptionalLong maxConcurrent, boolean calibrated) {
+                        OptionalLong kvCacheBytes, OptionalLong maxConcurrent, boolean calibrated,
+                        Optional<Load> load) {
 
     /** Token counts only, as for a target that names nothing but a tokenizer. */
     public Footprint(int inputTokens, int framingTokens) {
         this(inputTokens, framingTokens, 0, OptionalInt.empty(), OptionalDouble.empty(), OptionalDouble.empty(),
                 Optional.empty(), OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(),
-                OptionalLong.empty(), OptionalLong.empty(), OptionalLong.empty(), OptionalLong.empty(), false);
+                OptionalLong.empty(), OptionalLong.empty(), OptionalLong.empty(), OptionalLong.empty(), false,
+                Optional.empty());
+    }
+
+    /**
+     * What a model does with this call: its parameters, its context limit, and the figures of serving
+     * {@code concurrency} such requests at once. Batch-1 figures are those with concurrency 1.
+     *
+     * @param paramsTotal            parameters stored (memory)
+     * @param paramsActive           parameters one token uses (compute, batch-1 reads)
+     * @param contextLimit           the most tokens the model takes, when known
+     * @param concurrency            requests decoded together (B)
+     * @param decodeBytesPerStep     bytes one decode step reads: the weights the B tokens use and B KV caches
+     * @param tokensPerSecond        output tokens per second of one request
+     * @param tokensPerSecondTotal   output tokens per second of all B requests
+     * @param timeToFirstTokenMillis time to the first output token when B prefills arrive together
+     * @param endToEndMillis         time to the last output token of a request
+     */
+    public record Load(double paramsTotal, double paramsActive, OptionalInt contextLimit, int concurrency,
+                       OptionalLong decodeBytesPerStep, OptionalDouble tokensPerSecond,
+                       OptionalDouble tokensPerSecondTotal, OptionalDouble timeToFirstTokenMillis,
+                       OptionalDouble endToEndMillis) {
+    }
+
+    /** Whether input plus output exceed the model's context. */
+    public boolean exceedsContext() {
+        return load.isPresent() && load.get().contextLimit().isPresent()
+                && (long) inputTokens + outputTokens > load.get().contextLimit().getAsInt();
     }
 
     /** Whether a cost was estimated. */

@@ -46,40 +46,64 @@ public final class Footprints {
         OptionalDouble prefillMillis = OptionalDouble.empty();
         OptionalDouble decodeMillis = OptionalDouble.empty();
         OptionalLong maxConcurrent = OptionalLong.empty();
+        Optional<Footprint.Load> load = Optional.empty();
         if (target.model().isPresent()) {
             ModelShape model = target.model().get();
-            prefillFlops = OptionalDouble.of(Formulas.prefillFlops(model.params(), model.layers(),
-                    model.attentionWidth(), input));
+            int batch = target.batch();
+            long tokens = (long) input + output;
+            prefillFlops = OptionalDouble.of(Formulas.prefillFlops(model, input));
             if (target.weightBits().isPresent()) {
-                weightBytes = OptionalDouble.of(Formulas.weightBytes(model.params(), target.weightBits().getAsDouble()));
+                weightBytes = OptionalDouble.of(Formulas.weightBytes(model.paramsTotal(),
+                        target.weightBits().getAsDouble()));
             }
             if (target.kvBits().isPresent()) {
-                double perToken = Formulas.kvBytesPerToken(model.layers(), model.kvHeads(), model.headDim(),
-                        target.kvBits().getAsDouble());
-                kvPerToken = OptionalDouble.of(perToken);
-                kvCache = OptionalDouble.of(Formulas.kvCacheBytes(perToken, (long) input + output));
+                double bits = target.kvBits().getAsDouble();
+                kvPerToken = OptionalDouble.of(Formulas.kvBytesPerToken(model, bits));
+                kvCache = OptionalDouble.of(Formulas.kvCacheBytes(model, tokens, bits));
             }
+            OptionalLong stepBytes = OptionalLong.empty();
+            OptionalDouble perRequest = OptionalDouble.empty();
+            OptionalDouble total = OptionalDouble.empty();
+            OptionalDouble firstToken = OptionalDouble.empty();
+            OptionalDouble endToEnd = OptionalDouble.empty();
             Optional<Device> device = target.device();
             if (device.isPresent() && weightBytes.isPresent()) {
                 Device d = device.get();
+                double bits = target.weightBits().getAsDouble();
                 if (d.peakTflops().isPresent() && d.efficiency().isPresent() && d.bandwidthGbps().isPresent()) {
+                    double peak = d.peakTflops().getAsDouble();
+                    double efficiency = d.efficiency().getAsDouble();
+                    double bandwidth = d.bandwidthGbps().getAsDouble();
                     prefillMillis = OptionalDouble.of(Formulas.prefillMillis(prefillFlops.getAsDouble(),
-                            weightBytes.getAsDouble(), d.peakTflops().getAsDouble(), d.efficiency().getAsDouble(),
-                            d.bandwidthGbps().getAsDouble()));
+                            Formulas.paramsRead(model, input) * bits / 8, peak, efficiency, bandwidth, d.readShare()));
+                    firstToken = OptionalDouble.of(Formulas.prefillMillis(batch * prefillFlops.getAsDouble(),
+                            Formulas.paramsRead(model, (double) batch * input) * bits / 8, peak, efficiency,
+                            bandwidth, d.readShare()));
                 }
                 if (kvCache.isPresent() && d.bandwidthGbps().isPresent()) {
-                    decodeMillis = OptionalDouble.of(Formulas.decodeMillisPerToken(weightBytes.getAsDouble(),
-                            kvCache.getAsDouble(), d.bandwidthGbps().getAsDouble()));
+                    double bytes = Formulas.decodeBytesPerStep(model, bits, kvCache.getAsDouble(), batch);
+                    double step = Formulas.stepMillis(bytes, d.bandwidthGbps().getAsDouble(), d.readShare(),
+                            Formulas.decodeFlopsPerStep(model, tokens, batch), d.peakTflops().orElse(0),
+                            d.efficiency().orElse(0));
+                    decodeMillis = OptionalDouble.of(step);
+                    stepBytes = OptionalLong.of(Math.round(bytes));
+                    perRequest = OptionalDouble.of(Formulas.tokensPerSecond(step));
+                    total = OptionalDouble.of(batch * Formulas.tokensPerSecond(step));
+                    if (firstToken.isPresent()) {
+                        endToEnd = OptionalDouble.of(Formulas.endToEndMillis(firstToken.getAsDouble(), output, step));
+                    }
                 }
                 if (kvCache.isPresent() && d.memoryGib().isPresent() && d.usableFraction().isPresent()) {
                     maxConcurrent = OptionalLong.of(Formulas.maxConcurrent(d.memoryGib().getAsDouble(),
                             d.usableFraction().getAsDouble(), weightBytes.getAsDouble(), kvCache.getAsDouble()));
                 }
             }
+            load = Optional.of(new Footprint.Load(model.paramsTotal(), model.paramsActive(), model.contextLimit(),
+                    batch, stepBytes, perRequest, total, firstToken, endToEnd));
         }
         return new Footprint(input, call.framingTokens(), output, cached, costPerCall, costPerMonth, currency,
                 prefillFlops, prefillMillis, decodeMillis, bytes(weightBytes), bytes(kvPerToken), bytes(kvCache),
-                maxConcurrent, target.isCalibrated());
+                maxConcurrent, target.isCalibrated(), load);
     }
 
     /** Whole bytes: a fractional precision such as 4.5 bits can leave half a byte. */

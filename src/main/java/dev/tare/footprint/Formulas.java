@@ -26,38 +26,151 @@ public final class Formulas {
         return 2.0 * layers * kvHeads * headDim * kvBits / 8;
     }
 
-    /** kv_cache_bytes = kv_bytes_per_token × (I + O): the cache one request holds at its longest. */
+    /** kv_cache_bytes = kv_bytes_per_token × (I + O): the cache one request holds at its longest, every layer global. */
     public static double kvCacheBytes(double kvBytesPerToken, long tokens) {
         return kvBytesPerToken * tokens;
     }
 
     /**
-     * prefill_flops = 2 × P × I + 2 × L × I² × (H × D): the forward pass costs 2N + 2·n_layer·n_ctx·d_attn
-     * per token (Kaplan et al. 2020, "Scaling Laws for Neural Language Models", Table 1), summed over
-     * the I prompt tokens with n_ctx = I.
+     * KV bytes one token adds over every layer, windows aside: Σ over layers width × kv_bits / 8, the
+     * width being 2 × Hkv × D (GQA, Ainslie et al. 2023; MQA, Shazeer 2019, has Hkv = 1) or, for
+     * multi-head latent attention, kv_lora_rank + qk_rope_head_dim with no factor 2 (DeepSeek-V2
+     * paper, §2.1: the compressed latent and the decoupled rotary key are what is cached).
      */
-    public static double prefillFlops(double params, int layers, long attentionWidth, long inputTokens) {
-        double i = inputTokens;
-        return 2 * params * i + 2.0 * layers * i * i * attentionWidth;
+    public static double kvBytesPerToken(ModelShape model, double kvBits) {
+        return (double) model.layers() * model.kv().widthPerLayer() * kvBits / 8;
     }
 
     /**
-     * prefill_ms = 1000 × max(prefill_flops / (peak_tflops × 1e12 × efficiency), weight_bytes / (bandwidth_gbps × 1e9)):
-     * prefill takes at least the compute time and at least one read of every weight.
+     * kv_cache_bytes = Σ over layers min(I + O, window_layer) × width × kv_bits / 8, window_layer = ∞
+     * for global layers: a sliding-window layer keeps a rolling buffer of its window only (Mistral 7B
+     * paper, Jiang et al. 2023, §2 "Rolling Buffer Cache").
+     */
+    public static double kvCacheBytes(ModelShape model, long tokens, double kvBits) {
+        ModelShape.KvLayout kv = model.kv();
+        double tokenLayers = (double) model.globalLayers() * tokens
+                + (double) kv.windowedLayers() * Math.min(tokens, kv.window());
+        return tokenLayers * kv.widthPerLayer() * kvBits / 8;
+    }
+
+    /**
+     * Attention-score FLOPs of one token that sees {@code context} tokens: 2 × d_attn × n_ctx per
+     * layer (Kaplan et al. 2020, Table 1), with n_ctx capped at the window on windowed layers.
+     */
+    public static double attentionFlopsPerToken(ModelShape model, long context) {
+        ModelShape.KvLayout kv = model.kv();
+        double seen = (double) model.globalLayers() * context
+                + (double) kv.windowedLayers() * Math.min(context, kv.window());
+        return 2.0 * model.attentionWidth() * seen;
+    }
+
+    /**
+     * prefill_flops = 2 × N_active_nonembedding × I + 2 × L × I² × (H × D) + 2 × output_params:
+     * Kaplan et al. 2020 ("Scaling Laws for Neural Language Models", Table 1) count
+     * 2N + 2·n_layer·n_ctx·d_attn per token with N excluding embeddings, summed here over the I prompt
+     * tokens with n_ctx = I; the output layer's logits are needed for the last prompt position only.
+     */
+    public static double prefillFlops(ModelShape model, long inputTokens) {
+        if (inputTokens == 0) {
+            return 0;
+        }
+        return 2 * model.activeNonEmbeddingParams() * inputTokens
+                + inputTokens * attentionFlopsPerToken(model, inputTokens) + 2 * model.outputParams();
+    }
+
+    /** {@link #prefillFlops(ModelShape, long)} of a dense shape known by its params only. */
+    public static double prefillFlops(double params, int layers, long attentionWidth, long inputTokens) {
+        return prefillFlops(new ModelShape(params, layers, (int) attentionWidth, 1, 1, "formula", false), inputTokens);
+    }
+
+    /**
+     * prefill_ms = 1000 × max(prefill_flops / (peak_tflops × 1e12 × efficiency), weight_bytes_read /
+     * (bandwidth_gbps × 1e9 × bandwidth_efficiency)): prefill takes at least the compute time and at
+     * least one read of every weight it uses.
      */
     public static double prefillMillis(double prefillFlops, double weightBytes, double peakTflops, double efficiency,
-                                       double bandwidthGbps) {
+                                       double bandwidthGbps, double bandwidthEfficiency) {
         double compute = prefillFlops / (peakTflops * 1e12 * efficiency);
-        double memory = weightBytes / (bandwidthGbps * 1e9);
+        double memory = weightBytes / (bandwidthGbps * 1e9 * bandwidthEfficiency);
         return 1000 * Math.max(compute, memory);
     }
 
+    /** {@link #prefillMillis(double, double, double, double, double, double)} at the full bandwidth. */
+    public static double prefillMillis(double prefillFlops, double weightBytes, double peakTflops, double efficiency,
+                                       double bandwidthGbps) {
+        return prefillMillis(prefillFlops, weightBytes, peakTflops, efficiency, bandwidthGbps, 1);
+    }
+
     /**
-     * decode_ms_per_token = 1000 × (weight_bytes + kv_cache_bytes) / (bandwidth_gbps × 1e9): each new
-     * token reads every weight and the whole KV cache once (one request, no batching).
+     * decode_ms_per_token at batch 1 and full bandwidth, reads only: 1000 × (weight_bytes +
+     * kv_cache_bytes) / (bandwidth_gbps × 1e9); {@link #stepMillis} is the general form.
      */
     public static double decodeMillisPerToken(double weightBytes, double kvCacheBytes, double bandwidthGbps) {
-        return 1000 * (weightBytes + kvCacheBytes) / (bandwidthGbps * 1e9);
+        return stepMillis(weightBytes + kvCacheBytes, bandwidthGbps, 1, 0, 0, 0);
+    }
+
+    /**
+     * Routed experts that {@code tokens} tokens are expected to touch in one MoE layer under uniform
+     * routing: E × (1 − (1 − k/E)^B), as each expert is missed by one token with chance 1 − k/E (from
+     * memory; real routers are not uniform, so this is the expectation of an idealised router).
+     */
+    public static double expertsTouched(int experts, int perToken, double tokens) {
+        if (experts == 0) {
+            return 0;
+        }
+        return experts * (1 - Math.pow(1 - (double) perToken / experts, tokens));
+    }
+
+    /**
+     * Parameters read by one forward step over {@code tokens} tokens at once: the active ones, plus
+     * for a mixture of experts the further experts those tokens are expected to touch
+     * ({@link #expertsTouched}).
+     */
+    public static double paramsRead(ModelShape model, double tokens) {
+        ModelShape.Experts e = model.experts();
+        if (!e.present() || tokens <= 1) {
+            return model.paramsActive();
+        }
+        double touched = expertsTouched(e.count(), e.perToken(), tokens);
+        return model.paramsActive() + e.paramsPerExpert() * (touched - e.perToken());
+    }
+
+    /**
+     * Bytes one decode step reads at batch B: the weights the B tokens use ({@link #paramsRead} ×
+     * weight_bits / 8) plus each of the B requests' KV cache.
+     */
+    public static double decodeBytesPerStep(ModelShape model, double weightBits, double kvCacheBytes, int batch) {
+        return paramsRead(model, batch) * weightBits / 8 + batch * kvCacheBytes;
+    }
+
+    /**
+     * FLOPs of one decode step at batch B: B × (2 × N_active_nonembedding + 2 × output_params +
+     * attention over {@code context} tokens) (Kaplan et al. 2020, Table 1, per token).
+     */
+    public static double decodeFlopsPerStep(ModelShape model, long context, int batch) {
+        return batch * (2 * model.activeNonEmbeddingParams() + 2 * model.outputParams()
+                + attentionFlopsPerToken(model, context));
+    }
+
+    /**
+     * step_ms = 1000 × max(bytes / (bandwidth × bandwidth_efficiency), flops / (peak × efficiency)): a
+     * decode step waits for its reads or its arithmetic, whichever is longer; reads alone without a peak.
+     */
+    public static double stepMillis(double bytes, double bandwidthGbps, double bandwidthEfficiency, double flops,
+                                    double peakTflops, double efficiency) {
+        double memory = bytes / (bandwidthGbps * 1e9 * bandwidthEfficiency);
+        double compute = peakTflops > 0 && efficiency > 0 ? flops / (peakTflops * 1e12 * efficiency) : 0;
+        return 1000 * Math.max(memory, compute);
+    }
+
+    /** tokens_per_second of one request = 1000 / step_ms; a batch of B makes B times as many in total. */
+    public static double tokensPerSecond(double stepMillis) {
+        return stepMillis > 0 ? 1000 / stepMillis : 0;
+    }
+
+    /** end_to_end_ms = time_to_first_token_ms + O × step_ms. */
+    public static double endToEndMillis(double timeToFirstTokenMillis, long outputTokens, double stepMillis) {
+        return timeToFirstTokenMillis + outputTokens * stepMillis;
     }
 
     /**
@@ -97,9 +210,53 @@ public final class Formulas {
      */
     public static double decoderParams(long vocab, long hidden, int layers, int heads, int kvHeads, int headDim,
                                        long feedForward, boolean gatedFeedForward, boolean tiedEmbeddings) {
-        double embeddings = (double) vocab * hidden * (tiedEmbeddings ? 1 : 2);
-        double attention = 2.0 * hidden * heads * headDim + 2.0 * hidden * kvHeads * headDim;
-        double feedForwardWeights = (gatedFeedForward ? 3.0 : 2.0) * hidden * feedForward;
-        return embeddings + layers * (attention + feedForwardWeights);
+        return embeddingParams(vocab, hidden, tiedEmbeddings)
+                + layers * (attentionParams(hidden, heads, kvHeads, headDim)
+                + feedForwardParams(hidden, feedForward, gatedFeedForward));
+    }
+
+    /** Token embeddings V × d, and as many again for an output layer not tied to them. */
+    public static double embeddingParams(long vocab, long hidden, boolean tiedEmbeddings) {
+        return (double) vocab * hidden * (tiedEmbeddings ? 1 : 2);
+    }
+
+    /** One layer's attention projections: query and output 2 × d × H·D, key and value 2 × d × Hkv·D. */
+    public static double attentionParams(long hidden, int heads, int kvHeads, int headDim) {
+        return 2.0 * hidden * heads * headDim + 2.0 * hidden * kvHeads * headDim;
+    }
+
+    /**
+     * One layer's multi-head latent attention (DeepSeek-V2 paper, §2.1): queries through a rank
+     * q_lora_rank down- and up-projection (d × r_q + r_q × H × (nope + rope)), or straight
+     * (d × H × (nope + rope)) when there is none; keys and values down to the latent plus the shared
+     * rotary key (d × (r_kv + rope)), up again per head (r_kv × H × (nope + v)); output H × v × d.
+     */
+    public static double latentAttentionParams(long hidden, int heads, int qLoraRank, int kvLoraRank, int qkNopeDim,
+                                               int qkRopeDim, int vHeadDim) {
+        double qk = (double) heads * (qkNopeDim + qkRopeDim);
+        double query = qLoraRank > 0 ? (double) hidden * qLoraRank + qLoraRank * qk : hidden * qk;
+        double keyValue = (double) hidden * (kvLoraRank + qkRopeDim)
+                + (double) kvLoraRank * heads * (qkNopeDim + vHeadDim);
+        double output = (double) heads * vHeadDim * hidden;
+        return query + keyValue + output;
+    }
+
+    /** One feed-forward block: two matrices d × F, or three when gated (SwiGLU, GeGLU). */
+    public static double feedForwardParams(long hidden, long feedForward, boolean gated) {
+        return (gated ? 3.0 : 2.0) * hidden * feedForward;
+    }
+
+    /** A mixture-of-experts router: one score per expert from the hidden state, d × E. */
+    public static double routerParams(long hidden, int experts) {
+        return (double) hidden * experts;
+    }
+
+    /**
+     * A vision encoder's transformer blocks: per layer 4 × d² for attention and 2 × d × F for an
+     * ungated feed-forward (the usual vision-transformer block, from memory); patch embedding and
+     * projector left out.
+     */
+    public static double visionParams(long hidden, long feedForward, int layers) {
+        return layers * (4.0 * hidden * hidden + 2.0 * hidden * feedForward);
     }
 }

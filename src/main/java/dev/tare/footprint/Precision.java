@@ -17,6 +17,8 @@ public final class Precision {
     public static final double MAX_BITS = 32;
 
     private static final Map<String, Double> NAMES = build();
+    /** The usual scale of group-wise quantization: one 16-bit scale per group (from memory). */
+    private static final int SCALE_BITS = 16;
 
     private Precision() {
     }
@@ -34,7 +36,48 @@ public final class Precision {
         names.put("fp8", 8.0);
         names.put("int8", 8.0);
         names.put("int4", 4.0);
+        // Group-wise formats: a 16-bit scale shared by a group of weights adds 16 / group bits to each.
+        names.put("int4-g32", 4.0 + (double) SCALE_BITS / 32);
+        names.put("int4-g128", 4.0 + (double) SCALE_BITS / 128);
+        names.put("int3-g32", 3.0 + (double) SCALE_BITS / 32);
+        names.put("int2-g32", 2.0 + (double) SCALE_BITS / 32);
         return java.util.Collections.unmodifiableMap(names);
+    }
+
+    /**
+     * What a precision name means, for help and listings: the group formats say what their scales add
+     * (about half a bit at group size 32: 16 / 32, from memory of the common formats).
+     */
+    public static String meaning(String name) {
+        return switch (name) {
+            case "fp32" -> "32-bit floats";
+            case "fp16" -> "16-bit floats";
+            case "bf16" -> "16-bit floats with fp32's range";
+            case "fp8" -> "8-bit floats";
+            case "int8" -> "8-bit integers, scales not counted";
+            case "int4" -> "4-bit integers, scales not counted";
+            default -> {
+                int dash = name.indexOf("-g");
+                if (name.startsWith("int") && dash > 0) {
+                    int group = Integer.parseInt(name.substring(dash + 2));
+                    yield name.substring(3, dash) + "-bit integers with a " + SCALE_BITS + "-bit scale per group of "
+                            + group + " weights: " + label(NAMES.get(name)) + " bits each (from memory)";
+                }
+                throw new IllegalArgumentException("not a precision name: " + name);
+            }
+        };
+    }
+
+    /**
+     * A note for a number of bits that is not whole: such a figure is an effective width, values plus
+     * their group scales; empty for whole bits.
+     */
+    public static java.util.Optional<String> meaning(double bits) {
+        if (bits == Math.rint(bits)) {
+            return java.util.Optional.empty();
+        }
+        return java.util.Optional.of("effective bits: " + (long) Math.floor(bits) + "-bit values plus group scales;"
+                + " a 16-bit scale per 32 weights adds about 0.5 bit (from memory)");
     }
 
     /**

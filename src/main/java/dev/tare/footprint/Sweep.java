@@ -16,13 +16,15 @@ import java.util.Set;
 public final class Sweep {
     /** Keys that may be swept, in the order they are listed to users. */
     public static final List<String> KEYS = List.of("weight_bits", "kv_bits", "memory_gib", "usable_fraction",
-            "peak_tflops", "bandwidth_gbps", "efficiency", "input_tokens", "output_tokens");
+            "peak_tflops", "bandwidth_gbps", "efficiency", "bandwidth_efficiency", "concurrency", "input_tokens",
+            "output_tokens");
     /** The most combinations one sweep may ask for. */
     public static final int MAX_ROWS = 1000;
 
     private static final Set<String> TOKEN_KEYS = Set.of("input_tokens", "output_tokens");
+    private static final Set<String> WHOLE_KEYS = Set.of("input_tokens", "output_tokens", "concurrency");
     private static final Set<String> DEVICE_KEYS = Set.of("memory_gib", "usable_fraction", "peak_tflops",
-            "bandwidth_gbps", "efficiency");
+            "bandwidth_gbps", "efficiency", "bandwidth_efficiency");
 
     private Sweep() {
     }
@@ -75,12 +77,14 @@ public final class Sweep {
             } catch (NumberFormatException e) {
                 throw new TareException("--sweep " + text + ": " + key + ": '" + part + "' is not a number");
             }
-            boolean fraction = key.equals("usable_fraction") || key.equals("efficiency");
-            boolean whole = TOKEN_KEYS.contains(key);
-            if (!Double.isFinite(value) || (whole ? value < 0 || value != Math.rint(value) || value > Integer.MAX_VALUE
-                    : value <= 0) || (fraction && value > 1)) {
+            boolean fraction = key.equals("usable_fraction") || key.endsWith("efficiency");
+            boolean whole = WHOLE_KEYS.contains(key);
+            double least = key.equals("concurrency") ? 1 : 0;
+            if (!Double.isFinite(value) || (whole ? value < least || value != Math.rint(value)
+                    || value > Integer.MAX_VALUE : value <= 0) || (fraction && value > 1)) {
                 throw new TareException("--sweep " + text + ": " + key + ": " + part + " must be "
-                        + (whole ? "a whole number of tokens" : fraction ? "above 0 and at most 1" : "above 0"));
+                        + (key.equals("concurrency") ? "a whole number of requests, 1 or more"
+                        : whole ? "a whole number of tokens" : fraction ? "above 0 and at most 1" : "above 0"));
             }
             return value;
         }
@@ -158,9 +162,10 @@ public final class Sweep {
                     OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty())),
                     key, OptionalDouble.of(value)));
         }
-        return new TargetConfig(t.name(), t.tokenizer(), t.price(), t.prefixCacheMinTokens(), t.messageOverheadTokens(),
-                t.replyOverheadTokens(), t.callsPerDay(), t.outputTokens(), t.model(), weightBits, kvBits, device,
-                t.scale(), t.toolOverheadTokens());
+        TargetConfig swept = new TargetConfig(t.name(), t.tokenizer(), t.price(), t.prefixCacheMinTokens(),
+                t.messageOverheadTokens(), t.replyOverheadTokens(), t.callsPerDay(), t.outputTokens(), t.model(),
+                weightBits, kvBits, device, t.scale(), t.toolOverheadTokens(), t.concurrency());
+        return key.equals("concurrency") ? swept.withConcurrency((int) value) : swept;
     }
 
     private static Device withDevice(Device d, String key, OptionalDouble value) {
@@ -169,6 +174,7 @@ public final class Sweep {
                 key.equals("usable_fraction") ? value : d.usableFraction(),
                 key.equals("peak_tflops") ? value : d.peakTflops(),
                 key.equals("bandwidth_gbps") ? value : d.bandwidthGbps(),
-                key.equals("efficiency") ? value : d.efficiency());
+                key.equals("efficiency") ? value : d.efficiency(),
+                key.equals("bandwidth_efficiency") ? value : d.bandwidthEfficiency());
     }
 }

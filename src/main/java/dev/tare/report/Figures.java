@@ -27,20 +27,49 @@ final class Figures {
 
     /** The FOOTPRINT object of the JSON contract: the keys the target has inputs for. */
     static ObjectNode json(Footprint f) {
+        java.util.Map<String, Object> values = new java.util.HashMap<>();
+        f.cachedInputTokens().ifPresent(v -> values.put("cached_input_tokens", v));
+        f.costPerCall().ifPresent(v -> values.put("cost_per_call", v));
+        f.costPerMonth().ifPresent(v -> values.put("cost_per_month", v));
+        f.currency().ifPresent(v -> values.put("currency", v));
+        f.prefillFlops().ifPresent(v -> values.put("prefill_flops", BigDecimal.valueOf(Math.rint(v)).toBigInteger()));
+        f.prefillMillis().ifPresent(v -> values.put("prefill_ms", v));
+        f.decodeMillisPerToken().ifPresent(v -> values.put("decode_ms_per_token", v));
+        f.weightBytes().ifPresent(v -> values.put("weight_bytes", v));
+        f.kvBytesPerToken().ifPresent(v -> values.put("kv_bytes_per_token", v));
+        f.kvCacheBytes().ifPresent(v -> values.put("kv_cache_bytes", v));
+        f.maxConcurrent().ifPresent(v -> values.put("max_concurrent", v));
+        f.load().ifPresent(load -> {
+            values.put("params_total", load.paramsTotal());
+            values.put("params_active", load.paramsActive());
+            values.put("concurrency", load.concurrency());
+            load.decodeBytesPerStep().ifPresent(v -> values.put("decode_bytes_per_step", v));
+            load.tokensPerSecond().ifPresent(v -> values.put("tokens_per_second", v));
+            load.tokensPerSecondTotal().ifPresent(v -> values.put("tokens_per_second_total", v));
+            load.timeToFirstTokenMillis().ifPresent(v -> values.put("time_to_first_token_ms", v));
+            load.endToEndMillis().ifPresent(v -> values.put("end_to_end_ms", v));
+            load.contextLimit().ifPresent(v -> values.put("context_limit", v));
+        });
         ObjectNode node = Json.mapper().createObjectNode();
         node.put("input_tokens", f.inputTokens());
         node.put("framing_tokens", f.framingTokens());
-        f.cachedInputTokens().ifPresent(v -> node.put("cached_input_tokens", v));
-        f.costPerCall().ifPresent(v -> node.put("cost_per_call", v));
-        f.costPerMonth().ifPresent(v -> node.put("cost_per_month", v));
-        f.currency().ifPresent(v -> node.put("currency", v));
-        f.prefillFlops().ifPresent(v -> node.put("prefill_flops", BigDecimal.valueOf(Math.rint(v)).toBigInteger()));
-        f.prefillMillis().ifPresent(v -> node.put("prefill_ms", v));
-        f.decodeMillisPerToken().ifPresent(v -> node.put("decode_ms_per_token", v));
-        f.weightBytes().ifPresent(v -> node.put("weight_bytes", v));
-        f.kvBytesPerToken().ifPresent(v -> node.put("kv_bytes_per_token", v));
-        f.kvCacheBytes().ifPresent(v -> node.put("kv_cache_bytes", v));
-        f.maxConcurrent().ifPresent(v -> node.put("max_concurrent", v));
+        for (String key : Coverage.KEYS) {
+            Object value = values.get(key);
+            if (value instanceof Integer v) {
+                node.put(key, v);
+            } else if (value instanceof Long v) {
+                node.put(key, v);
+            } else if (value instanceof Double v) {
+                node.put(key, v);
+            } else if (value instanceof java.math.BigInteger v) {
+                node.put(key, v);
+            } else if (value instanceof String v) {
+                node.put(key, v);
+            }
+        }
+        if (f.exceedsContext()) {
+            node.put("exceeds_context", true);
+        }
         if (f.calibrated()) {
             node.put("calibrated", true);
         }
@@ -117,14 +146,58 @@ final class Figures {
     }
 
     static String bits(OptionalDouble bits) {
-        return bits.isPresent() ? Precision.label(bits.getAsDouble()) + " bits" : "not set";
+        return bits.isPresent() ? Precision.label(bits.getAsDouble()) + " bits" + Precision.meaning(bits.getAsDouble())
+                .map(m -> " (" + m + ")").orElse("") : "not set";
+    }
+
+    /** Bytes in binary units and, from a kilobyte up, in decimal ones too: {@code 1.94 GiB = 2.08 GB}. */
+    static String bytesBoth(double bytes) {
+        if (Math.abs(bytes) < 1e3) {
+            return bytes(bytes);
+        }
+        String[] units = {"kB", "MB", "GB", "TB", "PB"};
+        double value = bytes / 1e3;
+        int unit = 0;
+        while (Math.abs(value) >= 1000 && unit < units.length - 1) {
+            value /= 1000;
+            unit++;
+        }
+        return bytes(bytes) + " = " + significant(value) + " " + units[unit];
     }
 
     /** One line describing a model shape and where it came from. */
     static String model(ModelShape m) {
-        return m.origin() + ": " + params(m.params()) + " params" + (m.paramsComputed() ? " (computed from the shape)" : "")
-                + ", " + m.layers() + " layers, " + m.heads() + " heads, " + m.kvHeads() + " KV heads, head size "
-                + m.headDim();
+        StringBuilder out = new StringBuilder(m.origin()).append(": ").append(params(m.paramsTotal())).append(" params");
+        if (m.paramsActive() != m.paramsTotal()) {
+            out.append(" (").append(params(m.paramsActive())).append(" active per token)");
+        }
+        if (m.paramsComputed()) {
+            out.append(" computed from the shape");
+        }
+        out.append(", ").append(m.layers()).append(" layers, ").append(m.heads()).append(" heads, ");
+        if (m.kv().latent()) {
+            out.append("latent KV of ").append(m.kv().widthPerLayer()).append(" per token and layer");
+        } else {
+            out.append(m.kvHeads()).append(m.kvHeads() == 1 ? " KV head" : " KV heads");
+        }
+        out.append(", head size ").append(m.headDim());
+        if (m.experts().present()) {
+            out.append("; ").append(m.experts().count()).append(" experts, ").append(m.experts().perToken())
+                    .append(" per token");
+        }
+        if (m.kv().window() > 0) {
+            out.append("; sliding window of ").append(count(m.kv().window())).append(" tokens on ")
+                    .append(m.kv().windowedLayers()).append(" of ").append(m.layers()).append(" layers");
+        }
+        m.contextLimit().ifPresent(c -> out.append("; context ").append(count(c)).append(" tokens"));
+        return out.toString();
+    }
+
+    /** Adds the caution lines to a JSON object, as {@code cautions}, when there are any. */
+    static void cautions(ObjectNode node, List<String> lines) {
+        if (!lines.isEmpty()) {
+            node.putPOJO("cautions", List.copyOf(lines));
+        }
     }
 
     /** One line describing a device and where its numbers came from. */
@@ -135,6 +208,7 @@ final class Figures {
         d.peakTflops().ifPresent(v -> parts.add(plain(v) + " TFLOPS peak"));
         d.efficiency().ifPresent(v -> parts.add(plain(v * 100) + "% of peak in prefill"));
         d.bandwidthGbps().ifPresent(v -> parts.add(plain(v) + " GB/s"));
+        d.bandwidthEfficiency().ifPresent(v -> parts.add(plain(v * 100) + "% of bandwidth in reads"));
         return d.origin() + ": " + (parts.isEmpty() ? "no numbers" : String.join(", ", parts));
     }
 

@@ -75,6 +75,9 @@ final class HtmlTargets {
         out.append("</dl>\n");
         List<ScannedTemplate> on = overview.scan().templates().stream()
                 .filter(t -> t.countsInTotals() && t.targets().containsKey(target.name())).toList();
+        for (String line : TargetSections.cautions(target, on)) {
+            out.append("<p class=\"caution\">").append(Html.text(line)).append("</p>\n");
+        }
         Coverage coverage = Coverage.of(target);
         if (coverage.computes().contains("cost_per_month") && !on.isEmpty()) {
             String currency = totals.currency().orElse("");

@@ -84,6 +84,11 @@ public final class MarkdownReport {
         if (priced) {
             out.append("Cost per month adds up every template as if each got the target's `calls_per_day`.\n\n");
         }
+        List<String> cautions = TargetSections.cautions(overview.scan());
+        cautions.forEach(line -> out.append("> ").append(text(line)).append("\n"));
+        if (!cautions.isEmpty()) {
+            out.append('\n');
+        }
     }
 
     private static void prefixCaching(StringBuilder out, Overview overview) {

@@ -112,6 +112,14 @@ public final class ScanReport {
             out.writeEndArray();
             out.writeFieldName("totals");
             Json.tree(out, totals(result));
+            List<String> cautions = TargetSections.cautions(result);
+            if (!cautions.isEmpty()) {
+                out.writeArrayFieldStart("cautions");
+                for (String line : cautions) {
+                    out.writeString(line);
+                }
+                out.writeEndArray();
+            }
             out.writeArrayFieldStart("skipped");
             for (SkippedFile file : result.skipped()) {
                 out.writeStartObject();

@@ -1,6 +1,7 @@
 package dev.tare.report;
 
 import dev.tare.config.TargetConfig;
+import dev.tare.footprint.Cautions;
 import dev.tare.footprint.Coverage;
 import dev.tare.footprint.Footprint;
 import dev.tare.overlap.PrefixShare;
@@ -142,7 +143,35 @@ final class TargetSections {
                         .append(" per token"));
         head.append('\n');
         target.device().ifPresent(d -> head.append("  device  ").append(Figures.device(d)).append('\n'));
-        return head.append(table.render()).toString();
+        head.append("  load    ").append(target.batch() == 1 ? "batch 1 (decode for one request at a time)"
+                : Figures.count(target.batch()) + " concurrent requests (decode step of the batch)").append('\n');
+        head.append(table.render());
+        for (String line : cautions(target, templates)) {
+            head.append(line).append('\n');
+        }
+        return head.toString();
+    }
+
+    /** The target's cautions, then one line per template whose call exceeds the model's context. */
+    static List<String> cautions(TargetConfig target, List<ScannedTemplate> templates) {
+        List<String> lines = new ArrayList<>(Cautions.of(target));
+        for (ScannedTemplate template : templates) {
+            Footprint f = template.targets().get(target.name());
+            if (f != null) {
+                Cautions.contextLine(target, f, template.path()).ifPresent(lines::add);
+            }
+        }
+        return lines;
+    }
+
+    /** Every target's cautions over the templates counted in totals, each line once. */
+    static List<String> cautions(ScanResult result) {
+        List<ScannedTemplate> counted = result.templates().stream().filter(ScannedTemplate::countsInTotals).toList();
+        List<String> lines = new ArrayList<>();
+        for (TargetConfig target : result.targetConfigs()) {
+            cautions(target, counted).stream().filter(l -> !lines.contains(l)).forEach(lines::add);
+        }
+        return lines;
     }
 
     /** The mark of a calibrated target's figures. */

@@ -4,10 +4,12 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.tare.config.TargetConfig;
 import dev.tare.footprint.Catalog;
+import dev.tare.footprint.Cautions;
 import dev.tare.footprint.Coverage;
 import dev.tare.footprint.Device;
 import dev.tare.footprint.Formulas;
 import dev.tare.footprint.ModelShape;
+import dev.tare.footprint.Precision;
 import java.util.List;
 import java.util.Map;
 import java.util.OptionalDouble;
@@ -38,6 +40,11 @@ public final class TargetsReport {
                     .append("  weights  ").append(Figures.bits(target.weightBits())).append("; KV cache ")
                     .append(Figures.bits(target.kvBits())).append('\n'));
             target.device().ifPresent(d -> details.append("  device   ").append(Figures.device(d)).append('\n'));
+            target.concurrency().ifPresent(c -> details.append("  load     ").append(Figures.count(c))
+                    .append(" concurrent requests\n"));
+            for (String line : Cautions.of(target)) {
+                details.append("  caution  ").append(line).append('\n');
+            }
             for (String line : Figures.missing(target, coverage)) {
                 details.append("  missing  ").append(line.substring(target.name().length() + 2)).append('\n');
             }
@@ -69,6 +76,8 @@ public final class TargetsReport {
             target.weightBits().ifPresent(v -> node.put("weight_bits", v));
             target.kvBits().ifPresent(v -> node.put("kv_bits", v));
             target.device().ifPresent(d -> node.set("device", device(d)));
+            target.concurrency().ifPresent(v -> node.put("concurrency", v));
+            Figures.cautions(node, Cautions.of(target));
             node.putPOJO("computes", coverage.computes());
             ObjectNode missing = node.putObject("missing");
             for (Map.Entry<String, List<String>> entry : coverage.missing().entrySet()) {
@@ -83,15 +92,14 @@ public final class TargetsReport {
     public static String catalogText(Catalog catalog) {
         StringBuilder out = new StringBuilder("Model shapes a target may name (model: NAME, or {catalog: NAME, ...}"
                 + " with any number overridden):\n\n");
-        TextTable models = new TextTable(List.of("NAME", "PARAMS", "LAYERS", "HEADS", "KV HEADS", "HEAD DIM",
-                "KV/TOKEN AT FP16", "DESCRIPTION"), false, true, true, true, true, true, true, false);
+        TextTable models = new TextTable(List.of("NAME", "PARAMS", "ACTIVE", "LAYERS", "HEADS", "KV HEADS", "HEAD DIM",
+                "KV/TOKEN AT FP16", "DESCRIPTION"), false, true, true, true, true, true, true, true, false);
         for (Catalog.ModelEntry entry : catalog.models()) {
             ModelShape m = entry.shape();
-            models.row(List.of(entry.name(), Figures.params(m.params()) + (m.paramsComputed() ? "*" : ""),
-                    String.valueOf(m.layers()), String.valueOf(m.heads()), String.valueOf(m.kvHeads()),
-                    String.valueOf(m.headDim()),
-                    Figures.bytes(Formulas.kvBytesPerToken(m.layers(), m.kvHeads(), m.headDim(), 16)),
-                    entry.description()));
+            models.row(List.of(entry.name(), Figures.params(m.paramsTotal()) + (m.paramsComputed() ? "*" : ""),
+                    Figures.params(m.paramsActive()), String.valueOf(m.layers()), String.valueOf(m.heads()),
+                    m.kv().latent() ? "latent" : String.valueOf(m.kvHeads()), String.valueOf(m.headDim()),
+                    Figures.bytes(Formulas.kvBytesPerToken(m, 16)), entry.description()));
         }
         out.append(models.render()).append("* params computed from the shape (embeddings, attention and feed-forward"
                 + " weights; biases and norms left out).\n\nSources:\n");
@@ -109,6 +117,10 @@ public final class TargetsReport {
         out.append(devices.render()).append("\nSources:\n");
         catalog.devices().forEach(e -> out.append("  ").append(e.name()).append(": ").append(e.source())
                 .append(e.fromMemory() ? " (from memory)" : "").append('\n'));
+        out.append("\nPrecisions weight_bits and kv_bits may name (or give a number of bits such as 4.5):\n");
+        Precision.names().forEach((name, bits) -> out.append("  ").append(name).append(" = ")
+                .append(Precision.label(bits)).append(" bits: ")
+                .append(Precision.meaning(name)).append('\n'));
         return out.append('\n').append(Figures.ESTIMATE_NOTE).append('\n').toString();
     }
 
@@ -158,12 +170,27 @@ public final class TargetsReport {
     private static ObjectNode model(ModelShape m) {
         ObjectNode node = Json.mapper().createObjectNode();
         node.put("origin", m.origin());
-        node.put("params", m.params());
+        node.put("params", m.paramsTotal());
+        node.put("params_total", m.paramsTotal());
+        node.put("params_active", m.paramsActive());
         node.put("params_computed", m.paramsComputed());
         node.put("layers", m.layers());
         node.put("heads", m.heads());
         node.put("kv_heads", m.kvHeads());
         node.put("head_dim", m.headDim());
+        node.put("kv_width_per_layer", m.kv().widthPerLayer());
+        if (m.kv().latent()) {
+            node.put("kv_latent", true);
+        }
+        if (m.kv().window() > 0) {
+            node.put("window", m.kv().window());
+            node.put("windowed_layers", m.kv().windowedLayers());
+        }
+        if (m.experts().present()) {
+            node.put("experts", m.experts().count());
+            node.put("experts_per_token", m.experts().perToken());
+        }
+        m.contextLimit().ifPresent(v -> node.put("context_limit", v));
         return node;
     }
 
@@ -175,6 +202,7 @@ public final class TargetsReport {
         d.peakTflops().ifPresent(v -> node.put("peak_tflops", v));
         d.bandwidthGbps().ifPresent(v -> node.put("bandwidth_gbps", v));
         d.efficiency().ifPresent(v -> node.put("efficiency", v));
+        d.bandwidthEfficiency().ifPresent(v -> node.put("bandwidth_efficiency", v));
         return node;
     }
 

@@ -29,11 +29,18 @@ public final class CostEstimate {
      * @param outputTokens output tokens per call, overriding the template's and the target's
      * @param cachedTokens leading input tokens served from the prefix cache
      * @param sweep        settings to sweep; empty for one footprint
+     * @param concurrency  requests served at once, overriding the target's
      */
     public record Request(String target, OptionalInt inputTokens, Optional<String> file, OptionalInt outputTokens,
-                          OptionalInt cachedTokens, List<Sweep.Axis> sweep) {
+                          OptionalInt cachedTokens, List<Sweep.Axis> sweep, OptionalInt concurrency) {
         public Request {
             sweep = List.copyOf(sweep);
+        }
+
+        /** A request at the target's own concurrency. */
+        public Request(String target, OptionalInt inputTokens, Optional<String> file, OptionalInt outputTokens,
+                       OptionalInt cachedTokens, List<Sweep.Axis> sweep) {
+            this(target, inputTokens, file, outputTokens, cachedTokens, sweep, OptionalInt.empty());
         }
     }
 
@@ -62,7 +69,9 @@ public final class CostEstimate {
      * @throws TareException for an unknown target, an unusable file or an impossible token count
      */
     public static Result run(Workspace workspace, Request request) {
-        TargetConfig target = workspace.config().target(request.target());
+        TargetConfig configured = workspace.config().target(request.target());
+        TargetConfig target = request.concurrency().isPresent()
+                ? configured.withConcurrency(request.concurrency().getAsInt()) : configured;
         CallSize measured = request.file().isPresent()
                 ? measure(workspace, target, request.file().get())
                 : CallSize.of(request.inputTokens().orElseThrow(() -> new IllegalArgumentException("no prompt size")),

@@ -63,7 +63,9 @@ class ScanFootprintTest {
                     hosted.get("cost_per_call").asDouble(), 1e-12);
             JsonNode box = template.get("targets").get("box");
             List<String> expected = new ArrayList<>(Coverage.KEYS);
-            expected.removeAll(List.of("cached_input_tokens", "cost_per_call", "cost_per_month", "currency"));
+            // No price, and the catalog's opt-1.3b states no context limit.
+            expected.removeAll(List.of("cached_input_tokens", "cost_per_call", "cost_per_month", "currency",
+                    "context_limit"));
             assertEquals(expected, keys(box));
             // opt-1.3b at fp16 KV: 2 × 24 layers × 32 heads × 64 × 2 bytes = 196,608 bytes per token.
             assertEquals(196_608, box.get("kv_bytes_per_token").asLong());

@@ -51,7 +51,7 @@ class DeploymentConfigTest {
                     device: {memory_gib: 16, usable_fraction: 0.75, peak_tflops: 25, bandwidth_gbps: 120, efficiency: 0.4}
                 """);
         ModelShape m = t.model().orElseThrow();
-        assertEquals(3.8e9, m.params());
+        assertEquals(3.8e9, m.paramsTotal());
         assertEquals(32, m.layers());
         assertEquals(8, m.kvHeads());
         assertEquals(96, m.headDim());
@@ -112,7 +112,7 @@ class DeploymentConfigTest {
                     tokenizer: o200k_base
                     model: {config: models/m/config.json}
                 """).model().orElseThrow();
-        assertEquals(1_234_567_890, m.params());
+        assertEquals(1_234_567_890, m.paramsTotal());
         assertFalse(m.paramsComputed());
         assertEquals(24, m.layers());
         assertEquals(4, m.kvHeads());
@@ -139,7 +139,7 @@ class DeploymentConfigTest {
                     tokenizer: o200k_base
                     model: {config: models/small/config.json, layers: 24}
                 """).model().orElseThrow();
-        assertEquals(493_961_216, m.params(), 0.5);
+        assertEquals(493_961_216, m.paramsTotal(), 0.5);
         assertTrue(m.paramsComputed());
         assertEquals(64, m.headDim());
         assertEquals(2, m.kvHeads());
@@ -158,7 +158,7 @@ class DeploymentConfigTest {
                 """).model().orElseThrow();
         assertEquals(8, m.layers());
         assertEquals(32, m.headDim());
-        assertEquals(5000, m.params());
+        assertEquals(5000, m.paramsTotal());
     }
 
     @Test
@@ -284,5 +284,53 @@ class DeploymentConfigTest {
                     tokenizer: o200k_base
                     device: toaster
                 """).getMessage().contains("targets[0].device: unknown catalog device 'toaster'"));
+    }
+    @Test
+    void inlineShapesStateExpertsActiveParamsWindowsAndLatentWidth() throws IOException {
+        TargetConfig t = only("""
+                  - name: t
+                    tokenizer: o200k_base
+                    concurrency: 16
+                    model: {params: 46.7e9, params_active: 12.9e9, experts: 8, experts_per_token: 2, layers: 32,
+                            heads: 32, kv_heads: 8, head_dim: 128, window: 4096, windowed_layers: 16,
+                            kv_latent_width: 576, context_limit: 32768}
+                    device: {catalog: gpu-80gb, bandwidth_efficiency: 0.8}
+                """);
+        ModelShape m = t.model().orElseThrow();
+        assertEquals(46.7e9, m.paramsTotal());
+        assertEquals(12.9e9, m.paramsActive());
+        // one expert over all layers: (46.7e9 − 12.9e9) / (8 − 2)
+        assertEquals(33.8e9 / 6, m.experts().paramsPerExpert(), 1e3);
+        assertEquals(16, m.kv().windowedLayers());
+        assertEquals(4096, m.kv().window());
+        assertEquals(576, m.kv().widthPerLayer());
+        assertTrue(m.kv().latent());
+        assertEquals(32768, m.contextLimit().getAsInt());
+        assertEquals(16, t.batch());
+        assertEquals(0.8, t.device().orElseThrow().bandwidthEfficiency().getAsDouble());
+    }
+
+    @Test
+    void inlineShapeMistakesNameTheKey() {
+        assertTrue(refused("""
+                  - name: t
+                    tokenizer: o200k_base
+                    model: {params: 1e9, params_active: 2e9, layers: 2, heads: 2, head_dim: 2}
+                """).getMessage().contains("targets[0].model.params_active: is more than params"));
+        assertTrue(refused("""
+                  - name: t
+                    tokenizer: o200k_base
+                    model: {params: 1e9, experts: 4, experts_per_token: 5, layers: 2, heads: 2, head_dim: 2}
+                """).getMessage().contains("experts_per_token at most experts (got 5 of 4)"));
+        assertTrue(refused("""
+                  - name: t
+                    tokenizer: o200k_base
+                    model: {params: 1e9, window: 64, windowed_layers: 3, layers: 2, heads: 2, head_dim: 2}
+                """).getMessage().contains("targets[0].model.windowed_layers: 3 windowed layers is more than the 2 layers"));
+        assertTrue(refused("""
+                  - name: t
+                    tokenizer: o200k_base
+                    concurrency: 0
+                """).getMessage().contains("targets[0].concurrency: must be a whole number of at least 1"));
     }
 }

@@ -80,13 +80,25 @@ class FootprintsTest {
             addIf(present, "cost_per_call", f.costPerCall().isPresent());
             addIf(present, "cost_per_month", f.costPerMonth().isPresent());
             addIf(present, "currency", f.currency().isPresent());
+            Optional<Footprint.Load> load = f.load();
+            addIf(present, "params_total", load.isPresent());
+            addIf(present, "params_active", load.isPresent());
             addIf(present, "prefill_flops", f.prefillFlops().isPresent());
             addIf(present, "prefill_ms", f.prefillMillis().isPresent());
             addIf(present, "decode_ms_per_token", f.decodeMillisPerToken().isPresent());
+            addIf(present, "tokens_per_second", load.isPresent() && load.get().tokensPerSecond().isPresent());
+            addIf(present, "time_to_first_token_ms", load.isPresent()
+                    && load.get().timeToFirstTokenMillis().isPresent());
             addIf(present, "weight_bytes", f.weightBytes().isPresent());
             addIf(present, "kv_bytes_per_token", f.kvBytesPerToken().isPresent());
             addIf(present, "kv_cache_bytes", f.kvCacheBytes().isPresent());
             addIf(present, "max_concurrent", f.maxConcurrent().isPresent());
+            addIf(present, "context_limit", load.isPresent() && load.get().contextLimit().isPresent());
+            addIf(present, "concurrency", load.isPresent());
+            addIf(present, "decode_bytes_per_step", load.isPresent() && load.get().decodeBytesPerStep().isPresent());
+            addIf(present, "tokens_per_second_total", load.isPresent()
+                    && load.get().tokensPerSecondTotal().isPresent());
+            addIf(present, "end_to_end_ms", load.isPresent() && load.get().endToEndMillis().isPresent());
             assertEquals(Coverage.of(target).computes(), present, target.name());
         }
         Coverage partial = Coverage.of(targets.get(3));

@@ -1,6 +1,7 @@
 package dev.tare.footprint;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -37,5 +38,19 @@ class PrecisionTest {
         assertThrows(TareException.class, () -> Precision.parse("0"));
         assertThrows(TareException.class, () -> Precision.parse("64"));
         assertThrows(TareException.class, () -> Precision.check(Double.NaN));
+    }
+    @Test
+    void groupFormatsSayWhatTheirScalesAdd() {
+        // a 16-bit scale per group of 32 weights adds 16 / 32 = 0.5 bit (from memory)
+        assertEquals(4.5, Precision.parse("int4-g32"));
+        assertEquals(4.125, Precision.parse("int4-g128"));
+        assertEquals(3.5, Precision.parse("int3-g32"));
+        assertTrue(Precision.meaning("int4-g32").contains("16-bit scale per group of 32"), Precision.meaning("int4-g32"));
+        assertTrue(Precision.meaning("int4-g32").contains("from memory"));
+        assertTrue(Precision.meaning(4.5).isPresent());
+        assertTrue(Precision.meaning(4).isEmpty());
+        for (String name : Precision.names().keySet()) {
+            assertFalse(Precision.meaning(name).isBlank(), name);
+        }
     }
 }

@@ -15,6 +15,6 @@ public final class BuiltInRules {
                 new ProseTab(), new RepeatedInstruction(), new SharedBlock(), new SpaceRun(), new TrailingWhitespace(),
                 new UnknownSuppression(), new UnresolvedInclude(), new UnsizedVariable(), new UnterminatedPlaceholder(),
                 new UnusedVariable(), new PrettyToolFile(), new RepeatedToolDescription(), new LongToolText(),
-                new UndescribedToolParameter(), new ToolCost());
+                new UndescribedToolParameter(), new ToolCost(), new ContextLimit());
     }
 }
