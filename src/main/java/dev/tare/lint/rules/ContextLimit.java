@@ -31,7 +31,6 @@ import java.util.OptionalInt;
  */
 final class ContextLimit implements Rule {
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("context-limit", Severity.WARNING,
-            RewriteClass.NONE,
             "A template whose input plus output tokens exceed the model's context.",
             "A call longer than the context is cut or refused: the model never sees the end of the prompt, or"
                     + " the request fails, on every call.",
