@@ -25,21 +25,16 @@ final class Layouts {
             }
         }
         int[][] gapEnds = new int[n][];
+        boolean[] laidOut = new boolean[n];
         for (int i = 0; i < n; i++) {
-            if (!open(roles[i])) {
-                continue;
+            if (open(roles[i])) {
+                gapEnds[i] = gapEnds(text, lines.start(i), lines.end(i), 2);
+                laidOut[i] = drawn(text, lines.start(i), lines.end(i))
+                        || gapEnds(text, lines.start(i), lines.end(i), 3).length > 0;
             }
-            if (drawn(text, lines.start(i), lines.end(i))) {
-                roles[i] = Role.ALIGNED;
-            }
-            gapEnds[i] = gapEnds(text, lines.start(i), lines.end(i));
         }
         for (int i = 0; i < n; i++) {
-            if (gapEnds[i] == null) {
-                continue;
-            }
-            boolean wide = gapEnds[i].length > 0 && gapEnds[i][gapEnds[i].length - 1] < 0;
-            if (wide || linesUp(gapEnds, i, i - 1) || linesUp(gapEnds, i, i + 1)) {
+            if (gapEnds[i] != null && (laidOut[i] || linesUp(gapEnds, i, i - 1) || linesUp(gapEnds, i, i + 1))) {
                 roles[i] = Role.ALIGNED;
             }
         }
@@ -90,17 +85,13 @@ final class Layouts {
         return false;
     }
 
-    /**
-     * The columns where runs of two or more spaces between words end (where the next column
-     * starts); a run of three or more is stored negated, since that alone marks a laid-out line.
-     */
-    private static int[] gapEnds(String text, int start, int end) {
+    /** The columns (from the line's start) where runs of at least {@code width} spaces between words end. */
+    private static int[] gapEnds(String text, int start, int end, int width) {
         int i = start;
         while (i < end && (text.charAt(i) == ' ' || text.charAt(i) == '\t')) {
             i++;
         }
-        int[] found = new int[0];
-        boolean wide = false;
+        java.util.List<Integer> found = new java.util.ArrayList<>();
         while (i < end) {
             if (text.charAt(i) != ' ') {
                 i++;
@@ -110,19 +101,12 @@ final class Layouts {
             while (run < end && text.charAt(run) == ' ') {
                 run++;
             }
-            if (run < end && run - i >= 2) {
-                found = java.util.Arrays.copyOf(found, found.length + 1);
-                found[found.length - 1] = run - start;
-                wide |= run - i >= 3;
+            if (run < end && run - i >= width) {
+                found.add(run - start);
             }
             i = run;
         }
-        if (wide) {
-            int[] marked = java.util.Arrays.copyOf(found, found.length + 1);
-            marked[found.length] = -1;
-            return marked;
-        }
-        return found;
+        return found.stream().mapToInt(Integer::intValue).toArray();
     }
 
     /** Whether a gap of line {@code i} ends in the same column as a gap of line {@code j}: columns that line up. */
@@ -132,7 +116,7 @@ final class Layouts {
         }
         for (int a : gapEnds[i]) {
             for (int b : gapEnds[j]) {
-                if (a >= 0 && a == b) {
+                if (a == b) {
                     return true;
                 }
             }

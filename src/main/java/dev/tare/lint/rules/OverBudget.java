@@ -4,7 +4,6 @@ import dev.tare.config.TargetConfig;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
-import dev.tare.lint.RewriteClass;
 import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;

@@ -14,7 +14,6 @@ import dev.tare.lint.LintContext;
 import dev.tare.lint.MessageText;
 import dev.tare.lint.Replaceable;
 import dev.tare.lint.Related;
-import dev.tare.lint.RewriteClass;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
 import dev.tare.lint.Suppressions;
