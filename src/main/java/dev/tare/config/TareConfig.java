@@ -1,9 +1,12 @@
 package dev.tare.config;
 
 import dev.tare.TareException;
+import dev.tare.source.SafeReader;
+import dev.tare.source.YamlDocument;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Optional;
+import java.util.OptionalInt;
 import java.util.stream.Collectors;
 
 /**
@@ -48,6 +51,25 @@ public record TareConfig(Path root, Optional<Path> file, TemplatesConfig templat
                 .orElseThrow(() -> new TareException("unknown target '" + name + "'"
                         + (targets.isEmpty() ? "; " + describeFile() + " configures no targets"
                         : "; configured targets: " + targets.stream().map(TargetConfig::name).collect(Collectors.joining(", ")))));
+    }
+
+    /**
+     * How a message about {@code key} begins: the configuration file, the line the key is on when it
+     * can be found, and the key ({@code "tare.yaml, line 4: rules.disable[0]: "}).
+     */
+    public String where(String key) {
+        String name = file.map(Path::toString).orElse("configuration");
+        OptionalInt line = file.map(f -> lineOf(f, key)).orElse(OptionalInt.empty());
+        return name + (line.isPresent() ? ", line " + line.getAsInt() : "") + ": " + key + ": ";
+    }
+
+    private static OptionalInt lineOf(Path file, String key) {
+        try {
+            return YamlDocument.parseYaml(new SafeReader(SafeReader.DEFAULT_MAX_BYTES).read(file.toString(), file).text())
+                    .line(key);
+        } catch (TareException e) {
+            return OptionalInt.empty();
+        }
     }
 
     private String describeFile() {

@@ -54,7 +54,7 @@ public final class Check {
      */
     public synchronized RuleCatalog catalog() {
         if (catalog == null) {
-            catalog = RuleCatalog.load(workspace.config());
+            catalog = dev.tare.app.RulePacks.catalog(workspace.config());
         }
         return catalog;
     }

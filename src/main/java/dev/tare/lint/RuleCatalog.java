@@ -4,22 +4,18 @@ import dev.tare.TareException;
 import dev.tare.config.RulesConfig;
 import dev.tare.config.TareConfig;
 import dev.tare.lint.rules.BuiltInRules;
-import dev.tare.source.SafeReader;
-import dev.tare.source.YamlDocument;
-import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import java.util.Optional;
-import java.util.OptionalInt;
 import java.util.Set;
 import java.util.TreeMap;
 
 /**
- * Every rule a run knows: the built-in rules, the packs shipped in the jar, and the pack folders
- * {@code rules.packs} names; with {@code rules.disable} and {@code rules.severity} applied. Ids are
+ * Every rule a run knows: the built-in rules and the rules of the packs it read (those shipped with
+ * Tare and the folders {@code rules.packs} names); with {@code rules.disable} and
+ * {@code rules.severity} applied. Ids are
  * unique across all of them.
  */
 public final class RuleCatalog {
@@ -34,25 +30,17 @@ public final class RuleCatalog {
     }
 
     /**
-     * The catalog for {@code config}.
+     * The catalog for {@code config}: the built-in rules and {@code packRules}, the rules of every
+     * pack the run reads (those shipped with Tare and those {@code rules.packs} names).
      *
-     * @throws TareException when a pack is broken, two rules share an id, or the configuration names
-     *                       an unknown rule or severity (naming the file, line and key)
+     * @throws TareException when two rules share an id, or the configuration names an unknown rule or
+     *                       severity (naming the file, line and key)
      */
-    public static RuleCatalog load(TareConfig config) {
+    public static RuleCatalog of(TareConfig config, List<Rule> packRules) {
         Map<String, Rule> byId = new TreeMap<>();
         add(byId, BuiltInRules.all());
-        add(byId, PackLoader.builtIn());
+        add(byId, packRules);
         RulesConfig settings = config.rules();
-        for (int i = 0; i < settings.packs().size(); i++) {
-            String folder = settings.packs().get(i);
-            Path path = config.root().resolve(folder).normalize();
-            try {
-                add(byId, PackLoader.folder(path, folder));
-            } catch (TareException e) {
-                throw located(config, "rules.packs[" + i + "]", e.getMessage());
-            }
-        }
         Set<String> disabled = new java.util.TreeSet<>();
         for (int i = 0; i < settings.disable().size(); i++) {
             String id = settings.disable().get(i);
@@ -66,7 +54,8 @@ public final class RuleCatalog {
             try {
                 severities.put(entry.getKey(), Severity.parse(entry.getValue(), key));
             } catch (TareException e) {
-                throw located(config, key, "unknown severity '" + entry.getValue() + "'; use error, warning or info");
+                throw new TareException(config.where(key) + "unknown severity '" + entry.getValue()
+                        + "'; use error, warning or info");
             }
         }
         return new RuleCatalog(java.util.Collections.unmodifiableMap(byId), Set.copyOf(disabled), Map.copyOf(severities));
@@ -85,24 +74,8 @@ public final class RuleCatalog {
 
     private static void requireKnown(TareConfig config, Map<String, Rule> byId, String id, String key) {
         if (!byId.containsKey(id)) {
-            throw located(config, key, "unknown rule '" + id + "'" + suggestion(id, byId.keySet())
+            throw new TareException(config.where(key) + "unknown rule '" + id + "'" + suggestion(id, byId.keySet())
                     + "; 'tare rules' lists every rule");
-        }
-    }
-
-    private static TareException located(TareConfig config, String key, String message) {
-        String file = config.file().map(Path::toString).orElse("configuration");
-        OptionalInt line = config.file().flatMap(f -> lineOf(f, key)).map(OptionalInt::of).orElse(OptionalInt.empty());
-        return new TareException(file + (line.isPresent() ? ", line " + line.getAsInt() : "") + ": " + key + ": " + message);
-    }
-
-    private static Optional<Integer> lineOf(Path file, String key) {
-        try {
-            YamlDocument document = YamlDocument.parseYaml(new SafeReader(SafeReader.DEFAULT_MAX_BYTES).read(file.toString(), file).text());
-            OptionalInt line = document.line(key);
-            return line.isPresent() ? Optional.of(line.getAsInt()) : Optional.empty();
-        } catch (TareException e) {
-            return Optional.empty();
         }
     }
 

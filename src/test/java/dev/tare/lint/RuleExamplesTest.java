@@ -23,7 +23,7 @@ class RuleExamplesTest {
 
     @TestFactory
     Stream<DynamicTest> everyExampleBehavesAsWritten() {
-        RuleCatalog catalog = RuleCatalog.load(TareConfig.defaults(PROJECT));
+        RuleCatalog catalog = dev.tare.app.RulePacks.catalog(TareConfig.defaults(PROJECT));
         List<DynamicTest> tests = new ArrayList<>();
         for (Rule rule : catalog.all()) {
             List<Example> examples = rule.descriptor().examples();
@@ -42,7 +42,7 @@ class RuleExamplesTest {
 
     @Test
     void theDemoHousePackExamplesRunToo() {
-        RuleCatalog catalog = RuleCatalog.load(dev.tare.config.ConfigLoader.load(PROJECT.resolve("corpora/demo/tare.yaml")));
+        RuleCatalog catalog = dev.tare.app.RulePacks.catalog(dev.tare.config.ConfigLoader.load(PROJECT.resolve("corpora/demo/tare.yaml")));
         List<ExampleRunner.Outcome> outcomes = ExampleRunner.runAll(catalog);
         assertTrue(outcomes.stream().anyMatch(o -> o.rule().equals("repeated-punctuation")));
         assertTrue(outcomes.stream().allMatch(ExampleRunner.Outcome::passed), outcomes.toString());
@@ -50,7 +50,7 @@ class RuleExamplesTest {
 
     @Test
     void aBrokenExampleIsReportedNotPassed() {
-        Rule rule = RuleCatalog.load(TareConfig.defaults(PROJECT)).rule("trailing-whitespace");
+        Rule rule = dev.tare.app.RulePacks.catalog(TareConfig.defaults(PROJECT)).rule("trailing-whitespace");
         Optional<String> problem = ExampleRunner.run(rule, Example.of("Be brief.  \n", "Be brief. \n"), java.util.Set.of());
         assertTrue(problem.isPresent());
         assertTrue(problem.get().startsWith("its rewrites give"), problem.get());

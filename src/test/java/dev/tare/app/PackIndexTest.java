@@ -1,9 +1,10 @@
-package dev.tare.lint;
+package dev.tare.app;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import dev.tare.lint.Rule;
 import java.io.IOException;
 import java.io.OutputStream;
 import java.net.URL;
@@ -43,7 +44,7 @@ class PackIndexTest {
     void theBuildIndexedEveryPackOfTheRepository() throws IOException {
         List<String> indexed = new String(getClass().getClassLoader().getResourceAsStream(PackIndex.INDEX).readAllBytes(),
                 StandardCharsets.UTF_8).lines().toList();
-        assertEquals(PackIndex.names(Path.of(PackLoader.FOLDER)), indexed);
+        assertEquals(PackIndex.names(Path.of(RulePacks.FOLDER)), indexed);
         assertTrue(!indexed.isEmpty(), "the repository ships at least one pack");
     }
 
@@ -54,7 +55,7 @@ class PackIndexTest {
         entries.put("rules/style.yaml", PACK);
         entries.put("rules/ignored.yaml", "not: [a pack, and not listed]");
         try (URLClassLoader loader = jar(entries)) {
-            List<Rule> rules = PackLoader.builtIn(loader);
+            List<Rule> rules = RulePacks.builtIn(loader);
             assertEquals(List.of("kindly-note"), rules.stream().map(r -> r.descriptor().id()).toList());
         }
     }
@@ -62,13 +63,20 @@ class PackIndexTest {
     @Test
     void aJarWithoutItsIndexOrAListedPackIsAPackagingBug() throws IOException {
         try (URLClassLoader noIndex = jar(Map.of("rules/style.yaml", PACK))) {
-            IllegalStateException e = assertThrows(IllegalStateException.class, () -> PackLoader.builtIn(noIndex));
+            IllegalStateException e = assertThrows(IllegalStateException.class, () -> RulePacks.builtIn(noIndex));
             assertTrue(e.getMessage().contains("index.txt"), e.getMessage());
         }
         try (URLClassLoader missing = jar(Map.of("rules/index.txt", "gone.yaml\n"))) {
-            IllegalStateException e = assertThrows(IllegalStateException.class, () -> PackLoader.builtIn(missing));
+            IllegalStateException e = assertThrows(IllegalStateException.class, () -> RulePacks.builtIn(missing));
             assertTrue(e.getMessage().contains("rules/gone.yaml"), e.getMessage());
         }
+    }
+
+    @Test
+    void theShippedPacksLoad() {
+        List<Rule> rules = RulePacks.builtIn();
+        assertTrue(rules.stream().anyMatch(r -> r.descriptor().id().equals("in-order-to")));
+        assertTrue(rules.stream().allMatch(r -> r.descriptor().origin().startsWith("rules/")));
     }
 
     /** A jar of {@code entries} (with the folder entry a packaged jar has), seen by a loader with no parent. */

@@ -4,124 +4,28 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.google.re2j.Pattern;
 import com.google.re2j.PatternSyntaxException;
 import dev.tare.TareException;
-import dev.tare.source.SafeReader;
 import dev.tare.source.YamlDocument;
-import java.io.IOException;
-import java.io.InputStream;
-import java.net.URISyntaxException;
-import java.net.URL;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Iterator;
 import java.util.List;
 import java.util.Optional;
 import java.util.OptionalInt;
 import java.util.Set;
-import java.util.stream.Stream;
 
 /**
- * Loads rule packs: YAML files holding {@code rules:}, a list of rules with {@code id},
+ * Reads rule packs: YAML texts holding {@code rules:}, a list of rules with {@code id},
  * {@code summary}, {@code why}, {@code class} (safe, review or none), {@code severity} (error,
  * warning or info), {@code scope} (everywhere or prose), {@code find} (an RE2 pattern),
  * {@code replace} (required unless the class is none), {@code examples} ({@code [{before, after}]},
  * at least one) and optionally {@code instead} and {@code message}. Anything missing or wrong is a
  * {@link TareException} naming the file, the line and the rule.
  */
-public final class PackLoader {
-    /** The folder of rule packs in the repository and inside the jar. */
-    public static final String FOLDER = "rules";
-
+public final class PackParser {
     private static final Set<String> KEYS = Set.of("id", "summary", "why", "class", "severity", "scope", "find",
             "replace", "examples", "instead", "message");
     private static final List<String> REQUIRED = List.of("id", "summary", "why", "class", "severity", "scope", "find",
             "examples");
-    private static final long MAX_PACK_BYTES = 1024 * 1024;
-
-    private PackLoader() {
-    }
-
-    /**
-     * The packs shipped inside Tare (the repository's {@code rules/} folder, packaged into the jar). From
-     * the jar they are read by the names in {@link PackIndex#INDEX}, which the build writes, rather than
-     * by opening the jar as a file system: that costs a pre-commit hook more than the rules do.
-     */
-    public static List<Rule> builtIn() {
-        return builtIn(PackLoader.class.getClassLoader());
-    }
-
-    /** The packs {@code loader} holds under {@value #FOLDER}. */
-    static List<Rule> builtIn(ClassLoader loader) {
-        URL folder = loader.getResource(FOLDER);
-        if (folder == null) {
-            return List.of();
-        }
-        try {
-            if (folder.getProtocol().equals("file")) {
-                return loadFolder(Path.of(folder.toURI()), FOLDER);
-            }
-            byte[] index = resource(loader, PackIndex.INDEX);
-            if (index == null) {
-                throw new IllegalStateException(PackIndex.INDEX + " is missing from the jar; build it with mvn package");
-            }
-            List<Rule> rules = new ArrayList<>();
-            for (String file : new String(index, StandardCharsets.UTF_8).lines().filter(line -> !line.isBlank()).toList()) {
-                String name = FOLDER + "/" + file;
-                byte[] text = resource(loader, name);
-                if (text == null) {
-                    throw new IllegalStateException(name + " is listed in " + PackIndex.INDEX + " but missing from the jar");
-                }
-                rules.addAll(parse(name, new String(text, StandardCharsets.UTF_8)));
-            }
-            return rules;
-        } catch (URISyntaxException | IOException e) {
-            throw new IllegalStateException("the built-in rule packs cannot be read", e);
-        }
-    }
-
-    private static byte[] resource(ClassLoader loader, String name) throws IOException {
-        try (InputStream in = loader.getResourceAsStream(name)) {
-            return in == null ? null : in.readAllBytes();
-        }
-    }
-
-    /**
-     * Every pack in {@code folder}, files in name order.
-     *
-     * @param shownAs how messages and outputs name the folder
-     */
-    public static List<Rule> folder(Path folder, String shownAs) {
-        if (!Files.isDirectory(folder)) {
-            throw new TareException(shownAs + ": no such rule-pack folder; create it or remove it from rules.packs");
-        }
-        try {
-            return loadFolder(folder, shownAs);
-        } catch (IOException e) {
-            throw new TareException(shownAs + ": cannot be read (" + e.getMessage() + ")", e);
-        }
-    }
-
-    private static List<Rule> loadFolder(Path folder, String shownAs) throws IOException {
-        List<Path> files;
-        try (Stream<Path> list = Files.list(folder)) {
-            files = list.filter(p -> PackIndex.isPack(p.getFileName().toString())).sorted(
-                    java.util.Comparator.comparing(p -> p.getFileName().toString())).toList();
-        }
-        List<Rule> rules = new ArrayList<>();
-        for (Path file : files) {
-            String name = shownAs + "/" + file.getFileName();
-            rules.addAll(parse(name, read(file, name)));
-        }
-        return rules;
-    }
-
-    private static String read(Path file, String name) {
-        try {
-            return new SafeReader(MAX_PACK_BYTES).read(name, file).text();
-        } catch (TareException e) {
-            throw new TareException(name + ": " + e.getMessage(), e);
-        }
+    private PackParser() {
     }
 
     /**

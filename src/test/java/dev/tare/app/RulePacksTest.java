@@ -1,4 +1,4 @@
-package dev.tare.lint;
+package dev.tare.app;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
@@ -6,6 +6,9 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.tare.TareException;
+import dev.tare.lint.Rule;
+import dev.tare.lint.RuleCatalog;
+import dev.tare.lint.Severity;
 import dev.tare.config.ConfigLoader;
 import dev.tare.config.TareConfig;
 import java.io.IOException;
@@ -15,7 +18,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 /** The rules section of tare.yaml: disable, severity, packs. */
-class RuleCatalogTest {
+class RulePacksTest {
     @TempDir
     Path dir;
 
@@ -26,7 +29,7 @@ class RuleCatalogTest {
 
     @Test
     void disableAndSeverityApply() throws IOException {
-        RuleCatalog catalog = RuleCatalog.load(config("rules:\n  disable: [space-run]\n  severity: {blank-lines: error}\n"));
+        RuleCatalog catalog = RulePacks.catalog(config("rules:\n  disable: [space-run]\n  severity: {blank-lines: error}\n"));
         assertTrue(catalog.isDisabled("space-run"));
         assertFalse(catalog.enabled().stream().anyMatch(r -> r.descriptor().id().equals("space-run")));
         assertEquals(Severity.ERROR, catalog.severity(catalog.rule("blank-lines").descriptor()));
@@ -36,7 +39,7 @@ class RuleCatalogTest {
     @Test
     void anUnknownRuleInDisableNamesTheFileLineAndKey() throws IOException {
         TareException e = assertThrows(TareException.class,
-                () -> RuleCatalog.load(config("rules:\n  disable:\n    - space-runs\n")));
+                () -> RulePacks.catalog(config("rules:\n  disable:\n    - space-runs\n")));
         assertTrue(e.getMessage().endsWith("tare.yaml, line 3: rules.disable[0]: unknown rule 'space-runs'; did you mean"
                 + " 'space-run'?; 'tare rules' lists every rule"), e.getMessage());
     }
@@ -44,10 +47,10 @@ class RuleCatalogTest {
     @Test
     void anUnknownRuleOrSeverityInSeverityNamesTheKey() throws IOException {
         TareException rule = assertThrows(TareException.class,
-                () -> RuleCatalog.load(config("rules:\n  severity: {no-such-rule: info}\n")));
+                () -> RulePacks.catalog(config("rules:\n  severity: {no-such-rule: info}\n")));
         assertTrue(rule.getMessage().contains("rules.severity.no-such-rule: unknown rule 'no-such-rule'"), rule.getMessage());
         TareException level = assertThrows(TareException.class,
-                () -> RuleCatalog.load(config("rules:\n  severity: {blank-lines: loud}\n")));
+                () -> RulePacks.catalog(config("rules:\n  severity: {blank-lines: loud}\n")));
         assertTrue(level.getMessage().contains("rules.severity.blank-lines: unknown severity 'loud'"), level.getMessage());
     }
 
@@ -57,8 +60,8 @@ class RuleCatalogTest {
         Files.writeString(dir.resolve("house/a.yaml"), "rules:\n  - id: no-shouting\n    summary: s\n    why: w\n"
                 + "    class: none\n    severity: info\n    scope: prose\n    find: '[A-Z]{6,}'\n"
                 + "    examples: [{before: 'STOP NOW PLEASE', after: 'Stop now'}]\n");
-        assertTrue(RuleCatalog.load(config("rules: {packs: [house]}\n")).ids().contains("no-shouting"));
-        TareException e = assertThrows(TareException.class, () -> RuleCatalog.load(config("rules: {packs: [nowhere]}\n")));
+        assertTrue(RulePacks.catalog(config("rules: {packs: [house]}\n")).ids().contains("no-shouting"));
+        TareException e = assertThrows(TareException.class, () -> RulePacks.catalog(config("rules: {packs: [nowhere]}\n")));
         assertTrue(e.getMessage().contains("rules.packs[0]: nowhere: no such rule-pack folder"), e.getMessage());
     }
 
@@ -67,7 +70,7 @@ class RuleCatalogTest {
         Files.createDirectories(dir.resolve("house"));
         Files.writeString(dir.resolve("house/a.yaml"), "rules:\n  - id: space-run\n    summary: s\n    why: w\n"
                 + "    class: none\n    severity: info\n    scope: prose\n    find: x\n    examples: [{before: x, after: y}]\n");
-        TareException e = assertThrows(TareException.class, () -> RuleCatalog.load(config("rules: {packs: [house]}\n")));
+        TareException e = assertThrows(TareException.class, () -> RulePacks.catalog(config("rules: {packs: [house]}\n")));
         assertTrue(e.getMessage().contains("rule 'space-run' is already defined in built-in"), e.getMessage());
     }
 }

@@ -1,4 +1,4 @@
-package dev.tare.lint;
+package dev.tare.app;
 
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
@@ -15,7 +15,7 @@ import java.util.stream.Stream;
  */
 public final class PackIndex {
     /** The index's resource name. */
-    static final String INDEX = PackLoader.FOLDER + "/index.txt";
+    static final String INDEX = RulePacks.FOLDER + "/index.txt";
 
     private PackIndex() {
     }
@@ -25,7 +25,7 @@ public final class PackIndex {
         if (args.length != 1) {
             throw new IllegalArgumentException("usage: PackIndex CLASS_OUTPUT_FOLDER");
         }
-        Path folder = Path.of(args[0], PackLoader.FOLDER);
+        Path folder = Path.of(args[0], RulePacks.FOLDER);
         Files.createDirectories(folder);
         Path partial = folder.resolve("index.txt.partial");
         Files.write(partial, names(folder), StandardCharsets.UTF_8);
