@@ -9,10 +9,6 @@ import dev.tare.tokenize.Tokenizer;
 import java.io.BufferedReader;
 import java.io.IOException;
 import java.nio.charset.CharacterCodingException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
-import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
@@ -32,14 +28,14 @@ public final class UsageLogReader {
     }
 
     /**
-     * Reads {@code file}.
+     * Reads the log {@code name} from {@code in}, line by line.
      *
-     * @throws TareException when the file cannot be read at all
+     * @throws TareException when the text cannot be read at all
      */
-    public UsageLog read(Path file) {
-        List<UsageSample> samples = new ArrayList<>();
+    public UsageLog read(BufferedReader in, String name) {
         List<String> problems = new ArrayList<>();
-        try (BufferedReader in = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
+        List<UsageSample> samples = new ArrayList<>();
+        try {
             int number = 0;
             for (String line = in.readLine(); line != null; line = in.readLine()) {
                 number++;
@@ -52,14 +48,12 @@ public final class UsageLogReader {
                     problems.add("line " + number + ": " + e.getMessage());
                 }
             }
-        } catch (NoSuchFileException e) {
-            throw new TareException(file + ": no such file");
         } catch (CharacterCodingException e) {
-            throw new TareException(file + ": not valid UTF-8; save the log as UTF-8", e);
+            throw new TareException(name + ": not valid UTF-8; save the log as UTF-8", e);
         } catch (IOException e) {
-            throw new TareException(file + ": cannot be read (" + e.getMessage() + ")", e);
+            throw new TareException(name + ": cannot be read (" + e.getMessage() + ")", e);
         }
-        return new UsageLog(file.toString(), samples, problems);
+        return new UsageLog(name, samples, problems);
     }
 
     private UsageSample sample(int number, String line) {

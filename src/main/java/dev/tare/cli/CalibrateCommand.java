@@ -1,15 +1,9 @@
 package dev.tare.cli;
 
-import dev.tare.TareException;
-import dev.tare.calibrate.Calibration;
+import dev.tare.app.TargetCalibration;
 import dev.tare.calibrate.CalibrationResult;
-import dev.tare.calibrate.Calibrator;
-import dev.tare.calibrate.UsageLog;
-import dev.tare.calibrate.UsageLogReader;
-import dev.tare.config.TargetConfig;
 import dev.tare.report.CalibrationReport;
 import dev.tare.scan.Workspace;
-import dev.tare.tokenize.TokenizerRegistry;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.List;
@@ -46,18 +40,11 @@ final class CalibrateCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        Workspace workspace = Workspace.open(List.of(), common.configFile());
-        TargetConfig config = workspace.config().target(target);
-        UsageLog usage = new UsageLogReader(new TokenizerRegistry().get(config.tokenizer(), workspace.root())).read(log);
+        TargetCalibration.Fit fit = TargetCalibration.fit(Workspace.open(List.of(), common.configFile()), target, log);
         PrintWriter err = spec.commandLine().getErr();
-        usage.problems().forEach(problem -> err.println("tare: " + log + ", " + problem + " (skipped)"));
+        fit.problems().forEach(problem -> err.println("tare: " + problem + " (skipped)"));
         err.flush();
-        if (usage.samples().isEmpty()) {
-            throw new TareException(log + ": no usable line; each line needs messages and reported_input_tokens");
-        }
-        Calibration before = new Calibration(config.scale(), config.messageOverheadTokens(), config.replyOverheadTokens(),
-                config.toolOverheadTokens());
-        CalibrationResult result = new Calibrator().fit(target, usage, before);
+        CalibrationResult result = fit.result();
         spec.commandLine().getOut().print(format == Format.json ? CalibrationReport.json(result) : CalibrationReport.text(result));
         spec.commandLine().getOut().flush();
         return ExitCodes.OK;

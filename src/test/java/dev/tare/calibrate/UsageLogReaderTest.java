@@ -26,7 +26,10 @@ class UsageLogReaderTest {
                 "{\"messages\": [{\"role\": \"user\", \"content\": \"x\"}], \"reported_input_tokens\": -4}",
                 "{\"messages\": [{\"role\": \"user\", \"content\": \"x\"}]}",
                 "{\"messages\": [{\"role\": \"user\", \"content\": 5}], \"reported_input_tokens\": 3}") + "\n");
-        UsageLog read = new UsageLogReader(o200k).read(log);
+        UsageLog read;
+        try (java.io.BufferedReader in = Files.newBufferedReader(log)) {
+            read = new UsageLogReader(o200k).read(in, log.toString());
+        }
         int expectedText = o200k.count("Be brief.") + o200k.count("Hi")
                 + o200k.count("{\"name\":\"lookup\",\"description\":\"Find an account.\",\"parameters\":{\"type\":\"object\"}}");
         assertEquals(List.of(new UsageSample(1, expectedText, 2, 1, 61)), read.samples());
