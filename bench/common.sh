@@ -2,10 +2,14 @@
 # corpus of bench/GenerateCorpus.java, the test class path, and timing one command end to end.
 #
 # Environment: JAVA_HOME (run and build with that JDK), BENCH_COUNT and BENCH_SEED (corpus size and
-# seed, passed to the generator), TARE_JAVA_OPTS (extra JVM options, read by the ./tare launcher).
+# seed, passed to the generator), TARE_JAVA_OPTS (extra JVM options, read by the ./tare launcher),
+# BENCH_TARE (the checkout whose ./tare is measured; default this one).
 
 bench_here="$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)"
 bench_repo="$(cd "$bench_here/.." && pwd)"
+# The checkout whose Tare is measured: BENCH_TARE, else this one (bench/side-by-side.sh sets it to
+# measure two builds in one run). The corpus, the yardsticks and the scripts stay this checkout's.
+bench_tare="$(cd "${BENCH_TARE:-$bench_repo}" && pwd)"
 bench_out="$bench_here/out"
 bench_timer=/usr/bin/time
 
@@ -64,6 +68,7 @@ bench_bytes() {
 
 # bench_machine: one line about the machine and the JDK.
 bench_machine() {
+  echo "tare:    $bench_tare ($(git -C "$bench_tare" rev-parse --short HEAD 2>/dev/null || echo "not a git checkout"))"
   echo "machine: $(nproc) cores, $(awk '/MemTotal/ { printf "%.1f GiB", $2 / 1048576 }' /proc/meminfo) memory, $(uname -srm), $(java -version 2>&1 | head -n 1)"
   if [ -n "${TARE_JAVA_OPTS:-}" ]; then
     echo "jvm options: $TARE_JAVA_OPTS"
