@@ -5,7 +5,6 @@ import java.io.FileOutputStream;
 import java.io.OutputStreamWriter;
 import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
-import java.util.OptionalInt;
 
 /** The {@code tare} program: parses the command line, runs one command, exits with its code. */
 public final class Main {
@@ -21,12 +20,8 @@ public final class Main {
         System.exit(code);
     }
 
-    /**
-     * Runs one command and returns its exit code: a warm scan that ran before from the same folder
-     * straight from what it asked for then ({@link ScanReplay}), any other through picocli.
-     */
+    /** Runs one command through picocli and returns its exit code. */
     static int run(String[] args, PrintWriter out, PrintWriter err) {
-        OptionalInt replayed = ScanReplay.run(args, out);
-        return replayed.isPresent() ? replayed.getAsInt() : TareCommand.commandLine(out, err, args).execute(args);
+        return TareCommand.commandLine(out, err, args).execute(args);
     }
 }

@@ -427,7 +427,7 @@ public final class StoredReport {
         }
     }
 
-    /** Writes {@code text} in UTF-8, its length first (as {@link RememberedLines} does too). */
+    /** Writes {@code text} in UTF-8, its length first. */
     static void string(DataOutputStream out, String text) throws IOException {
         bytes(out, text.getBytes(StandardCharsets.UTF_8));
     }
