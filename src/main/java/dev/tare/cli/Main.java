@@ -1,5 +1,6 @@
 package dev.tare.cli;
 
+import java.io.BufferedWriter;
 import java.io.FileDescriptor;
 import java.io.FileOutputStream;
 import java.io.OutputStreamWriter;
@@ -12,7 +13,8 @@ public final class Main {
     }
 
     public static void main(String[] args) {
-        PrintWriter out = new StandardOutput(new FileOutputStream(FileDescriptor.out));
+        PrintWriter out = new PrintWriter(new BufferedWriter(new OutputStreamWriter(new FileOutputStream(FileDescriptor.out),
+                StandardCharsets.UTF_8)));
         PrintWriter err = new PrintWriter(new OutputStreamWriter(new FileOutputStream(FileDescriptor.err), StandardCharsets.UTF_8), true);
         int code = run(args, out, err);
         out.flush();

@@ -62,10 +62,9 @@ final class ScanCommand implements Callable<Integer> {
     private Sort sort = Sort.path;
 
     @Option(names = "--no-cache", description = {"Measure every template afresh, and neither read nor write the"
-            + " cache of measurements and reports in the repository's .tare/cache folder.",
+            + " cache of measurements in the repository's .tare/cache folder.",
             "By default a template whose file, partials and tool files are unchanged since the last scan with the"
-            + " same configuration and build of Tare is not read or counted again, and when nothing at all"
-            + " changed the last report in the same format and order is printed again as it was."})
+            + " same configuration and build of Tare is not read or counted again."})
     private boolean noCache;
 
     @Override
@@ -79,11 +78,11 @@ final class ScanCommand implements Callable<Integer> {
                     : HtmlReport.render(overview, order));
             spec.commandLine().getOut().flush();
         } else {
-            java.nio.ByteBuffer report = new TemplateScan(workspace, new TokenizerRegistry()).report(options,
-                    format + " " + order, result -> format == Format.json ? ScanReport.json(result, order)
-                            : ScanReport.text(result, order),
+            ScanResult result = new TemplateScan(workspace, new TokenizerRegistry()).run(options,
                     TerminalProgress.forOutput(format != Format.text));
-            StandardOutput.print(spec.commandLine().getOut(), report);
+            spec.commandLine().getOut().print(format == Format.json ? ScanReport.json(result, order)
+                    : ScanReport.text(result, order));
+            spec.commandLine().getOut().flush();
         }
         return ExitCodes.OK;
     }

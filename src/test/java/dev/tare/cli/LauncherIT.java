@@ -52,14 +52,14 @@ class LauncherIT {
     }
 
     @Test
-    void aWarmScanThroughTheRealStandardOutputPrintsTheColdScansBytes() throws Exception {
+    void aWarmScanThroughTheRealStandardOutputPrintsTheUncachedScansBytes() throws Exception {
         for (String format : List.of("json", "text")) {
             Result uncached = launch("scan", "corpora/demo", "--format", format, "--no-cache");
             Result first = launch("scan", "corpora/demo", "--format", format);
             Result second = launch("scan", "corpora/demo", "--format", format);
             assertEquals(0, second.exitCode(), second.err());
             assertEquals(uncached.out(), first.out(), format);
-            assertEquals(uncached.out(), second.out(), format + ": the stored report, written as bytes, is the same text");
+            assertEquals(uncached.out(), second.out(), format + ": measurements read back from the cache print the same text");
         }
     }
 
