@@ -62,7 +62,7 @@ final class ScanCommand implements Callable<Integer> {
     private Sort sort = Sort.path;
 
     @Option(names = "--no-cache", description = {"Measure every template afresh, and neither read nor write the"
-            + " cache of measurements in the repository's .tare/cache folder.",
+            + " cache of measurements kept in the repository's .tare/cache folder.",
             "By default a template whose file, partials and tool files are unchanged since the last scan with the"
             + " same configuration and build of Tare is not read or counted again."})
     private boolean noCache;
