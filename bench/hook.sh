@@ -4,8 +4,8 @@
 # Makes a temporary git repository from the demo (tare.yaml with its three targets, partials, rule
 # packs, tokenizer file and tool files committed), stages 10 of its templates, installs Tare's hook,
 # and then times, in interleaved rounds (BENCH_RUNS, default 10; medians reported):
-#   hook script    .git/hooks/pre-commit, exactly what git runs (java, the class-data archive when
-#                  this JDK made it, -jar target/tare.jar hook run)
+#   hook script    .git/hooks/pre-commit as installed by ./tare hook install, exactly what git runs
+#                  (the ./tare launcher, with its JVM options, then hook run)
 #   jar hook run   java -jar target/tare.jar hook run --timings (no archive)
 #   ./tare hook    ./tare hook run --timings (the launcher, with its JVM options)
 #   jar count      java -jar target/tare.jar count --timings SMALL (no archive)
@@ -68,7 +68,7 @@ done
 mkdir -p "$repo/$(dirname "$small")"
 cp "$demo/$small" "$repo/$small"
 g add "${staged[@]}"
-(cd "$repo" && "$java" -jar "$jar" hook install >/dev/null)
+(cd "$repo" && "$project/tare" hook install >/dev/null)
 hook="$(cd "$repo" && realpath "$(git rev-parse --git-path hooks/pre-commit)")"
 
 labels=("hook script" "jar hook run" "./tare hook" "jar count" "./tare count")

@@ -3,7 +3,7 @@
 # first) on the synthetic corpus of bench/GenerateCorpus.java, a few runs in a row, each followed by
 # the same scan warm (from the .tare/cache the cold one left, its output checked byte for byte against
 # the cold one's), then `tare scan --help` as often (for scale: a JVM start that builds picocli's
-# model of the command and does no work, which a warm scan skips), and prints wall time, throughput
+# model of the command and does no work), and prints wall time, throughput
 # and peak RSS of each, the medians and the cold/warm ratio. bench/compare.sh times the other
 # commands and the reference tokenizer beside it.
 #
@@ -59,7 +59,7 @@ for run in $(seq 1 "$runs"); do
 done
 
 # For scale: a JVM start that builds picocli's model of the scan command and renders its usage text,
-# with no work. A warm scan run again from the same folder skips picocli (ScanReplay).
+# with no work.
 help_walls=()
 for run in $(seq 1 "$runs"); do
   bench_time 0 "$work/help" ./tare scan --help

@@ -3,14 +3,15 @@
 # Maven runs it after packaging: scripts/class-archive.sh JAVA_HOME JAR PROJECT_DIR.
 #
 # A training run does what the pre-commit hook does (`tare hook run` on a copy of the demo
-# repository with its templates staged), then, for a static archive, a scan twice (cold, then warm),
-# and records the classes Tare loads; the archive then holds them already parsed and verified, so
-# later runs skip that work:
+# repository with its templates staged), then, for a static archive, a scan twice (cold, then warm
+# from the cache the first left), and records the classes Tare loads; the archive then holds them
+# already parsed and verified, so later runs skip that work:
 #   JDK 17 to 23: a static class-data-sharing archive, tare.jsa beside the jar;
 #   JDK 24 and newer: an ahead-of-time cache, tare.aot beside the jar (classes also linked).
 # An archive fits one JDK build and one jar file. Beside it, tare.jsa.jdk (or tare.aot.jdk) names
 # the JDK that made it as "HOME VERSION" (the JDK's real path and its release file's
-# JAVA_RUNTIME_VERSION); ./tare and the pre-commit hook pass the archive only to that JDK.
+# JAVA_RUNTIME_VERSION); ./tare passes the archive only to that JDK, and so does the pre-commit hook
+# it installs, which runs Tare through it.
 #
 # The archive only saves time, so nothing here fails the build: when a step fails, it says so in
 # one line on standard error and leaves no archive. TARE_CLASS_ARCHIVE=off skips it.
@@ -77,10 +78,10 @@ record() {
 }
 
 # A static archive (JDK 17 to 23) can hold the classes of several runs: besides the hook's, those of a
-# scan run twice, the other command people repeat, whose second run prints its stored report without
-# parsing the command line (ScanReplay). The files are dated back first, so that the second scan finds
-# them old enough to vouch for. Should the scans fail, the archive holds the hook's classes alone. An
-# ahead-of-time cache (JDK 24 on) records one run: the hook's.
+# scan run twice, the other command people repeat: the first measures every template, the second
+# reads the measurements back from .tare/cache. The files are dated back first, so that the second
+# scan finds them old enough for their size and time to vouch for them. Should the scans fail, the
+# archive holds the hook's classes alone. An ahead-of-time cache (JDK 24 on) records one run: the hook's.
 add_repeated_scan() {
   find "$repo" -exec touch -t 202601010000 {} + || return 0
   for run in 1 2; do

@@ -7,6 +7,7 @@ import dev.tare.lint.Severity;
 import dev.tare.report.CheckReport;
 import dev.tare.scan.Workspace;
 import dev.tare.tokenize.TokenizerRegistry;
+import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -55,33 +56,23 @@ final class CheckCommand implements Callable<Integer> {
             + " cache of findings in the repository's .tare/cache folder.",
             "By default a template whose file, partials and tool files are unchanged since the last check with the"
             + " same configuration, rule packs, baseline and build of Tare is not read or linted again, and when no"
-            + " template changed the cross-template rules' findings are reused too; when nothing at all changed the"
-            + " last report in the same format is printed again as it was. --staged never uses the cache."})
+            + " template changed the cross-template rules' findings are reused too. --staged never uses the cache."})
     private boolean noCache;
 
     @Override
-    public Integer call() throws java.io.IOException {
+    public Integer call() {
         Workspace workspace = Workspace.open(paths, common.configFile());
         CheckOptions options = new CheckOptions(Severity.parse(failOn.name(), "--fail-on"), !noCache);
         Check check = new Check(workspace, new TokenizerRegistry());
+        CheckResult result = staged ? check.runStaged(options) : check.run(options);
         // Written as it is made: a large repository's report is hundreds of megabytes.
-        java.io.PrintWriter out = spec.commandLine().getOut();
-        Check.ReportWriter render = (result, writer) -> {
-            switch (format) {
-                case text -> CheckReport.text(result, writer);
-                case json -> CheckReport.json(result, writer);
-                case sarif -> writer.write(CheckReport.sarif(result));
-            }
-        };
-        boolean failed;
-        if (staged) {
-            CheckResult result = check.runStaged(options);
-            render.write(result, out);
-            failed = result.failed();
-        } else {
-            failed = check.report(options, format.name(), render, stored -> StandardOutput.print(out, stored), out);
+        PrintWriter out = spec.commandLine().getOut();
+        switch (format) {
+            case text -> CheckReport.text(result, out);
+            case json -> CheckReport.json(result, out);
+            case sarif -> out.write(CheckReport.sarif(result));
         }
         out.flush();
-        return failed ? ExitCodes.FINDINGS : ExitCodes.OK;
+        return result.failed() ? ExitCodes.FINDINGS : ExitCodes.OK;
     }
 }

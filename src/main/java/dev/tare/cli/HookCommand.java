@@ -10,10 +10,11 @@ import dev.tare.report.CheckReport;
 import dev.tare.scan.Workspace;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.io.IOException;
-import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -22,7 +23,12 @@ import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
-/** {@code tare hook}: the git pre-commit hook. */
+/**
+ * {@code tare hook}: the git pre-commit hook. The hook that {@code install} writes runs
+ * {@code tare hook run} through the {@code ./tare} launcher that installed it, which alone chooses
+ * the JVM options; when Tare was started without the launcher ({@code java -jar tare.jar hook
+ * install}), the hook runs {@code java -jar} with the same Java and jar and no extra JVM options.
+ */
 @Command(name = "hook", mixinStandardHelpOptions = true, addMethodSubcommands = false,
         description = "Installs or removes the git pre-commit hook that checks staged templates before each commit.")
 final class HookCommand implements Runnable {
@@ -46,38 +52,42 @@ final class HookCommand implements Runnable {
     }
 
     /**
-     * The JVM options of the pre-commit hook, as {@code ./tare hook ...} chooses them (keep the two in
-     * step): the serial collector, the first JIT tier only, and the class-data archive beside the jar
-     * when this JDK made it. The hook is a short run that must feel instant; the optimizing compiler
-     * would spend more CPU than it saves there, on the core the work needs.
+     * The system property in which the {@code ./tare} launcher names itself. The installed hook runs
+     * Tare through that launcher, so that the JVM options stay the launcher's choice alone.
      */
-    static List<String> jvmOptions(Path jar) {
-        List<String> options = new ArrayList<>(List.of("-XX:+UseSerialGC", "-XX:TieredStopAtLevel=1", "-XX:MaxTenuringThreshold=0"));
-        options.addAll(ClassArchive.options(Path.of(System.getProperty("java.home")), jar));
-        if (Runtime.version().feature() >= 22) {
-            // The jar's manifest says so too, but a JVM reads that only when started with -jar.
-            options.add("--enable-native-access=ALL-UNNAMED");
-        }
-        return options;
-    }
+    static final String LAUNCHER = "tare.launcher";
 
-    /** The shell command that runs this very build of Tare, for the hook to call. */
+    /**
+     * The shell command the installed pre-commit hook runs (followed by {@code hook run}): the
+     * launcher that started this run, when {@link #LAUNCHER} names one, so the hook gets the JVM
+     * options the launcher chooses for it. Without a launcher (Tare started with plain
+     * {@code java -jar}), the hook runs this Java with this jar and no extra JVM options; from a
+     * class folder rather than a jar (a development run), with this class path.
+     */
     static String selfCommand() {
-        String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
         String location;
         try {
             location = Path.of(HookCommand.class.getProtectionDomain().getCodeSource().getLocation().toURI()).toString();
         } catch (java.net.URISyntaxException e) {
             throw new IllegalStateException("the running jar's location is not a path", e);
         }
-        StringBuilder command = new StringBuilder(quote(java));
-        for (String option : jvmOptions(Path.of(location))) {
-            command.append(' ').append(quote(option));
+        return command(Optional.ofNullable(System.getProperty(LAUNCHER)).filter(name -> !name.isEmpty()).map(Path::of),
+                Path.of(System.getProperty("java.home"), "bin", "java"), location, System.getProperty("java.class.path"));
+    }
+
+    /**
+     * The hook's command: {@code launcher} when there is one and it exists; otherwise {@code java}
+     * with the jar at {@code location}, or with {@code classPath} when {@code location} is no jar.
+     */
+    static String command(Optional<Path> launcher, Path java, String location, String classPath) {
+        Optional<Path> present = launcher.map(Path::toAbsolutePath).filter(Files::isRegularFile);
+        if (present.isPresent()) {
+            return quote(present.get().toString());
         }
-        // The main class named, as the launcher does: a run whose classes all come from the class-data
-        // archive then never opens the jar.
-        String classPath = location.endsWith(".jar") ? location : System.getProperty("java.class.path");
-        return command + " -cp " + quote(classPath) + " " + Main.class.getName();
+        if (location.endsWith(".jar")) {
+            return quote(java.toString()) + " -jar " + quote(location);
+        }
+        return quote(java.toString()) + " -cp " + quote(classPath) + " " + Main.class.getName();
     }
 
     private static String quote(String word) {

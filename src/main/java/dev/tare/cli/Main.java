@@ -1,11 +1,11 @@
 package dev.tare.cli;
 
+import java.io.BufferedWriter;
 import java.io.FileDescriptor;
 import java.io.FileOutputStream;
 import java.io.OutputStreamWriter;
 import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
-import java.util.OptionalInt;
 
 /** The {@code tare} program: parses the command line, runs one command, exits with its code. */
 public final class Main {
@@ -13,7 +13,8 @@ public final class Main {
     }
 
     public static void main(String[] args) {
-        PrintWriter out = new StandardOutput(new FileOutputStream(FileDescriptor.out));
+        PrintWriter out = new PrintWriter(new BufferedWriter(new OutputStreamWriter(new FileOutputStream(FileDescriptor.out),
+                StandardCharsets.UTF_8)));
         PrintWriter err = new PrintWriter(new OutputStreamWriter(new FileOutputStream(FileDescriptor.err), StandardCharsets.UTF_8), true);
         int code = run(args, out, err);
         out.flush();
@@ -21,12 +22,8 @@ public final class Main {
         System.exit(code);
     }
 
-    /**
-     * Runs one command and returns its exit code: a warm scan that ran before from the same folder
-     * straight from what it asked for then ({@link ScanReplay}), any other through picocli.
-     */
+    /** Runs one command through picocli and returns its exit code. */
     static int run(String[] args, PrintWriter out, PrintWriter err) {
-        OptionalInt replayed = ScanReplay.run(args, out);
-        return replayed.isPresent() ? replayed.getAsInt() : TareCommand.commandLine(out, err, args).execute(args);
+        return TareCommand.commandLine(out, err, args).execute(args);
     }
 }

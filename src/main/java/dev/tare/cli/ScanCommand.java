@@ -5,12 +5,15 @@ import dev.tare.overview.OverviewRun;
 import dev.tare.report.HtmlReport;
 import dev.tare.report.MarkdownReport;
 import dev.tare.report.ScanReport;
+import dev.tare.scan.ScanOptions;
+import dev.tare.scan.ScanResult;
 import dev.tare.scan.TemplateScan;
 import dev.tare.scan.Workspace;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -59,32 +62,27 @@ final class ScanCommand implements Callable<Integer> {
     private Sort sort = Sort.path;
 
     @Option(names = "--no-cache", description = {"Measure every template afresh, and neither read nor write the"
-            + " cache of measurements and reports in the repository's .tare/cache folder.",
+            + " cache of measurements kept in the repository's .tare/cache folder.",
             "By default a template whose file, partials and tool files are unchanged since the last scan with the"
-            + " same configuration and build of Tare is not read or counted again, and when nothing at all"
-            + " changed the last report in the same format and order is printed again as it was."})
+            + " same configuration and build of Tare is not read or counted again."})
     private boolean noCache;
 
     @Override
     public Integer call() {
-        ScanRequest request = new ScanRequest(paths, common.configFile(), targets, Optional.ofNullable(tokenizer), format,
-                sort, !noCache);
-        Workspace workspace = request.workspace();
+        Workspace workspace = Workspace.open(paths, common.configFile());
+        ScanOptions options = new ScanOptions(targets, Optional.ofNullable(tokenizer), !noCache);
+        ScanResult.Order order = ScanResult.Order.valueOf(sort.name().toUpperCase(Locale.ROOT));
         if (format == Format.md || format == Format.html) {
-            Overview overview = new OverviewRun(workspace, new TokenizerRegistry()).run(request.options(), format == Format.html);
+            Overview overview = new OverviewRun(workspace, new TokenizerRegistry()).run(options, format == Format.html);
             spec.commandLine().getOut().print(format == Format.md ? MarkdownReport.render(overview)
-                    : HtmlReport.render(overview, request.order()));
+                    : HtmlReport.render(overview, order));
             spec.commandLine().getOut().flush();
         } else {
-            java.nio.ByteBuffer report = new TemplateScan(workspace, new TokenizerRegistry()).report(request.options(),
-                    request.form(), result -> format == Format.json ? ScanReport.json(result, request.order())
-                            : ScanReport.text(result, request.order()),
+            ScanResult result = new TemplateScan(workspace, new TokenizerRegistry()).run(options,
                     TerminalProgress.forOutput(format != Format.text));
-            StandardOutput.print(spec.commandLine().getOut(), report);
-            if (!common.timings && !common.debug) {
-                ScanReplay.remember(spec.root().commandLine().getParseResult().originalArgs().toArray(String[]::new),
-                        request, workspace.root());
-            }
+            spec.commandLine().getOut().print(format == Format.json ? ScanReport.json(result, order)
+                    : ScanReport.text(result, order));
+            spec.commandLine().getOut().flush();
         }
         return ExitCodes.OK;
     }

@@ -27,21 +27,6 @@ public final class TareCommand implements Runnable {
      */
     static final Map<String, Class<?>> SUBCOMMANDS = subcommands();
 
-    /** The picocli setting that leaves some of its built-in type converters out. */
-    static final String CONVERTER_EXCLUDES = "picocli.converters.excludes";
-
-    /** The converters Tare leaves out when the setting is not given: no option takes those types. */
-    static final String UNUSED_CONVERTERS = "java\\.(time|sql)\\..*";
-
-    static {
-        // Picocli registers a converter for each java.time and java.sql type by reflection whenever a
-        // command line is built, which initialises those classes: about 8 ms of a 200 ms warm scan. No
-        // option of Tare takes such a type. A value given on the JVM's command line wins.
-        if (System.getProperty(CONVERTER_EXCLUDES) == null) {
-            System.setProperty(CONVERTER_EXCLUDES, UNUSED_CONVERTERS);
-        }
-    }
-
     @CommandLine.Spec
     private CommandLine.Model.CommandSpec spec;
 

@@ -10,9 +10,10 @@ import java.nio.file.attribute.PosixFilePermissions;
 import java.util.concurrent.TimeUnit;
 
 /**
- * Installs and removes Tare's git pre-commit hook. The hook runs {@code tare hook run} with the
- * Java and the jar that installed it. A hook Tare did not write is never replaced silently: it can
- * be chained (kept, and run before Tare's) or, with force, replaced after a backup copy is kept.
+ * Installs and removes Tare's git pre-commit hook. The hook runs {@code tare hook run} through the
+ * command it is given at install (the {@code ./tare} launcher, or {@code java -jar} with a jar). A
+ * hook Tare did not write is never replaced silently: it can be chained (kept, and run before
+ * Tare's) or, with force, replaced after a backup copy is kept.
  */
 public final class PreCommitHook {
     /** The line that marks a hook as Tare's own. */

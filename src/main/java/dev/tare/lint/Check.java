@@ -4,10 +4,8 @@ import dev.tare.TareException;
 import dev.tare.config.TareConfig;
 import dev.tare.config.TargetConfig;
 import dev.tare.overlap.RepositoryWords;
-import dev.tare.scan.CacheFolder;
 import dev.tare.scan.CacheKey;
 import dev.tare.scan.StagedTemplates;
-import dev.tare.scan.StoredReport;
 import dev.tare.scan.TemplateCache;
 import dev.tare.scan.TemplateLoader;
 import dev.tare.scan.Workspace;
@@ -18,17 +16,12 @@ import dev.tare.template.Template;
 import dev.tare.template.TemplateKind;
 import dev.tare.template.TemplateSyntaxException;
 import dev.tare.tokenize.TokenizerRegistry;
-import java.io.IOException;
-import java.io.Writer;
-import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
-import java.util.Set;
 import java.util.concurrent.CompletableFuture;
-import java.util.function.Consumer;
 import java.util.function.Function;
 
 /**
@@ -67,116 +60,19 @@ public final class Check {
      * {@link TemplateCache}).
      */
     public CheckResult run(CheckOptions options) {
-        return runOnDisk(options, options.cache() ? cacheKey() : "").result();
+        return runOnDisk(options, options.cache() ? cacheKey() : "");
     }
 
-    /** What writes a check's report. */
-    public interface ReportWriter {
-        void write(CheckResult result, Writer out) throws IOException;
-    }
-
-    /**
-     * Checks the files of the workspace as they are on disk, for a report that {@code render}
-     * writes, and prints it: through {@code print} from the store, or straight to {@code direct}. With
-     * {@link CheckOptions#cache()} the report is also kept whole in {@code .tare/cache}, and printed
-     * from there while no folder walked and no file read has changed, with nothing walked, read,
-     * linted or rendered (see {@link StoredReport}); otherwise the check runs as {@link #run} does.
-     *
-     * @param form what besides the check decides the report (its format), as a key
-     * @return whether a finding is at or above the failing severity
-     */
-    public boolean report(CheckOptions options, String form, ReportWriter render, Consumer<StoredReport.Report> print,
-                          Writer direct) {
-        if (!options.cache()) {
-            CheckResult result = run(options);
-            write(render, result, direct);
-            return result.failed();
-        }
-        String key = cacheKey();
-        StoredReport stored = StoredReport.of(workspace.root(), "check", key + "\n" + form + "\n"
-                + options.failOn() + "\n" + workspace.displayName() + "\n" + workspace.starts());
-        Optional<StoredReport.Report> kept = stored.read();
-        if (kept.isPresent()) {
-            try (StoredReport.Report report = kept.get()) {
-                print.accept(report);
-                return report.status() != 0;
-            }
-        }
-        Checked checked = runOnDisk(options, key);
-        CheckResult result = checked.result();
-        Optional<StoredReport.Report> written = checked.stamps(stored, workspace.root()).flatMap(stamps -> stored.store(stamps,
-                out -> {
-                    Writer writer = new java.io.BufferedWriter(new java.io.OutputStreamWriter(out, StandardCharsets.UTF_8),
-                            1 << 16);
-                    render.write(result, writer);
-                    writer.flush();
-                }, result.failed() ? 1 : 0));
-        if (written.isPresent()) {
-            try (StoredReport.Report report = written.get()) {
-                print.accept(report);
-            }
-        } else {
-            write(render, result, direct);
-        }
-        return result.failed();
-    }
-
-    private static void write(ReportWriter render, CheckResult result, Writer out) {
-        try {
-            render.write(result, out);
-            out.flush();
-        } catch (IOException e) {
-            throw new java.io.UncheckedIOException(e);
-        }
-    }
-
-    /**
-     * A check of the files on disk, with what it read for a stored report: the selection (its
-     * folders and ignore files), the partials and tool files the templates depend on, whether
-     * those are known for every template, and when the run started.
-     */
-    private record Checked(CheckResult result, FileSelection selection, Set<String> dependencies, boolean complete,
-                           long startedNanos) {
-        /**
-         * The stamps of everything the result was made from; empty when something cannot vouch for
-         * it: a skipped file, a template whose includes did not resolve, a file too recent.
-         */
-        Optional<byte[]> stamps(StoredReport stored, java.nio.file.Path root) {
-            if (!complete || !result.skipped().isEmpty()) {
-                return Optional.empty();
-            }
-            Set<java.nio.file.Path> files = new java.util.LinkedHashSet<>();
-            selection.paths().forEach(path -> files.add(root.resolve(path)));
-            dependencies.forEach(path -> files.add(root.resolve(path)));
-            return stored.stamps(selection, files, startedNanos);
-        }
-    }
-
-    private Checked runOnDisk(CheckOptions options, String key) {
-        long started = System.currentTimeMillis() * 1_000_000L;
-        if (options.cache()) {
-            try {
-                CacheFolder.prepare(workspace.root());
-            } catch (IOException | RuntimeException e) {
-                // No cache folder means no cache; TemplateCache finds that out for itself.
-            }
-        }
+    private CheckResult runOnDisk(CheckOptions options, String key) {
         TemplateLoader loader = new TemplateLoader(workspace);
         CompletableFuture<TemplateCache<CheckedFile>> opening = CompletableFuture.supplyAsync(() -> options.cache()
                 ? TemplateCache.open(workspace, "check", key, new CheckedFileCodec())
                 : TemplateCache.disabled(workspace.root()));
         FileSelection selection = loader.find();
         TemplateCache<CheckedFile> cache = opening.join();
-        Linting linting = run(options, loader, selection, loader::read, cache);
+        CheckResult result = run(options, loader, selection, loader::read, cache);
         cache.save();
-        return new Checked(linting.result(), selection, linting.dependencies(), linting.complete(), started);
-    }
-
-    /**
-     * A check's result, with the partials and tool files its templates depend on and whether those
-     * are known for every template.
-     */
-    private record Linting(CheckResult result, Set<String> dependencies, boolean complete) {
+        return result;
     }
 
     /** Checks the templates staged for the next commit, as the git index holds them. */
@@ -192,7 +88,7 @@ public final class Check {
      */
     public CheckResult run(CheckOptions options, TemplateLoader loader, FileSelection selection,
                            Function<String, SourceText> reader) {
-        return run(options, loader, selection, reader, TemplateCache.disabled(workspace.root())).result();
+        return run(options, loader, selection, reader, TemplateCache.disabled(workspace.root()));
     }
 
     /**
@@ -212,7 +108,7 @@ public final class Check {
         return key.contents(config.root().resolve(config.baseline().file())).toString();
     }
 
-    private Linting run(CheckOptions options, TemplateLoader loader, FileSelection selection,
+    private CheckResult run(CheckOptions options, TemplateLoader loader, FileSelection selection,
                         Function<String, SourceText> reader, TemplateCache<CheckedFile> cache) {
         RuleCatalog catalog = catalog();
         List<Rule> rules = catalog.enabled();
@@ -230,17 +126,12 @@ public final class Check {
         // path order, so the findings come in the order a single thread would give them.
         List<Linted> linted = selection.paths().parallelStream()
                 // What the cache gives was kept at the configured severities, which its key holds.
-                .map(path -> cache.find(path).map(kept -> new Linted(path, Optional.of(kept), Optional.empty(),
-                                Optional.of(cache.dependencies(path)), true))
+                .map(path -> cache.find(path).map(kept -> new Linted(path, Optional.of(kept), Optional.empty(), true))
                         .orElseGet(() -> lint(path, reader, loader, rules, each, across ? words : null, findings, cache)))
                 .toList();
         boolean everyWordGathered = true;
-        Set<String> dependencies = new java.util.TreeSet<>();
-        boolean complete = true;
         for (Linted one : linted) {
             one.skipped().ifPresent(skipped::add);
-            one.dependencies().ifPresent(dependencies::addAll);
-            complete &= one.dependencies().isPresent();
             one.checked().ifPresent(checked -> {
                 checked.findings().forEach(findings::addConfigured);
                 checked.suppressions().ifPresent(suppressions -> silenced.put(one.path(), suppressions));
@@ -278,18 +169,18 @@ public final class Check {
         List<RuleDescriptor> descriptors = rules.stream().map(Rule::descriptor)
                 .map(d -> d.withSeverity(catalog.severity(d)))
                 .toList();
-        return new Linting(new CheckResult(workspace.root().toString(), descriptors, configured, skipped, stamps.size(),
-                options.failOn()), dependencies, complete);
+        return new CheckResult(workspace.root().toString(), descriptors, configured, skipped, stamps.size(),
+                options.failOn());
     }
 
     /**
      * What became of one file: checked (now, or in an earlier run whose result the cache gave back),
-     * or skipped with the reason; and the partials and tool files it depends on, when known.
+     * or skipped with the reason.
      */
     private record Linted(String path, Optional<CheckedFile> checked, Optional<SkippedFile> skipped,
-                          Optional<List<String>> dependencies, boolean remembered) {
-        static Linted of(String path, CheckedFile checked, Optional<List<String>> dependencies) {
-            return new Linted(path, Optional.of(checked), Optional.empty(), dependencies, false);
+                          boolean remembered) {
+        static Linted of(String path, CheckedFile checked) {
+            return new Linted(path, Optional.of(checked), Optional.empty(), false);
         }
     }
 
@@ -319,10 +210,9 @@ public final class Check {
                 }
                 CheckedFile checked = new CheckedFile(findings, Optional.empty(), Optional.empty());
                 cache.remember(path, text.text(), List.of(), checked);
-                return Linted.of(path, checked, Optional.of(List.of()));
+                return Linted.of(path, checked);
             }
-            return new Linted(path, Optional.empty(), Optional.of(new SkippedFile(path, e.getMessage())),
-                    Optional.empty(), false);
+            return new Linted(path, Optional.empty(), Optional.of(new SkippedFile(path, e.getMessage())), false);
         }
         List<Finding> findings = new ArrayList<>();
         Suppressions suppressions;
@@ -356,7 +246,7 @@ public final class Check {
                 Optional.of(template.source().hashCode()));
         String read = text.text();
         dependencies.ifPresent(paths -> cache.remember(path, read, paths, checked));
-        return Linted.of(path, checked, dependencies);
+        return Linted.of(path, checked);
     }
 
     /**

@@ -3,12 +3,10 @@ package dev.tare.scan;
 import java.io.BufferedOutputStream;
 import java.io.IOException;
 import java.io.OutputStream;
-import java.nio.channels.FileChannel;
 import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
-import java.nio.file.StandardOpenOption;
 import java.nio.file.attribute.FileTime;
 import java.util.Comparator;
 import java.util.List;
@@ -26,11 +24,8 @@ public final class CacheFolder {
         return root.resolve(".tare").resolve("cache");
     }
 
-    /**
-     * Creates the folder, and the {@code .gitignore} that keeps it out of git, when missing. A scan
-     * or check does this before it walks, so that the walk sees the root as the next run will.
-     */
-    public static Path prepare(Path root) throws IOException {
+    /** Creates the folder, and the {@code .gitignore} that keeps it out of git (and out of every walk), when missing. */
+    static Path prepare(Path root) throws IOException {
         Path folder = Files.createDirectories(of(root));
         Path ignore = folder.getParent().resolve(".gitignore");
         if (!Files.exists(ignore)) {
@@ -39,44 +34,28 @@ public final class CacheFolder {
         return folder;
     }
 
-    /** What writes a file's contents (a cache, a report) to a stream. */
-    public interface Body {
+    /** What writes a file's contents (a cache) to a stream. */
+    interface Body {
         void writeTo(OutputStream out) throws IOException;
-    }
-
-    /** Writes {@code bytes} to a temporary file beside {@code target} and moves it into place. */
-    static void replace(Path target, byte[] bytes) throws IOException {
-        replace(target, out -> out.write(bytes)).close();
     }
 
     /**
      * Writes {@code contents} to a temporary file beside {@code target} and moves it into place: a
      * cache of a large repository is tens of megabytes, written as it is made rather than held.
-     *
-     * @return the file as written, open for reading (a concurrent run may replace {@code target}
-     *         the moment after); the caller closes it
      */
-    static FileChannel replace(Path target, Body contents) throws IOException {
+    static void replace(Path target, Body contents) throws IOException {
         Path folder = Files.createDirectories(target.getParent());
         Path temporary = Files.createTempFile(folder, "write-", ".partial");
-        FileChannel written = null;
         try {
             try (OutputStream out = new BufferedOutputStream(Files.newOutputStream(temporary), 1 << 16)) {
                 contents.writeTo(out);
             }
-            written = FileChannel.open(temporary, StandardOpenOption.READ);
             try {
                 Files.move(temporary, target, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
             } catch (AtomicMoveNotSupportedException e) {
                 Files.move(temporary, target, StandardCopyOption.REPLACE_EXISTING);
             }
-            FileChannel done = written;
-            written = null;
-            return done;
         } finally {
-            if (written != null) {
-                written.close();
-            }
             Files.deleteIfExists(temporary);
         }
     }

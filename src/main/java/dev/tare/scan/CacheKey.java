@@ -27,7 +27,7 @@ public final class CacheKey {
     public static CacheKey of(Workspace workspace) {
         TareConfig config = workspace.config();
         CacheKey key = new CacheKey(workspace.root());
-        key.text.append(ValueText.of(config)).append('\n');
+        key.text.append(config).append('\n');
         Path partials = workspace.root().resolve(config.templates().partials());
         if (!config.templates().partials().isEmpty() && Files.isDirectory(partials)) {
             try (Stream<Path> files = Files.walk(partials)) {

@@ -50,7 +50,7 @@ import java.util.zip.CheckedOutputStream;
  */
 public final class TemplateCache<R> {
     /** How long before a run a file's modification time must lie for its size and time to vouch for it. */
-    static final long RACY_NANOS = 2_000_000_000L;
+    private static final long RACY_NANOS = 2_000_000_000L;
     private static final int FORMAT = 3;
 
     /**
@@ -144,12 +144,6 @@ public final class TemplateCache<R> {
         return Optional.of(entry.result());
     }
 
-    /** The paths of the partials and tool files behind the measurement {@link #find} last gave for {@code path}. */
-    public List<String> dependencies(String path) {
-        Entry<R> entry = current.get(path);
-        return entry == null ? List.of() : entry.dependencies().stream().map(Stamp::path).toList();
-    }
-
     /**
      * Remembers a template's result, with the text it was read from and its dependencies' paths
      * (root-relative); not when a dependency cannot be read, since then nothing vouches for it.
@@ -232,7 +226,7 @@ public final class TemplateCache<R> {
         try {
             CacheFolder.prepare(root);
             Optional<Whole<R>> whole = currentWhole != null ? Optional.of(currentWhole) : previousWhole;
-            CacheFolder.replace(file.get(), out -> encode(out, kept, whole)).close();
+            CacheFolder.replace(file.get(), out -> encode(out, kept, whole));
             String name = file.get().getFileName().toString();
             CacheFolder.pruneOthers(file.get(), name.substring(0, name.lastIndexOf('-') + 1));
         } catch (IOException | RuntimeException e) {

@@ -18,11 +18,7 @@ import dev.tare.template.TemplateKind;
 import dev.tare.template.VariableSpec;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
-import java.io.IOException;
-import java.nio.ByteBuffer;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
@@ -32,7 +28,6 @@ import java.util.Optional;
 import java.util.Set;
 import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.ConcurrentHashMap;
-import java.util.function.Function;
 import java.util.stream.Collectors;
 
 /**
@@ -59,86 +54,11 @@ public final class TemplateScan {
 
     /** Runs the scan, telling {@code progress} how far it has got. */
     public ScanResult run(ScanOptions options, ScanProgress progress) {
-        Scanned scanned = scan(setUp(options), options, progress);
-        scanned.cache().save();
-        return scanned.result();
-    }
-
-    /**
-     * The scan's report as {@code render} makes it, in UTF-8 (read-only when it comes from the
-     * store). With the cache on, a report stored by an earlier run of the same build,
-     * configuration, options and {@code form} is given back as it was when no folder walked and no
-     * file read has changed since (see {@link StoredReport}): nothing is walked, read, counted or
-     * rendered, and no tokenizer is loaded. Otherwise the scan runs and its report is stored for
-     * the next run.
-     *
-     * @param form   what besides the scan decides the report (its format and order), as a key
-     * @param render makes the report from the scan's result
-     */
-    public ByteBuffer report(ScanOptions options, String form, Function<ScanResult, String> render,
-                             ScanProgress progress) {
-        Setup setup = setUp(options);
-        if (!options.cache()) {
-            String report = render.apply(scan(setup, options, progress).result());
-            return ByteBuffer.wrap(report.getBytes(StandardCharsets.UTF_8));
-        }
-        StoredReport stored = storedReport(setup, form);
-        Optional<ByteBuffer> kept = mapped(stored);
-        if (kept.isPresent()) {
-            return kept.get();
-        }
-        Scanned scanned = scan(setup, options, progress);
-        // Writing the measurements and stamping the files for the stored report run beside the
-        // rendering, on the core it leaves idle.
-        CompletableFuture<Optional<byte[]>> stamps = CompletableFuture.supplyAsync(() -> {
-            scanned.cache().save();
-            if (!scanned.result().skipped().isEmpty()) {
-                return Optional.empty();
-            }
-            Set<Path> files = new LinkedHashSet<>();
-            scanned.selection().paths().forEach(path -> files.add(workspace.root().resolve(path)));
-            scanned.dependencies().forEach(path -> files.add(workspace.root().resolve(path)));
-            return stored.stamps(scanned.selection(), files, scanned.startedNanos());
-        });
-        byte[] report = render.apply(scanned.result()).getBytes(StandardCharsets.UTF_8);
-        stamps.join().ifPresent(stamped -> stored.save(stamped, report, 0));
-        return ByteBuffer.wrap(report);
-    }
-
-    /**
-     * The report an earlier run of {@link #report} stored for the same options and {@code form}, when
-     * nothing it was made from has changed; empty otherwise, and always with the cache off. Nothing
-     * is scanned either way.
-     */
-    public Optional<ByteBuffer> storedReport(ScanOptions options, String form) {
-        return options.cache() ? mapped(storedReport(setUp(options), form)) : Optional.empty();
-    }
-
-    private StoredReport storedReport(Setup setup, String form) {
-        return StoredReport.of(workspace.root(), "scan", setup.cacheKey() + "\n" + form + "\n"
-                + workspace.displayName() + "\n" + workspace.starts());
-    }
-
-    /** The report in {@code stored}, mapped (a scan's report is a few megabytes), when it still holds. */
-    private static Optional<ByteBuffer> mapped(StoredReport stored) {
-        Optional<StoredReport.Report> kept = stored.read();
-        if (kept.isPresent()) {
-            try (StoredReport.Report report = kept.get()) {
-                return Optional.of(report.map());
-            } catch (IOException e) {
-                // Read a moment ago: should it fail now, the scan runs.
-            }
-        }
-        return Optional.empty();
+        return scan(setUp(options), options, progress);
     }
 
     /** What a scan is asked for, resolved: the targets, the primary tokenizer's name and the cache key. */
     private record Setup(List<TargetConfig> targets, String primaryName, String cacheKey) {
-    }
-
-    /** A scan's result, with the selection and dependencies it came from and when it started. */
-    private record Scanned(ScanResult result, FileSelection selection, Set<String> dependencies, long startedNanos,
-                           TemplateCache<Measurement> cache) {
     }
 
     private Setup setUp(ScanOptions options) {
@@ -150,21 +70,13 @@ public final class TemplateScan {
         return new Setup(targets, primaryName, key);
     }
 
-    private Scanned scan(Setup setup, ScanOptions options, ScanProgress progress) {
+    private ScanResult scan(Setup setup, ScanOptions options, ScanProgress progress) {
         TareConfig config = workspace.config();
         List<TargetConfig> targets = setup.targets();
         Tokenizer primary = tokenizers.get(setup.primaryName(), workspace.root());
         Map<String, Tokenizer> byTarget = new LinkedHashMap<>();
         for (TargetConfig target : targets) {
             byTarget.put(target.name(), tokenizers.get(target.tokenizer(), workspace.root()));
-        }
-        long started = System.currentTimeMillis() * 1_000_000L;
-        if (options.cache()) {
-            try {
-                CacheFolder.prepare(workspace.root());
-            } catch (IOException | RuntimeException e) {
-                // No cache folder means no cache; TemplateCache finds that out for itself.
-            }
         }
         // The previous measurements are read while the folders are walked and, when there are
         // none (so every template will be counted), the vocabularies after them, one at a time.
@@ -191,11 +103,9 @@ public final class TemplateScan {
         loading.join();
         List<ScannedTemplate> templates = new ArrayList<>();
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
-        Set<String> dependencies = new LinkedHashSet<>();
         for (Outcome outcome : outcomes) {
             outcome.template().ifPresent(templates::add);
             outcome.skipped().ifPresent(skipped::add);
-            dependencies.addAll(outcome.dependencies());
         }
         skipped.sort(null);
         for (TargetConfig target : targets) {
@@ -203,9 +113,9 @@ public final class TemplateScan {
                 applySharedPrefixes(target, templates, outcomes);
             }
         }
-        ScanResult result = new ScanResult(workspace.displayName(), primary.name(),
+        cache.save();
+        return new ScanResult(workspace.displayName(), primary.name(),
                 targets.stream().map(TargetConfig::name).toList(), templates, skipped, targets);
-        return new Scanned(result, selection, dependencies, started, cache);
     }
 
     /** Everything besides the template files that decides a scan's results (see {@link CacheKey}). */
@@ -253,14 +163,13 @@ public final class TemplateScan {
      * target with a prefix cache, its leading static token ids.
      */
     private record Outcome(Optional<ScannedTemplate> template, Optional<SkippedFile> skipped,
-                           Map<String, CachePrefixes.Leading> leadingIds, List<String> dependencies) {
-        static Outcome of(ScannedTemplate template, Map<String, CachePrefixes.Leading> leadingIds,
-                          List<String> dependencies) {
-            return new Outcome(Optional.of(template), Optional.empty(), leadingIds, dependencies);
+                           Map<String, CachePrefixes.Leading> leadingIds) {
+        static Outcome of(ScannedTemplate template, Map<String, CachePrefixes.Leading> leadingIds) {
+            return new Outcome(Optional.of(template), Optional.empty(), leadingIds);
         }
 
         static Outcome of(SkippedFile skipped) {
-            return new Outcome(Optional.empty(), Optional.of(skipped), Map.of(), List.of());
+            return new Outcome(Optional.empty(), Optional.of(skipped), Map.of());
         }
     }
 
@@ -322,8 +231,7 @@ public final class TemplateScan {
         Outcome measure(String path) {
             Optional<Measurement> remembered = cache.find(path);
             if (remembered.isPresent()) {
-                return Outcome.of(remembered.get().template(targetsByName), remembered.get().leadingIds(),
-                        cache.dependencies(path));
+                return Outcome.of(remembered.get().template(targetsByName), remembered.get().leadingIds());
             }
             try {
                 SourceText text = loader.read(path);
@@ -333,7 +241,7 @@ public final class TemplateScan {
                 List<String> dependencies = new ArrayList<>(new LinkedHashSet<>(samples.includes()));
                 dependencies.addAll(template.meta().tools());
                 cache.remember(path, text.text(), dependencies, measured);
-                return Outcome.of(measured.template(targetsByName), measured.leadingIds(), dependencies);
+                return Outcome.of(measured.template(targetsByName), measured.leadingIds());
             } catch (TareException e) {
                 return Outcome.of(new SkippedFile(path, e.getMessage()));
             }
@@ -428,7 +336,7 @@ public final class TemplateScan {
         }
 
         private Template loadToolFile(String path) {
-            if (!java.nio.file.Files.isRegularFile(config.root().resolve(path))) {
+            if (!Files.isRegularFile(config.root().resolve(path))) {
                 throw new TareException("front matter names tool file '" + path + "', which does not exist"
                         + " (tool paths are relative to the folder of tare.yaml)");
             }

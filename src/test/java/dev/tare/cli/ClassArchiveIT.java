@@ -16,7 +16,6 @@ import java.nio.file.attribute.FileTime;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
-import java.util.Optional;
 import java.util.concurrent.TimeUnit;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.BeforeAll;
@@ -48,8 +47,8 @@ class ClassArchiveIT {
 
     private static Result run(Path workDir, Map<String, String> env, List<String> command) throws IOException, InterruptedException {
         ProcessBuilder builder = new ProcessBuilder(command).directory(workDir.toFile());
-        builder.environment().putAll(env);
         builder.environment().remove("TARE_JAVA_OPTS");
+        builder.environment().putAll(env);
         Process process = builder.start();
         process.getOutputStream().close();
         byte[] out = process.getInputStream().readAllBytes();
@@ -91,8 +90,19 @@ class ClassArchiveIT {
     @Test
     void theBuildMadeItForItsOwnJdk() throws IOException {
         assertTrue(Files.isRegularFile(archive), "target/tare.jsa or target/tare.aot after packaging");
-        Optional<String> identity = ClassArchive.identity(JAVA_HOME);
-        assertEquals(identity.orElseThrow() + "\n", Files.readString(stamp(archive)));
+        assertEquals(jdkIdentity(JAVA_HOME) + "\n", Files.readString(stamp(archive)));
+        assertTrue(jdkIdentity(JAVA_HOME).endsWith(" " + System.getProperty("java.runtime.version")));
+    }
+
+    /** The JDK as the stamp names it, the way the launcher reads it: its real path and its release file's runtime version. */
+    private static String jdkIdentity(Path javaHome) throws IOException {
+        Path home = javaHome.toRealPath();
+        for (String line : Files.readAllLines(home.resolve("release"), StandardCharsets.UTF_8)) {
+            if (line.startsWith("JAVA_RUNTIME_VERSION=")) {
+                return home + " " + line.substring(line.indexOf('=') + 1).replace("\"", "");
+            }
+        }
+        throw new AssertionError(home.resolve("release") + " names no JAVA_RUNTIME_VERSION");
     }
 
     @Test
@@ -144,21 +154,28 @@ class ClassArchiveIT {
         }
     }
 
-    /** A repository with Tare's hook, installed by {@code java -jar JAR hook install}, and one template staged. */
-    private Path repositoryWithTheHook(Path jar) throws Exception {
+    /** A repository with Tare's hook, installed through {@code launcher hook install}, and one template staged. */
+    private Path repositoryWithTheHook(Path launcher) throws Exception {
         Path repo = Files.createDirectories(dir.resolve("repo"));
         Git.run(repo, "init", "-q");
         Files.createDirectories(repo.resolve("prompts"));
         Files.writeString(repo.resolve("tare.yaml"), "templates: {include: [\"prompts/*.md\"]}\n");
         Files.writeString(repo.resolve("prompts/a.md"), "Answer billing questions briefly.\n");
         Git.run(repo, "add", ".");
-        Result install = run(repo, Map.of(), List.of(JAVA_HOME.resolve("bin/java").toString(), "-jar", jar.toString(), "hook", "install"));
+        Result install = run(repo, Map.of(), List.of("bash", launcher.toString(), "hook", "install"));
         assertEquals(0, install.exitCode(), install.err());
+        assertTrue(Files.readString(repo.resolve(".git/hooks/pre-commit")).endsWith("\nexec '" + launcher + "' hook run\n"),
+                "the hook runs Tare through the launcher that installed it");
         return repo;
     }
 
     private static String commit(Path repo) throws Exception {
-        Result commit = run(repo, Map.of(), List.of("git", "-c", "user.name=Test", "-c", "user.email=test@example.invalid",
+        return commit(repo, Map.of());
+    }
+
+    /** Commits the staged template and returns what git and the hook printed (a hook's standard output comes on git's standard error). */
+    private static String commit(Path repo, Map<String, String> env) throws Exception {
+        Result commit = run(repo, env, List.of("git", "-c", "user.name=Test", "-c", "user.email=test@example.invalid",
                 "-c", "commit.gpgsign=false", "commit", "-q", "-m", "a template"));
         assertEquals(0, commit.exitCode(), commit.out() + commit.err());
         return commit.out() + commit.err();
@@ -166,23 +183,22 @@ class ClassArchiveIT {
 
     @Test
     void theInstalledHookStartsWithIt() throws Exception {
-        Path repo = repositoryWithTheHook(PROJECT.resolve("target/tare.jar"));
-        String hook = Files.readString(repo.resolve(".git/hooks/pre-commit"));
-        String option = archive.getFileName().toString().endsWith(".aot") ? "-XX:AOTCache=" : "-XX:SharedArchiveFile=";
-        assertTrue(hook.contains("'" + option + archive + "'"), hook);
-        assertTrue(hook.contains("'-XX:TieredStopAtLevel=1'"), "the launcher's options for the hook: " + hook);
-        assertTrue(hook.contains("'-XX:MaxTenuringThreshold=0'"), "the launcher's options for the hook: " + hook);
-        assertTrue(hook.contains(" -cp '" + PROJECT.resolve("target/tare.jar") + "' dev.tare.cli.Main"),
-                "the main class named, as the launcher does: " + hook);
+        Path repo = repositoryWithTheHook(PROJECT.resolve("tare"));
+        String flags = commit(repo, Map.of("TARE_JAVA_OPTS", "-XX:+PrintFlagsFinal"));
+        String option = archive.getFileName().toString().endsWith(".aot") ? "AOTCache" : "SharedArchiveFile";
+        assertTrue(java.util.regex.Pattern.compile(option + "\\s+= " + java.util.regex.Pattern.quote(archive.toString()) + "\\s")
+                .matcher(flags).find(), "the launcher gives the hook's run the archive: " + flags);
+
+        Files.writeString(repo.resolve("prompts/b.md"), "Answer outage questions briefly.\n");
+        Git.run(repo, "add", ".");
         assertEquals("", commit(repo), "a clean commit prints nothing");
     }
 
     @Test
     void theInstalledHookRunsQuietlyWhenTheArchiveIsGoneOrBroken() throws Exception {
         Path copy = copyOfTheBuild();
-        Path repo = repositoryWithTheHook(copy.resolve("tare.jar"));
+        Path repo = repositoryWithTheHook(copy.resolveSibling("tare"));
         Path copied = copy.resolve(archive.getFileName());
-        assertTrue(Files.readString(repo.resolve(".git/hooks/pre-commit")).contains(copied.toString()));
         copied.toFile().setWritable(true);
         Files.writeString(copied, "not an archive at all", StandardCharsets.UTF_8);
         assertEquals("", commit(repo));

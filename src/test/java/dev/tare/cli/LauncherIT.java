@@ -6,8 +6,10 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import dev.tare.testing.Git;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -15,6 +17,7 @@ import java.util.Map;
 import java.util.concurrent.TimeUnit;
 import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
 
 /** The real {@code ./tare} launcher and packaged jar, as a newcomer runs them (after {@code mvn package}). */
 class LauncherIT {
@@ -52,14 +55,14 @@ class LauncherIT {
     }
 
     @Test
-    void aWarmScanThroughTheRealStandardOutputPrintsTheColdScansBytes() throws Exception {
+    void aWarmScanThroughTheRealStandardOutputPrintsTheUncachedScansBytes() throws Exception {
         for (String format : List.of("json", "text")) {
             Result uncached = launch("scan", "corpora/demo", "--format", format, "--no-cache");
             Result first = launch("scan", "corpora/demo", "--format", format);
             Result second = launch("scan", "corpora/demo", "--format", format);
             assertEquals(0, second.exitCode(), second.err());
             assertEquals(uncached.out(), first.out(), format);
-            assertEquals(uncached.out(), second.out(), format + ": the stored report, written as bytes, is the same text");
+            assertEquals(uncached.out(), second.out(), format + ": measurements read back from the cache print the same text");
         }
     }
 
@@ -112,6 +115,63 @@ class LauncherIT {
                 assertTrue(trimmed.matcher(out).find(), String.join(" ", command) + " gives freed native memory back");
             }
         }
+    }
+
+    /** A git repository with one small template staged, for the pre-commit hook. */
+    private static Path repositoryWithAStagedTemplate(Path repo) throws Exception {
+        Git.run(repo, "init", "-q");
+        Files.createDirectories(repo.resolve("prompts"));
+        Files.writeString(repo.resolve("tare.yaml"), "templates: {include: [\"prompts/*.md\"]}\n");
+        Files.writeString(repo.resolve("prompts/a.md"), "Answer billing questions briefly.\n");
+        Git.run(repo, "add", ".");
+        return repo;
+    }
+
+    private static Result commit(Path repo, Map<String, String> env) throws Exception {
+        ProcessBuilder builder = new ProcessBuilder("git", "-c", "user.name=Test", "-c", "user.email=test@example.invalid",
+                "-c", "commit.gpgsign=false", "commit", "-q", "-m", "a template").directory(repo.toFile());
+        builder.environment().remove("TARE_JAVA_OPTS");
+        builder.environment().putAll(env);
+        Process process = builder.start();
+        process.getOutputStream().close();
+        byte[] out = process.getInputStream().readAllBytes();
+        byte[] err = process.getErrorStream().readAllBytes();
+        assertTrue(process.waitFor(5, TimeUnit.MINUTES), "the commit finished");
+        return new Result(process.exitValue(), new String(out, StandardCharsets.UTF_8), new String(err, StandardCharsets.UTF_8));
+    }
+
+    @Test
+    void theHookInstalledThroughTheLauncherRunsTheLauncherWithItsOptions(@TempDir Path repo) throws Exception {
+        repositoryWithAStagedTemplate(repo);
+        Result install = launch("hook", "install", repo.toString());
+        assertEquals(0, install.exitCode(), install.err());
+        String hook = Files.readString(repo.resolve(".git/hooks/pre-commit"));
+        assertTrue(hook.endsWith("\nexec '" + Cli.projectDir().resolve("tare") + "' hook run\n"), hook);
+        Result commit = commit(repo, Map.of("TARE_JAVA_OPTS", "-XX:+PrintFlagsFinal"));
+        assertEquals(0, commit.exitCode(), commit.err());
+        // Git passes on a pre-commit hook's standard output as its own standard error.
+        String flags = commit.out() + commit.err();
+        assertTrue(Pattern.compile("TieredStopAtLevel\\s+= 1\\s").matcher(flags).find(),
+                "the hook runs with the launcher's options for hook run: " + flags);
+        assertTrue(Pattern.compile("UseSerialGC\\s+= true\\s").matcher(flags).find(), flags);
+    }
+
+    @Test
+    void theHookInstalledByPlainJavaRunsTheJarWithNoJvmOptions(@TempDir Path repo) throws Exception {
+        repositoryWithAStagedTemplate(repo);
+        String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
+        Path jar = Cli.projectDir().resolve("target/tare.jar");
+        Process install = new ProcessBuilder(java, "-jar", jar.toString(), "hook", "install").directory(repo.toFile())
+                .redirectErrorStream(true).start();
+        install.getOutputStream().close();
+        String said = new String(install.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+        assertTrue(install.waitFor(5, TimeUnit.MINUTES));
+        assertEquals(0, install.exitValue(), said);
+        String hook = Files.readString(repo.resolve(".git/hooks/pre-commit"));
+        assertTrue(hook.endsWith("\nexec '" + java + "' -jar '" + jar + "' hook run\n"), hook);
+        Result commit = commit(repo, Map.of());
+        assertEquals(0, commit.exitCode(), commit.err());
+        assertEquals("", commit.out() + commit.err(), "a clean commit prints nothing");
     }
 
     private static String[] append(String[] command, String last) {

@@ -65,8 +65,8 @@ class ScanCommandTest {
             }
         }
         try (Stream<Path> files = Files.list(copy.resolve(".tare/cache"))) {
-            assertEquals(4, files.filter(f -> f.getFileName().toString().startsWith("report-")).count(),
-                    "one stored report per format and order, so the warm runs printed stored reports");
+            assertEquals(1, files.filter(f -> f.getFileName().toString().startsWith("scan-")).count(),
+                    "one cache of measurements, whatever the format and order, so the warm runs read it");
         }
         Files.writeString(copy.resolve("prompts/new-notice.md"), "Tell the customer the office is closed today.");
         String afterEdit = scanOut(copy, "json", "path");

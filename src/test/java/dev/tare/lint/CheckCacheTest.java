@@ -230,24 +230,8 @@ class CheckCacheTest {
     }
 
     @Test
-    void aStoredReportIsPrintedAgainWithItsStatusWhileNothingChanges() throws IOException {
-        Printed first = report("json", Severity.INFO);
-        assertTrue(first.failed(), "an info finding fails --fail-on info");
-        assertEquals(1, first.renders());
-        Printed second = report("json", Severity.INFO);
-        assertEquals(0, second.renders(), "printed from the store: nothing rendered");
-        assertEquals(first.text(), second.text());
-        assertTrue(second.failed(), "the stored exit status");
-        assertEquals(uncached("json", Severity.INFO), second.text());
-        assertFalse(report("json", Severity.ERROR).failed(), "another failing severity is another report");
-        assertEquals(1, report("text", Severity.INFO).renders(), "each format has its own report");
-        assertEquals(0, report("text", Severity.INFO).renders());
-        assertEquals(uncached("text", Severity.INFO), report("text", Severity.INFO).text());
-    }
-
-    @Test
-    void everyChangeThatCanChangeTheReportMakesANewOne() throws IOException {
-        report("json", Severity.ERROR);
+    void everyChangeThatCanChangeTheFindingsIsSeenByTheWarmCheck() throws IOException {
+        check(true);
         List<Change> changes = List.of(
                 () -> stamped.write("prompts/outages.md", "# Outages\n\nGive the area, street by street.\n"),
                 () -> stamped.write("prompts/partials/policy.md", "Never share a customer's account number or balance."),
@@ -261,95 +245,31 @@ class CheckCacheTest {
         for (Change change : changes) {
             stamped.ageEveryFile();
             change.make();
-            Printed after = report("json", Severity.ERROR);
-            assertEquals(1, after.renders(), "a change is rendered anew");
-            assertEquals(uncached("json", Severity.ERROR), after.text());
+            CheckResult warm = check(true);
+            assertEquals(check(false), warm);
             stamped.ageEveryFile();
-            assertEquals(after.text(), report("json", Severity.ERROR).text());
+            assertEquals(warm, check(true));
         }
     }
 
     @Test
-    void anEditedPartialOutsideTheTemplatesMakesANewReport() throws IOException {
+    void anEditedPartialOutsideTheTemplatesIsSeenByTheWarmCheck() throws IOException {
         stamped.write("tare.yaml", stamped.read("tare.yaml").replace("\"prompts/**/*.md\"", "\"prompts/*.md\""));
         stamped.ageEveryFile();
-        Printed before = report("json", Severity.ERROR);
-        assertFalse(before.text().contains("prompts/partials/policy.md"), "the partial is no template of the run");
+        CheckResult before = check(true);
+        assertTrue(before.findings().stream().noneMatch(f -> f.path().equals("prompts/partials/policy.md")),
+                "the partial is no template of the run");
         stamped.write("prompts/partials/policy.md", "Never share a customer's account number, never guess a balance, never"
                 + " quote a tariff from memory and never promise a visit on a given day.");
         stamped.ageEveryFile();
-        Printed after = report("json", Severity.ERROR);
-        assertEquals(uncached("json", Severity.ERROR), after.text());
+        CheckResult after = check(true);
+        assertEquals(check(false), after);
         assertTrue(after.failed() && !before.failed(), "reply.md is over its budget through its partial");
-    }
-
-    @Test
-    void aRunThatCannotVouchForItsReportStoresNone() throws IOException {
-        stamped.write("prompts/broken.md", "Hello {{> missing }} and goodbye.\n");
-        stamped.ageEveryFile();
-        report("json", Severity.ERROR);
-        assertEquals(1, report("json", Severity.ERROR).renders(), "which file would fix the include is not known");
-        Files.delete(root.resolve("prompts/broken.md"));
-        Files.write(root.resolve("prompts/unreadable.md"), new byte[] {(byte) 0xff, (byte) 0xfe, 0x41});
-        stamped.ageEveryFile();
-        report("json", Severity.ERROR);
-        assertEquals(1, report("json", Severity.ERROR).renders(), "a skipped file may fail for reasons anywhere");
-    }
-
-    @Test
-    void aCorruptStoredReportIsIgnoredAndReplaced() throws IOException {
-        String expected = report("json", Severity.ERROR).text();
-        Path stored;
-        try (Stream<Path> files = Files.list(root.resolve(".tare/cache"))) {
-            stored = files.filter(f -> f.getFileName().toString().startsWith("report-check-")).findFirst().orElseThrow();
-        }
-        byte[] bytes = Files.readAllBytes(stored);
-        bytes[bytes.length / 2] ^= 0x20;
-        Files.write(stored, bytes);
-        Printed again = report("json", Severity.ERROR);
-        assertEquals(1, again.renders());
-        assertEquals(expected, again.text());
-        Files.write(stored, java.util.Arrays.copyOf(bytes, 20));
-        assertEquals(expected, report("json", Severity.ERROR).text());
-        assertEquals(0, report("json", Severity.ERROR).renders());
     }
 
     /** A change to the repository, made by a test. */
     private interface Change {
         void make() throws IOException;
-    }
-
-    /** What {@link Check#report} printed, whether it failed and how often it rendered a report. */
-    private record Printed(String text, boolean failed, int renders) {
-    }
-
-    private Printed report(String form, Severity failOn) {
-        int[] renders = {0};
-        java.io.StringWriter direct = new java.io.StringWriter();
-        StringBuilder printed = new StringBuilder();
-        boolean failed = new Check(Workspace.open(List.of(root), Optional.empty()), new TokenizerRegistry()).report(
-                new CheckOptions(failOn, true), form, (result, out) -> {
-                    renders[0]++;
-                    out.write(render(form, result));
-                }, stored -> {
-                    java.io.ByteArrayOutputStream bytes = new java.io.ByteArrayOutputStream();
-                    try {
-                        stored.copyTo(bytes);
-                    } catch (IOException e) {
-                        throw new java.io.UncheckedIOException(e);
-                    }
-                    printed.append(bytes.toString(java.nio.charset.StandardCharsets.UTF_8));
-                }, direct);
-        return new Printed(printed.toString() + direct, failed, renders[0]);
-    }
-
-    private String uncached(String form, Severity failOn) {
-        return render(form, new Check(Workspace.open(List.of(root), Optional.empty()), new TokenizerRegistry())
-                .run(new CheckOptions(failOn, false)));
-    }
-
-    private static String render(String form, CheckResult result) {
-        return form.equals("json") ? dev.tare.report.CheckReport.json(result) : dev.tare.report.CheckReport.text(result);
     }
 
     private CheckResult check(boolean cache) {

@@ -11,14 +11,12 @@ import java.nio.file.Path;
 import java.nio.file.attribute.FileTime;
 import java.time.Instant;
 import java.time.temporal.ChronoUnit;
-import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
-import java.util.concurrent.atomic.AtomicInteger;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
@@ -157,43 +155,18 @@ class ScanCacheTest {
     }
 
     @Test
-    void aStoredReportIsGivenBackAsItWasWhileNothingChanges() throws IOException {
-        String first = report("json");
-        assertEquals(first, report("json"), "the second run printed the stored report: same render number");
-        assertEquals(content(fresh()), content(first));
-        // Same size, same old time, other words: only the stamps are checked, so the stored copy stands.
-        String text = Files.readString(root.resolve("prompts/other.md"));
-        stamped.replaceKeepingStamp("prompts/other.md", text.replace("meter reading dispute", "bill, in Welsh & Gaelic"
-                .substring(0, 21)));
-        assertEquals(first, report("json"));
-        assertNotEquals(content(fresh()), content(first), "the planted edit changes the scan");
-        assertEquals(1, reportFiles().size());
-    }
-
-    @Test
-    void aReportIsStoredInAGitWorktreeWhoseGitEntryIsAFile() throws IOException {
+    void aWarmScanInAGitWorktreeWhoseGitEntryIsAFileEqualsAFreshOne() throws IOException {
         // In a linked worktree .git is a file naming the real folder, so .git/info/exclude cannot exist.
         stamped.write(".git", "gitdir: /somewhere/else/.git/worktrees/other\n");
         ageEverything();
-        String first = report("json");
-        assertEquals(first, report("json"));
-        assertEquals(1, reportFiles().size());
+        assertEquals(fresh().templates(), scan(true).templates());
+        assertEquals(fresh().templates(), scan(true).templates());
+        assertEquals(1, cacheFiles().size());
     }
 
     @Test
-    void eachOutputFormHasItsOwnStoredReport() {
-        String json = report("json");
-        String text = report("text");
-        assertNotEquals(json, text);
-        assertEquals(json, report("json"));
-        assertEquals(text, report("text"));
-        assertEquals(2, reportFiles().size());
-    }
-
-    @Test
-    void everyChangeThatCanChangeTheReportMakesANewOne() throws IOException {
+    void everyChangeThatCanChangeTheResultIsSeenByTheWarmScan() throws IOException {
         Files.createDirectories(root.resolve(".git"));
-        ageEverything();
         List<Change> changes = List.of(
                 new Change("an edited template", () -> stamped.write("prompts/other.md", "Summarise the dispute, then list the next steps.")),
                 new Change("a new template", () -> stamped.write("prompts/new.md", "Greet the customer by name.")),
@@ -208,105 +181,53 @@ class ScanCacheTest {
                 new Change("git's own exclude file", () -> stamped.write(".git/info/exclude", "prompts/billing/\n")));
         for (Change change : changes) {
             ageEverything();
-            String before = report("json");
-            assertEquals(before, report("json"), "stored before " + change.name());
+            ScanResult before = scan(true);
             change.apply().run();
-            String after = report("json");
-            assertNotEquals(before, after, change.name() + " is noticed");
+            ScanResult after = scan(true);
+            assertNotEquals(content(before), content(after), change.name() + " changes the scan");
             assertEquals(content(fresh()), content(after), change.name());
         }
     }
 
     @Test
-    void anEditedPartialOrToolFileOutsideTheTemplatesMakesANewReport() throws IOException {
+    void anEditedPartialOrToolFileOutsideTheTemplatesIsSeenByTheWarmScan() throws IOException {
         stamped.write("tare.yaml", "templates: {include: [\"prompts/*.md\"], partials: shared}\n"
                 + "targets:\n  - {name: lite, tokenizer: cl100k_base}\n");
         stamped.write("shared/policy.md", "Never share a customer's account number.");
         ageEverything();
-        String before = report("json");
+        ScanResult before = scan(true);
         assertEquals(List.of("prompts/other.md", "prompts/reply.md", "prompts/sibling.md"),
                 fresh().templates().stream().map(ScannedTemplate::path).toList(),
                 "the partial and the tool file are no templates here, only dependencies");
         stamped.write("shared/policy.md", "Never share a customer's account number, and never guess a balance.");
-        String afterPartial = report("json");
-        assertNotEquals(before, afterPartial);
+        ScanResult afterPartial = scan(true);
+        assertNotEquals(content(before), content(afterPartial));
         assertEquals(content(fresh()), content(afterPartial));
         ageEverything();
-        String stored = report("json");
-        assertEquals(stored, report("json"));
         stamped.write("tools/lookup.json", "[{\"name\": \"lookup\", \"description\": \"Finds a customer's account by number.\","
                 + " \"parameters\": {\"type\": \"object\", \"properties\": {}}}]");
-        String afterTool = report("json");
-        assertNotEquals(stored, afterTool);
+        ScanResult afterTool = scan(true);
+        assertNotEquals(content(afterPartial), content(afterTool));
         assertEquals(content(fresh()), content(afterTool));
     }
 
     @Test
-    void aFolderTooRecentToVouchForItselfIsListedAgain() throws IOException {
-        Path prompts = root.resolve("prompts");
-        FileTime recent = FileTime.from(Instant.now());
-        Files.setLastModifiedTime(prompts, recent);
-        String before = report("json");
-        stamped.write("prompts/new.md", "Greet the customer by name.");
-        Files.setLastModifiedTime(root.resolve("prompts/new.md"), FileTime.from(Instant.now().minus(1, ChronoUnit.HOURS)));
-        Files.setLastModifiedTime(prompts, recent); // as if the file came within the same clock tick
-        String after = report("json");
-        assertNotEquals(before, after);
-        assertEquals(content(fresh()), content(after));
-    }
-
-    @Test
-    void aFileTooRecentToVouchForItselfStoresNoReport() throws IOException {
-        stamped.write("prompts/recent.md", "Reply in English.");
-        String first = report("json");
-        assertTrue(reportFiles().isEmpty(), "a report that could never be used is not written");
-        assertNotEquals(first, report("json"));
-    }
-
-    @Test
-    void aScanThatSkippedAFileStoresNoReport() throws IOException {
-        stamped.write("prompts/broken.md", "Dear {{ name, ");
-        ageEverything();
-        String first = report("json");
-        assertTrue(content(first).contains("prompts/broken.md"), "skipped with its reason: " + first);
-        assertTrue(reportFiles().isEmpty());
-        assertNotEquals(first, report("json"));
-    }
-
-    @Test
-    void aCorruptOrTruncatedStoredReportIsIgnoredAndReplaced() throws IOException {
-        String first = report("json");
-        Path stored = reportFiles().get(0);
-        byte[] bytes = Files.readAllBytes(stored);
-        bytes[bytes.length / 2] ^= 0x5a;
-        Files.write(stored, bytes);
-        String second = report("json");
-        assertNotEquals(first, second);
-        assertEquals(content(first), content(second));
-        Files.write(stored, java.util.Arrays.copyOf(Files.readAllBytes(stored), 40));
-        String third = report("json");
-        assertNotEquals(second, third);
-        assertEquals(content(first), content(third));
-        assertEquals(third, report("json"), "rewritten whole");
-    }
-
-    @Test
-    void concurrentRunsEachPrintAWholeReportAndLeaveAUsableOne() throws Exception {
+    void concurrentScansEachGiveWhatAFreshOneGivesAndLeaveAUsableCache() throws Exception {
+        String expected = content(fresh());
         ExecutorService pool = Executors.newFixedThreadPool(4);
         try {
-            List<Future<String>> runs = new ArrayList<>();
+            List<Future<ScanResult>> runs = new ArrayList<>();
             for (int i = 0; i < 8; i++) {
-                runs.add(pool.submit(() -> report("json")));
+                runs.add(pool.submit(() -> scan(true)));
             }
-            for (Future<String> run : runs) {
-                assertEquals(content(fresh()), content(run.get()));
+            for (Future<ScanResult> run : runs) {
+                assertEquals(expected, content(run.get()));
             }
         } finally {
             pool.shutdown();
         }
-        String stored = report("json");
-        assertEquals(stored, report("json"));
-        assertEquals(1, reportFiles().size());
+        assertEquals(expected, content(scan(true)));
+        assertEquals(1, cacheFiles().size());
         try (Stream<Path> files = Files.list(root.resolve(".tare/cache"))) {
             assertTrue(files.noneMatch(f -> f.getFileName().toString().endsWith(".partial")), "no half-written file left");
         }
@@ -319,36 +240,8 @@ class ScanCacheTest {
         void run() throws IOException;
     }
 
-    private final AtomicInteger renders = new AtomicInteger();
-
-    /**
-     * A report of the scan, numbered by the render that made it: a stored report comes back with
-     * the number of the run that made it, a new one with a new number.
-     */
-    private String report(String form) {
-        return StandardCharsets.UTF_8.decode(new TemplateScan(Workspace.open(List.of(root), Optional.empty()),
-                new TokenizerRegistry()).report(new ScanOptions(List.of(), Optional.empty(), true), form,
-                        result -> "render " + renders.incrementAndGet() + " " + form + "\n" + content(result),
-                        ScanProgress.NONE)).toString();
-    }
-
     private static String content(ScanResult result) {
         return result.templates() + "\n" + result.skipped();
-    }
-
-    private static String content(String report) {
-        return report.substring(report.indexOf('\n') + 1);
-    }
-
-    private List<Path> reportFiles() {
-        if (!Files.isDirectory(root.resolve(".tare/cache"))) {
-            return List.of();
-        }
-        try (Stream<Path> files = Files.list(root.resolve(".tare/cache"))) {
-            return files.filter(f -> f.getFileName().toString().startsWith("report-")).toList();
-        } catch (IOException e) {
-            throw new AssertionError(e);
-        }
     }
 
     /** Puts every file's and folder's time an hour back, out of the window in which a stamp cannot vouch for it. */
