@@ -45,7 +45,7 @@ final class TokenSums {
     static TokenSums of(int[] text, int[] weight, byte[] gaps) {
         Map<Integer, Integer> large = new HashMap<>();
         for (int p = 0; p < text.length; p++) {
-            int cost = text[p] == WordStream.SEPARATOR ? 0 : weight[text[p]] + gaps[p];
+            int cost = text[p] == RepositoryWords.SEPARATOR ? 0 : weight[text[p]] + gaps[p];
             if (cost >= LARGE) {
                 large.put(p, cost);
                 cost = LARGE;

@@ -20,7 +20,7 @@ class TokenSumsTest {
             }
             int[] plain = new int[length + 1];
             for (int p = 0; p < length; p++) {
-                plain[p + 1] = plain[p] + (text[p] == WordStream.SEPARATOR ? 0 : weight[text[p]] + gaps[p]);
+                plain[p + 1] = plain[p] + (text[p] == RepositoryWords.SEPARATOR ? 0 : weight[text[p]] + gaps[p]);
             }
             TokenSums sums = TokenSums.of(text, weight, gaps);
             for (int p = 0; p <= length; p++) {
