@@ -5,7 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 
-/** The compact prefix sums give what a sum at every position gives, long unbroken words included. */
+/** Every position sums the estimates of the words before it, long unbroken words included. */
 class TokenSumsTest {
     @Test
     void everyPositionSumsTheWordsBeforeIt() {
