@@ -15,7 +15,7 @@ import java.util.function.Function;
  * Finds the blocks of literal text that two or more templates share, in near-linear time and without
  * comparing templates pair by pair.
  *
- * <p>How: every template's words are laid end to end as numbers ({@link WordStream}; comparing words,
+ * <p>How: every template's words are laid end to end as numbers ({@link RepositoryWords}; comparing words,
  * not characters, makes whitespace-only differences the same block). One suffix array over that text
  * and its longest-common-prefix array ({@link SuffixArray}, linear time) list every repeated run of
  * words as an interval of sorted suffixes; walking the intervals bottom-up (Abouelhoda, Kurtz and
@@ -72,29 +72,28 @@ public final class SharedBlocks {
         if (paths.size() < 2) {
             return List.of();
         }
-        // Only the long runs are sorted; the word stream is dropped once they are copied out.
-        LongRuns runs = runs(words.stream(), tokenizer, minTokens);
+        // Only the long runs are sorted; the whole text is dropped once they are copied out.
+        LongRuns runs = runs(words.text(), tokenizer, minTokens);
         int[] sa = SuffixArray.of(runs.text, runs.upper);
-        int[] plcp = SuffixArray.plcp(runs.text, sa, WordStream.SEPARATOR);
+        int[] plcp = SuffixArray.plcp(runs.text, sa, RepositoryWords.SEPARATOR);
         Finder finder = new Finder(paths, templates, runs, sa, tokenizer, minTokens);
         walkIntervals(runs, sa, plcp, finder);
         plcp = null;
         return finder.blocks();
     }
 
-    private static LongRuns runs(WordStream stream, Tokenizer tokenizer, int minTokens) {
-        return LongRuns.of(stream, weights(stream, tokenizer), minTokens * ESTIMATE_SLACK);
+    private static LongRuns runs(RepositoryWords.Text words, Tokenizer tokenizer, int minTokens) {
+        return LongRuns.of(words, weights(words, tokenizer), minTokens * ESTIMATE_SLACK);
     }
 
     /** The estimated tokens of each word that occurs more than once, with a space before it. */
-    private static int[] weights(WordStream stream, Tokenizer tokenizer) {
-        int[] weight = new int[stream.table.size() + 1];
+    private static int[] weights(RepositoryWords.Text words, Tokenizer tokenizer) {
+        int[] weight = new int[words.words().length];
         Arrays.fill(weight, -1);
-        weight[WordStream.SEPARATOR] = 0;
-        WordStream.Reader reader = stream.reader();
-        for (int id = reader.next(); id >= 0; id = reader.next()) {
+        weight[RepositoryWords.SEPARATOR] = 0;
+        for (int id : words.text()) {
             if (weight[id] < 0) {
-                weight[id] = tokenizer.count(" " + stream.table.word(id));
+                weight[id] = tokenizer.count(" " + words.words()[id]);
             }
         }
         return weight;
@@ -133,9 +132,9 @@ public final class SharedBlocks {
         stackTemplate[0] = UNSET;
         for (int i = 1; i <= n; i++) {
             int suffix = sa[i - 1];
-            int before = suffix == 0 ? WordStream.SEPARATOR : text[suffix - 1];
-            int left = before == WordStream.SEPARATOR ? MIXED : before;
-            int template = text[suffix] == WordStream.SEPARATOR ? UNSET : runs.templateAt(suffix);
+            int before = suffix == 0 ? RepositoryWords.SEPARATOR : text[suffix - 1];
+            int left = before == RepositoryWords.SEPARATOR ? MIXED : before;
+            int template = text[suffix] == RepositoryWords.SEPARATOR ? UNSET : runs.templateAt(suffix);
             int h = i < n ? plcp[sa[i]] : 0;
             int lb = i - 1;
             while (h < stackLength[top]) {

@@ -30,16 +30,15 @@ final class Extracted {
     }
 
     /**
-     * @param originals each changed file as it was read
+     * @param originals each selected file as it was read, by path
      */
-    void merge(ExtractionPlanner.Result result, java.util.function.Function<String, SourceText> originals,
-               Map<String, FileFix> fixes) {
+    void merge(ExtractionPlanner.Result result, Map<String, SourceText> originals, Map<String, FileFix> fixes) {
         result.texts().forEach((path, text) -> {
             Map<String, Integer> rules = result.applied().getOrDefault(path, Map.of());
             if (result.created().contains(path)) {
                 fixes.put(path, created(path, text, rules));
             } else {
-                fixes.put(path, changed(originals.apply(path), text, rules, fixes.get(path)));
+                fixes.put(path, changed(originals.get(path), text, rules, fixes.get(path)));
             }
         });
     }

@@ -23,7 +23,6 @@ import java.util.Collections;
 import java.util.Comparator;
 import java.util.HashMap;
 import java.util.HashSet;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
@@ -79,7 +78,7 @@ final class ExtractionPlanner {
     }
 
     /** How many extractions with something to replace each named cross-template rule offers over {@code texts}. */
-    Map<String, Integer> offered(Texts texts, Map<String, Original> originals) {
+    Map<String, Integer> offered(Map<String, String> texts, Map<String, SourceText> originals) {
         Map<String, Integer> offered = new TreeMap<>();
         View view = new View(texts, originals);
         for (CrossTemplateRule rule : rules(false)) {
@@ -99,12 +98,12 @@ final class ExtractionPlanner {
      * @param originals each selected file as read
      * @param frozen    files that must not change (their per-file rewrite was dropped)
      */
-    Result plan(Texts current, Map<String, Original> originals, Set<String> frozen) {
+    Result plan(Map<String, String> current, Map<String, SourceText> originals, Set<String> frozen) {
         List<CrossTemplateRule> rules = rules(true);
         if (rules.isEmpty()) {
             return Result.NONE;
         }
-        Texts texts = current;
+        Map<String, String> texts = new TreeMap<>(current);
         Set<String> created = new TreeSet<>();
         Map<String, Map<String, Integer>> applied = new TreeMap<>();
         Map<String, Set<String>> needs = new TreeMap<>();
@@ -161,7 +160,7 @@ final class ExtractionPlanner {
                     }
                     continue;
                 }
-                texts = texts.with(next);
+                texts.putAll(next);
                 if (extraction.created().isPresent()) {
                     created.add(extraction.partial());
                     copies.forEach(c -> needs.computeIfAbsent(c.path(), p -> new TreeSet<>()).add(extraction.partial()));
@@ -178,7 +177,7 @@ final class ExtractionPlanner {
             }
         }
         Map<String, String> changed = new TreeMap<>();
-        texts.changed().forEach((path, text) -> {
+        texts.forEach((path, text) -> {
             if (!text.equals(current.get(path))) {
                 changed.put(path, text);
             }
@@ -214,17 +213,17 @@ final class ExtractionPlanner {
     }
 
     /** The extraction's edits applied to {@code texts}, into {@code next}; a problem when they cannot be. */
-    private Optional<String> apply(Extraction extraction, List<Extraction.Copy> copies, Texts texts,
+    private Optional<String> apply(Extraction extraction, List<Extraction.Copy> copies, Map<String, String> texts,
                                    Map<String, String> next) {
         Map<String, List<Edit>> edits = new TreeMap<>();
         for (Extraction.Copy copy : copies) {
-            if (!texts.has(copy.path())) {
+            if (!texts.containsKey(copy.path())) {
                 return Optional.of(copy.path() + " is not among the files being fixed");
             }
             edits.computeIfAbsent(copy.path(), p -> new ArrayList<>()).add(copy.edit());
         }
         if (extraction.created().isPresent()) {
-            if (texts.has(extraction.partial()) || Files.exists(loader.workspace().root().resolve(extraction.partial()))) {
+            if (texts.containsKey(extraction.partial()) || Files.exists(loader.workspace().root().resolve(extraction.partial()))) {
                 return Optional.of("a file already stands at " + extraction.partial() + ", and no file is ever replaced by a new partial");
             }
             next.put(extraction.partial(), extraction.created().get());
@@ -238,10 +237,12 @@ final class ExtractionPlanner {
     }
 
     /** What is wrong with changing {@code texts} by {@code next}; empty when every changed file renders as before. */
-    private Optional<String> verify(Texts texts, Map<String, String> next, Map<String, Original> originals,
-                                    Extraction extraction) {
+    private Optional<String> verify(Map<String, String> texts, Map<String, String> next,
+                                    Map<String, SourceText> originals, Extraction extraction) {
+        Map<String, String> afterTexts = new TreeMap<>(texts);
+        afterTexts.putAll(next);
         View before = new View(texts, originals);
-        View after = new View(texts.with(next), originals);
+        View after = new View(afterTexts, originals);
         if (extraction.created().isPresent()) {
             Optional<Template> partial;
             try {
@@ -316,11 +317,11 @@ final class ExtractionPlanner {
      * is asked for and not kept, so a round over a whole repository holds its words, not its templates.
      */
     private final class View {
-        private final Texts texts;
-        private final Map<String, Original> originals;
+        private final Map<String, String> texts;
+        private final Map<String, SourceText> originals;
         private final Renderer renderer;
 
-        View(Texts texts, Map<String, Original> originals) {
+        View(Map<String, String> texts, Map<String, SourceText> originals) {
             this.texts = texts;
             this.originals = originals;
             this.renderer = loader.renderer(this::template);
@@ -332,7 +333,7 @@ final class ExtractionPlanner {
             if (text == null) {
                 return Optional.empty();
             }
-            Original original = originals.get(path);
+            SourceText original = originals.get(path);
             boolean bom = original != null && original.hadBom();
             return Optional.of(loader.parse(new SourceText(path, loader.workspace().root().resolve(path), text, bom,
                     FileBytes.encode(text, bom).length)));
@@ -342,7 +343,7 @@ final class ExtractionPlanner {
         LintContext context() {
             List<String> parsed = new ArrayList<>();
             RepositoryWords words = new RepositoryWords();
-            for (String path : texts.paths()) {
+            for (String path : texts.keySet()) {
                 try {
                     template(path).ifPresent(template -> {
                         words.add(template);
@@ -364,7 +365,7 @@ final class ExtractionPlanner {
                 return again;
             });
             return new LintContext(loader.workspace().config(), tokenizers, renderer, run, catalog.ids(), Map.of(),
-                    path -> texts.has(path) || Files.exists(loader.workspace().root().resolve(path)));
+                    path -> texts.containsKey(path) || Files.exists(loader.workspace().root().resolve(path)));
         }
     }
 }

@@ -11,9 +11,8 @@ import java.util.List;
 public final class FileFix {
     private final String path;
     private final Outcome outcome;
-    // Kept compressed: a fix of a large repository holds thousands of these until the report is printed.
-    private final PackedText before;
-    private final PackedText after;
+    private final String before;
+    private final String after;
     private final List<RuleSaving> rules;
     private final List<TokenChange> tokens;
     private final int rounds;
@@ -41,11 +40,6 @@ public final class FileFix {
 
     public FileFix(String path, Outcome outcome, String before, String after, List<RuleSaving> rules,
                    List<TokenChange> tokens, int rounds, List<String> problems, boolean created) {
-        this(path, outcome, PackedText.of(before), PackedText.of(after), rules, tokens, rounds, problems, created);
-    }
-
-    private FileFix(String path, Outcome outcome, PackedText before, PackedText after, List<RuleSaving> rules,
-                    List<TokenChange> tokens, int rounds, List<String> problems, boolean created) {
         this.path = path;
         this.outcome = outcome;
         this.before = before;
@@ -69,12 +63,12 @@ public final class FileFix {
 
     /** The file's text as read (without a byte-order mark); empty for a new file. */
     public String before() {
-        return before.text();
+        return before;
     }
 
     /** The rewritten text. */
     public String after() {
-        return after.text();
+        return after;
     }
 
     /** Each rule's applied rewrites and savings, sorted by rule id. */

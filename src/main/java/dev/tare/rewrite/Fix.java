@@ -89,8 +89,7 @@ public final class Fix {
         RewriteSelection rewrites = RewriteSelection.of(check.catalog(), options);
         FilePlanner planner = new FilePlanner(check, loader, rewrites, tokenizers);
         Map<String, FileFix> fixes = new TreeMap<>();
-        // Only what each file was is kept; its text is read again when needed (see originalText).
-        Map<String, Original> originals = new TreeMap<>();
+        Map<String, SourceText> originals = new TreeMap<>();
         ExtractionPlanner across = new ExtractionPlanner(loader, check.catalog(), rewrites, tokenizers);
         boolean extracting = acrossFiles && across.hasRulesNamed();
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
@@ -125,21 +124,18 @@ public final class Fix {
         List<NotApplied> refused = List.of();
         Map<String, Set<String>> needs = Map.of();
         if (extracting) {
+            Map<String, String> current = new TreeMap<>();
             Set<String> frozen = new TreeSet<>();
-            fixes.forEach((path, fix) -> {
-                if (!fix.verified()) {
+            originals.forEach((path, original) -> {
+                FileFix fix = fixes.get(path);
+                current.put(path, fix != null && fix.verified() ? fix.after() : original.text());
+                if (fix != null && !fix.verified()) {
                     frozen.add(path);
                 }
             });
-            Map<String, FileFix> perFile = new HashMap<>(fixes);
-            Texts current = new Texts(originals.keySet(), path -> {
-                FileFix fix = perFile.get(path);
-                return fix != null && fix.verified() ? fix.after() : originalText(path, originals, perFile, reader);
-            });
             if (options.includeReview()) {
                 ExtractionPlanner.Result extracted = across.plan(current, originals, frozen);
-                new Extracted(loader, planner, check).merge(extracted,
-                        path -> originals.get(path).with(originalText(path, originals, perFile, reader)), fixes);
+                new Extracted(loader, planner, check).merge(extracted, originals, fixes);
                 refused = extracted.refused();
                 needs = extracted.needs();
             } else {
@@ -156,7 +152,7 @@ public final class Fix {
      * then the other files, each only if every new partial it includes was written; so no file ever
      * includes a partial that is not there.
      */
-    private List<FileFix> write(Map<String, FileFix> fixes, Map<String, Original> originals,
+    private List<FileFix> write(Map<String, FileFix> fixes, Map<String, SourceText> originals,
                                 Map<String, Set<String>> needs) {
         FixWriter writer = new FixWriter(files);
         Map<String, FileFix> done = new TreeMap<>();
@@ -193,7 +189,7 @@ public final class Fix {
                 continue;
             }
             List<String> absent = needs.getOrDefault(fix.path(), Set.of()).stream().filter(missing::contains).toList();
-            done.put(fix.path(), absent.isEmpty() ? writer.write(fix, originals.get(fix.path()).with(fix.before()))
+            done.put(fix.path(), absent.isEmpty() ? writer.write(fix, originals.get(fix.path()))
                     : fix.with(FileFix.Outcome.NOT_WRITTEN, "it would include " + String.join(", ", absent)
                     + ", which could not be created, so the file is as it was; run the fix again"));
         }
@@ -201,7 +197,7 @@ public final class Fix {
     }
 
     /** A file a new partial takes its permissions from: one of the templates it was made from. */
-    private Path like(String partial, Map<String, Set<String>> needs, Map<String, Original> originals) {
+    private Path like(String partial, Map<String, Set<String>> needs, Map<String, SourceText> originals) {
         for (Map.Entry<String, Set<String>> entry : needs.entrySet()) {
             if (entry.getValue().contains(partial) && originals.containsKey(entry.getKey())) {
                 return originals.get(entry.getKey()).file();
@@ -214,7 +210,7 @@ public final class Fix {
      * What reading and planning one file gave: why it could not be read, or the file it is (links
      * followed) and what it was, then why it does not parse, or its plan.
      */
-    private record Planned(String path, Optional<String> unreadable, Path identity, Original original,
+    private record Planned(String path, Optional<String> unreadable, Path identity, SourceText original,
                            Optional<String> unparsable, FilePlanner.Plan plan) {
     }
 
@@ -237,25 +233,8 @@ public final class Fix {
         } catch (TareException e) {
             return new Planned(path, Optional.empty(), identity, null, Optional.of(e.getMessage()), null);
         }
-        return new Planned(path, Optional.empty(), identity, Original.of(original), Optional.empty(),
+        return new Planned(path, Optional.empty(), identity, original, Optional.empty(),
                 planner.plan(original, template));
-    }
-
-    /**
-     * A file's text as it was read: from its per-file fix, which holds it, or read again, and refused
-     * when the file changed since.
-     */
-    private static String originalText(String path, Map<String, Original> originals, Map<String, FileFix> fixes,
-                                       Function<String, SourceText> reader) {
-        FileFix fix = fixes.get(path);
-        if (fix != null) {
-            return fix.before();
-        }
-        String text = reader.apply(path).text();
-        if (text.hashCode() != originals.get(path).hash()) {
-            throw new TareException(path + " changed while it was being fixed, so nothing was written; run the fix again");
-        }
-        return text;
     }
 
     /** The file a path names once links are followed, so that two names of one file are fixed once. */

@@ -18,7 +18,6 @@ import java.io.IOException;
 import java.util.HashMap;
 import java.util.Map;
 import java.util.OptionalInt;
-import java.util.Set;
 import org.yaml.snakeyaml.LoaderOptions;
 
 /**
@@ -32,10 +31,7 @@ public final class YamlDocument {
     /** The deepest nesting accepted; real prompt and config files stay far below it. */
     public static final int MAX_DEPTH = 64;
 
-    /** Jackson's YAML parser, made on first use: a document {@link SimpleYaml} reads never loads it. */
-    private static final class Yaml {
-        static final JsonFactory FACTORY = yamlFactory();
-    }
+    private static final JsonFactory YAML = yamlFactory();
 
     private static final JsonFactory JSON = JsonFactory.builder()
             .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
@@ -49,27 +45,9 @@ public final class YamlDocument {
         this.locations = locations;
     }
 
-    /**
-     * Parses YAML text (JSON is YAML too, but use {@link #parseJson} for JSON files' exact messages).
-     * Documents in the plain subset most prompt files use are read by {@link SimpleYaml}, the rest
-     * (and every error) by Jackson's YAML parser, with the same results.
-     */
+    /** Parses YAML text (JSON is YAML too, but use {@link #parseJson} for JSON files' exact messages). */
     public static YamlDocument parseYaml(String text) {
-        SimpleYaml.Read simple = SimpleYaml.read(text);
-        if (simple != null) {
-            return new YamlDocument(simple.root(), simple.locations());
-        }
-        return parse(Yaml.FACTORY, text);
-    }
-
-    /** Parses YAML text with Jackson's YAML parser only: what {@link SimpleYaml} is held to. */
-    static YamlDocument parseYamlInFull(String text) {
-        return parse(Yaml.FACTORY, text);
-    }
-
-    /** Every path with a recorded location: for comparing two readings of a document. */
-    Set<String> locatedPaths() {
-        return locations.keySet();
+        return parse(YAML, text);
     }
 
     /** Parses JSON text. */

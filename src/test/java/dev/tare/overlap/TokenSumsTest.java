@@ -5,7 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 
-/** The compact prefix sums give what a sum at every position gives, long unbroken words included. */
+/** Every position sums the estimates of the words before it, long unbroken words included. */
 class TokenSumsTest {
     @Test
     void everyPositionSumsTheWordsBeforeIt() {
@@ -20,7 +20,7 @@ class TokenSumsTest {
             }
             int[] plain = new int[length + 1];
             for (int p = 0; p < length; p++) {
-                plain[p + 1] = plain[p] + (text[p] == WordStream.SEPARATOR ? 0 : weight[text[p]] + gaps[p]);
+                plain[p + 1] = plain[p] + (text[p] == RepositoryWords.SEPARATOR ? 0 : weight[text[p]] + gaps[p]);
             }
             TokenSums sums = TokenSums.of(text, weight, gaps);
             for (int p = 0; p <= length; p++) {

@@ -62,6 +62,62 @@ class SafeReaderTest {
         assertEquals("not valid UTF-8 (bad byte sequence at offset 5, line 2); save the file as UTF-8", refusal(both));
     }
 
+    /**
+     * The sequences Table 3-7 of the Unicode Standard leaves out are refused at their first byte:
+     * overlong forms, surrogates, code points past U+10FFFF, a continuation byte without a lead, and
+     * a sequence the file ends inside.
+     */
+    @Test
+    void refusesWhatIsNotWellFormedAtItsFirstByte() {
+        int[][] bad = {
+            {0xC0, 0xAF}, {0xC1, 0xBF}, {0xE0, 0x80, 0xAF}, {0xF0, 0x80, 0x80, 0xAF},
+            {0xED, 0xA0, 0x80}, {0xED, 0xBF, 0xBF},
+            {0xF4, 0x90, 0x80, 0x80}, {0xF5, 0x80, 0x80, 0x80}, {0xFF},
+            {0x80}, {0xBF, 'a'},
+            {0xE2, 0x82}, {0xF0, 0x9F, 0x99},
+        };
+        for (int[] sequence : bad) {
+            byte[] bytes = new byte[3 + sequence.length];
+            bytes[0] = 'a';
+            bytes[1] = '\n';
+            bytes[2] = 'b';
+            for (int i = 0; i < sequence.length; i++) {
+                bytes[3 + i] = (byte) sequence[i];
+            }
+            assertEquals("not valid UTF-8 (bad byte sequence at offset 3, line 2); save the file as UTF-8", refusal(bytes),
+                    () -> java.util.Arrays.toString(sequence));
+        }
+    }
+
+    @Test
+    void decodesEveryWidthUpToTheLastCodePoint() {
+        String text = "a\u00e9\u07ff\u0800\ud7ff\ue000\uffff\ud800\udc00\udbff\udfff";
+        assertEquals(text, decode(text.getBytes(StandardCharsets.UTF_8)).text());
+    }
+
+    /** The offset named is that of the odd byte, wherever it stands in a line. */
+    @Test
+    void namesTheOffsetOfAnOddByteAtEveryPlaceOfALine() {
+        for (int at = 0; at < 20; at++) {
+            byte[] bytes = "abcdefghijklmnopqrst".getBytes(StandardCharsets.US_ASCII);
+            bytes[at] = (byte) 0x80;
+            assertEquals("not valid UTF-8 (bad byte sequence at offset " + at + ", line 1); save the file as UTF-8",
+                    refusal(bytes));
+            bytes[at] = 0;
+            assertEquals("binary file (NUL byte at offset " + at + ")", refusal(bytes));
+        }
+    }
+
+    /** Offsets count the byte-order mark: they are offsets in the file. */
+    @Test
+    void countsTheByteOrderMarkInTheOffset() {
+        byte[] bytes = {(byte) 0xEF, (byte) 0xBB, (byte) 0xBF, 'a', (byte) 0xC3, '('};
+        assertEquals("not valid UTF-8 (bad byte sequence at offset 4, line 1); save the file as UTF-8", refusal(bytes));
+        SafeReader.Chars chars = reader.decodeChars("t.md", new byte[] {(byte) 0xEF, (byte) 0xBB, (byte) 0xBF, 'c',
+            (byte) 0xC3, (byte) 0xA9}, new char[8]);
+        assertEquals("c\u00e9", new String(chars.array(), 0, chars.length()));
+    }
+
     /** Random bytes, mostly valid UTF-8: the text or the refusal is what a strict decoder says. */
     @Test
     void decodesAsAStrictDecoderOnRandomBytes() {
