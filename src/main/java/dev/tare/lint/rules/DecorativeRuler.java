@@ -1,6 +1,5 @@
 package dev.tare.lint.rules;
 
-import dev.tare.lint.Edit;
 import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
@@ -53,11 +52,10 @@ final class DecorativeRuler implements Rule {
                     continue;
                 }
                 String shortForm = shortForm(stripped.charAt(0));
-                findings.add(text.finding(DESCRIPTOR, message, start, end,
+                findings.add(text.edit(DESCRIPTOR, message, start, end, shortForm,
                         "a " + stripped.replace(" ", "").length() + "-character '" + stripped.charAt(0)
                                 + "' ruler; '" + shortForm + "' separates just as well",
-                        text.rewrite(message, List.of(new Edit(start, end, shortForm)), context.tokenizer(template)),
-                        List.of()));
+                        context.tokenizer(template)));
             }
         }
         return findings;

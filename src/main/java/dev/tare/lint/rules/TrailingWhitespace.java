@@ -1,6 +1,5 @@
 package dev.tare.lint.rules;
 
-import dev.tare.lint.Edit;
 import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
@@ -45,11 +44,10 @@ final class TrailingWhitespace implements Rule {
                     continue;
                 }
                 int width = line.end() - start;
-                findings.add(text.finding(DESCRIPTOR, message, start, line.end(),
+                findings.add(text.edit(DESCRIPTOR, message, start, line.end(), "",
                         width + " trailing " + describe(content, start, line.end())
                                 + " at the end of the line; delete " + (width == 1 ? "it" : "them"),
-                        text.rewrite(message, List.of(new Edit(start, line.end(), "")), context.tokenizer(template)),
-                        List.of()));
+                        context.tokenizer(template)));
             }
         }
         return findings;
