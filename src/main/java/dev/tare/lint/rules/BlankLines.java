@@ -35,7 +35,7 @@ final class BlankLines implements Rule {
         List<Finding> findings = new ArrayList<>();
         for (MessageText message : text.messages()) {
             String content = message.content();
-            List<Line> lines = Line.of(content);
+            List<ContentLine> lines = ContentLine.of(content);
             int i = 0;
             while (i < lines.size()) {
                 if (!lines.get(i).isBlank(content)) {

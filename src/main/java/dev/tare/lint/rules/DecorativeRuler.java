@@ -41,7 +41,7 @@ final class DecorativeRuler implements Rule {
         List<Finding> findings = new ArrayList<>();
         for (MessageText message : text.messages()) {
             String content = message.content();
-            for (Line line : Line.of(content)) {
+            for (ContentLine line : ContentLine.of(content)) {
                 String stripped = line.text(content).strip();
                 if (!isRuler(stripped)) {
                     continue;

@@ -33,7 +33,7 @@ final class ProseTab implements Rule {
         List<Finding> findings = new ArrayList<>();
         for (MessageText message : text.messages()) {
             String content = message.content();
-            for (Line line : Line.of(content)) {
+            for (ContentLine line : ContentLine.of(content)) {
                 for (int[] run : line.blanksBetweenWords(content)) {
                     boolean tab = content.substring(run[0], run[1]).indexOf('\t') >= 0;
                     if (tab && message.allowsWhitespaceEdit(run[0], run[1])) {

@@ -34,7 +34,7 @@ final class SpaceRun implements Rule {
         List<Finding> findings = new ArrayList<>();
         for (MessageText message : text.messages()) {
             String content = message.content();
-            for (Line line : Line.of(content)) {
+            for (ContentLine line : ContentLine.of(content)) {
                 for (int[] run : line.blanksBetweenWords(content)) {
                     // A run with a tab in it is prose-tab's; this rule takes runs of spaces only.
                     boolean spacesOnly = content.substring(run[0], run[1]).indexOf('\t') < 0;

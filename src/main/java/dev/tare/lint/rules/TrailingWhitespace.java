@@ -35,7 +35,7 @@ final class TrailingWhitespace implements Rule {
         List<Finding> findings = new ArrayList<>();
         for (MessageText message : text.messages()) {
             String content = message.content();
-            for (Line line : Line.of(content)) {
+            for (ContentLine line : ContentLine.of(content)) {
                 int start = line.end();
                 while (start > line.start() && (content.charAt(start - 1) == ' ' || content.charAt(start - 1) == '\t')) {
                     start--;
