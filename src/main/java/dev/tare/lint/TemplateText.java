@@ -113,6 +113,17 @@ public final class TemplateText {
                 rule.id(), rule.severity(), text, rule.rewriteClass(), rewrite, related);
     }
 
+    /**
+     * A finding of {@code rule} over {@code [start, end)} of {@code message} whose rewrite is the one
+     * edit replacing exactly that text with {@code replacement}, its saving measured by
+     * {@code tokenizer} (no rewrite when the edit cannot be written back to the file exactly).
+     */
+    public Finding edit(RuleDescriptor rule, MessageText message, int start, int end, String replacement, String text,
+                        Tokenizer tokenizer) {
+        return finding(rule, message, start, end, text, rewrite(message, new Edit(start, end, replacement), tokenizer),
+                List.of());
+    }
+
     /** A finding over {@code [start, end)} of the file's text (for front matter and other non-message text). */
     public Finding findingInSource(RuleDescriptor rule, int start, int end, String text) {
         return new Finding(template.path(), lines.line(start), lines.column(start), lines.line(end), lines.column(end),
@@ -144,6 +155,11 @@ public final class TemplateText {
         List<Edit> local = sorted.stream().map(e -> e.shift(-from)).toList();
         String after = Rewrite.apply(before, local);
         return Optional.of(new Rewrite(moved.get(), tokenizer.count(before) - tokenizer.count(after)));
+    }
+
+    /** The rewrite made of the one edit {@code edit}, as {@link #rewrite(MessageText, List, Tokenizer)} makes it. */
+    public Optional<Rewrite> rewrite(MessageText message, Edit edit, Tokenizer tokenizer) {
+        return rewrite(message, List.of(edit), tokenizer);
     }
 
     /**

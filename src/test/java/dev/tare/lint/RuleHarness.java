@@ -1,9 +1,14 @@
 package dev.tare.lint;
 
+import dev.tare.config.TareConfig;
 import dev.tare.source.SourceText;
+import dev.tare.template.IncludeResolver;
+import dev.tare.template.PartialDirectory;
 import dev.tare.template.PlaceholderSyntax;
+import dev.tare.template.Renderer;
 import dev.tare.template.Template;
 import dev.tare.template.TemplateParser;
+import dev.tare.tokenize.TokenizerRegistry;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -32,6 +37,25 @@ public final class RuleHarness {
         List<Finding> findings = new ArrayList<>(rule.check(template, context));
         findings.sort(Finding.ORDER);
         return findings;
+    }
+
+    /** The findings of {@code rule} in {@code text}, read as {@code path}, under {@code config} (no includes resolve). */
+    public static List<Finding> findings(Rule rule, String path, String text, TareConfig config) {
+        LintContext context = new LintContext(config, new TokenizerRegistry(), new Renderer(IncludeResolver.NONE), List.of(),
+                java.util.Set.of(), Map.of());
+        List<Finding> findings = new ArrayList<>(rule.check(template(path, text), context));
+        findings.sort(Finding.ORDER);
+        return findings;
+    }
+
+    /**
+     * A context over {@code templates} whose includes resolve among them in {@code prompts/partials},
+     * with example settings.
+     */
+    public static LintContext withPartials(List<Template> templates, Map<String, Integer> settings) {
+        Renderer renderer = new Renderer(new PartialDirectory("prompts/partials",
+                path -> templates.stream().filter(t -> t.path().equals(path)).findFirst()));
+        return LintContext.forExample(Path.of("."), new Example("", "", settings), java.util.Set.of(), templates, renderer);
     }
 
     /** {@code text} (read as {@code path}) with every rewrite of {@code rule} applied. */

@@ -1,6 +1,5 @@
 package dev.tare.lint.rules;
 
-import dev.tare.lint.Edit;
 import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
@@ -36,7 +35,7 @@ final class BlankLines implements Rule {
         List<Finding> findings = new ArrayList<>();
         for (MessageText message : text.messages()) {
             String content = message.content();
-            List<Line> lines = Line.of(content);
+            List<ContentLine> lines = ContentLine.of(content);
             int i = 0;
             while (i < lines.size()) {
                 if (!lines.get(i).isBlank(content)) {
@@ -57,10 +56,9 @@ final class BlankLines implements Rule {
                 }
                 String replacement = atStart || atEnd ? "" : lines.get(first).lineBreak(content);
                 String where = atStart ? " at the start" : atEnd ? " at the end" : "";
-                findings.add(text.finding(DESCRIPTOR, message, start, end,
+                findings.add(text.edit(DESCRIPTOR, message, start, end, replacement,
                         count + " blank lines in a row" + where + "; " + (replacement.isEmpty() ? "remove them" : "keep one"),
-                        text.rewrite(message, List.of(new Edit(start, end, replacement)), context.tokenizer(template)),
-                        List.of()));
+                        context.tokenizer(template)));
             }
         }
         return findings;

@@ -89,7 +89,7 @@ final class CostlyCharacter implements Rule {
                         }
                         measure(content, edit.get(), tokenizers).ifPresent(cost -> findings.add(text.finding(DESCRIPTOR,
                                 message, start, end, describe(content.substring(start, end), edit.get(), cost),
-                                text.rewrite(message, List.of(edit.get()), context.tokenizer(template)), List.of())));
+                                text.rewrite(message, edit.get(), context.tokenizer(template)), List.of())));
                     }
                     i = end;
                 }

@@ -1,6 +1,5 @@
 package dev.tare.lint.rules;
 
-import dev.tare.lint.Edit;
 import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
@@ -42,7 +41,7 @@ final class DecorativeRuler implements Rule {
         List<Finding> findings = new ArrayList<>();
         for (MessageText message : text.messages()) {
             String content = message.content();
-            for (Line line : Line.of(content)) {
+            for (ContentLine line : ContentLine.of(content)) {
                 String stripped = line.text(content).strip();
                 if (!isRuler(stripped)) {
                     continue;
@@ -53,11 +52,10 @@ final class DecorativeRuler implements Rule {
                     continue;
                 }
                 String shortForm = shortForm(stripped.charAt(0));
-                findings.add(text.finding(DESCRIPTOR, message, start, end,
+                findings.add(text.edit(DESCRIPTOR, message, start, end, shortForm,
                         "a " + stripped.replace(" ", "").length() + "-character '" + stripped.charAt(0)
                                 + "' ruler; '" + shortForm + "' separates just as well",
-                        text.rewrite(message, List.of(new Edit(start, end, shortForm)), context.tokenizer(template)),
-                        List.of()));
+                        context.tokenizer(template)));
             }
         }
         return findings;

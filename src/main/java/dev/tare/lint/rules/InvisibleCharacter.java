@@ -1,6 +1,5 @@
 package dev.tare.lint.rules;
 
-import dev.tare.lint.Edit;
 import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
@@ -55,11 +54,10 @@ final class InvisibleCharacter implements Rule {
                     if (replacement == null || message.touches(i, i + 1, VERBATIM)) {
                         continue;
                     }
-                    findings.add(text.finding(DESCRIPTOR, message, i, i + 1,
+                    findings.add(text.edit(DESCRIPTOR, message, i, i + 1, replacement,
                             name(c) + " (U+" + String.format(Locale.ROOT, "%04X", (int) c) + ") "
                                     + (replacement.isEmpty() ? "shows nothing; delete it" : "looks like a space; type a plain space"),
-                            text.rewrite(message, List.of(new Edit(i, i + 1, replacement)), context.tokenizer(template)),
-                            List.of()));
+                            context.tokenizer(template)));
                 }
             }
         }

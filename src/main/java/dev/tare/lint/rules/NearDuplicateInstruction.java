@@ -108,7 +108,7 @@ final class NearDuplicateInstruction implements Rule {
         Optional<Rewrite> rewrite = message.isProtected(later.sentence().start(), later.sentence().end()) ? Optional.empty()
                 : Sentences.removal(message.content(), later.sentences(), later.index(), true)
                         .filter(r -> !message.isProtected(r[0], r[1]))
-                        .flatMap(r -> text.rewrite(message, List.of(new Edit(r[0], r[1], "")), context.tokenizer(template)));
+                        .flatMap(r -> text.rewrite(message, new Edit(r[0], r[1], ""), context.tokenizer(template)));
         int line = text.line(earlier.message(), earlier.sentence().start());
         return text.finding(DESCRIPTOR, message, later.sentence().start(), later.sentence().end(),
                 "nearly repeats the sentence on line " + line + " (word similarity "

@@ -76,7 +76,7 @@ final class PrettyJson implements Rule {
             return Optional.empty();
         }
         int lines = (int) json.chars().filter(c -> c == '\n').count();
-        var rewrite = text.rewrite(message, List.of(new Edit(start, end, replacement)), context.tokenizer(template));
+        var rewrite = text.rewrite(message, new Edit(start, end, replacement), context.tokenizer(template));
         return Optional.of(text.finding(rule, message, start, end,
                 "pretty-printed JSON over " + lines + " lines; the same JSON minified fits on one"
                         + rewrite.map(r -> " and saves " + r.savingTokens() + " tokens").orElse(""),

@@ -1,6 +1,5 @@
 package dev.tare.lint.rules;
 
-import dev.tare.lint.Edit;
 import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
@@ -34,13 +33,12 @@ final class ProseTab implements Rule {
         List<Finding> findings = new ArrayList<>();
         for (MessageText message : text.messages()) {
             String content = message.content();
-            for (Line line : Line.of(content)) {
+            for (ContentLine line : ContentLine.of(content)) {
                 for (int[] run : line.blanksBetweenWords(content)) {
                     boolean tab = content.substring(run[0], run[1]).indexOf('\t') >= 0;
                     if (tab && message.allowsWhitespaceEdit(run[0], run[1])) {
-                        findings.add(text.finding(DESCRIPTOR, message, run[0], run[1], "a tab between words; use one space",
-                                text.rewrite(message, List.of(new Edit(run[0], run[1], " ")), context.tokenizer(template)),
-                                List.of()));
+                        findings.add(text.edit(DESCRIPTOR, message, run[0], run[1], " ", "a tab between words; use one space",
+                                context.tokenizer(template)));
                     }
                 }
             }

@@ -60,7 +60,7 @@ final class RepeatedInstruction implements Rule {
                 Optional<Rewrite> rewrite = message.isProtected(sentence.start(), sentence.end()) ? Optional.empty()
                         : Sentences.removal(message.content(), sentences, index, false)
                                 .filter(r -> !message.isProtected(r[0], r[1]))
-                                .flatMap(r -> text.rewrite(message, List.of(new Edit(r[0], r[1], "")), context.tokenizer(template)));
+                                .flatMap(r -> text.rewrite(message, new Edit(r[0], r[1], ""), context.tokenizer(template)));
                 int line = text.line(message, earlier.start());
                 findings.add(text.finding(DESCRIPTOR, message, sentence.start(), sentence.end(),
                         "repeats the sentence on line " + line + " word for word"

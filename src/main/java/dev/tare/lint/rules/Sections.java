@@ -49,7 +49,7 @@ final class Sections {
             List<String> labels = new ArrayList<>();
             cuts.add(new int[] {0, 0});
             labels.add(prefix.isEmpty() ? "text before the first heading" : prefix);
-            for (Line line : Line.of(content)) {
+            for (ContentLine line : ContentLine.of(content)) {
                 var heading = HEADING.matcher(line.text(content));
                 if (heading.matches() && !message.touches(line.start(), line.end(), Role.FENCED_CODE)) {
                     cuts.get(cuts.size() - 1)[1] = line.start();

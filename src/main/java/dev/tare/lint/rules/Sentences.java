@@ -73,7 +73,7 @@ final class Sentences {
         int end = -1;
         int next = -1;
         boolean listItem = false;
-        for (Line line : Line.of(content)) {
+        for (ContentLine line : ContentLine.of(content)) {
             String text = line.text(content);
             boolean breaks = line.isBlank(content) || message.touches(line.start(), line.end(), Role.FENCED_CODE,
                     Role.INDENTED_CODE, Role.HTML, Role.TABLE_ROW, Role.SECTION_TAG)
@@ -106,7 +106,7 @@ final class Sentences {
         return units;
     }
 
-    private static boolean onlyPlaceholders(MessageText message, Line line, String content) {
+    private static boolean onlyPlaceholders(MessageText message, ContentLine line, String content) {
         for (int i = line.start(); i < line.end(); i++) {
             char c = content.charAt(i);
             if (c != ' ' && c != '\t' && !message.touches(i, i + 1, Role.PLACEHOLDER)) {
@@ -165,7 +165,7 @@ final class Sentences {
         if (sentence.start() == unit.start() && sentence.end() == unit.end()) {
             int end = unit.next();
             boolean blankBefore = unit.lineStart() == 0 || isBlankLineBefore(content, unit.lineStart());
-            Line following = end < content.length() ? Line.at(content, end) : null;
+            ContentLine following = end < content.length() ? ContentLine.at(content, end) : null;
             int start = unit.lineStart();
             if (blankBefore && following != null && following.isBlank(content)) {
                 end = following.next();

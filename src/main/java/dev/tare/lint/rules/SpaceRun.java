@@ -1,6 +1,5 @@
 package dev.tare.lint.rules;
 
-import dev.tare.lint.Edit;
 import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
@@ -35,15 +34,13 @@ final class SpaceRun implements Rule {
         List<Finding> findings = new ArrayList<>();
         for (MessageText message : text.messages()) {
             String content = message.content();
-            for (Line line : Line.of(content)) {
+            for (ContentLine line : ContentLine.of(content)) {
                 for (int[] run : line.blanksBetweenWords(content)) {
                     // A run with a tab in it is prose-tab's; this rule takes runs of spaces only.
                     boolean spacesOnly = content.substring(run[0], run[1]).indexOf('\t') < 0;
                     if (spacesOnly && run[1] - run[0] >= 2 && message.allowsWhitespaceEdit(run[0], run[1])) {
-                        findings.add(text.finding(DESCRIPTOR, message, run[0], run[1],
-                                (run[1] - run[0]) + " spaces in a row; one is enough",
-                                text.rewrite(message, List.of(new Edit(run[0], run[1], " ")), context.tokenizer(template)),
-                                List.of()));
+                        findings.add(text.edit(DESCRIPTOR, message, run[0], run[1], " ",
+                                (run[1] - run[0]) + " spaces in a row; one is enough", context.tokenizer(template)));
                     }
                 }
             }

@@ -1,6 +1,5 @@
 package dev.tare.lint.rules;
 
-import dev.tare.lint.Edit;
 import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
@@ -36,7 +35,7 @@ final class TrailingWhitespace implements Rule {
         List<Finding> findings = new ArrayList<>();
         for (MessageText message : text.messages()) {
             String content = message.content();
-            for (Line line : Line.of(content)) {
+            for (ContentLine line : ContentLine.of(content)) {
                 int start = line.end();
                 while (start > line.start() && (content.charAt(start - 1) == ' ' || content.charAt(start - 1) == '\t')) {
                     start--;
@@ -45,11 +44,10 @@ final class TrailingWhitespace implements Rule {
                     continue;
                 }
                 int width = line.end() - start;
-                findings.add(text.finding(DESCRIPTOR, message, start, line.end(),
+                findings.add(text.edit(DESCRIPTOR, message, start, line.end(), "",
                         width + " trailing " + describe(content, start, line.end())
                                 + " at the end of the line; delete " + (width == 1 ? "it" : "them"),
-                        text.rewrite(message, List.of(new Edit(start, line.end(), "")), context.tokenizer(template)),
-                        List.of()));
+                        context.tokenizer(template)));
             }
         }
         return findings;

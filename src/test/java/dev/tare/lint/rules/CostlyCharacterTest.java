@@ -9,6 +9,7 @@ import dev.tare.config.ConfigLoader;
 import dev.tare.config.TareConfig;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
+import dev.tare.lint.RewriteClass;
 import dev.tare.lint.RuleHarness;
 import dev.tare.template.IncludeResolver;
 import dev.tare.template.Renderer;
@@ -38,6 +39,9 @@ class CostlyCharacterTest {
         List<Finding> found = findings(rule, text);
         assertEquals(1, found.size());
         assertEquals(17, found.get(0).column());
+        assertTrue(found.get(0).message().startsWith("'\uD83D\uDCA7' (U+1F4A7) costs "), found.get(0).message());
+        assertTrue(found.get(0).message().endsWith(" more here than leaving it out on o200k_base"), found.get(0).message());
+        assertEquals(RewriteClass.REVIEW, found.get(0).rewriteClass());
         assertEquals("Report the leak and call back.\n", fixed(rule, text));
     }
 

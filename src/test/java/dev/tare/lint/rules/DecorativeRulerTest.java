@@ -27,6 +27,16 @@ class DecorativeRulerTest {
     }
 
     @Test
+    void theFindingStandsOnTheRulerAndNamesItsShortForm() {
+        List<Finding> found = findings(rule, "Rules\n\n  **********\n\nBe brief.\n");
+        assertEquals(1, found.size());
+        assertEquals(3, found.get(0).line());
+        assertEquals(3, found.get(0).column());
+        assertEquals(13, found.get(0).endColumn());
+        assertEquals("a 10-character '*' ruler; '***' separates just as well", found.get(0).message());
+    }
+
+    @Test
     void shortBreaksTextAndCodeAreNotRulers() {
         assertTrue(findings(rule, "Text\n\n---\n***\n=== a ===\nA ==== B\n```\n==========\n```\n").isEmpty());
     }

@@ -23,6 +23,14 @@ class InvisibleCharacterTest {
     }
 
     @Test
+    void theMessageNamesTheCharacterAndWhatToDo() {
+        List<Finding> found = findings(rule, "Call 555\u00A00177 to re\u200Bport it.\n");
+        assertEquals("a no-break space (U+00A0) looks like a space; type a plain space", found.get(0).message());
+        assertEquals("a zero-width space (U+200B) shows nothing; delete it", found.get(1).message());
+        assertEquals(List.of(9, 20), found.stream().map(Finding::column).toList());
+    }
+
+    @Test
     void aJoinerInsideAnEmojiSequenceIsMeaningful() {
         String family = "\uD83D\uDC69\u200D\uD83D\uDC67";
         assertTrue(findings(rule, "Family " + family + " here.\n").isEmpty());

@@ -19,7 +19,10 @@ class PrettyJsonBlockTest {
     void aPrettyFencedJsonBlockIsMinifiedExactly() throws Exception {
         String text = "Example:\n```json\n{\n  \"a\": 1,\n  \"b\": [true, null, \"x y\"],\n  \"c\": {\"d\": 1.50}\n}\n```\nEnd.\n";
         String expected = "Example:\n```json\n{\"a\":1,\"b\":[true,null,\"x y\"],\"c\":{\"d\":1.50}}\n```\nEnd.\n";
-        assertEquals(1, findings(rule, text).size());
+        var found = findings(rule, text);
+        assertEquals(1, found.size());
+        assertEquals(3, found.get(0).line());
+        assertTrue(found.get(0).message().startsWith("pretty-printed JSON over 5 lines;"), found.get(0).message());
         assertEquals(expected, fixed(rule, text));
         ObjectMapper mapper = new ObjectMapper();
         String before = text.substring(text.indexOf("{"), text.lastIndexOf("}") + 1);

@@ -27,6 +27,19 @@ class PrettyJsonTest {
     }
 
     @Test
+    void theFindingCoversTheJsonAndOffersASafeRewrite() {
+        java.util.List<dev.tare.lint.Finding> found = findings(rule, "\n{\n  \"intent\": \"billing\",\n  \"urgent\": false\n}\n");
+        assertEquals(1, found.size());
+        assertEquals(2, found.get(0).line());
+        assertEquals(1, found.get(0).column());
+        assertTrue(found.get(0).message().startsWith("pretty-printed JSON over 3 lines; the same JSON minified fits on one"
+                + " and saves "), found.get(0).message());
+        assertEquals(dev.tare.lint.RewriteClass.SAFE, found.get(0).rewriteClass());
+        assertEquals("\n{\"intent\":\"billing\",\"urgent\":false}\n",
+                fixed(rule, "\n{\n  \"intent\": \"billing\",\n  \"urgent\": false\n}\n"));
+    }
+
+    @Test
     void aMessageThatIsOnlyJsonIsMinifiedToo() {
         assertEquals("{\"ok\":true}", fixed(rule, "{\n  \"ok\": true\n}"));
     }

@@ -7,17 +7,12 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.tare.lint.Finding;
 import dev.tare.lint.RewriteClass;
-import java.util.HashMap;
 import java.util.List;
-import java.util.Map;
-import java.util.SplittableRandom;
-import org.apache.commons.text.similarity.CosineSimilarity;
 import org.junit.jupiter.api.Test;
 
-/** Exact and near repeats within one template. */
+/** Sentences repeated word for word within one message; near repeats are {@link NearDuplicateInstructionTest}'s. */
 class RepeatedInstructionTest {
     private final RepeatedInstruction exact = new RepeatedInstruction();
-    private final NearDuplicateInstruction near = new NearDuplicateInstruction();
 
     @Test
     void theLaterCopyOfARepeatedSentenceIsDroppedWithItsParagraph() {
@@ -94,74 +89,5 @@ class RepeatedInstructionTest {
         assertTrue(findings(exact, "a.chat.yaml", chat, java.util.Map.of()).isEmpty(), "each message is read on its own");
         String same = "Offer the payment plan to this customer.\n\nOffer the payment plan to this customer.\n";
         assertEquals(1, findings(exact, same).size(), "the same sentence twice in one message is a repeat");
-    }
-
-    @Test
-    void aReworderRuleIsANearDuplicateForReview() {
-        String text = "Never agree to a plan longer than twelve months without a supervisor.\n\n"
-                + "Do not agree to any plan longer than 12 months unless a supervisor approves it.\n";
-        List<Finding> found = findings(near, text);
-        assertEquals(1, found.size());
-        assertEquals(3, found.get(0).line());
-        assertEquals(RewriteClass.REVIEW, found.get(0).rewriteClass());
-        assertEquals("Never agree to a plan longer than twelve months without a supervisor.\n", fixed(near, text));
-    }
-
-    @Test
-    void aNearDuplicateListItemIsOfferedForReviewAsAWholeItem() {
-        String text = "- Never agree to a plan longer than twelve months without a supervisor.\n- Check the meter.\n"
-                + "- Do not agree to any plan longer than 12 months unless a supervisor approves it.\n- Close.\n";
-        assertEquals("- Never agree to a plan longer than twelve months without a supervisor.\n- Check the meter.\n- Close.\n",
-                fixed(near, text));
-    }
-
-    @Test
-    void sentencesThatShareOnlyTheirShapeAreNotNearDuplicates() {
-        String text = "Everything from the water main up to and including the meter belongs to Brookmere Water.\n"
-                + "Everything from the meter to the building belongs to the property owner.\n";
-        assertTrue(findings(near, text).isEmpty());
-    }
-
-    @Test
-    void wordVectorCosineIsCommonsTextCosineSimilarityToTheLastBit() {
-        // Outside source: commons-text's CosineSimilarity over the same word counts, which the rule used before.
-        List<String> words = List.of("meter", "reading", "bill", "twelve", "12", "months", "supervisor", "plan", "agree",
-                "never", "refund", "water", "leak", "call", "back", "the", "a", "account", "number", "read");
-        SplittableRandom random = new SplittableRandom(11);
-        Map<String, Integer> vocabulary = new HashMap<>();
-        CosineSimilarity reference = new CosineSimilarity();
-        for (int pair = 0; pair < 2_000; pair++) {
-            String a = sentence(words, random);
-            String b = sentence(words, random);
-            var left = NearDuplicateInstruction.words(a);
-            var right = NearDuplicateInstruction.words(b);
-            double expected = reference.cosineSimilarity(left, right);
-            double actual = NearDuplicateInstruction.WordVector.of(left, vocabulary)
-                    .cosine(NearDuplicateInstruction.WordVector.of(right, vocabulary));
-            assertEquals(Double.doubleToLongBits(expected), Double.doubleToLongBits(actual), a + " / " + b);
-        }
-    }
-
-    @Test
-    void editDistanceIsCommonsTextLevenshteinDistance() {
-        // Outside source: commons-text's LevenshteinDistance, which the rule used before.
-        List<String> words = List.of("meter", "Reading", "bill", "twelve", "12", "months", "é", "🙂", "plan", "",
-                "never", "refund", "water", "leak", "call", "back", "the", "a", "account", "number", "read");
-        SplittableRandom random = new SplittableRandom(13);
-        var reference = org.apache.commons.text.similarity.LevenshteinDistance.getDefaultInstance();
-        for (int pair = 0; pair < 2_000; pair++) {
-            String a = sentence(words, random);
-            String b = sentence(words, random);
-            assertEquals(reference.apply(a, b), NearDuplicateInstruction.editDistance(a, b), a + " / " + b);
-        }
-    }
-
-    private static String sentence(List<String> words, SplittableRandom random) {
-        StringBuilder sentence = new StringBuilder();
-        int length = random.nextInt(12);
-        for (int i = 0; i < length; i++) {
-            sentence.append(words.get(random.nextInt(words.size()))).append(' ');
-        }
-        return sentence.toString();
     }
 }

@@ -10,13 +10,13 @@ import java.util.List;
  * @param end   offset of its line break (or the end of the content)
  * @param next  offset of the next line's start
  */
-record Line(int start, int end, int next) {
+record ContentLine(int start, int end, int next) {
     /** The lines of {@code text}; a line ends at {@code \n}, {@code \r\n} or a lone {@code \r}. */
-    static List<Line> of(String text) {
-        List<Line> lines = new ArrayList<>();
+    static List<ContentLine> of(String text) {
+        List<ContentLine> lines = new ArrayList<>();
         int at = 0;
         while (at < text.length()) {
-            Line line = at(text, at);
+            ContentLine line = at(text, at);
             lines.add(line);
             at = line.next();
         }
@@ -24,7 +24,7 @@ record Line(int start, int end, int next) {
     }
 
     /** The line of {@code text} that starts at offset {@code start}. */
-    static Line at(String text, int start) {
+    static ContentLine at(String text, int start) {
         int end = start;
         while (end < text.length() && text.charAt(end) != '\n' && text.charAt(end) != '\r') {
             end++;
@@ -36,7 +36,7 @@ record Line(int start, int end, int next) {
         if (next < text.length() && text.charAt(next) == '\n' && (next == end || text.charAt(next - 1) == '\r')) {
             next++;
         }
-        return new Line(start, end, next);
+        return new ContentLine(start, end, next);
     }
 
     /** The line's text without its break. */

@@ -1,0 +1,77 @@
+package dev.tare.lint.rules;
+
+import static dev.tare.lint.RuleHarness.findings;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.tare.lint.Example;
+import dev.tare.lint.Finding;
+import dev.tare.lint.RewriteClass;
+import dev.tare.lint.RuleHarness;
+import dev.tare.template.Template;
+import dev.tare.tokenize.Tokenizer;
+import dev.tare.tokenize.TokenizerRegistry;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+
+/** Per-call text ahead of a static part long enough to be cached; expected counts come from the tokenizer. */
+class CacheOrderTest {
+    private static final String STATIC = "Answer water billing questions briefly and politely. ".repeat(6);
+    private static final Map<String, Integer> MINIMUM_32 = Map.of(Example.PREFIX_CACHE_MIN_TOKENS, 32);
+
+    private final CacheOrder rule = new CacheOrder();
+    private final Tokenizer o200k = new TokenizerRegistry().get("o200k_base", Path.of("."));
+
+    @Test
+    void aVariableAheadOfTheStaticPartBreaksThePrefixCache() {
+        String text = "Today is {{ date }}.\n" + STATIC;
+        List<Finding> found = findings(rule, "a.md", text, MINIMUM_32);
+        assertEquals(1, found.size());
+        assertEquals(10, found.get(0).column());
+        int total = o200k.count(text.replace("{{ date }}", ""));
+        assertTrue(found.get(0).message().contains("every call would start with the same " + total + " tokens"),
+                found.get(0).message());
+        assertEquals(RewriteClass.NONE, found.get(0).rewriteClass());
+    }
+
+    @Test
+    void laterPerCallTextIsRelated() {
+        String text = "Today is {{ date }} and the caller is {{ name }}.\n" + STATIC;
+        List<Finding> found = findings(rule, "a.md", text, MINIMUM_32);
+        assertEquals(1, found.size());
+        assertTrue(found.get(0).message().contains("(2 variables)"), found.get(0).message());
+        assertEquals(1, found.get(0).related().size());
+        assertEquals("more per-call text: {{ name }}", found.get(0).related().get(0).message());
+        assertEquals(39, found.get(0).related().get(0).column());
+    }
+
+    @Test
+    void aVariableInsideAnIncludeAheadOfTheStaticPartCountsAsTheScanCountsIt() {
+        // The scan's cached tokens stop at the first variable wherever it stands, includes pasted in
+        // (overlap.LeadingText); the rule measures the same leading text, so a greeting partial with a
+        // name in it breaks the prefix even though the template's own first variable comes last.
+        String body = "{{> greeting }}\n" + STATIC + "\nToday is {{ date }}.\n";
+        Template partial = RuleHarness.template("prompts/partials/greeting.md", "Hello {{ name }}.\n");
+        Template template = RuleHarness.template("prompts/a.md", body);
+        List<Finding> found = rule.check(template, RuleHarness.withPartials(List.of(template, partial), MINIMUM_32));
+        assertEquals(1, found.size());
+        assertEquals(1, found.get(0).column());
+        assertTrue(found.get(0).message().startsWith("'{{> greeting }}' brings in per-call text after only "
+                + o200k.count("Hello ") + " leading static tokens"), found.get(0).message());
+    }
+
+    @Test
+    void aVariableAfterTheStaticPartOrAShortTemplateIsFine() {
+        String late = STATIC + "\nToday is {{ date }}.\n";
+        assertTrue(findings(rule, "a.md", late, MINIMUM_32).isEmpty());
+        assertTrue(findings(rule, "a.md", "Hi {{ name }}.\n", MINIMUM_32).isEmpty());
+    }
+
+    @Test
+    void aPartialIsJudgedOnlyWhereItIsIncluded() {
+        String text = "Today is {{ date }}.\n" + STATIC;
+        assertTrue(findings(rule, "prompts/partials/intro.md", text, MINIMUM_32).isEmpty());
+    }
+}

@@ -1,0 +1,60 @@
+package dev.tare.lint.rules;
+
+import static dev.tare.lint.RuleHarness.findings;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.tare.lint.Finding;
+import dev.tare.lint.RewriteClass;
+import java.util.List;
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+
+/** Declared variables nothing reads, reported at their declaration; the rule offers no rewrite. */
+class UnusedVariableTest {
+    private final UnusedVariable rule = new UnusedVariable();
+
+    @Test
+    void aDeclaredButUnusedVariableIsReportedAtItsDeclaration() {
+        String text = "---\nvariables:\n  balance: {tokens: 5}\n  previous_balance: {tokens: 5}\n---\nDue: {{ balance | currency }}.\n";
+        List<Finding> found = findings(rule, text);
+        assertEquals(1, found.size());
+        assertEquals(4, found.get(0).line());
+        assertEquals(3, found.get(0).column());
+        assertTrue(found.get(0).message().startsWith("'previous_balance' is declared but never used"));
+        assertEquals(RewriteClass.NONE, found.get(0).rewriteClass());
+        assertTrue(found.get(0).rewrite().isEmpty());
+    }
+
+    @Test
+    void chatFileDeclarationsAreLocatedToo() {
+        String text = "variables:\n  used: {tokens: 1}\n  spare: {tokens: 1}\nmessages:\n  - role: system\n    content: \"Hi {{ used }}\"\n";
+        List<Finding> found = findings(rule, "x.chat.yaml", text, Map.of());
+        assertEquals(1, found.size());
+        assertEquals(3, found.get(0).line());
+    }
+
+    @Test
+    void theWalkedListOfALoopCountsAsUsed() {
+        String text = "---\nvariables:\n  readings: {tokens: 40}\n---\n{% for r in readings %}- {{ r.date }}\n{% endfor %}\n";
+        assertTrue(findings(rule, text).isEmpty());
+    }
+
+    @Test
+    void aVariableReadOnlyInAConditionOrThroughAFieldIsUsed() {
+        String text = "---\nvariables:\n  vip: {}\n  account: {tokens: 9}\n---\n{% if vip %}Number {{ account.id }}.{% endif %}\n";
+        assertTrue(findings(rule, text).isEmpty());
+    }
+
+    @Test
+    void aTemplateWhoseIncludesCannotBeReadIsNotJudged() {
+        // The missing partial might be the one that reads the variable.
+        String text = "---\nvariables:\n  name: {tokens: 3}\n---\n{{> greeting }}\nAnswer briefly.\n";
+        assertTrue(findings(rule, text).isEmpty());
+    }
+
+    @Test
+    void aTemplateWithoutDeclarationsHasNothingToReport() {
+        assertTrue(findings(rule, "Hello {{ name }}.\n").isEmpty());
+    }
+}
