@@ -6,9 +6,9 @@ import dev.tare.calibrate.CalibrationResult;
 import dev.tare.calibrate.Calibrator;
 import dev.tare.calibrate.UsageLog;
 import dev.tare.calibrate.UsageLogReader;
-import dev.tare.config.TargetConfig;
-import dev.tare.scan.Workspace;
+import dev.tare.footprint.Target;
 import dev.tare.tokenize.TokenizerRegistry;
+import dev.tare.workspace.Workspace;
 import java.io.BufferedReader;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
@@ -40,7 +40,7 @@ public final class TargetCalibration {
      * @throws TareException when the log cannot be read or has no usable line
      */
     public static Fit fit(Workspace workspace, String targetName, Path log) {
-        TargetConfig target = workspace.config().target(targetName);
+        Target target = workspace.config().target(targetName);
         UsageLogReader reader = new UsageLogReader(new TokenizerRegistry().get(target.tokenizer(), workspace.root()));
         UsageLog usage;
         try (BufferedReader in = Files.newBufferedReader(log, StandardCharsets.UTF_8)) {

@@ -1,22 +1,22 @@
 package dev.tare.cli;
 
-import dev.tare.baseline.Baseline;
-import dev.tare.baseline.BaselineFile;
-import dev.tare.rewrite.SafeFileWriter;
-import dev.tare.scan.ScanOptions;
-import dev.tare.scan.ScanResult;
-import dev.tare.scan.TemplateScan;
-import dev.tare.scan.Workspace;
+import dev.tare.app.BaselineFile;
+import dev.tare.app.ScanOptions;
+import dev.tare.app.ScanResult;
+import dev.tare.app.TemplateScan;
+import dev.tare.lint.Baseline;
 import dev.tare.tokenize.TokenizerRegistry;
+import dev.tare.workspace.SafeFileWriter;
+import dev.tare.workspace.Workspace;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare baseline}: records every template's estimated tokens per target for later comparison. */
 @Command(name = "baseline", mixinStandardHelpOptions = true, addMethodSubcommands = false,
@@ -37,7 +37,7 @@ final class BaselineCommand implements Callable<Integer> {
     public Integer call() {
         Workspace workspace = Workspace.open(paths, common.configFile());
         ScanResult scan = new TemplateScan(workspace, new TokenizerRegistry()).run(ScanOptions.defaults());
-        Baseline baseline = Baseline.of(scan);
+        Baseline baseline = scan.baseline();
         Path file = workspace.root().resolve(workspace.config().baseline().file());
         SafeFileWriter.Outcome outcome = BaselineFile.write(file, baseline);
         String what = switch (outcome) {

@@ -3,17 +3,17 @@ package dev.tare.cli;
 import dev.tare.app.TargetCalibration;
 import dev.tare.calibrate.CalibrationResult;
 import dev.tare.report.CalibrationReport;
-import dev.tare.scan.Workspace;
+import dev.tare.workspace.Workspace;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare calibrate}: fits a target's scale and overheads to the usage a provider reported. */
 @Command(name = "calibrate", mixinStandardHelpOptions = true, addMethodSubcommands = false,

@@ -1,12 +1,12 @@
 package dev.tare.cli;
 
-import dev.tare.lint.Check;
-import dev.tare.lint.CheckOptions;
-import dev.tare.lint.CheckResult;
+import dev.tare.app.Check;
+import dev.tare.app.CheckOptions;
+import dev.tare.app.CheckResult;
 import dev.tare.lint.Severity;
 import dev.tare.report.CheckReport;
-import dev.tare.scan.Workspace;
 import dev.tare.tokenize.TokenizerRegistry;
+import dev.tare.workspace.Workspace;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -14,10 +14,10 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare check}: runs the rules over every template and fails on findings at or above a severity. */
 @Command(name = "check", mixinStandardHelpOptions = true, addMethodSubcommands = false,

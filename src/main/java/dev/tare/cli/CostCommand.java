@@ -1,9 +1,9 @@
 package dev.tare.cli;
 
+import dev.tare.app.CostEstimate;
 import dev.tare.footprint.Sweep;
 import dev.tare.report.CostReport;
-import dev.tare.scan.CostEstimate;
-import dev.tare.scan.Workspace;
+import dev.tare.workspace.Workspace;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -11,13 +11,13 @@ import java.util.List;
 import java.util.Optional;
 import java.util.OptionalInt;
 import java.util.concurrent.Callable;
-import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine;
 
 /** {@code tare cost}: the footprint of one prompt size, or one template, on one target. */
 @Command(name = "cost", mixinStandardHelpOptions = true, addMethodSubcommands = false,

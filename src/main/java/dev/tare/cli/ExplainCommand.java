@@ -5,9 +5,9 @@ import dev.tare.report.RuleReport;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare explain RULE}: what a rule flags, why it costs, an example and what to write instead. */
 @Command(name = "explain", mixinStandardHelpOptions = true, addMethodSubcommands = false,

@@ -1,12 +1,12 @@
 package dev.tare.cli;
 
-import dev.tare.report.FixReport;
-import dev.tare.rewrite.FileSystemOps;
-import dev.tare.rewrite.Fix;
+import dev.tare.app.Fix;
 import dev.tare.rewrite.FixOptions;
-import dev.tare.rewrite.FixResult;
-import dev.tare.scan.Workspace;
+import dev.tare.app.FixResult;
+import dev.tare.report.FixReport;
 import dev.tare.tokenize.TokenizerRegistry;
+import dev.tare.workspace.FileSystemOps;
+import dev.tare.workspace.Workspace;
 import java.io.Console;
 import java.io.PrintWriter;
 import java.nio.file.Path;

@@ -1,27 +1,27 @@
 package dev.tare.cli;
 
 import dev.tare.TareException;
-import dev.tare.config.TargetConfig;
-import dev.tare.hook.PreCommitHook;
-import dev.tare.lint.Check;
-import dev.tare.lint.CheckOptions;
-import dev.tare.lint.CheckResult;
+import dev.tare.app.Check;
+import dev.tare.app.CheckOptions;
+import dev.tare.app.CheckResult;
+import dev.tare.app.PreCommitHook;
+import dev.tare.footprint.Target;
 import dev.tare.report.CheckReport;
-import dev.tare.scan.Workspace;
 import dev.tare.tokenize.TokenizerRegistry;
+import dev.tare.workspace.Workspace;
 import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
-import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
 
 /**
  * {@code tare hook}: the git pre-commit hook. The hook that {@code install} writes runs
@@ -167,11 +167,11 @@ final class HookCommand implements Runnable {
             TokenizerRegistry tokenizers = new TokenizerRegistry();
             // Every staged template is counted with every target's tokenizer: load them while git is read
             // and the rules are set up.
-            List<String> needed = workspace.config().targets().stream().map(TargetConfig::tokenizer).toList();
+            List<String> needed = workspace.config().targets().stream().map(Target::tokenizer).toList();
             tokenizers.preload(needed.isEmpty() ? List.of(TokenizerRegistry.DEFAULT) : needed, workspace.config().root());
             if (workspace.config().hookFix()) {
-                dev.tare.rewrite.FixResult fixed = new dev.tare.rewrite.Fix(workspace, tokenizers,
-                        dev.tare.rewrite.FileSystemOps.DEFAULT).runStaged(dev.tare.rewrite.FixOptions.defaults());
+                dev.tare.app.FixResult fixed = new dev.tare.app.Fix(workspace, tokenizers,
+                        dev.tare.workspace.FileSystemOps.DEFAULT).runStaged(dev.tare.rewrite.FixOptions.defaults());
                 if (!fixed.files().isEmpty() || !fixed.skipped().isEmpty()) {
                     spec.commandLine().getOut().print(dev.tare.report.FixReport.text(fixed, false));
                 }

@@ -11,9 +11,9 @@ import java.nio.file.Path;
 import java.nio.file.StandardOpenOption;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare init}: writes a commented starter {@code tare.yaml}, never over an existing one. */
 @Command(name = "init", mixinStandardHelpOptions = true, addMethodSubcommands = false,

@@ -3,15 +3,15 @@ package dev.tare.cli;
 import dev.tare.lint.ExampleRunner;
 import dev.tare.lint.RuleCatalog;
 import dev.tare.report.RuleReport;
-import dev.tare.scan.Workspace;
+import dev.tare.workspace.Workspace;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare rules}: lists every rule; {@code tare rules test} runs every rule's examples. */
 @Command(name = "rules", mixinStandardHelpOptions = true, addMethodSubcommands = false,

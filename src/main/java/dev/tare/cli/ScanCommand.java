@@ -1,15 +1,15 @@
 package dev.tare.cli;
 
-import dev.tare.overview.Overview;
-import dev.tare.overview.OverviewRun;
+import dev.tare.app.Overview;
+import dev.tare.app.OverviewRun;
+import dev.tare.app.ScanOptions;
+import dev.tare.app.ScanResult;
+import dev.tare.app.TemplateScan;
 import dev.tare.report.HtmlReport;
 import dev.tare.report.MarkdownReport;
 import dev.tare.report.ScanReport;
-import dev.tare.scan.ScanOptions;
-import dev.tare.scan.ScanResult;
-import dev.tare.scan.TemplateScan;
-import dev.tare.scan.Workspace;
 import dev.tare.tokenize.TokenizerRegistry;
+import dev.tare.workspace.Workspace;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -18,10 +18,10 @@ import java.util.Optional;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare scan}: the token footprint of every template in a repository. */
 @Command(name = "scan", mixinStandardHelpOptions = true, addMethodSubcommands = false,

@@ -8,8 +8,8 @@ import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import picocli.CommandLine;
 import picocli.CommandLine.Command;
+import picocli.CommandLine;
 
 /** The top-level {@code tare} command, which only holds the subcommands. */
 @Command(name = "tare",

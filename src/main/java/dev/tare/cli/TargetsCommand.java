@@ -2,17 +2,17 @@ package dev.tare.cli;
 
 import dev.tare.footprint.Catalog;
 import dev.tare.report.TargetsReport;
-import dev.tare.scan.Workspace;
+import dev.tare.workspace.Workspace;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code tare targets}: the configured targets and what each can estimate, or the shipped catalog. */
 @Command(name = "targets", mixinStandardHelpOptions = true, addMethodSubcommands = false,

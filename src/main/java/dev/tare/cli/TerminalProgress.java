@@ -1,6 +1,6 @@
 package dev.tare.cli;
 
-import dev.tare.scan.ScanProgress;
+import dev.tare.app.ScanProgress;
 import java.io.PrintStream;
 import java.util.concurrent.atomic.AtomicInteger;
 

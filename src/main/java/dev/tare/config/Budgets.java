@@ -1,6 +1,5 @@
 package dev.tare.config;
 
-import dev.tare.source.Glob;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.OptionalInt;

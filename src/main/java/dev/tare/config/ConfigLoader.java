@@ -2,7 +2,8 @@ package dev.tare.config;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.tare.TareException;
-import dev.tare.source.Glob;
+import dev.tare.footprint.Price;
+import dev.tare.footprint.Target;
 import dev.tare.source.SafeReader;
 import dev.tare.source.SourceText;
 import dev.tare.source.YamlDocument;
@@ -123,10 +124,10 @@ public final class ConfigLoader {
         }
     }
 
-    private static List<TargetConfig> targets(ConfigReader in, JsonNode top, Path root) {
+    private static List<Target> targets(ConfigReader in, JsonNode top, Path root) {
         DeploymentReader deployment = new DeploymentReader(in, root);
         JsonNode node = top.get("targets");
-        List<TargetConfig> targets = new ArrayList<>();
+        List<Target> targets = new ArrayList<>();
         if (node == null || node.isNull()) {
             return targets;
         }
@@ -153,7 +154,7 @@ public final class ConfigLoader {
                         + "; give the path of a tokenizer.json relative to tare.yaml, or one of "
                         + String.join(", ", TokenizerRegistry.BUILT_IN));
             }
-            targets.add(new TargetConfig(name, tokenizer, price(in, target, path),
+            targets.add(new Target(name, tokenizer, price(in, target, path),
                     in.wholeNumber(target, "prefix_cache_min_tokens", path + ".prefix_cache_min_tokens", 0),
                     in.wholeNumber(target, "message_overhead_tokens", path + ".message_overhead_tokens", 0).orElse(0),
                     in.wholeNumber(target, "reply_overhead_tokens", path + ".reply_overhead_tokens", 0).orElse(0),

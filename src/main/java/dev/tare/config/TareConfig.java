@@ -1,6 +1,7 @@
 package dev.tare.config;
 
 import dev.tare.TareException;
+import dev.tare.footprint.Target;
 import dev.tare.source.SafeReader;
 import dev.tare.source.YamlDocument;
 import java.nio.file.Path;
@@ -21,7 +22,7 @@ import java.util.stream.Collectors;
  * @param rules     rule selection and severities
  * @param hookFix   whether the pre-commit hook applies safe rewrites before checking
  */
-public record TareConfig(Path root, Optional<Path> file, TemplatesConfig templates, List<TargetConfig> targets,
+public record TareConfig(Path root, Optional<Path> file, TemplatesConfig templates, List<Target> targets,
                          Budgets budgets, BaselineConfig baseline, RulesConfig rules, boolean hookFix) {
     public TareConfig {
         targets = List.copyOf(targets);
@@ -38,7 +39,7 @@ public record TareConfig(Path root, Optional<Path> file, TemplatesConfig templat
      *
      * @throws TareException naming the configured targets when a name is unknown
      */
-    public List<TargetConfig> selectTargets(List<String> names) {
+    public List<Target> selectTargets(List<String> names) {
         if (names.isEmpty()) {
             return targets;
         }
@@ -46,11 +47,11 @@ public record TareConfig(Path root, Optional<Path> file, TemplatesConfig templat
     }
 
     /** The target called {@code name}. */
-    public TargetConfig target(String name) {
+    public Target target(String name) {
         return targets.stream().filter(t -> t.name().equals(name)).findFirst()
                 .orElseThrow(() -> new TareException("unknown target '" + name + "'"
                         + (targets.isEmpty() ? "; " + describeFile() + " configures no targets"
-                        : "; configured targets: " + targets.stream().map(TargetConfig::name).collect(Collectors.joining(", ")))));
+                        : "; configured targets: " + targets.stream().map(Target::name).collect(Collectors.joining(", ")))));
     }
 
     /**

@@ -1,6 +1,5 @@
 package dev.tare.footprint;
 
-import dev.tare.config.TargetConfig;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -37,7 +36,7 @@ public final class Cautions {
     }
 
     /** The cautions of a target's settings alone: its model's notes and its precisions. */
-    public static List<String> of(TargetConfig target) {
+    public static List<String> of(Target target) {
         List<String> lines = new ArrayList<>();
         target.model().ifPresent(m -> m.notes().forEach(note -> lines.add(target.name() + ": " + note)));
         if (lowPrecision(target.weightBits(), target.kvBits())) {
@@ -50,7 +49,7 @@ public final class Cautions {
     }
 
     /** The cautions of one footprint on {@code target}: the target's, then the call's context and concurrency. */
-    public static List<String> of(TargetConfig target, Footprint footprint) {
+    public static List<String> of(Target target, Footprint footprint) {
         List<String> lines = of(target);
         contextLine(target, footprint, "").ifPresent(lines::add);
         if (footprint.maxConcurrent().isPresent() && footprint.maxConcurrent().getAsLong() == 0) {
@@ -67,7 +66,7 @@ public final class Cautions {
      * The warning for a call whose input plus output exceed the model's context, naming {@code what}
      * (a template's path, or nothing), when they do.
      */
-    public static Optional<String> contextLine(TargetConfig target, Footprint footprint, String what) {
+    public static Optional<String> contextLine(Target target, Footprint footprint, String what) {
         if (!footprint.exceedsContext()) {
             return Optional.empty();
         }

@@ -1,6 +1,5 @@
 package dev.tare.footprint;
 
-import dev.tare.config.TargetConfig;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -30,7 +29,7 @@ public record Coverage(List<String> computes, Map<String, List<String>> missing,
     }
 
     /** What {@code target} can and cannot estimate. */
-    public static Coverage of(TargetConfig target) {
+    public static Coverage of(Target target) {
         Map<String, List<String>> needs = new LinkedHashMap<>();
         needs.put("input_tokens", List.of());
         needs.put("framing_tokens", List.of());
@@ -86,7 +85,7 @@ public record Coverage(List<String> computes, Map<String, List<String>> missing,
         return computes.contains("prefill_flops");
     }
 
-    private static List<String> device(TargetConfig target, String... keys) {
+    private static List<String> device(Target target, String... keys) {
         if (target.device().isEmpty()) {
             return List.of("device");
         }

@@ -1,7 +1,5 @@
 package dev.tare.footprint;
 
-import dev.tare.config.Price;
-import dev.tare.config.TargetConfig;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import java.util.OptionalInt;
@@ -16,7 +14,7 @@ public final class Footprints {
     }
 
     /** The footprint of {@code call} on {@code target}. */
-    public static Footprint estimate(TargetConfig target, CallSize call) {
+    public static Footprint estimate(Target target, CallSize call) {
         int input = call.inputTokens();
         int output = call.outputTokens();
         OptionalInt cached = OptionalInt.empty();

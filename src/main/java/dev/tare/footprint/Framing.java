@@ -1,6 +1,5 @@
 package dev.tare.footprint;
 
-import dev.tare.config.TargetConfig;
 
 /** The tokens a target's chat format adds around a chat template's messages. */
 public final class Framing {
@@ -11,7 +10,7 @@ public final class Framing {
      * Framing tokens for a call: {@code messages × message_overhead_tokens + reply_overhead_tokens}
      * for a chat template, none for a text template (whose wrapping the application decides).
      */
-    public static int tokens(TargetConfig target, boolean chat, int messages) {
+    public static int tokens(Target target, boolean chat, int messages) {
         if (!chat) {
             return 0;
         }
@@ -19,7 +18,7 @@ public final class Framing {
     }
 
     /** The tokens a provider adds around {@code tools} tool definitions: {@code tools × tool_overhead_tokens}. */
-    public static int toolTokens(TargetConfig target, int tools) {
+    public static int toolTokens(Target target, int tools) {
         return tools * target.toolOverheadTokens();
     }
 }

@@ -1,7 +1,6 @@
 package dev.tare.footprint;
 
 import dev.tare.TareException;
-import dev.tare.config.TargetConfig;
 import java.util.ArrayList;
 import java.util.HashSet;
 import java.util.List;
@@ -109,7 +108,7 @@ public final class Sweep {
      * @throws TareException when a key repeats, a device key is swept on a target without a model,
      *                       or the combinations exceed {@value #MAX_ROWS}
      */
-    public static List<Row> run(TargetConfig target, CallSize call, List<Axis> axes) {
+    public static List<Row> run(Target target, CallSize call, List<Axis> axes) {
         Set<String> seen = new HashSet<>();
         long combinations = 1;
         for (Axis axis : axes) {
@@ -130,7 +129,7 @@ public final class Sweep {
         return rows;
     }
 
-    private static void fill(TargetConfig target, CallSize call, List<Axis> axes, int depth, List<Double> settings,
+    private static void fill(Target target, CallSize call, List<Axis> axes, int depth, List<Double> settings,
                              List<Row> rows) {
         if (depth == axes.size()) {
             rows.add(new Row(settings, Footprints.estimate(target, call)));
@@ -153,7 +152,7 @@ public final class Sweep {
         };
     }
 
-    private static TargetConfig with(TargetConfig t, String key, double value) {
+    private static Target with(Target t, String key, double value) {
         OptionalDouble weightBits = key.equals("weight_bits") ? OptionalDouble.of(value) : t.weightBits();
         OptionalDouble kvBits = key.equals("kv_bits") ? OptionalDouble.of(value) : t.kvBits();
         Optional<Device> device = t.device();
@@ -162,7 +161,7 @@ public final class Sweep {
                     OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty())),
                     key, OptionalDouble.of(value)));
         }
-        TargetConfig swept = new TargetConfig(t.name(), t.tokenizer(), t.price(), t.prefixCacheMinTokens(),
+        Target swept = new Target(t.name(), t.tokenizer(), t.price(), t.prefixCacheMinTokens(),
                 t.messageOverheadTokens(), t.replyOverheadTokens(), t.callsPerDay(), t.outputTokens(), t.model(),
                 weightBits, kvBits, device, t.scale(), t.toolOverheadTokens(), t.concurrency());
         return key.equals("concurrency") ? swept.withConcurrency((int) value) : swept;

@@ -1,15 +1,13 @@
 package dev.tare.lint;
 
 import dev.tare.TareException;
-import dev.tare.baseline.Baseline;
-import dev.tare.baseline.BaselineFile;
 import dev.tare.config.TareConfig;
-import dev.tare.config.TargetConfig;
+import dev.tare.footprint.Target;
+import dev.tare.source.YamlDocument;
 import dev.tare.template.IncludeResolver;
 import dev.tare.template.Renderer;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
-import dev.tare.source.YamlDocument;
 import dev.tare.template.TemplateKind;
 import dev.tare.template.ToolDefinition;
 import dev.tare.template.ToolFileParser;
@@ -22,6 +20,8 @@ import java.util.Optional;
 import java.util.OptionalInt;
 import java.util.Set;
 import java.util.concurrent.ConcurrentHashMap;
+import java.util.function.Predicate;
+import java.util.function.Supplier;
 
 /**
  * What a rule may consult beyond the template in hand: the configuration, the tokenizers of the
@@ -47,43 +47,36 @@ public final class LintContext {
     private final Map<String, Integer> settings;
     private final Map<String, TemplateText> texts = new ConcurrentHashMap<>();
     private final Map<String, Optional<Rendering>> renderings = new ConcurrentHashMap<>();
-    private Optional<Baseline> baseline;
+    private final Supplier<Optional<Baseline>> baseline;
     private final Map<String, List<ToolDefinition>> tools = new ConcurrentHashMap<>();
     private final Set<String> paths;
-    private final java.util.function.Predicate<String> files;
+    private final Predicate<String> files;
     /** Each tokenizer of the registry as rules get it, remembering its counts of long texts. */
     private final Map<Tokenizer, Tokenizer> remembering = new ConcurrentHashMap<>();
 
     /**
-     * A context over files on disk: a path names a file when a template of the run has it or a file
-     * is there under the root.
+     * A context over templates held in memory and nothing else: no other file exists, and there is
+     * no baseline.
      *
      * @param settings example settings that stand in for target values (see {@link Example#settings()})
      */
     public LintContext(TareConfig config, TokenizerRegistry tokenizers, Renderer renderer, List<Template> templates,
                        Set<String> ruleIds, Map<String, Integer> settings) {
-        this(config, tokenizers, renderer, templates, ruleIds, settings,
-                path -> java.nio.file.Files.exists(config.root().resolve(path)));
+        this(config, tokenizers, renderer, RunTemplates.held(templates), ruleIds, settings, path -> false,
+                Optional::empty);
     }
 
     /**
-     * @param settings example settings that stand in for target values (see {@link Example#settings()})
-     * @param files    whether a root-relative path names a file besides the run's templates (for a run
-     *                 over text held in memory, such as a fix that has not written yet)
-     */
-    public LintContext(TareConfig config, TokenizerRegistry tokenizers, Renderer renderer, List<Template> templates,
-                       Set<String> ruleIds, Map<String, Integer> settings, java.util.function.Predicate<String> files) {
-        this(config, tokenizers, renderer, RunTemplates.held(templates), ruleIds, settings, files);
-    }
-
-    /**
-     * A context whose templates are not held but parsed again when a cross-template rule asks for one
-     * (a check of a whole repository).
+     * A context over a run whose templates may be parsed again when a cross-template rule asks for
+     * one (a check of a whole repository).
      *
-     * @param files whether a root-relative path names a file besides the run's templates
+     * @param settings example settings that stand in for target values (see {@link Example#settings()})
+     * @param files    whether a root-relative path names a file besides the run's templates
+     * @param baseline the committed baseline, asked for only when a rule needs it
      */
     public LintContext(TareConfig config, TokenizerRegistry tokenizers, Renderer renderer, RunTemplates templates,
-                       Set<String> ruleIds, Map<String, Integer> settings, java.util.function.Predicate<String> files) {
+                       Set<String> ruleIds, Map<String, Integer> settings, Predicate<String> files,
+                       Supplier<Optional<Baseline>> baseline) {
         this.config = config;
         this.tokenizers = tokenizers;
         this.renderer = renderer;
@@ -92,12 +85,13 @@ public final class LintContext {
         this.settings = Map.copyOf(settings);
         this.paths = Set.copyOf(templates.paths());
         this.files = files;
+        this.baseline = baseline;
     }
 
     /** A context for running one rule's examples: default configuration, no includes, no other templates. */
     public static LintContext forExample(Path root, Example example, Set<String> ruleIds) {
         return new LintContext(TareConfig.defaults(root), EXAMPLE_TOKENIZERS, new Renderer(IncludeResolver.NONE),
-                List.of(), ruleIds, example.settings(), path -> false);
+                List.of(), ruleIds, example.settings());
     }
 
     /**
@@ -107,7 +101,7 @@ public final class LintContext {
     public static LintContext forExample(Path root, Example example, Set<String> ruleIds, List<Template> templates,
                                          Renderer renderer) {
         return new LintContext(TareConfig.defaults(root), EXAMPLE_TOKENIZERS, renderer, templates, ruleIds,
-                example.settings(), path -> false);
+                example.settings());
     }
 
     /** Whether a root-relative path names a file: a template of the run, or another file where the run looks. */
@@ -142,7 +136,7 @@ public final class LintContext {
      * Forgets what was prepared for {@code template} (its text, rendering, tool definitions), once
      * every per-template rule has run on it, so that a check of many templates holds none of it.
      */
-    void forget(Template template) {
+    public void forget(Template template) {
         texts.remove(template.path());
         renderings.remove(template.path());
         tools.remove(template.path());
@@ -159,10 +153,10 @@ public final class LintContext {
     }
 
     /** The targets the template runs on: the one it names, else all configured targets. */
-    public List<TargetConfig> targets(Template template) {
+    public List<Target> targets(Template template) {
         Optional<String> named = template.meta().target();
         if (named.isPresent()) {
-            List<TargetConfig> match = config.targets().stream().filter(t -> t.name().equals(named.get())).toList();
+            List<Target> match = config.targets().stream().filter(t -> t.name().equals(named.get())).toList();
             if (!match.isEmpty()) {
                 return match;
             }
@@ -172,7 +166,7 @@ public final class LintContext {
 
     /** The template's primary tokenizer: its first target's, else the default encoding. */
     public Tokenizer tokenizer(Template template) {
-        List<TargetConfig> targets = targets(template);
+        List<Target> targets = targets(template);
         String name = targets.isEmpty() ? TokenizerRegistry.DEFAULT : targets.get(0).tokenizer();
         try {
             return remembering(tokenizers.get(name, config.root()));
@@ -197,12 +191,12 @@ public final class LintContext {
 
     /** The tokenizers of every target the template runs on (the default encoding when there are none), without repeats. */
     public List<Tokenizer> targetTokenizers(Template template) {
-        List<TargetConfig> targets = targets(template);
+        List<Target> targets = targets(template);
         if (targets.isEmpty()) {
             return List.of(tokenizer(template));
         }
         java.util.LinkedHashMap<String, Tokenizer> byName = new java.util.LinkedHashMap<>();
-        for (TargetConfig target : targets) {
+        for (Target target : targets) {
             try {
                 Tokenizer tokenizer = tokenizers.get(target.tokenizer(), config.root());
                 byName.putIfAbsent(tokenizer.name(), remembering(tokenizer));
@@ -230,12 +224,12 @@ public final class LintContext {
         if (setting != null) {
             return setting;
         }
-        return targets(template).stream().map(TargetConfig::prefixCacheMinTokens).filter(OptionalInt::isPresent)
+        return targets(template).stream().map(Target::prefixCacheMinTokens).filter(OptionalInt::isPresent)
                 .mapToInt(OptionalInt::getAsInt).min().orElse(DEFAULT_PREFIX_CACHE_MIN_TOKENS);
     }
 
     /** The tokenizer of one target. */
-    public Tokenizer tokenizer(TargetConfig target) {
+    public Tokenizer tokenizer(Target target) {
         return remembering(tokenizers.get(target.tokenizer(), config.root()));
     }
 
@@ -248,14 +242,7 @@ public final class LintContext {
         if (setting != null) {
             return Optional.of(Map.of(tokenizer(template).name(), setting));
         }
-        return baseline().map(b -> b.tokens().get(template.path()));
-    }
-
-    private synchronized Optional<Baseline> baseline() {
-        if (baseline == null) {
-            baseline = BaselineFile.read(config.root().resolve(config.baseline().file()));
-        }
-        return baseline;
+        return baseline.get().map(b -> b.tokens().get(template.path()));
     }
 
     /** The definitions of a tool file, parsed once per run; empty for other templates. */

@@ -69,7 +69,7 @@ public final class Suppressions {
      * Directives as a cache kept them: the rules silenced in the whole file and on each line, and the
      * directives they came from.
      */
-    static Suppressions restored(List<Directive> directives, Set<String> file, Map<Integer, Set<String>> byLine) {
+    public static Suppressions restored(List<Directive> directives, Set<String> file, Map<Integer, Set<String>> byLine) {
         Suppressions suppressions = new Suppressions();
         suppressions.directives.addAll(directives);
         suppressions.file.addAll(file);
@@ -78,12 +78,12 @@ public final class Suppressions {
     }
 
     /** The rules silenced in the whole file. */
-    Set<String> fileWide() {
+    public Set<String> fileWide() {
         return Set.copyOf(file);
     }
 
     /** The rules silenced on each 1-based line. */
-    Map<Integer, Set<String>> byLine() {
+    public Map<Integer, Set<String>> byLine() {
         return java.util.Collections.unmodifiableMap(byLine);
     }
 

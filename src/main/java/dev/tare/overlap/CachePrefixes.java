@@ -1,9 +1,9 @@
 package dev.tare.overlap;
 
-import dev.tare.config.TargetConfig;
 import dev.tare.footprint.CallSize;
 import dev.tare.footprint.Footprint;
 import dev.tare.footprint.Footprints;
+import dev.tare.footprint.Target;
 import dev.tare.template.Renderer;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
@@ -92,7 +92,7 @@ public final class CachePrefixes {
      * @param calls   each template's call on the target, in the same order, without cached tokens
      * @return one share per template, in the same order
      */
-    public static List<PrefixShare> share(TargetConfig target, List<Leading> leading, List<CallSize> calls) {
+    public static List<PrefixShare> share(Target target, List<Leading> leading, List<CallSize> calls) {
         int minimum = target.prefixCacheMinTokens().orElseThrow(
                 () -> new IllegalArgumentException("target " + target.name() + " has no prefix cache"));
         int[] now = SharedPrefixes.lengths(leading.stream().map(Leading::now).toList());
@@ -116,7 +116,7 @@ public final class CachePrefixes {
     }
 
     /** The monthly cost without the cache less the monthly cost with {@code cached} tokens cached. */
-    private static OptionalDouble saving(TargetConfig target, Footprint uncached, CallSize call, int cached) {
+    private static OptionalDouble saving(Target target, Footprint uncached, CallSize call, int cached) {
         if (uncached.costPerMonth().isEmpty()) {
             return OptionalDouble.empty();
         }

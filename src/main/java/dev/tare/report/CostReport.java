@@ -2,13 +2,13 @@ package dev.tare.report;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
-import dev.tare.config.TargetConfig;
+import dev.tare.app.CostEstimate;
 import dev.tare.footprint.CallSize;
 import dev.tare.footprint.Cautions;
 import dev.tare.footprint.Footprint;
 import dev.tare.footprint.Precision;
 import dev.tare.footprint.Sweep;
-import dev.tare.scan.CostEstimate;
+import dev.tare.footprint.Target;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.OptionalDouble;
@@ -21,7 +21,7 @@ public final class CostReport {
 
     /** The footprint as a list of figures, or the sweep table when settings were swept. */
     public static String text(CostEstimate.Result result) {
-        TargetConfig target = result.target();
+        Target target = result.target();
         StringBuilder out = new StringBuilder();
         out.append(result.rows().isEmpty() ? "Footprint on target " : "Sweep on target ").append(target.name())
                 .append(": ").append(describe(result)).append('\n');
@@ -118,7 +118,7 @@ public final class CostReport {
         return result.file().map(file -> file + ", " + size).orElse(size);
     }
 
-    private static String setup(TargetConfig target) {
+    private static String setup(Target target) {
         TextTable table = new TextTable(List.of("SETTING", "VALUE"), false, false);
         table.row(List.of("tokenizer", target.tokenizer()));
         target.price().ifPresent(p -> table.row(List.of("price", Figures.price(p))));

@@ -1,13 +1,13 @@
 package dev.tare.report;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
-import dev.tare.config.Price;
-import dev.tare.config.TargetConfig;
 import dev.tare.footprint.Coverage;
 import dev.tare.footprint.Device;
 import dev.tare.footprint.Footprint;
 import dev.tare.footprint.ModelShape;
 import dev.tare.footprint.Precision;
+import dev.tare.footprint.Price;
+import dev.tare.footprint.Target;
 import java.math.BigDecimal;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -224,7 +224,7 @@ final class Figures {
      * missing keys. Cost gaps are named for a priced target and device gaps for a target with any
      * model or device setting; a target with neither gets one line saying what to set.
      */
-    static List<String> missing(TargetConfig target, Coverage coverage) {
+    static List<String> missing(Target target, Coverage coverage) {
         boolean deviceSet = target.model().isPresent() || target.device().isPresent() || target.weightBits().isPresent()
                 || target.kvBits().isPresent();
         List<String> lines = new ArrayList<>();

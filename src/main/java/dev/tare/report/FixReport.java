@@ -2,13 +2,13 @@ package dev.tare.report;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.tare.app.FixResult;
 import dev.tare.rewrite.FileFix;
-import dev.tare.rewrite.FixResult;
 import dev.tare.rewrite.NotApplied;
 import dev.tare.rewrite.RuleSaving;
 import dev.tare.rewrite.TokenChange;
 import dev.tare.rewrite.UnifiedDiff;
-import dev.tare.source.SkippedFile;
+import dev.tare.workspace.SkippedFile;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;

@@ -1,18 +1,18 @@
 package dev.tare.report;
 
 import dev.tare.Tare;
-import dev.tare.baseline.BaselineChange;
+import dev.tare.app.BaselineStatus;
+import dev.tare.app.CheckResult;
+import dev.tare.app.Overview;
+import dev.tare.app.RuleTally;
+import dev.tare.app.ScanResult;
+import dev.tare.app.ScannedTemplate;
 import dev.tare.footprint.Footprint;
-import dev.tare.lint.CheckResult;
+import dev.tare.lint.BaselineChange;
 import dev.tare.lint.Finding;
 import dev.tare.lint.RewriteClass;
 import dev.tare.lint.Severity;
-import dev.tare.overview.BaselineStatus;
-import dev.tare.overview.Overview;
-import dev.tare.overview.RuleTally;
-import dev.tare.scan.ScanResult;
-import dev.tare.scan.ScannedTemplate;
-import dev.tare.source.SkippedFile;
+import dev.tare.workspace.SkippedFile;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;

@@ -1,12 +1,12 @@
 package dev.tare.report;
 
-import dev.tare.config.TargetConfig;
+import dev.tare.app.Overview;
+import dev.tare.app.ScanResult;
+import dev.tare.app.ScannedTemplate;
+import dev.tare.app.TargetTotals;
 import dev.tare.footprint.Coverage;
 import dev.tare.footprint.Footprint;
-import dev.tare.overview.Overview;
-import dev.tare.overview.TargetTotals;
-import dev.tare.scan.ScanResult;
-import dev.tare.scan.ScannedTemplate;
+import dev.tare.footprint.Target;
 import java.util.Comparator;
 import java.util.List;
 import java.util.function.DoubleFunction;
@@ -36,7 +36,7 @@ final class HtmlTargets {
     }
 
     private static void target(StringBuilder out, Overview overview, TargetTotals totals) {
-        TargetConfig target = totals.target();
+        Target target = totals.target();
         String name = Html.attr(target.name());
         out.append("<article class=\"target\" data-target=\"").append(name).append("\">\n<h3>").append(Html.text(target.name()))
                 .append("</h3>\n<p class=\"facts\">Tokenizer <code>").append(Html.text(target.tokenizer())).append("</code>");
@@ -111,7 +111,7 @@ final class HtmlTargets {
         double of(Footprint footprint);
     }
 
-    private static void targetChart(StringBuilder out, TargetConfig target, List<ScannedTemplate> templates,
+    private static void targetChart(StringBuilder out, Target target, List<ScannedTemplate> templates,
                                      String field, String title, String unit, Measure measure,
                                      DoubleFunction<String> label, DoubleFunction<String> tick) {
         SvgBarChart chart = new SvgBarChart(Html.id(field, target.name()), title + " on " + target.name(),

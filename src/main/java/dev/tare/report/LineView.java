@@ -1,10 +1,10 @@
 package dev.tare.report;
 
+import dev.tare.app.ScannedTemplate;
+import dev.tare.app.TemplateLines;
 import dev.tare.lint.Finding;
 import dev.tare.lint.Related;
 import dev.tare.lint.Severity;
-import dev.tare.overview.TemplateLines;
-import dev.tare.scan.ScannedTemplate;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;

@@ -1,18 +1,18 @@
 package dev.tare.report;
 
-import dev.tare.baseline.BaselineChange;
-import dev.tare.config.TargetConfig;
+import dev.tare.app.BaselineStatus;
+import dev.tare.app.Overview;
+import dev.tare.app.RuleTally;
+import dev.tare.app.ScanResult;
+import dev.tare.app.ScannedTemplate;
+import dev.tare.app.TargetTotals;
 import dev.tare.footprint.Coverage;
 import dev.tare.footprint.Footprint;
+import dev.tare.footprint.Target;
+import dev.tare.lint.BaselineChange;
 import dev.tare.lint.RewriteClass;
 import dev.tare.lint.Severity;
-import dev.tare.overview.BaselineStatus;
-import dev.tare.overview.Overview;
-import dev.tare.overview.RuleTally;
-import dev.tare.overview.TargetTotals;
-import dev.tare.scan.ScanResult;
-import dev.tare.scan.ScannedTemplate;
-import dev.tare.source.SkippedFile;
+import dev.tare.workspace.SkippedFile;
 import java.util.ArrayList;
 import java.util.List;
 
@@ -128,9 +128,9 @@ public final class MarkdownReport {
         if (costliest.isEmpty()) {
             return;
         }
-        List<TargetConfig> priced = new ArrayList<>();
-        List<TargetConfig> devices = new ArrayList<>();
-        for (TargetConfig target : overview.scan().targetConfigs()) {
+        List<Target> priced = new ArrayList<>();
+        List<Target> devices = new ArrayList<>();
+        for (Target target : overview.scan().targetConfigs()) {
             Coverage coverage = Coverage.of(target);
             if (coverage.computes().contains("cost_per_month")) {
                 priced.add(target);
@@ -149,11 +149,11 @@ public final class MarkdownReport {
             List<String> row = new ArrayList<>(List.of(String.valueOf(rank++), code(template.path()),
                     template.kind().label(), Figures.count(template.staticTokens()),
                     Figures.count(template.estimatedTokens())));
-            for (TargetConfig target : priced) {
+            for (Target target : priced) {
                 Footprint f = template.targets().get(target.name());
                 row.add(f == null ? "–" : Figures.perMonth(f));
             }
-            for (TargetConfig target : devices) {
+            for (Target target : devices) {
                 Footprint f = template.targets().get(target.name());
                 row.add(f == null || f.kvCacheBytes().isEmpty() ? "–" : Figures.bytes(f.kvCacheBytes().getAsLong()));
             }

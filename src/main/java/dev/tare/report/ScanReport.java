@@ -2,11 +2,11 @@ package dev.tare.report;
 
 import com.fasterxml.jackson.core.JsonGenerator;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.tare.app.ScanResult;
+import dev.tare.app.ScannedTemplate;
 import dev.tare.footprint.Footprint;
 import dev.tare.overlap.PrefixShare;
-import dev.tare.scan.ScanResult;
-import dev.tare.scan.ScannedTemplate;
-import dev.tare.source.SkippedFile;
+import dev.tare.workspace.SkippedFile;
 import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;

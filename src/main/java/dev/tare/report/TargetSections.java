@@ -1,12 +1,12 @@
 package dev.tare.report;
 
-import dev.tare.config.TargetConfig;
+import dev.tare.app.ScanResult;
+import dev.tare.app.ScannedTemplate;
 import dev.tare.footprint.Cautions;
 import dev.tare.footprint.Coverage;
 import dev.tare.footprint.Footprint;
+import dev.tare.footprint.Target;
 import dev.tare.overlap.PrefixShare;
-import dev.tare.scan.ScanResult;
-import dev.tare.scan.ScannedTemplate;
 import java.util.ArrayList;
 import java.util.List;
 
@@ -27,7 +27,7 @@ final class TargetSections {
         List<ScannedTemplate> templates = result.templatesIn(order).stream().filter(ScannedTemplate::countsInTotals)
                 .toList();
         java.util.Map<String, ScanResult.CacheTotals> caches = result.cacheTotals();
-        for (TargetConfig target : result.targetConfigs()) {
+        for (Target target : result.targetConfigs()) {
             Coverage coverage = Coverage.of(target);
             if (coverage.hasCost()) {
                 out.append('\n').append(cost(target, templates));
@@ -53,7 +53,7 @@ final class TargetSections {
         return out.toString();
     }
 
-    private static String cost(TargetConfig target, List<ScannedTemplate> templates) {
+    private static String cost(Target target, List<ScannedTemplate> templates) {
         TextTable table = new TextTable(List.of("PATH", "INPUT", "CACHED", "OUTPUT", "COST/CALL", "COST/MONTH"),
                 false, true, true, true, true, true);
         for (ScannedTemplate template : templates) {
@@ -73,7 +73,7 @@ final class TargetSections {
     }
 
     /** Each template's shared prefix on a target with a prefix cache, as written and with per-call parts last. */
-    private static String prefixCache(TargetConfig target, List<ScannedTemplate> templates, ScanResult.CacheTotals totals) {
+    private static String prefixCache(Target target, List<ScannedTemplate> templates, ScanResult.CacheTotals totals) {
         TextTable table = new TextTable(List.of("PATH", "SHARED", "CACHED", "SAVES/MONTH", "REORDERED SHARED", "CACHED",
                 "SAVES/MONTH"), false, true, true, true, true, true, true);
         String currency = totals.currency().orElse("");
@@ -117,7 +117,7 @@ final class TargetSections {
         return amount.isPresent() ? Figures.money(amount.getAsDouble(), currency, 2) : "-";
     }
 
-    private static String device(TargetConfig target, List<ScannedTemplate> templates) {
+    private static String device(Target target, List<ScannedTemplate> templates) {
         TextTable table = new TextTable(List.of("PATH", "INPUT", "OUTPUT", "PREFILL", "PREFILL MS", "DECODE MS/TOKEN",
                 "KV CACHE", "MAX CONCURRENT"), false, true, true, true, true, true, true, true);
         for (ScannedTemplate template : templates) {
@@ -153,7 +153,7 @@ final class TargetSections {
     }
 
     /** The target's cautions, then one line per template whose call exceeds the model's context. */
-    static List<String> cautions(TargetConfig target, List<ScannedTemplate> templates) {
+    static List<String> cautions(Target target, List<ScannedTemplate> templates) {
         List<String> lines = new ArrayList<>(Cautions.of(target));
         for (ScannedTemplate template : templates) {
             Footprint f = template.targets().get(target.name());
@@ -168,14 +168,14 @@ final class TargetSections {
     static List<String> cautions(ScanResult result) {
         List<ScannedTemplate> counted = result.templates().stream().filter(ScannedTemplate::countsInTotals).toList();
         List<String> lines = new ArrayList<>();
-        for (TargetConfig target : result.targetConfigs()) {
+        for (Target target : result.targetConfigs()) {
             cautions(target, counted).stream().filter(l -> !lines.contains(l)).forEach(lines::add);
         }
         return lines;
     }
 
     /** The mark of a calibrated target's figures. */
-    static String calibration(TargetConfig target) {
+    static String calibration(Target target) {
         return target.isCalibrated() ? "; calibrated estimate: counts scaled by " + Figures.significant(target.scale()) : "";
     }
 }

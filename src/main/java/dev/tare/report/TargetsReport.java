@@ -2,7 +2,6 @@ package dev.tare.report;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
-import dev.tare.config.TargetConfig;
 import dev.tare.footprint.Catalog;
 import dev.tare.footprint.Cautions;
 import dev.tare.footprint.Coverage;
@@ -10,6 +9,7 @@ import dev.tare.footprint.Device;
 import dev.tare.footprint.Formulas;
 import dev.tare.footprint.ModelShape;
 import dev.tare.footprint.Precision;
+import dev.tare.footprint.Target;
 import java.util.List;
 import java.util.Map;
 import java.util.OptionalDouble;
@@ -20,14 +20,14 @@ public final class TargetsReport {
     }
 
     /** One row per target, then each target's model, device and missing inputs. */
-    public static String text(String configFile, List<TargetConfig> targets) {
+    public static String text(String configFile, List<Target> targets) {
         if (targets.isEmpty()) {
             return configFile + " configures no targets; add a 'targets' list (see 'tare targets --catalog' for"
                     + " model shapes and devices a target can name)\n";
         }
         TextTable table = new TextTable(List.of("NAME", "TOKENIZER", "ESTIMATES"), false, false, false);
         StringBuilder details = new StringBuilder();
-        for (TargetConfig target : targets) {
+        for (Target target : targets) {
             Coverage coverage = Coverage.of(target);
             table.row(List.of(target.name(), target.tokenizer(), estimates(coverage)));
             details.append('\n').append(target.name()).append(":\n");
@@ -53,11 +53,11 @@ public final class TargetsReport {
     }
 
     /** The targets as JSON: each with its settings, the footprint keys it fills and the keys it lacks. */
-    public static String json(String configFile, List<TargetConfig> targets) {
+    public static String json(String configFile, List<Target> targets) {
         ObjectNode root = Json.report();
         root.put("config", configFile);
         ArrayNode list = root.putArray("targets");
-        for (TargetConfig target : targets) {
+        for (Target target : targets) {
             Coverage coverage = Coverage.of(target);
             ObjectNode node = list.addObject();
             node.put("name", target.name());

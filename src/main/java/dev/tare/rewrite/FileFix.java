@@ -107,7 +107,7 @@ public final class FileFix {
     }
 
     /** The same fix with another outcome and, when given, one more problem. */
-    FileFix with(Outcome newOutcome, String problem) {
+    public FileFix with(Outcome newOutcome, String problem) {
         List<String> more = new java.util.ArrayList<>(problems);
         if (!problem.isEmpty()) {
             more.add(problem);

@@ -1,21 +1,16 @@
 package dev.tare.rewrite;
 
 import dev.tare.TareException;
-import dev.tare.lint.Check;
-import dev.tare.lint.CheckOptions;
 import dev.tare.lint.Edit;
 import dev.tare.lint.Finding;
-import dev.tare.lint.LintContext;
 import dev.tare.lint.Rewrite;
 import dev.tare.lint.RewriteClass;
-import dev.tare.scan.TemplateLoader;
-import dev.tare.source.FileSelection;
+import dev.tare.source.FileBytes;
 import dev.tare.source.SafeReader;
 import dev.tare.source.SourceText;
 import dev.tare.template.Message;
 import dev.tare.template.Template;
 import dev.tare.tokenize.Tokenizer;
-import dev.tare.tokenize.TokenizerRegistry;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -31,30 +26,37 @@ import java.util.TreeMap;
  * asked for, follow. The final text is then verified against the original, and the bytes that
  * would be written are read back.
  */
-final class FilePlanner {
+public final class FilePlanner {
     /** Rounds after which a file whose rewrites keep changing it is given up on. */
     static final int MAX_ROUNDS = 8;
 
-    private final Check check;
-    private final TemplateLoader loader;
+    private final FileRules rules;
     private final RewriteSelection selection;
-    private final TokenizerRegistry tokenizers;
     private final SafeReader reader;
 
-    /** What planning one file gave: its fix, when there is something to fix, and the review rewrites left out. */
-    record Plan(Optional<FileFix> fix, Map<String, Integer> reviewLeft) {
+    /**
+     * What planning one file gave: its fix, when there is something to fix, and the review rewrites left out.
+     *
+     * @param fix        the file's fix, when a rule offered a rewrite the selection takes
+     * @param reviewLeft per rule, the review rewrites offered and not taken
+     */
+    public record Plan(Optional<FileFix> fix, Map<String, Integer> reviewLeft) {
     }
 
-    FilePlanner(Check check, TemplateLoader loader, RewriteSelection selection, TokenizerRegistry tokenizers) {
-        this.check = check;
-        this.loader = loader;
+    /**
+     * @param rules     the run's reading, rules and tokenizers
+     * @param selection which rewrites to take
+     * @param maxBytes  the largest file the run reads, for reading back the bytes to be written
+     */
+    public FilePlanner(FileRules rules, RewriteSelection selection, long maxBytes) {
+        this.rules = rules;
         this.selection = selection;
-        this.tokenizers = tokenizers;
-        this.reader = new SafeReader(loader.workspace().config().templates().maxFileBytes());
+        this.reader = new SafeReader(maxBytes);
     }
 
-    Plan plan(SourceText original, Template template) {
-        List<Tokenizer> counters = tokenizersFor(template);
+    /** Plans the rewrites of {@code original}, which parsed to {@code template}. */
+    public Plan plan(SourceText original, Template template) {
+        List<Tokenizer> counters = rules.tokenizers(template);
         Rounds work = new Rounds(original, counters, tokens(template, counters), findings(original, original.text()));
         Map<String, Integer> reviewLeft = selection.reviewLeft(work.findings);
         // Safe rewrites go first, to their fixpoint, and must keep what safe promises before any review
@@ -151,13 +153,13 @@ final class FilePlanner {
         }
 
         FileFix fix(FileFix.Outcome outcome, List<String> problems) {
-            List<RuleSaving> rules = new ArrayList<>();
-            tallies.forEach((rule, tally) -> rules.add(tally.saving(rule, counters)));
+            List<RuleSaving> savings = new ArrayList<>();
+            tallies.forEach((rule, tally) -> savings.add(tally.saving(rule, counters)));
             List<TokenChange> tokens = new ArrayList<>();
             for (int k = 0; k < counters.size(); k++) {
                 tokens.add(new TokenChange(counters.get(k).name(), start[k], current[k]));
             }
-            return new FileFix(original.path(), outcome, original.text(), trace.current(), rules, tokens, rounds, problems,
+            return new FileFix(original.path(), outcome, original.text(), trace.current(), savings, tokens, rounds, problems,
                     false);
         }
     }
@@ -180,34 +182,16 @@ final class FilePlanner {
         return problems;
     }
 
-    /** The findings of every rule in {@code text}, read as the file {@code original}. */
     private List<Finding> findings(SourceText original, String text) {
-        SourceText version = version(original, text);
-        return check.run(CheckOptions.defaults(), loader, new FileSelection(List.of(original.path()), List.of()),
-                path -> version).findings();
+        return rules.findings(original, text);
     }
 
     private Optional<Template> parse(SourceText original, String text) {
-        try {
-            return Optional.of(loader.parse(version(original, text)));
-        } catch (TareException e) {
-            return Optional.empty();
-        }
-    }
-
-    private static SourceText version(SourceText original, String text) {
-        return new SourceText(original.path(), original.file(), text, original.hadBom(),
-                FileBytes.encode(text, original.hadBom()).length);
-    }
-
-    List<Tokenizer> tokenizersFor(Template template) {
-        LintContext context = new LintContext(loader.workspace().config(), tokenizers, loader.renderer(),
-                List.of(template), java.util.Set.of(), Map.of());
-        return context.targetTokenizers(template);
+        return rules.parse(original, text);
     }
 
     /** Tokens of the prompt text the template itself holds: its messages as written, includes not expanded. */
-    static int[] tokens(Template template, List<Tokenizer> counters) {
+    public static int[] tokens(Template template, List<Tokenizer> counters) {
         int[] counts = new int[counters.size()];
         for (int k = 0; k < counters.size(); k++) {
             for (Message message : template.messages()) {

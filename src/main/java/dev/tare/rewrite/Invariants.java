@@ -1,12 +1,12 @@
 package dev.tare.rewrite;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import dev.tare.structure.Fence;
 import dev.tare.lint.MessageText;
-import dev.tare.structure.Region;
-import dev.tare.structure.Role;
 import dev.tare.lint.StrictJson;
 import dev.tare.lint.TemplateText;
+import dev.tare.structure.Fence;
+import dev.tare.structure.Region;
+import dev.tare.structure.Role;
 import dev.tare.template.Segment;
 import dev.tare.template.Template;
 import java.util.ArrayList;

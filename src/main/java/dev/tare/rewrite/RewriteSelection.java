@@ -1,6 +1,7 @@
 package dev.tare.rewrite;
 
 import dev.tare.TareException;
+import dev.tare.rewrite.FixOptions;
 import dev.tare.lint.Edit;
 import dev.tare.lint.EditKind;
 import dev.tare.lint.Finding;
@@ -16,7 +17,7 @@ import java.util.TreeMap;
  * Which of the rewrites the rules offer a fix takes: safe ones, review ones too when asked, and only
  * those of the named rules when rules are named. It takes what the rules offer and never adds to it.
  */
-final class RewriteSelection {
+public final class RewriteSelection {
     private final RuleCatalog catalog;
     private final FixOptions options;
 
@@ -31,7 +32,7 @@ final class RewriteSelection {
      * @throws TareException when a named rule is unknown, switched off, offers no rewrite, or offers
      *                       review rewrites without review rewrites being asked for
      */
-    static RewriteSelection of(RuleCatalog catalog, FixOptions options) {
+    public static RewriteSelection of(RuleCatalog catalog, FixOptions options) {
         for (String id : options.only()) {
             Rule rule = catalog.rule(id);
             if (catalog.isDisabled(id)) {
@@ -99,14 +100,14 @@ final class RewriteSelection {
     }
 
     /** Whether rewrites of class {@code rewriteClass} by rule {@code rule} are applied. */
-    boolean takes(String rule, RewriteClass rewriteClass) {
+    public boolean takes(String rule, RewriteClass rewriteClass) {
         boolean byClass = rewriteClass == RewriteClass.SAFE
                 || (rewriteClass == RewriteClass.REVIEW && options.includeReview());
         return byClass && named(rule);
     }
 
     /** Whether {@code rule} is among the rules asked for (every rule when none is named). */
-    boolean named(String rule) {
+    public boolean named(String rule) {
         return options.only().isEmpty() || options.only().contains(rule);
     }
 }

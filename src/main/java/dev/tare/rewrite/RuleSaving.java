@@ -21,7 +21,7 @@ public record RuleSaving(String rule, RewriteClass rewriteClass, int rewrites, i
     }
 
     /** This and {@code other} (of the same rule) together. */
-    RuleSaving plus(RuleSaving other) {
+    public RuleSaving plus(RuleSaving other) {
         Map<String, Integer> sum = new LinkedHashMap<>(saved);
         other.saved().forEach((tokenizer, tokens) -> sum.merge(tokenizer, tokens, Integer::sum));
         return new RuleSaving(rule, rewriteClass, rewrites + other.rewrites(), files + other.files(), sum);

@@ -1,12 +1,13 @@
 package dev.tare.template;
 
+import dev.tare.template.Locator;
 import java.util.Arrays;
 
 /**
  * Line starts of a text, for turning offsets into 1-based lines and columns. A line ends at
  * {@code \n}; a {@code \r} before it belongs to the line, and a lone {@code \r} also ends one.
  */
-final class LineIndex implements Locator {
+public final class LineIndex implements Locator {
     private final int[] starts;
     private final int lineBase;
     private final int firstColumnBase;
@@ -18,12 +19,12 @@ final class LineIndex implements Locator {
     }
 
     /** An index of {@code text} where offset 0 is line 1, column 1. */
-    static LineIndex of(String text) {
+    public static LineIndex of(String text) {
         return of(text, 1, 1);
     }
 
     /** An index of {@code text} whose first character stands at {@code line}, {@code column} of a file. */
-    static LineIndex of(String text, int line, int column) {
+    public static LineIndex of(String text, int line, int column) {
         return new LineIndex(text.indexOf('\r') < 0 ? newlineStarts(text) : anyBreakStarts(text), line, column);
     }
 
@@ -45,7 +46,7 @@ final class LineIndex implements Locator {
     }
 
     /** Line starts of any text: {@code \r\n}, {@code \n} and a lone {@code \r} each end a line. */
-    static int[] anyBreakStarts(String text) {
+    public static int[] anyBreakStarts(String text) {
         int[] starts = new int[16];
         int count = 1;
         for (int i = 0; i < text.length(); i++) {

@@ -6,11 +6,10 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.tare.TareException;
-import dev.tare.lint.Rule;
-import dev.tare.lint.RuleCatalog;
-import dev.tare.lint.Severity;
 import dev.tare.config.ConfigLoader;
 import dev.tare.config.TareConfig;
+import dev.tare.lint.RuleCatalog;
+import dev.tare.lint.Severity;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;

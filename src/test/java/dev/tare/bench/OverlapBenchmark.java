@@ -1,12 +1,12 @@
 package dev.tare.bench;
 
+import dev.tare.app.TemplateLoader;
 import dev.tare.overlap.SharedBlock;
 import dev.tare.overlap.SharedBlocks;
-import dev.tare.scan.TemplateLoader;
-import dev.tare.scan.Workspace;
 import dev.tare.template.Template;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
+import dev.tare.workspace.Workspace;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;

@@ -1,10 +1,10 @@
 package dev.tare.bench;
 
-import dev.tare.lint.Check;
-import dev.tare.lint.CheckOptions;
-import dev.tare.lint.CheckResult;
-import dev.tare.scan.Workspace;
+import dev.tare.app.Check;
+import dev.tare.app.CheckOptions;
+import dev.tare.app.CheckResult;
 import dev.tare.tokenize.TokenizerRegistry;
+import dev.tare.workspace.Workspace;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;

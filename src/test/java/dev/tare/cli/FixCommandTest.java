@@ -7,7 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import dev.tare.rewrite.FileSystemOps;
+import dev.tare.workspace.FileSystemOps;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.io.StringWriter;

@@ -2,7 +2,7 @@ package dev.tare.cli;
 
 import static org.junit.jupiter.api.Assertions.assertSame;
 
-import dev.tare.scan.ScanProgress;
+import dev.tare.app.ScanProgress;
 import org.junit.jupiter.api.Test;
 
 class TerminalProgressTest {

@@ -1,5 +1,6 @@
 package dev.tare.config;
 
+import dev.tare.footprint.Target;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -53,7 +54,7 @@ class ConfigLoaderTest {
         assertEquals(PlaceholderSyntax.SINGLE_BRACE, config.templates().placeholder());
         assertEquals("prompts/partials", config.templates().partials());
         assertEquals(4096, config.templates().maxFileBytes());
-        TargetConfig hosted = config.target("hosted");
+        Target hosted = config.target("hosted");
         assertEquals(4, hosted.messageOverheadTokens());
         assertEquals(0.5, hosted.price().orElseThrow().cachedInputPerMillion().getAsDouble());
         assertEquals("USD", hosted.price().orElseThrow().currency());

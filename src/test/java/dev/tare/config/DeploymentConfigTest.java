@@ -1,5 +1,6 @@
 package dev.tare.config;
 
+import dev.tare.footprint.Target;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
@@ -20,7 +21,7 @@ class DeploymentConfigTest {
     @TempDir
     Path root;
 
-    private TargetConfig only(String targetYaml) throws IOException {
+    private Target only(String targetYaml) throws IOException {
         return load(targetYaml).targets().get(0);
     }
 
@@ -42,7 +43,7 @@ class DeploymentConfigTest {
 
     @Test
     void inlineModelPrecisionNamesAndDevice() throws IOException {
-        TargetConfig t = only("""
+        Target t = only("""
                   - name: laptop
                     tokenizer: o200k_base
                     model: {params: 3.8e9, layers: 32, heads: 32, kv_heads: 8, head_dim: 96}
@@ -87,13 +88,13 @@ class DeploymentConfigTest {
                     model: {catalog: qwen2-7b, kv_heads: 7}
                     device: {catalog: gpu-24gb, memory_gib: 48}
                 """);
-        TargetConfig a = config.targets().get(0);
+        Target a = config.targets().get(0);
         assertEquals("catalog model qwen2-7b", a.model().orElseThrow().origin());
         assertEquals(4, a.model().orElseThrow().kvHeads());
         assertEquals(4, a.weightBits().getAsDouble());
         assertEquals(8, a.kvBits().getAsDouble());
         assertEquals(24, a.device().orElseThrow().memoryGib().getAsDouble());
-        TargetConfig b = config.targets().get(1);
+        Target b = config.targets().get(1);
         assertEquals(7, b.model().orElseThrow().kvHeads());
         assertEquals(28, b.model().orElseThrow().heads());
         assertTrue(b.model().orElseThrow().origin().endsWith("with overrides"));
@@ -287,7 +288,7 @@ class DeploymentConfigTest {
     }
     @Test
     void inlineShapesStateExpertsActiveParamsWindowsAndLatentWidth() throws IOException {
-        TargetConfig t = only("""
+        Target t = only("""
                   - name: t
                     tokenizer: o200k_base
                     concurrency: 16

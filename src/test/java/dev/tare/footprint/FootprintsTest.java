@@ -4,7 +4,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import dev.tare.config.TargetConfig;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
@@ -19,7 +18,7 @@ class FootprintsTest {
     /** The prefix cache counts only from prefix_cache_min_tokens (the design's cost formula). */
     @Test
     void cachedPrefixCountsOnlyFromTheMinimum() {
-        TargetConfig hosted = Targets.priced(2.50, 0.60, 10.00, 1024, 20_000);
+        Target hosted = Targets.priced(2.50, 0.60, 10.00, 1024, 20_000);
         // 1,000 shared tokens are under the 1,024 minimum: nothing cached, (2000 × 2.5 + 300 × 10) / 1e6 = 0.008.
         Footprint below = Footprints.estimate(hosted, new CallSize(2000, 0, 300, 1000));
         assertEquals(0, below.cachedInputTokens().getAsInt());
@@ -34,7 +33,7 @@ class FootprintsTest {
 
     @Test
     void targetWithoutAPrefixCacheHasNoCachedTokens() {
-        TargetConfig hosted = Targets.priced(2.50, 0.60, 10.00, null, 20_000);
+        Target hosted = Targets.priced(2.50, 0.60, 10.00, null, 20_000);
         Footprint f = Footprints.estimate(hosted, new CallSize(2000, 0, 300, 1500));
         assertTrue(f.cachedInputTokens().isEmpty());
         assertEquals(0.008, f.costPerCall().getAsDouble(), EXACT);
@@ -44,7 +43,7 @@ class FootprintsTest {
     void deviceTargetFillsEveryDeviceFigure() {
         // 7e9 params at 4 bits = 3.5e9 bytes; 32 layers, 8 KV heads of 128 at 16 bits:
         // 2 × 32 × 8 × 128 × 2 = 131,072 bytes per token; 1,000 + 24 tokens -> 134,217,728 bytes.
-        TargetConfig target = Targets.device(Targets.model(7e9, 32, 32, 8, 128), 4, 16,
+        Target target = Targets.device(Targets.model(7e9, 32, 32, 8, 128), 4, 16,
                 Targets.device(16, 0.75, 25, 120, 0.4));
         Footprint f = Footprints.estimate(target, CallSize.of(1000, 24));
         assertEquals(3_500_000_000L, f.weightBytes().getAsLong());
@@ -64,16 +63,16 @@ class FootprintsTest {
     /** Every key present in a footprint is one Coverage says the target computes, and no other. */
     @Test
     void coverageNamesExactlyTheFiguresAFootprintHas() {
-        List<TargetConfig> targets = new ArrayList<>();
-        targets.add(TargetConfig.ofTokenizer("tokens", "o200k_base"));
+        List<Target> targets = new ArrayList<>();
+        targets.add(Target.ofTokenizer("tokens", "o200k_base"));
         targets.add(Targets.priced(1, 0.5, 2, 1024, 100));
         targets.add(Targets.device(Targets.model(1e9, 16, 8, 4, 64), 8, 8, Targets.device(4, 0.5, 10, 50, 0.5)));
-        targets.add(new TargetConfig("partial", "o200k_base", Optional.empty(), OptionalInt.empty(), 0, 0,
+        targets.add(new Target("partial", "o200k_base", Optional.empty(), OptionalInt.empty(), 0, 0,
                 OptionalDouble.empty(), OptionalInt.of(10), Optional.of(Targets.model(1e9, 16, 8, 4, 64)),
                 OptionalDouble.empty(), OptionalDouble.of(16),
                 Optional.of(new Device("memory only", OptionalDouble.of(8), OptionalDouble.empty(),
                         OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty()))));
-        for (TargetConfig target : targets) {
+        for (Target target : targets) {
             Footprint f = Footprints.estimate(target, CallSize.of(100, 10));
             List<String> present = new ArrayList<>(List.of("input_tokens", "framing_tokens"));
             addIf(present, "cached_input_tokens", f.cachedInputTokens().isPresent());

@@ -4,7 +4,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import dev.tare.config.TargetConfig;
 import java.util.List;
 import java.util.OptionalDouble;
 import org.junit.jupiter.api.Test;
@@ -27,7 +26,7 @@ class LoadFormulasTest {
                 .embeddings(262_144_000.0, 131_072_000.0).experts(8, 2, 32 * 176_160_768.0).build();
     }
 
-    private static TargetConfig onGpu(ModelShape model, int concurrency, double bandwidthEfficiency) {
+    private static Target onGpu(ModelShape model, int concurrency, double bandwidthEfficiency) {
         // 80 GiB, 90% usable, 312 TFLOPS at 0.5 in prefill, 2039 GB/s: the catalog's gpu-80gb class values
         Device gpu = new Device("test", OptionalDouble.of(80), OptionalDouble.of(0.9), OptionalDouble.of(312),
                 OptionalDouble.of(2039), OptionalDouble.of(0.5), OptionalDouble.of(bandwidthEfficiency));
@@ -113,7 +112,7 @@ class LoadFormulasTest {
         assertTrue(Cautions.lowPrecision(OptionalDouble.of(3), OptionalDouble.of(16)));
         assertTrue(Cautions.lowPrecision(OptionalDouble.of(16), OptionalDouble.of(4)));
         assertFalse(Cautions.lowPrecision(OptionalDouble.of(4), OptionalDouble.of(8)));
-        TargetConfig target = onGpu(dense8b(), 1, 1);
+        Target target = onGpu(dense8b(), 1, 1);
         // 20,000 + 300 = 20,300 tokens on an 8,192-token context: over by 12,108
         List<String> lines = Cautions.of(target, Footprints.estimate(target, CallSize.of(20_000, 300)));
         assertTrue(lines.stream().anyMatch(l -> l.contains("20,300 tokens exceed the model's context of 8,192 tokens"

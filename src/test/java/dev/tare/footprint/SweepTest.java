@@ -5,7 +5,6 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.tare.TareException;
-import dev.tare.config.TargetConfig;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 
@@ -27,7 +26,7 @@ class SweepTest {
      */
     @Test
     void weightAndKvBitsSweepMatchesHandComputedTable() {
-        TargetConfig target = Targets.device(Targets.model(1e9, 16, 8, 4, 64), 16, 16,
+        Target target = Targets.device(Targets.model(1e9, 16, 8, 4, 64), 16, 16,
                 Targets.device(4, 0.5, 10, 4, 0.5));
         List<Sweep.Row> rows = Sweep.run(target, CallSize.of(1000, 24),
                 List.of(Sweep.Axis.parse("weight_bits=16,8,int4"), Sweep.Axis.parse("kv_bits=fp16,8")));
@@ -56,7 +55,7 @@ class SweepTest {
 
     @Test
     void deviceMemoryAndPromptSizeCanBeSwept() {
-        TargetConfig target = Targets.device(Targets.model(1e9, 16, 8, 4, 64), 16, 16,
+        Target target = Targets.device(Targets.model(1e9, 16, 8, 4, 64), 16, 16,
                 Targets.device(4, 0.5, 10, 4, 0.5));
         List<Sweep.Row> rows = Sweep.run(target, CallSize.of(1000, 24),
                 List.of(Sweep.Axis.parse("memory_gib=4,8"), Sweep.Axis.parse("input_tokens=1000,2024")));
@@ -67,7 +66,7 @@ class SweepTest {
 
     @Test
     void badSweepsAreRefusedNamingTheKey() {
-        TargetConfig device = Targets.device(Targets.model(1e9, 16, 8, 4, 64), 16, 16,
+        Target device = Targets.device(Targets.model(1e9, 16, 8, 4, 64), 16, 16,
                 Targets.device(4, 0.5, 10, 4, 0.5));
         assertMessage(() -> Sweep.Axis.parse("weight=16,8"), "unknown key 'weight'");
         assertMessage(() -> Sweep.Axis.parse("kv_bits=16,fp7"), "unknown precision 'fp7'");

@@ -1,7 +1,5 @@
 package dev.tare.footprint;
 
-import dev.tare.config.Price;
-import dev.tare.config.TargetConfig;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import java.util.OptionalInt;
@@ -11,16 +9,16 @@ final class Targets {
     private Targets() {
     }
 
-    static TargetConfig priced(double input, double cachedInput, double output, Integer prefixCacheMin,
+    static Target priced(double input, double cachedInput, double output, Integer prefixCacheMin,
                                double callsPerDay) {
-        return new TargetConfig("hosted", "o200k_base",
+        return new Target("hosted", "o200k_base",
                 Optional.of(new Price(input, OptionalDouble.of(cachedInput), output, "USD")),
                 prefixCacheMin == null ? OptionalInt.empty() : OptionalInt.of(prefixCacheMin), 0, 0,
                 OptionalDouble.of(callsPerDay), OptionalInt.empty());
     }
 
-    static TargetConfig device(ModelShape model, double weightBits, double kvBits, Device device) {
-        return new TargetConfig("device", "o200k_base", Optional.empty(), OptionalInt.empty(), 0, 0,
+    static Target device(ModelShape model, double weightBits, double kvBits, Device device) {
+        return new Target("device", "o200k_base", Optional.empty(), OptionalInt.empty(), 0, 0,
                 OptionalDouble.empty(), OptionalInt.empty(), Optional.of(model), OptionalDouble.of(weightBits),
                 OptionalDouble.of(kvBits), Optional.of(device));
     }

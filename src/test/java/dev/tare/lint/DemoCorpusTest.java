@@ -1,10 +1,13 @@
 package dev.tare.lint;
 
+import dev.tare.app.Check;
+import dev.tare.app.CheckOptions;
+import dev.tare.app.CheckResult;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import dev.tare.scan.Workspace;
 import dev.tare.tokenize.TokenizerRegistry;
+import dev.tare.workspace.Workspace;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Optional;

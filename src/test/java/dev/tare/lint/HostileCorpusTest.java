@@ -1,11 +1,14 @@
 package dev.tare.lint;
 
+import dev.tare.app.Check;
+import dev.tare.app.CheckOptions;
+import dev.tare.app.CheckResult;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import dev.tare.scan.TemplateLoader;
-import dev.tare.scan.Workspace;
+import dev.tare.app.TemplateLoader;
 import dev.tare.tokenize.TokenizerRegistry;
+import dev.tare.workspace.Workspace;
 import java.nio.file.Path;
 import java.util.HashSet;
 import java.util.List;

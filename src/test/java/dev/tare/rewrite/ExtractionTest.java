@@ -1,14 +1,17 @@
 package dev.tare.rewrite;
 
+import dev.tare.app.Fix;
+import dev.tare.rewrite.FixOptions;
+import dev.tare.app.FixResult;
+import dev.tare.workspace.FileSystemOps;
 import static org.junit.jupiter.api.Assertions.assertEquals;
-import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import dev.tare.scan.TemplateLoader;
-import dev.tare.scan.Workspace;
+import dev.tare.app.TemplateLoader;
 import dev.tare.template.Renderer;
 import dev.tare.template.Template;
 import dev.tare.tokenize.TokenizerRegistry;
+import dev.tare.workspace.Workspace;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;

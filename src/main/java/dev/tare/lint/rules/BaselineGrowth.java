@@ -1,9 +1,10 @@
 package dev.tare.lint.rules;
 
-import dev.tare.baseline.Baseline;
-import dev.tare.baseline.BaselineChange;
-import dev.tare.baseline.BaselineComparison;
-import dev.tare.config.TargetConfig;
+import dev.tare.footprint.Estimates;
+import dev.tare.footprint.Target;
+import dev.tare.lint.Baseline;
+import dev.tare.lint.BaselineChange;
+import dev.tare.lint.BaselineComparison;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
@@ -11,7 +12,6 @@ import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
 import dev.tare.lint.TemplateText;
-import dev.tare.scan.Estimates;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
 import dev.tare.template.TemplateKind;
@@ -60,11 +60,11 @@ final class BaselineGrowth implements Rule {
             return List.of();
         }
         Map<String, Integer> now = new TreeMap<>();
-        List<TargetConfig> targets = context.targets(template);
+        List<Target> targets = context.targets(template);
         if (targets.isEmpty()) {
             now.put(context.tokenizer(template).name(), Estimates.estimatedTokens(context.tokenizer(template), rendering.get()));
         }
-        for (TargetConfig target : targets) {
+        for (Target target : targets) {
             now.put(target.name(), Estimates.estimatedTokens(target, context.tokenizer(target), rendering.get()));
         }
         return new ArrayList<>(BaselineComparison.compare(new Baseline(Map.of(template.path(), recorded.get())),

@@ -1,6 +1,5 @@
 package dev.tare.lint.rules;
 
-import dev.tare.baseline.BaselineChange;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;

@@ -2,8 +2,9 @@ package dev.tare.lint.rules;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.tare.TareException;
-import dev.tare.config.TargetConfig;
+import dev.tare.footprint.Estimates;
 import dev.tare.footprint.Framing;
+import dev.tare.footprint.Target;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
@@ -11,7 +12,6 @@ import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
 import dev.tare.lint.TemplateText;
-import dev.tare.scan.Estimates;
 import dev.tare.source.YamlDocument;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
@@ -54,7 +54,7 @@ final class ContextLimit implements Rule {
         }
         List<String> over = new ArrayList<>();
         int output = template.meta().outputTokens().orElse(0);
-        for (TargetConfig target : context.targets(template)) {
+        for (Target target : context.targets(template)) {
             OptionalInt limit = target.model().map(m -> m.contextLimit()).orElse(OptionalInt.empty());
             if (limit.isPresent()) {
                 int input = Estimates.estimatedTokens(target, context.tokenizer(target), rendering.get())

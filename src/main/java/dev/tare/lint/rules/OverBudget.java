@@ -1,6 +1,7 @@
 package dev.tare.lint.rules;
 
-import dev.tare.config.TargetConfig;
+import dev.tare.footprint.Estimates;
+import dev.tare.footprint.Target;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
@@ -8,7 +9,6 @@ import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
 import dev.tare.lint.TemplateText;
-import dev.tare.scan.Estimates;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
 import dev.tare.tokenize.Tokenizer;
@@ -47,11 +47,11 @@ final class OverBudget implements Rule {
             return List.of();
         }
         Tokenizer tokenizer = context.tokenizer(template);
-        List<TargetConfig> targets = context.targets(template);
-        Optional<TargetConfig> primary = targets.isEmpty() ? Optional.empty() : Optional.of(targets.get(0));
+        List<Target> targets = context.targets(template);
+        Optional<Target> primary = targets.isEmpty() ? Optional.empty() : Optional.of(targets.get(0));
         int estimated = primary.map(target -> Estimates.estimatedTokens(target, tokenizer, rendering.get()))
                 .orElseGet(() -> Estimates.estimatedTokens(tokenizer, rendering.get()));
-        String calibrated = primary.filter(TargetConfig::isCalibrated)
+        String calibrated = primary.filter(Target::isCalibrated)
                 .map(target -> ", scaled by " + target.scale() + " for " + target.name() + ": a calibrated estimate")
                 .orElse("");
         if (estimated <= budget.getAsInt()) {
@@ -85,7 +85,7 @@ final class OverBudget implements Rule {
             return template.isChat() ? "set in the file" : "set in front matter";
         }
         for (Map.Entry<String, Integer> entry : context.config().budgets().byGlob().entrySet()) {
-            if (dev.tare.source.Glob.of(entry.getKey()).matches(template.path())) {
+            if (dev.tare.config.Glob.of(entry.getKey()).matches(template.path())) {
                 return "budgets '" + entry.getKey() + "' in tare.yaml";
             }
         }

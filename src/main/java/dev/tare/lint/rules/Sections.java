@@ -1,12 +1,12 @@
 package dev.tare.lint.rules;
 
 import dev.tare.TareException;
+import dev.tare.footprint.Estimates;
 import dev.tare.lint.LintContext;
 import dev.tare.lint.MessageText;
+import dev.tare.lint.TemplateText;
 import dev.tare.structure.Region;
 import dev.tare.structure.Role;
-import dev.tare.lint.TemplateText;
-import dev.tare.scan.Estimates;
 import dev.tare.template.Message;
 import dev.tare.template.Segment;
 import dev.tare.template.Template;

@@ -1,9 +1,9 @@
 package dev.tare.lint.rules;
 
-import dev.tare.config.TargetConfig;
 import dev.tare.footprint.CallSize;
 import dev.tare.footprint.Footprint;
 import dev.tare.footprint.Footprints;
+import dev.tare.footprint.Target;
 import dev.tare.lint.CrossTemplateRule;
 import dev.tare.lint.Edit;
 import dev.tare.lint.EditKind;
@@ -12,8 +12,8 @@ import dev.tare.lint.Extraction;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
 import dev.tare.lint.MessageText;
-import dev.tare.lint.Replaceable;
 import dev.tare.lint.Related;
+import dev.tare.lint.Replaceable;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
 import dev.tare.lint.Suppressions;
@@ -394,13 +394,13 @@ final class SharedBlock implements CrossTemplateRule {
 
     /** What a copy costs per call on each target of its template, tokens and (on priced targets) money. */
     private static String costs(Template template, String copy, LintContext context) {
-        List<TargetConfig> targets = context.targets(template);
+        List<Target> targets = context.targets(template);
         if (targets.isEmpty()) {
             Tokenizer tokenizer = context.tokenizer(template);
             return tokenizer.count(copy) + " tokens on " + tokenizer.name();
         }
         List<String> parts = new ArrayList<>();
-        for (TargetConfig target : targets) {
+        for (Target target : targets) {
             Tokenizer tokenizer;
             try {
                 tokenizer = context.tokenizer(target);

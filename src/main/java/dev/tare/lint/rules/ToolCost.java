@@ -1,10 +1,10 @@
 package dev.tare.lint.rules;
 
-import dev.tare.config.TargetConfig;
 import dev.tare.footprint.CallSize;
 import dev.tare.footprint.Footprint;
 import dev.tare.footprint.Footprints;
 import dev.tare.footprint.Framing;
+import dev.tare.footprint.Target;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
@@ -37,13 +37,13 @@ final class ToolCost implements ToolRule {
     @Override
     public List<Finding> check(Template template, LintContext context) {
         List<Finding> findings = new ArrayList<>();
-        List<TargetConfig> targets = context.targets(template);
+        List<Target> targets = context.targets(template);
         for (ToolDefinition tool : context.toolDefinitions(template)) {
             List<String> costs = new ArrayList<>();
             if (targets.isEmpty()) {
                 costs.add(context.tokenizer(template).count(tool.json()) + " tokens on " + context.tokenizer(template).name());
             }
-            for (TargetConfig target : targets) {
+            for (Target target : targets) {
                 int tokens = target.scaled(context.tokenizer(target).count(tool.json())) + Framing.toolTokens(target, 1);
                 Footprint footprint = Footprints.estimate(target, CallSize.of(tokens, 0));
                 StringBuilder cost = new StringBuilder().append(tokens).append(" tokens on ").append(target.name());

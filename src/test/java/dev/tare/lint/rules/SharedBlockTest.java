@@ -3,13 +3,13 @@ package dev.tare.lint.rules;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import dev.tare.lint.Check;
-import dev.tare.lint.CheckOptions;
+import dev.tare.app.Check;
+import dev.tare.app.CheckOptions;
 import dev.tare.lint.Finding;
 import dev.tare.lint.Related;
-import dev.tare.scan.Workspace;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
+import dev.tare.workspace.Workspace;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;

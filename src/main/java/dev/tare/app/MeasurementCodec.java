@@ -1,0 +1,108 @@
+package dev.tare.app;
+
+import dev.tare.cache.TemplateCache;
+import dev.tare.footprint.CallSize;
+import dev.tare.overlap.CachePrefixes;
+import dev.tare.template.TemplateKind;
+import java.io.DataInputStream;
+import java.io.DataOutputStream;
+import java.io.IOException;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+/** How the scan keeps a template's {@link Measurement} in its {@link TemplateCache}. */
+final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
+    @Override
+    public void write(DataOutputStream out, Measurement r) throws IOException {
+        out.writeUTF(r.kind().name());
+        out.writeInt(r.characters());
+        out.writeInt(r.staticTokens());
+        out.writeInt(r.estimatedTokens());
+        writeStrings(out, r.variables());
+        writeStrings(out, r.unsizedVariables());
+        writeStrings(out, r.includes());
+        out.writeInt(r.callSizes().size());
+        for (Map.Entry<String, CallSize> size : r.callSizes().entrySet()) {
+            CallSize s = size.getValue();
+            out.writeUTF(size.getKey());
+            out.writeInt(s.inputTokens());
+            out.writeInt(s.framingTokens());
+            out.writeInt(s.outputTokens());
+            out.writeInt(s.sharedPrefixTokens());
+            out.writeInt(r.estimatedByTarget().getOrDefault(size.getKey(), 0));
+        }
+        out.writeInt(r.leadingIds().size());
+        for (Map.Entry<String, CachePrefixes.Leading> leading : r.leadingIds().entrySet()) {
+            CachePrefixes.Leading ids = leading.getValue();
+            out.writeUTF(leading.getKey());
+            writeInts(out, ids.now());
+            boolean same = Arrays.equals(ids.now(), ids.reordered());
+            out.writeBoolean(same);
+            if (!same) {
+                writeInts(out, ids.reordered());
+            }
+        }
+    }
+
+    @Override
+    public Measurement read(DataInputStream in, String path) throws IOException {
+        TemplateKind kind = TemplateKind.valueOf(in.readUTF());
+        int characters = in.readInt();
+        int staticTokens = in.readInt();
+        int estimatedTokens = in.readInt();
+        List<String> variables = readStrings(in);
+        List<String> unsized = readStrings(in);
+        List<String> includes = readStrings(in);
+        Map<String, CallSize> sizes = new LinkedHashMap<>();
+        Map<String, Integer> byTarget = new LinkedHashMap<>();
+        int targetCount = in.readInt();
+        for (int t = 0; t < targetCount; t++) {
+            String name = in.readUTF();
+            sizes.put(name, new CallSize(in.readInt(), in.readInt(), in.readInt(), in.readInt()));
+            byTarget.put(name, in.readInt());
+        }
+        Map<String, CachePrefixes.Leading> leading = new LinkedHashMap<>();
+        int leadingCount = in.readInt();
+        for (int t = 0; t < leadingCount; t++) {
+            String name = in.readUTF();
+            int[] now = readInts(in);
+            leading.put(name, new CachePrefixes.Leading(now, in.readBoolean() ? now : readInts(in)));
+        }
+        return new Measurement(path, kind, characters, staticTokens, estimatedTokens, variables, unsized, includes,
+                sizes, byTarget, leading);
+    }
+
+    private static void writeInts(DataOutputStream out, int[] ints) throws IOException {
+        out.writeInt(ints.length);
+        for (int i : ints) {
+            out.writeInt(i);
+        }
+    }
+
+    private static int[] readInts(DataInputStream in) throws IOException {
+        int[] ints = new int[in.readInt()];
+        for (int i = 0; i < ints.length; i++) {
+            ints[i] = in.readInt();
+        }
+        return ints;
+    }
+
+    private static void writeStrings(DataOutputStream out, List<String> strings) throws IOException {
+        out.writeInt(strings.size());
+        for (String s : strings) {
+            out.writeUTF(s);
+        }
+    }
+
+    private static List<String> readStrings(DataInputStream in) throws IOException {
+        int n = in.readInt();
+        List<String> strings = new ArrayList<>(n);
+        for (int i = 0; i < n; i++) {
+            strings.add(in.readUTF());
+        }
+        return strings;
+    }
+}

@@ -1,0 +1,71 @@
+package dev.tare.app;
+
+import dev.tare.footprint.Footprint;
+import dev.tare.overlap.PrefixShare;
+import dev.tare.template.TemplateKind;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * One template's measurements.
+ *
+ * @param path             path relative to the root, with {@code /}
+ * @param kind             text, chat or partial
+ * @param characters       characters of the file's text
+ * @param staticTokens     tokens with every variable empty, on the scan's primary tokenizer
+ * @param estimatedTokens  tokens with samples and declared sizes, on the primary tokenizer
+ * @param variables        distinct variable names in order of first use, includes' variables too
+ * @param unsizedVariables the variables with neither a sample nor a token size: the estimate leaves them out
+ * @param includes         the distinct templates pasted in, in order of first use
+ * @param targets          footprint per target name, for the targets this template runs on
+ * @param estimatedByTarget the template's own estimated tokens on each of its targets: scaled by the
+ *                         target's calibration, without framing or the tool files sent with it
+ * @param prefixes         per target with a prefix cache, how the template's leading static tokens
+ *                         are shared with other templates; empty for partials and tool files
+ */
+public record ScannedTemplate(String path, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
+                              List<String> variables, List<String> unsizedVariables, List<String> includes,
+                              Map<String, Footprint> targets, Map<String, Integer> estimatedByTarget,
+                              Map<String, PrefixShare> prefixes) {
+    public ScannedTemplate {
+        variables = List.copyOf(variables);
+        unsizedVariables = List.copyOf(unsizedVariables);
+        includes = List.copyOf(includes);
+        targets = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(targets));
+        estimatedByTarget = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(estimatedByTarget));
+        prefixes = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(prefixes));
+    }
+
+    /** A template measured before prefix sharing is known. */
+    public ScannedTemplate(String path, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
+                           List<String> variables, List<String> unsizedVariables, List<String> includes,
+                           Map<String, Footprint> targets, Map<String, Integer> estimatedByTarget) {
+        this(path, kind, characters, staticTokens, estimatedTokens, variables, unsizedVariables, includes, targets,
+                estimatedByTarget, Map.of());
+    }
+
+    /** The same template with other footprints. */
+    public ScannedTemplate withTargets(Map<String, Footprint> footprints) {
+        return new ScannedTemplate(path, kind, characters, staticTokens, estimatedTokens, variables, unsizedVariables,
+                includes, footprints, estimatedByTarget, prefixes);
+    }
+
+    /** The same template with its footprint and prefix sharing on one more target with a prefix cache. */
+    public ScannedTemplate withPrefix(String target, Footprint footprint, PrefixShare share) {
+        Map<String, Footprint> footprints = new LinkedHashMap<>(targets);
+        footprints.put(target, footprint);
+        Map<String, PrefixShare> shares = new LinkedHashMap<>(prefixes);
+        shares.put(target, share);
+        return new ScannedTemplate(path, kind, characters, staticTokens, estimatedTokens, variables, unsizedVariables,
+                includes, footprints, estimatedByTarget, shares);
+    }
+
+    /**
+     * Whether this template counts toward totals: partials are counted inside their includers, and
+     * tool files inside the templates sent with them.
+     */
+    public boolean countsInTotals() {
+        return kind != TemplateKind.PARTIAL && kind != TemplateKind.TOOLS;
+    }
+}

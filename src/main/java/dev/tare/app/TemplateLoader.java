@@ -1,0 +1,92 @@
+package dev.tare.app;
+
+import dev.tare.TareException;
+import dev.tare.config.Glob;
+import dev.tare.config.TareConfig;
+import dev.tare.source.SafeReader;
+import dev.tare.source.SourceText;
+import dev.tare.template.PartialDirectory;
+import dev.tare.template.Renderer;
+import dev.tare.template.Template;
+import dev.tare.template.TemplateParser;
+import dev.tare.workspace.FileSelection;
+import dev.tare.workspace.StagedTemplates;
+import dev.tare.workspace.TemplateFinder;
+import dev.tare.workspace.Workspace;
+import java.util.Optional;
+
+/**
+ * The one pipeline from a workspace to parsed templates, shared by every command that reads
+ * templates: find the files, read each safely, parse it with the configured syntax, and render it
+ * with includes resolved in the partials folder (each partial parsed once per loader). Thread-safe.
+ */
+public final class TemplateLoader {
+    private final Workspace workspace;
+    private final SafeReader reader;
+    private final TemplateParser parser;
+    private final PartialCache partials;
+    private final Renderer renderer;
+
+    public TemplateLoader(Workspace workspace) {
+        this.workspace = workspace;
+        TareConfig config = workspace.config();
+        this.reader = new SafeReader(config.templates().maxFileBytes());
+        this.parser = new TemplateParser(config.templates().placeholder());
+        this.partials = new PartialCache(workspace.root(), config.templates(), reader, parser);
+        this.renderer = new Renderer(new PartialDirectory(config.templates().partials(), partials::load));
+    }
+
+    /** The template files the workspace's configuration selects, and the links it would not follow. */
+    public FileSelection find() {
+        return finder().find(workspace.starts());
+    }
+
+    /** The files staged for the next commit that the configuration selects, read from the git index. */
+    public StagedTemplates staged() {
+        return StagedTemplates.read(workspace, finder(), reader);
+    }
+
+    private TemplateFinder finder() {
+        TareConfig config = workspace.config();
+        return new TemplateFinder(workspace.root(), Glob.all(config.templates().include()),
+                Glob.all(config.templates().exclude()));
+    }
+
+    /** Reads the file at a root-relative path, as the loader would before parsing it. */
+    public SourceText read(String path) {
+        return reader.read(path, workspace.root().resolve(path));
+    }
+
+    /**
+     * Reads and parses the template at a root-relative path.
+     *
+     * @throws TareException with the reason (not prefixed with the path) when it cannot be used
+     */
+    public Template load(String path) {
+        return parse(read(path));
+    }
+
+    /** Parses already-read text (for example the staged version of a file). */
+    public Template parse(SourceText text) {
+        return parser.parse(text, workspace.config().templates().isPartial(text.path()));
+    }
+
+    /** The renderer that resolves this workspace's includes. */
+    public Renderer renderer() {
+        return renderer;
+    }
+
+    /**
+     * A renderer that resolves includes in {@code texts} (root-relative path to the text a file would
+     * hold) before the files on disk: for rendering files as a rewrite would leave them.
+     */
+    public Renderer renderer(java.util.function.Function<String, Optional<Template>> texts) {
+        return new Renderer(new PartialDirectory(workspace.config().templates().partials(),
+                path -> texts.apply(path).or(() -> partials.load(path))));
+    }
+
+    /** The workspace this loader reads. */
+    public Workspace workspace() {
+        return workspace;
+    }
+}

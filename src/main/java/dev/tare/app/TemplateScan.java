@@ -1,0 +1,359 @@
+package dev.tare.app;
+
+import dev.tare.TareException;
+import dev.tare.cache.CacheKey;
+import dev.tare.cache.TemplateCache;
+import dev.tare.config.TareConfig;
+import dev.tare.footprint.CallSize;
+import dev.tare.footprint.Estimates;
+import dev.tare.footprint.Footprint;
+import dev.tare.footprint.Footprints;
+import dev.tare.footprint.Framing;
+import dev.tare.footprint.Target;
+import dev.tare.overlap.CachePrefixes;
+import dev.tare.overlap.PrefixShare;
+import dev.tare.source.SourceText;
+import dev.tare.template.Rendering;
+import dev.tare.template.Template;
+import dev.tare.template.TemplateKind;
+import dev.tare.template.VariableSpec;
+import dev.tare.tokenize.Tokenizer;
+import dev.tare.tokenize.TokenizerRegistry;
+import dev.tare.workspace.FileSelection;
+import dev.tare.workspace.SkippedFile;
+import dev.tare.workspace.Workspace;
+import java.nio.file.Files;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.ConcurrentHashMap;
+import java.util.stream.Collectors;
+
+/**
+ * Measures every template of a workspace: finds the files, reads and parses each, renders it with
+ * variables empty and with samples, and counts tokens on the primary tokenizer and on each target,
+ * whose footprints it then estimates (with the prefix each template shares with others, on targets
+ * with a prefix cache).
+ * Files are processed in parallel and one at a time each, so memory stays bounded by the files in
+ * flight; a file that cannot be used is skipped with its reason and never stops the scan.
+ */
+public final class TemplateScan {
+    private final Workspace workspace;
+    private final TokenizerRegistry tokenizers;
+
+    public TemplateScan(Workspace workspace, TokenizerRegistry tokenizers) {
+        this.workspace = workspace;
+        this.tokenizers = tokenizers;
+    }
+
+    /** Runs the scan. Configuration problems (an unknown target or tokenizer) throw before any file is read. */
+    public ScanResult run(ScanOptions options) {
+        return run(options, ScanProgress.NONE);
+    }
+
+    /** Runs the scan, telling {@code progress} how far it has got. */
+    public ScanResult run(ScanOptions options, ScanProgress progress) {
+        return scan(setUp(options), options, progress);
+    }
+
+    /** What a scan is asked for, resolved: the targets, the primary tokenizer's name and the cache key. */
+    private record Setup(List<Target> targets, String primaryName, String cacheKey) {
+    }
+
+    private Setup setUp(ScanOptions options) {
+        TareConfig config = workspace.config();
+        List<Target> targets = config.selectTargets(options.targets());
+        String primaryName = options.tokenizer()
+                .orElse(targets.isEmpty() ? TokenizerRegistry.DEFAULT : targets.get(0).tokenizer());
+        String key = options.cache() ? cacheKey(targets, primaryName) : "";
+        return new Setup(targets, primaryName, key);
+    }
+
+    private ScanResult scan(Setup setup, ScanOptions options, ScanProgress progress) {
+        TareConfig config = workspace.config();
+        List<Target> targets = setup.targets();
+        Tokenizer primary = tokenizers.get(setup.primaryName(), workspace.root());
+        Map<String, Tokenizer> byTarget = new LinkedHashMap<>();
+        for (Target target : targets) {
+            byTarget.put(target.name(), tokenizers.get(target.tokenizer(), workspace.root()));
+        }
+        // The previous measurements are read while the folders are walked and, when there are
+        // none (so every template will be counted), the vocabularies after them, one at a time.
+        Set<Tokenizer> used = new LinkedHashSet<>(byTarget.values());
+        used.add(primary);
+        CompletableFuture<TemplateCache<Measurement>> opening = CompletableFuture.supplyAsync(() -> options.cache()
+                ? TemplateCache.open(workspace.root(), workspace.starts().isEmpty(), "scan", setup.cacheKey(), new MeasurementCodec())
+                : TemplateCache.disabled(workspace.root()));
+        CompletableFuture<Void> loading = opening.thenCompose(opened -> opened.isEmpty()
+                ? TokenizerRegistry.prepare(used) : CompletableFuture.completedFuture(null));
+        TemplateLoader loader = new TemplateLoader(workspace);
+        FileSelection selection = loader.find();
+        TemplateCache<Measurement> cache = opening.join();
+        Measurer measurer = new Measurer(config, targets, primary, byTarget, loader, cache);
+
+        progress.started(selection.paths().size());
+        List<Outcome> outcomes = selection.paths().parallelStream().map(path -> {
+            Outcome outcome = measurer.measure(path);
+            progress.advanced();
+            return outcome;
+        }).toList();
+        progress.finished();
+        // Long done on a real repository; waited for so that no load outlives the command's timings.
+        loading.join();
+        List<ScannedTemplate> templates = new ArrayList<>();
+        List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
+        for (Outcome outcome : outcomes) {
+            outcome.template().ifPresent(templates::add);
+            outcome.skipped().ifPresent(skipped::add);
+        }
+        skipped.sort(null);
+        for (Target target : targets) {
+            if (target.prefixCacheMinTokens().isPresent()) {
+                applySharedPrefixes(target, templates, outcomes);
+            }
+        }
+        cache.save();
+        return new ScanResult(workspace.displayName(), primary.name(),
+                targets.stream().map(Target::name).toList(), templates, skipped, targets);
+    }
+
+    /** Everything besides the template files that decides a scan's results (see {@link CacheKey}). */
+    private String cacheKey(List<Target> targets, String primaryName) {
+        CacheKey key = CacheKey.of(workspace.root(), workspace.config()).tokenizer(primaryName);
+        for (Target target : targets) {
+            key.with("target", target.name()).tokenizer(target.tokenizer());
+        }
+        return key.toString();
+    }
+
+    /** Re-estimates the footprints on {@code target} with the prefix each template shares with others. */
+    private static void applySharedPrefixes(Target target, List<ScannedTemplate> templates, List<Outcome> outcomes) {
+        Map<String, CachePrefixes.Leading> byPath = new LinkedHashMap<>();
+        for (Outcome outcome : outcomes) {
+            CachePrefixes.Leading ids = outcome.leadingIds().get(target.name());
+            if (ids != null) {
+                byPath.put(outcome.template().orElseThrow().path(), ids);
+            }
+        }
+        List<Integer> indexes = new ArrayList<>();
+        List<CachePrefixes.Leading> leading = new ArrayList<>();
+        List<CallSize> calls = new ArrayList<>();
+        for (int i = 0; i < templates.size(); i++) {
+            CachePrefixes.Leading ids = byPath.get(templates.get(i).path());
+            if (ids != null) {
+                Footprint f = templates.get(i).targets().get(target.name());
+                indexes.add(i);
+                leading.add(ids);
+                calls.add(new CallSize(f.inputTokens(), f.framingTokens(), f.outputTokens(), 0));
+            }
+        }
+        List<PrefixShare> shares = CachePrefixes.share(target, leading, calls);
+        for (int k = 0; k < indexes.size(); k++) {
+            CallSize call = calls.get(k);
+            PrefixShare share = shares.get(k);
+            Footprint cached = Footprints.estimate(target, new CallSize(call.inputTokens(), call.framingTokens(),
+                    call.outputTokens(), share.cachedTokens()));
+            templates.set(indexes.get(k), templates.get(indexes.get(k)).withPrefix(target.name(), cached, share));
+        }
+    }
+
+    /**
+     * What became of one file: measured, or skipped with a reason. A measured template carries, per
+     * target with a prefix cache, its leading static token ids.
+     */
+    private record Outcome(Optional<ScannedTemplate> template, Optional<SkippedFile> skipped,
+                           Map<String, CachePrefixes.Leading> leadingIds) {
+        static Outcome of(ScannedTemplate template, Map<String, CachePrefixes.Leading> leadingIds) {
+            return new Outcome(Optional.of(template), Optional.empty(), leadingIds);
+        }
+
+        static Outcome of(SkippedFile skipped) {
+            return new Outcome(Optional.empty(), Optional.of(skipped), Map.of());
+        }
+    }
+
+    /**
+     * Token counts of one template's renderings, each distinct (tokenizer, message) counted once:
+     * without samples the static and estimated texts are the same, and several targets often share
+     * a tokenizer. The sums are those of {@link Estimates#tokens}.
+     */
+    private static final class Counts {
+        /** A rendering's messages as counted on one tokenizer. */
+        private record Counted(List<String> messages, int[] counts) {
+        }
+
+        private final Map<Tokenizer, List<Counted>> byTokenizer = new java.util.IdentityHashMap<>();
+
+        /**
+         * The rendering's count. A message is looked for only at its own place in the renderings
+         * counted before on the same tokenizer, where its twin stands (the static and the sample
+         * rendering hold the same messages in the same order): unlike a map of texts, that never
+         * hashes a message of thousands of characters, and stays linear in a chat of thousands of
+         * messages.
+         */
+        int of(Tokenizer tokenizer, Rendering rendering) {
+            List<Counted> before = byTokenizer.computeIfAbsent(tokenizer, t -> new ArrayList<>(3));
+            List<String> messages = rendering.messages();
+            int[] counts = new int[messages.size()];
+            int total = 0;
+            for (int i = 0; i < counts.length; i++) {
+                counts[i] = -1;
+                String message = messages.get(i);
+                for (Counted counted : before) {
+                    if (i < counted.messages().size() && counted.messages().get(i).equals(message)) {
+                        counts[i] = counted.counts()[i];
+                        break;
+                    }
+                }
+                if (counts[i] < 0) {
+                    counts[i] = tokenizer.count(message);
+                }
+                total += counts[i];
+            }
+            before.add(new Counted(messages, counts));
+            return total;
+        }
+    }
+
+    /** The per-file work, shared read-only by the scanning threads. */
+    private record Measurer(TareConfig config, List<Target> targets, Map<String, Target> targetsByName,
+                            Tokenizer primary, Map<String, Tokenizer> byTarget, TemplateLoader loader, TemplateCache<Measurement> cache,
+                            Map<String, Template> toolFiles, Map<String, Integer> toolTokens) {
+
+        Measurer(TareConfig config, List<Target> targets, Tokenizer primary, Map<String, Tokenizer> byTarget,
+                 TemplateLoader loader, TemplateCache<Measurement> cache) {
+            this(config, targets, targets.stream().collect(Collectors.toMap(Target::name, t -> t, (a, b) -> a,
+                    LinkedHashMap::new)), primary, byTarget, loader, cache, new ConcurrentHashMap<>(),
+                    new ConcurrentHashMap<>());
+        }
+
+        Outcome measure(String path) {
+            Optional<Measurement> remembered = cache.find(path);
+            if (remembered.isPresent()) {
+                return Outcome.of(remembered.get().template(targetsByName), remembered.get().leadingIds());
+            }
+            try {
+                SourceText text = loader.read(path);
+                Template template = loader.parse(text);
+                Rendering samples = loader.renderer().renderWithSamples(template);
+                Measurement measured = measure(template, samples, text.text().length());
+                List<String> dependencies = new ArrayList<>(new LinkedHashSet<>(samples.includes()));
+                dependencies.addAll(template.meta().tools());
+                cache.remember(path, text.text(), dependencies, measured);
+                return Outcome.of(measured.template(targetsByName), measured.leadingIds());
+            } catch (TareException e) {
+                return Outcome.of(new SkippedFile(path, e.getMessage()));
+            }
+        }
+
+        private Measurement measure(Template template, Rendering samples, int characters) {
+            // With no sample in it, the sample rendering is the static one, and the same strings let
+            // Counts see that at once.
+            boolean sampled = samples.variables().stream()
+                    .anyMatch(occurrence -> occurrence.spec().flatMap(VariableSpec::sample).isPresent());
+            Rendering empty = sampled ? loader.renderer().renderStatic(template) : samples;
+            int declared = Estimates.declaredTokens(samples);
+            Counts counts = new Counts();
+            List<Template> tools = toolsSentWith(template);
+            Map<String, CallSize> callSizes = new LinkedHashMap<>();
+            Map<String, Integer> estimatedByTarget = new LinkedHashMap<>();
+            for (Target target : targetsOf(template)) {
+                Tokenizer tokenizer = byTarget.get(target.name());
+                int estimated = target.scaled(counts.of(tokenizer, samples)) + declared;
+                estimatedByTarget.put(target.name(), estimated);
+                int framing = template.kind() == TemplateKind.TOOLS
+                        ? Framing.toolTokens(target, template.messages().size())
+                        : Framing.tokens(target, template.isChat(), template.messages().size());
+                for (Template toolFile : tools) {
+                    estimated += target.scaled(toolTokens(toolFile, tokenizer));
+                    framing += Framing.toolTokens(target, toolFile.messages().size());
+                }
+                int output = template.meta().outputTokens().orElse(target.outputTokens().orElse(0));
+                callSizes.put(target.name(), new CallSize(estimated + framing, framing, output, 0));
+            }
+            Set<String> variables = new LinkedHashSet<>();
+            Set<String> unsized = new LinkedHashSet<>();
+            for (Rendering.Occurrence occurrence : samples.variables()) {
+                variables.add(occurrence.variable().name());
+                if (occurrence.spec().isEmpty() || !occurrence.spec().get().isSized()) {
+                    unsized.add(occurrence.variable().name());
+                }
+            }
+            return new Measurement(template.path(), template.kind(), characters, counts.of(primary, empty),
+                    counts.of(primary, samples) + declared, List.copyOf(variables), List.copyOf(unsized),
+                    List.copyOf(new LinkedHashSet<>(samples.includes())), callSizes, estimatedByTarget,
+                    leadingIds(template, samples, callSizes.keySet()));
+        }
+
+        /** Leading static token ids per target with a prefix cache; none for partials and tool files, which are never sent alone. */
+        private Map<String, CachePrefixes.Leading> leadingIds(Template template, Rendering samples, Set<String> measuredTargets) {
+            if (template.kind() == TemplateKind.PARTIAL || template.kind() == TemplateKind.TOOLS) {
+                return Map.of();
+            }
+            Map<String, CachePrefixes.Leading> ids = new LinkedHashMap<>();
+            CachePrefixes.Texts texts = null;
+            for (Target target : targets) {
+                if (target.prefixCacheMinTokens().isEmpty() || !measuredTargets.contains(target.name())) {
+                    continue;
+                }
+                if (texts == null) {
+                    texts = CachePrefixes.texts(template, loader.renderer(), samples);
+                }
+                ids.put(target.name(), CachePrefixes.leading(texts, byTarget.get(target.name())));
+            }
+            return ids;
+        }
+
+        private List<Target> targetsOf(Template template) {
+            Optional<String> named = template.meta().target();
+            if (named.isEmpty()) {
+                return targets;
+            }
+            if (config.targets().stream().noneMatch(t -> t.name().equals(named.get()))) {
+                throw new TareException("names target '" + named.get() + "', which "
+                        + config.file().map(f -> "tare.yaml").orElse("the configuration") + " does not define"
+                        + (config.targets().isEmpty() ? "" : " (defined: "
+                        + config.targets().stream().map(Target::name).collect(Collectors.joining(", ")) + ")"));
+            }
+            return targets.stream().filter(t -> t.name().equals(named.get())).toList();
+        }
+
+        /** A tool file's counted tokens on one tokenizer, counted once per scan however many templates send it. */
+        private int toolTokens(Template toolFile, Tokenizer tokenizer) {
+            return toolTokens.computeIfAbsent(toolFile.path() + '\u0000' + tokenizer.name(),
+                    key -> Estimates.tokens(tokenizer, loader.renderer().renderStatic(toolFile)));
+        }
+
+        /** The tool files the template's front matter says are sent with it, each parsed once per scan. */
+        private List<Template> toolsSentWith(Template template) {
+            List<Template> tools = new ArrayList<>();
+            for (String path : template.meta().tools()) {
+                Template tool = toolFiles.computeIfAbsent(path, this::loadToolFile);
+                tools.add(tool);
+            }
+            return tools;
+        }
+
+        private Template loadToolFile(String path) {
+            if (!Files.isRegularFile(config.root().resolve(path))) {
+                throw new TareException("front matter names tool file '" + path + "', which does not exist"
+                        + " (tool paths are relative to the folder of tare.yaml)");
+            }
+            Template tool;
+            try {
+                tool = loader.load(path);
+            } catch (TareException e) {
+                throw new TareException("tool file " + path + ": " + e.getMessage(), e);
+            }
+            if (tool.kind() != TemplateKind.TOOLS) {
+                throw new TareException("front matter names '" + path + "' as a tool file, but it holds no list of tools");
+            }
+            return tool;
+        }
+    }
+}

@@ -1,0 +1,94 @@
+package dev.tare.app;
+
+import dev.tare.workspace.Workspace;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.tare.tokenize.Tokenizer;
+import dev.tare.tokenize.TokenizerRegistry;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Optional;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/** Static and estimated tokens as the design defines them, and chat framing per target. */
+class TemplateScanTest {
+    @TempDir
+    Path root;
+    private final Tokenizer o200k = new TokenizerRegistry().get("o200k_base", Path.of("."));
+
+    private void write(String path, String text) throws IOException {
+        Path file = root.resolve(path);
+        Files.createDirectories(file.getParent());
+        Files.writeString(file, text);
+    }
+
+    private ScannedTemplate scanOne(String path) {
+        ScanResult result = new TemplateScan(Workspace.open(List.of(root), Optional.empty()), new TokenizerRegistry())
+                .run(ScanOptions.defaults());
+        return result.templates().stream().filter(t -> t.path().equals(path)).findFirst().orElseThrow(
+                () -> new AssertionError(path + " not scanned; skipped: " + result.skipped()));
+    }
+
+    @Test
+    void staticIsEveryVariableEmptyAndEstimatedAddsSamplesAndSizes() throws IOException {
+        write("tare.yaml", "templates: {include: [\"prompts/**/*.md\"]}\n");
+        write("prompts/partials/sign-off.md", "Thanks, {{ agent }}.");
+        write("prompts/reply.md", "---\nvariables:\n  customer: {sample: \"Ada Lovelace\"}\n  history: {tokens: 250}\n---\n"
+                + "Dear {{ customer }}, about {{ history }} and {{ history }}: {{ unsized }} {{> sign-off }}");
+        ScannedTemplate template = scanOne("prompts/reply.md");
+        String emptied = "Dear , about  and :  Thanks, .";
+        assertEquals(o200k.count(emptied), template.staticTokens());
+        String withSamples = "Dear Ada Lovelace, about  and :  Thanks, .";
+        assertEquals(o200k.count(withSamples) + 2 * 250, template.estimatedTokens(), "a declared size counts per occurrence");
+        assertEquals(List.of("customer", "history", "unsized", "agent"), template.variables());
+        assertEquals(List.of("unsized", "agent"), template.unsizedVariables());
+        assertEquals(List.of("prompts/partials/sign-off.md"), template.includes());
+    }
+
+    @Test
+    void chatFilesCountEachMessageAndAddFramingOnChatTargets() throws IOException {
+        write("tare.yaml", "templates: {include: [\"**/*.chat.yaml\"]}\n"
+                + "targets:\n  - {name: t, tokenizer: o200k_base, message_overhead_tokens: 4, reply_overhead_tokens: 3}\n");
+        write("a.chat.yaml", "messages:\n  - {role: system, content: \"You are brief.\"}\n  - {role: user, content: \"Hi {{ q }}\"}\n");
+        ScannedTemplate template = scanOne("a.chat.yaml");
+        int text = o200k.count("You are brief.") + o200k.count("Hi ");
+        assertEquals(text, template.staticTokens(), "messages are counted one by one and summed");
+        assertEquals(2 * 4 + 3, template.targets().get("t").framingTokens());
+        assertEquals(text + 11, template.targets().get("t").inputTokens());
+    }
+
+    @Test
+    void withoutConfigurationTheGitWorkTreeIsTheRoot() throws IOException {
+        Files.createDirectories(root.resolve(".git"));
+        write("prompts/a/x.md", "x");
+        write("prompts/b/y.md", "y");
+        Workspace workspace = Workspace.open(List.of(root.resolve("prompts/b")), Optional.empty());
+        assertEquals(root.toAbsolutePath().normalize(), workspace.root());
+        ScanResult result = new TemplateScan(workspace, new TokenizerRegistry()).run(ScanOptions.defaults());
+        assertEquals(List.of("prompts/b/y.md"), result.templates().stream().map(ScannedTemplate::path).toList());
+    }
+
+    @Test
+    void aTemplateNamingAnUnknownTargetIsSkippedNotFatal() throws IOException {
+        write("prompts/a.md", "---\ntarget: elsewhere\n---\nx");
+        write("prompts/b.md", "fine");
+        ScanResult result = new TemplateScan(Workspace.open(List.of(root), Optional.empty()), new TokenizerRegistry())
+                .run(ScanOptions.defaults());
+        assertEquals(List.of("prompts/b.md"), result.templates().stream().map(ScannedTemplate::path).toList());
+        assertTrue(result.skipped().get(0).reason().contains("names target 'elsewhere'"), result.skipped().toString());
+    }
+
+    @Test
+    void pathsInsideTheRootNarrowTheScan() throws IOException {
+        write("tare.yaml", "templates: {include: [\"prompts/**/*.md\"]}\n");
+        write("prompts/a/x.md", "x");
+        write("prompts/b/y.md", "y");
+        ScanResult result = new TemplateScan(Workspace.open(List.of(root.resolve("prompts/b")), Optional.empty()),
+                new TokenizerRegistry()).run(ScanOptions.defaults());
+        assertEquals(List.of("prompts/b/y.md"), result.templates().stream().map(ScannedTemplate::path).toList());
+    }
+}
