@@ -137,13 +137,13 @@ public final class Check {
         Map<String, Suppressions> silenced = new HashMap<>();
         // The templates are linted on every core, each let go once linted; what each gave is taken in
         // path order, so the findings come in the order a single thread would give them.
-        List<Linted> linted = selection.paths().parallelStream()
+        List<FileVerdict> linted = selection.paths().parallelStream()
                 // What the cache gives was kept at the configured severities, which its key holds.
-                .map(path -> cache.find(path).map(kept -> new Linted(path, Optional.of(kept), Optional.empty(), true))
+                .map(path -> cache.find(path).map(kept -> new FileVerdict(path, Optional.of(kept), Optional.empty(), true))
                         .orElseGet(() -> lint(path, reader, loader, rules, each, across ? words : null, findings, cache)))
                 .toList();
         boolean everyWordGathered = true;
-        for (Linted one : linted) {
+        for (FileVerdict one : linted) {
             one.skipped().ifPresent(skipped::add);
             one.checked().ifPresent(checked -> {
                 checked.findings().forEach(findings::addConfigured);
@@ -189,10 +189,10 @@ public final class Check {
      * What became of one file: checked (now, or in an earlier run whose result the cache gave back),
      * or skipped with the reason.
      */
-    private record Linted(String path, Optional<CheckedFile> checked, Optional<SkippedFile> skipped,
+    private record FileVerdict(String path, Optional<CheckedFile> checked, Optional<SkippedFile> skipped,
                           boolean remembered) {
-        static Linted of(String path, CheckedFile checked) {
-            return new Linted(path, Optional.of(checked), Optional.empty(), false);
+        static FileVerdict of(String path, CheckedFile checked) {
+            return new FileVerdict(path, Optional.of(checked), Optional.empty(), false);
         }
     }
 
@@ -203,7 +203,7 @@ public final class Check {
      * depends on: its partials and tool files. A template whose includes do not resolve is not
      * remembered, since which files would change that is not known.
      */
-    private static Linted lint(String path, Function<String, SourceText> reader, TemplateLoader loader, List<Rule> rules,
+    private static FileVerdict lint(String path, Function<String, SourceText> reader, TemplateLoader loader, List<Rule> rules,
                                LintContext context, RepositoryWords words, Findings configured,
                                TemplateCache<CheckedFile> cache) {
         SourceText text = null;
@@ -222,9 +222,9 @@ public final class Check {
                 }
                 CheckedFile checked = new CheckedFile(findings, Optional.empty(), Optional.empty());
                 cache.remember(path, text.text(), List.of(), checked);
-                return Linted.of(path, checked);
+                return FileVerdict.of(path, checked);
             }
-            return new Linted(path, Optional.empty(), Optional.of(new SkippedFile(path, e.getMessage())), false);
+            return new FileVerdict(path, Optional.empty(), Optional.of(new SkippedFile(path, e.getMessage())), false);
         }
         List<Finding> findings = new ArrayList<>();
         Suppressions suppressions;
@@ -258,7 +258,7 @@ public final class Check {
                 Optional.of(template.source().hashCode()));
         String read = text.text();
         dependencies.ifPresent(paths -> cache.remember(path, read, paths, checked));
-        return Linted.of(path, checked);
+        return FileVerdict.of(path, checked);
     }
 
     /**

@@ -102,9 +102,9 @@ public final class Fix {
         Map<Path, String> seen = new HashMap<>();
         int templates = 0;
         // Files are planned on every core; what each gave is taken in path order, as one thread would.
-        List<Planned> planned = selection.paths().parallelStream().map(path -> plan(path, reader, loader, planner))
+        List<FileAttempt> planned = selection.paths().parallelStream().map(path -> plan(path, reader, loader, planner))
                 .toList();
-        for (Planned one : planned) {
+        for (FileAttempt one : planned) {
             String path = one.path();
             if (one.unreadable().isPresent()) {
                 skipped.add(new SkippedFile(path, one.unreadable().get()));
@@ -215,7 +215,7 @@ public final class Fix {
      * What reading and planning one file gave: why it could not be read, or the file it is (links
      * followed) and what it was, then why it does not parse, or its plan.
      */
-    private record Planned(String path, Optional<String> unreadable, Path identity, SourceText original,
+    private record FileAttempt(String path, Optional<String> unreadable, Path identity, SourceText original,
                            Optional<String> unparsable, FilePlanner.Plan plan) {
     }
 
@@ -223,22 +223,22 @@ public final class Fix {
      * Reads, parses and plans one file. A file that is another's under a second name is planned too
      * and then set aside in path order, so the outcome is the one a single thread gives.
      */
-    private static Planned plan(String path, Function<String, SourceText> reader, TemplateLoader loader,
+    private static FileAttempt plan(String path, Function<String, SourceText> reader, TemplateLoader loader,
                                 FilePlanner planner) {
         SourceText original;
         try {
             original = reader.apply(path);
         } catch (TareException e) {
-            return new Planned(path, Optional.of(e.getMessage()), null, null, Optional.empty(), null);
+            return new FileAttempt(path, Optional.of(e.getMessage()), null, null, Optional.empty(), null);
         }
         Path identity = identity(original.file());
         Template template;
         try {
             template = loader.parse(original);
         } catch (TareException e) {
-            return new Planned(path, Optional.empty(), identity, null, Optional.of(e.getMessage()), null);
+            return new FileAttempt(path, Optional.empty(), identity, null, Optional.of(e.getMessage()), null);
         }
-        return new Planned(path, Optional.empty(), identity, original, Optional.empty(),
+        return new FileAttempt(path, Optional.empty(), identity, original, Optional.empty(),
                 planner.plan(original, template));
     }
 

@@ -1,8 +1,8 @@
 package dev.tare.app;
 
 import dev.tare.lint.RewriteClass;
-import dev.tare.rewrite.FixOptions;
 import dev.tare.rewrite.FileFix;
+import dev.tare.rewrite.FixOptions;
 import dev.tare.rewrite.NotApplied;
 import dev.tare.rewrite.RuleSaving;
 import dev.tare.rewrite.TokenChange;

@@ -2,8 +2,8 @@ package dev.tare.app;
 
 import dev.tare.TareException;
 import dev.tare.lint.LintContext;
-import dev.tare.lint.MessageText;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.MessageView;
+import dev.tare.lint.TemplateView;
 import dev.tare.template.Message;
 import dev.tare.template.Renderer;
 import dev.tare.template.Rendering;
@@ -32,7 +32,7 @@ final class LineCounter {
     }
 
     TemplateLines count(Template template) {
-        TemplateText text = context.text(template);
+        TemplateView text = context.text(template);
         String source = template.source();
         int lineCount = text.lineOfSource(source.length());
         if (lineCount > 1 && text.lineStart(lineCount) == source.length()) {
@@ -52,7 +52,7 @@ final class LineCounter {
             }
         } else {
             int base = template.isChat() ? 0 : template.bodyStart();
-            for (MessageText message : text.messages()) {
+            for (MessageView message : text.messages()) {
                 for (Segment segment : message.message().segments()) {
                     int from = segment.span().start() - base;
                     int to = segment.span().end() - base;
@@ -80,7 +80,7 @@ final class LineCounter {
     }
 
     /** Counts a literal's text line by line, or on its first line when escapes make it differ from the source. */
-    private void place(TemplateText text, MessageText message, Segment.Text literal, int from, int to, int[] tokens) {
+    private void place(TemplateView text, MessageView message, Segment.Text literal, int from, int to, int[] tokens) {
         String rendered = literal.text();
         if (rendered.length() != to - from) {
             tokens[text.line(message, from)] += tokenizer.count(rendered);
@@ -110,7 +110,7 @@ final class LineCounter {
         }
     }
 
-    private static String lineText(TemplateText text, String source, int line) {
+    private static String lineText(TemplateView text, String source, int line) {
         int start = text.lineStart(line);
         int end = text.lineStart(line + 1);
         String raw = source.substring(start, Math.max(start, end));

@@ -21,7 +21,7 @@ import java.util.Map;
 record Measurement(String path, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
                    List<String> variables, List<String> unsizedVariables, List<String> includes,
                    Map<String, CallSize> callSizes, Map<String, Integer> estimatedByTarget,
-                   Map<String, CachePrefixes.Leading> leadingIds) {
+                   Map<String, CachePrefixes.LeadingIds> leadingIds) {
 
     /** The template as the scan reports it, with footprints estimated on {@code targets} (by name). */
     ScannedTemplate template(Map<String, Target> targets) {

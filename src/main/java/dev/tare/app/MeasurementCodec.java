@@ -35,8 +35,8 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
             out.writeInt(r.estimatedByTarget().getOrDefault(size.getKey(), 0));
         }
         out.writeInt(r.leadingIds().size());
-        for (Map.Entry<String, CachePrefixes.Leading> leading : r.leadingIds().entrySet()) {
-            CachePrefixes.Leading ids = leading.getValue();
+        for (Map.Entry<String, CachePrefixes.LeadingIds> leading : r.leadingIds().entrySet()) {
+            CachePrefixes.LeadingIds ids = leading.getValue();
             out.writeUTF(leading.getKey());
             writeInts(out, ids.now());
             boolean same = Arrays.equals(ids.now(), ids.reordered());
@@ -64,12 +64,12 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
             sizes.put(name, new CallSize(in.readInt(), in.readInt(), in.readInt(), in.readInt()));
             byTarget.put(name, in.readInt());
         }
-        Map<String, CachePrefixes.Leading> leading = new LinkedHashMap<>();
+        Map<String, CachePrefixes.LeadingIds> leading = new LinkedHashMap<>();
         int leadingCount = in.readInt();
         for (int t = 0; t < leadingCount; t++) {
             String name = in.readUTF();
             int[] now = readInts(in);
-            leading.put(name, new CachePrefixes.Leading(now, in.readBoolean() ? now : readInts(in)));
+            leading.put(name, new CachePrefixes.LeadingIds(now, in.readBoolean() ? now : readInts(in)));
         }
         return new Measurement(path, kind, characters, staticTokens, estimatedTokens, variables, unsized, includes,
                 sizes, byTarget, leading);

@@ -17,7 +17,7 @@ import java.util.concurrent.ConcurrentHashMap;
  * shared by every thread. A file that cannot be used is remembered with its reason.
  */
 final class PartialCache {
-    private record Loaded(Optional<Template> template, TareException failure) {
+    private record LoadAttempt(Optional<Template> template, TareException failure) {
     }
 
     private final Path root;
@@ -25,7 +25,7 @@ final class PartialCache {
     private final TemplatesConfig templates;
     private final SafeReader reader;
     private final TemplateParser parser;
-    private final Map<String, Loaded> cache = new ConcurrentHashMap<>();
+    private final Map<String, LoadAttempt> cache = new ConcurrentHashMap<>();
 
     PartialCache(Path root, TemplatesConfig templates, SafeReader reader, TemplateParser parser) {
         this.root = root;
@@ -41,27 +41,27 @@ final class PartialCache {
 
     /** The template at {@code path}, empty when no such file exists. */
     Optional<Template> load(String path) {
-        Loaded loaded = cache.computeIfAbsent(path, this::read);
+        LoadAttempt loaded = cache.computeIfAbsent(path, this::read);
         if (loaded.failure() != null) {
             throw loaded.failure();
         }
         return loaded.template();
     }
 
-    private Loaded read(String path) {
+    private LoadAttempt read(String path) {
         Path file = root.resolve(path).normalize();
         if (!Files.isRegularFile(file)) {
-            return new Loaded(Optional.empty(), null);
+            return new LoadAttempt(Optional.empty(), null);
         }
         try {
             if (!file.toRealPath().startsWith(realRoot)) {
-                return new Loaded(Optional.empty(), new TareException(path + " is a link to a place outside the scanned root"));
+                return new LoadAttempt(Optional.empty(), new TareException(path + " is a link to a place outside the scanned root"));
             }
-            return new Loaded(Optional.of(parser.parse(reader.read(path, file), templates.isPartial(path))), null);
+            return new LoadAttempt(Optional.of(parser.parse(reader.read(path, file), templates.isPartial(path))), null);
         } catch (TareException e) {
-            return new Loaded(Optional.empty(), new TareException(path + ": " + e.getMessage(), e));
+            return new LoadAttempt(Optional.empty(), new TareException(path + ": " + e.getMessage(), e));
         } catch (IOException e) {
-            return new Loaded(Optional.empty(), new TareException(path + ": cannot be read (" + e.getMessage() + ")", e));
+            return new LoadAttempt(Optional.empty(), new TareException(path + ": cannot be read (" + e.getMessage() + ")", e));
         }
     }
 }

@@ -133,18 +133,18 @@ public final class TemplateScan {
 
     /** Re-estimates the footprints on {@code target} with the prefix each template shares with others. */
     private static void applySharedPrefixes(Target target, List<ScannedTemplate> templates, List<Outcome> outcomes) {
-        Map<String, CachePrefixes.Leading> byPath = new LinkedHashMap<>();
+        Map<String, CachePrefixes.LeadingIds> byPath = new LinkedHashMap<>();
         for (Outcome outcome : outcomes) {
-            CachePrefixes.Leading ids = outcome.leadingIds().get(target.name());
+            CachePrefixes.LeadingIds ids = outcome.leadingIds().get(target.name());
             if (ids != null) {
                 byPath.put(outcome.template().orElseThrow().path(), ids);
             }
         }
         List<Integer> indexes = new ArrayList<>();
-        List<CachePrefixes.Leading> leading = new ArrayList<>();
+        List<CachePrefixes.LeadingIds> leading = new ArrayList<>();
         List<CallSize> calls = new ArrayList<>();
         for (int i = 0; i < templates.size(); i++) {
-            CachePrefixes.Leading ids = byPath.get(templates.get(i).path());
+            CachePrefixes.LeadingIds ids = byPath.get(templates.get(i).path());
             if (ids != null) {
                 Footprint f = templates.get(i).targets().get(target.name());
                 indexes.add(i);
@@ -167,8 +167,8 @@ public final class TemplateScan {
      * target with a prefix cache, its leading static token ids.
      */
     private record Outcome(Optional<ScannedTemplate> template, Optional<SkippedFile> skipped,
-                           Map<String, CachePrefixes.Leading> leadingIds) {
-        static Outcome of(ScannedTemplate template, Map<String, CachePrefixes.Leading> leadingIds) {
+                           Map<String, CachePrefixes.LeadingIds> leadingIds) {
+        static Outcome of(ScannedTemplate template, Map<String, CachePrefixes.LeadingIds> leadingIds) {
             return new Outcome(Optional.of(template), Optional.empty(), leadingIds);
         }
 
@@ -184,10 +184,10 @@ public final class TemplateScan {
      */
     private static final class Counts {
         /** A rendering's messages as counted on one tokenizer. */
-        private record Counted(List<String> messages, int[] counts) {
+        private record MessageCounts(List<String> messages, int[] counts) {
         }
 
-        private final Map<Tokenizer, List<Counted>> byTokenizer = new java.util.IdentityHashMap<>();
+        private final Map<Tokenizer, List<MessageCounts>> byTokenizer = new java.util.IdentityHashMap<>();
 
         /**
          * The rendering's count. A message is looked for only at its own place in the renderings
@@ -197,14 +197,14 @@ public final class TemplateScan {
          * messages.
          */
         int of(Tokenizer tokenizer, Rendering rendering) {
-            List<Counted> before = byTokenizer.computeIfAbsent(tokenizer, t -> new ArrayList<>(3));
+            List<MessageCounts> before = byTokenizer.computeIfAbsent(tokenizer, t -> new ArrayList<>(3));
             List<String> messages = rendering.messages();
             int[] counts = new int[messages.size()];
             int total = 0;
             for (int i = 0; i < counts.length; i++) {
                 counts[i] = -1;
                 String message = messages.get(i);
-                for (Counted counted : before) {
+                for (MessageCounts counted : before) {
                     if (i < counted.messages().size() && counted.messages().get(i).equals(message)) {
                         counts[i] = counted.counts()[i];
                         break;
@@ -215,7 +215,7 @@ public final class TemplateScan {
                 }
                 total += counts[i];
             }
-            before.add(new Counted(messages, counts));
+            before.add(new MessageCounts(messages, counts));
             return total;
         }
     }
@@ -291,11 +291,11 @@ public final class TemplateScan {
         }
 
         /** Leading static token ids per target with a prefix cache; none for partials and tool files, which are never sent alone. */
-        private Map<String, CachePrefixes.Leading> leadingIds(Template template, Rendering samples, Set<String> measuredTargets) {
+        private Map<String, CachePrefixes.LeadingIds> leadingIds(Template template, Rendering samples, Set<String> measuredTargets) {
             if (template.kind() == TemplateKind.PARTIAL || template.kind() == TemplateKind.TOOLS) {
                 return Map.of();
             }
-            Map<String, CachePrefixes.Leading> ids = new LinkedHashMap<>();
+            Map<String, CachePrefixes.LeadingIds> ids = new LinkedHashMap<>();
             CachePrefixes.Texts texts = null;
             for (Target target : targets) {
                 if (target.prefixCacheMinTokens().isEmpty() || !measuredTargets.contains(target.name())) {

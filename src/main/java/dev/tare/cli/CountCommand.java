@@ -62,21 +62,21 @@ final class CountCommand implements Callable<Integer> {
         // Each thread decodes every file into one char array of its own, which the counter reads
         // where it lies: no String per file, nor a copy out of one.
         ThreadLocal<char[]> buffers = ThreadLocal.withInitial(() -> new char[8192]);
-        List<Counted> counted = named().parallelStream().map(name -> {
+        List<FileCount> counted = named().parallelStream().map(name -> {
             try {
                 SafeReader.Chars text = read(reader, name, buffers.get());
                 if (text.array().length <= KEPT_BUFFER_CHARS) {
                     buffers.set(text.array());
                 }
-                return new Counted(Optional.of(new CountReport.Entry(text.path(), counter.count(text.array(), text.length()),
+                return new FileCount(Optional.of(new CountReport.Entry(text.path(), counter.count(text.array(), text.length()),
                         text.length())), Optional.empty());
             } catch (TareException e) {
-                return new Counted(Optional.empty(), Optional.of("tare: " + name + ": " + e.getMessage()));
+                return new FileCount(Optional.empty(), Optional.of("tare: " + name + ": " + e.getMessage()));
             }
         }).toList();
         List<CountReport.Entry> entries = new ArrayList<>();
         int failures = 0;
-        for (Counted one : counted) {
+        for (FileCount one : counted) {
             one.entry().ifPresent(entries::add);
             if (one.error().isPresent()) {
                 err.println(one.error().get());
@@ -120,7 +120,7 @@ final class CountCommand implements Callable<Integer> {
     }
 
     /** One named file: its count, or the one-line error that says why it has none. */
-    private record Counted(Optional<CountReport.Entry> entry, Optional<String> error) {
+    private record FileCount(Optional<CountReport.Entry> entry, Optional<String> error) {
     }
 
     private static SafeReader.Chars read(SafeReader reader, String name, char[] buffer) {

@@ -1,9 +1,9 @@
 package dev.tare.cli;
 
 import dev.tare.app.Fix;
-import dev.tare.rewrite.FixOptions;
 import dev.tare.app.FixResult;
 import dev.tare.report.FixReport;
+import dev.tare.rewrite.FixOptions;
 import dev.tare.tokenize.TokenizerRegistry;
 import dev.tare.workspace.FileSystemOps;
 import dev.tare.workspace.Workspace;

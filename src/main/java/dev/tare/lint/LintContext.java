@@ -45,7 +45,7 @@ public final class LintContext {
     private final RunTemplates templates;
     private final Set<String> ruleIds;
     private final Map<String, Integer> settings;
-    private final Map<String, TemplateText> texts = new ConcurrentHashMap<>();
+    private final Map<String, TemplateView> texts = new ConcurrentHashMap<>();
     private final Map<String, Optional<Rendering>> renderings = new ConcurrentHashMap<>();
     private final Supplier<Optional<Baseline>> baseline;
     private final Map<String, List<ToolDefinition>> tools = new ConcurrentHashMap<>();
@@ -148,8 +148,8 @@ public final class LintContext {
     }
 
     /** The template prepared for rules. */
-    public TemplateText text(Template template) {
-        return texts.computeIfAbsent(template.path(), path -> new TemplateText(template));
+    public TemplateView text(Template template) {
+        return texts.computeIfAbsent(template.path(), path -> new TemplateView(template));
     }
 
     /** The targets the template runs on: the one it names, else all configured targets. */

@@ -39,9 +39,9 @@ final class PatternRule implements Rule {
 
     @Override
     public List<Finding> check(Template template, LintContext context) {
-        TemplateText text = context.text(template);
+        TemplateView text = context.text(template);
         List<Finding> findings = new ArrayList<>();
-        for (MessageText message : text.messages()) {
+        for (MessageView message : text.messages()) {
             String content = message.content();
             if (!required.admits(content)) {
                 continue;
@@ -64,7 +64,7 @@ final class PatternRule implements Rule {
         return findings;
     }
 
-    private boolean allowed(MessageText message, int start, int end) {
+    private boolean allowed(MessageView message, int start, int end) {
         if (descriptor.rewriteClass() == RewriteClass.SAFE) {
             // A safe pack rule edits whitespace only, and only where the structure model allows that.
             return message.allowsWhitespaceEdit(start, end);

@@ -20,7 +20,7 @@ public final class Replaceable {
 
     /**
      * The edit of the file writing {@code replacement} (which may not hold a line break) in place of
-     * the stretch, or empty when the quoting there cannot hold it (see {@link MessageText#replacement}).
+     * the stretch, or empty when the quoting there cannot hold it (see {@link MessageView#replacement}).
      */
     public Optional<Edit> by(String replacement) {
         if (!ContentMap.holds(style, "", replacement) || replacement.indexOf('\n') >= 0) {

@@ -44,7 +44,7 @@ public final class Suppressions {
     }
 
     /** The directives of {@code text}. */
-    public static Suppressions of(TemplateText text) {
+    public static Suppressions of(TemplateView text) {
         Suppressions suppressions = new Suppressions();
         String source = text.template().source();
         if (!source.contains("tare-ignore")) {

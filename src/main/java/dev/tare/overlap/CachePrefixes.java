@@ -50,23 +50,23 @@ public final class CachePrefixes {
      * @param now       the ids of the text before the first per-call part
      * @param reordered the ids of the reordered text (the same array when the template has no variable)
      */
-    public record Leading(int[] now, int[] reordered) {
+    public record LeadingIds(int[] now, int[] reordered) {
         /** Leading ids of a template that takes no part in prefix sharing (a partial or a tool file). */
-        public static final Leading NONE = new Leading(new int[0], new int[0]);
+        public static final LeadingIds NONE = new LeadingIds(new int[0], new int[0]);
     }
 
     /** The leading texts of {@code template}, rendered once and shared by every target. */
     public static Texts texts(Template template, Renderer renderer, Rendering samples) {
-        List<String> now = LeadingText.of(template, renderer, samples);
-        List<String> reordered = samples.variables().isEmpty() ? now : LeadingText.reordered(template, renderer);
+        List<String> now = StaticPrefix.of(template, renderer, samples);
+        List<String> reordered = samples.variables().isEmpty() ? now : StaticPrefix.reordered(template, renderer);
         return new Texts(now, reordered);
     }
 
     /** The leading token ids of {@code texts} on {@code tokenizer}. */
-    public static Leading leading(Texts texts, Tokenizer tokenizer) {
+    public static LeadingIds leading(Texts texts, Tokenizer tokenizer) {
         int[] now = ids(tokenizer, texts.now());
         int[] reordered = texts.reordered().equals(texts.now()) ? now : ids(tokenizer, texts.reordered());
-        return new Leading(now, reordered);
+        return new LeadingIds(now, reordered);
     }
 
     private static int[] ids(Tokenizer tokenizer, List<String> messages) {
@@ -92,11 +92,11 @@ public final class CachePrefixes {
      * @param calls   each template's call on the target, in the same order, without cached tokens
      * @return one share per template, in the same order
      */
-    public static List<PrefixShare> share(Target target, List<Leading> leading, List<CallSize> calls) {
+    public static List<PrefixShare> share(Target target, List<LeadingIds> leading, List<CallSize> calls) {
         int minimum = target.prefixCacheMinTokens().orElseThrow(
                 () -> new IllegalArgumentException("target " + target.name() + " has no prefix cache"));
-        int[] now = SharedPrefixes.lengths(leading.stream().map(Leading::now).toList());
-        int[] reordered = SharedPrefixes.lengths(leading.stream().map(Leading::reordered).toList());
+        int[] now = SharedPrefixes.lengths(leading.stream().map(LeadingIds::now).toList());
+        int[] reordered = SharedPrefixes.lengths(leading.stream().map(LeadingIds::reordered).toList());
         List<PrefixShare> shares = new ArrayList<>(leading.size());
         for (int i = 0; i < leading.size(); i++) {
             CallSize call = calls.get(i);

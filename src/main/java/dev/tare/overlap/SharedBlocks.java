@@ -46,7 +46,7 @@ public final class SharedBlocks {
      * The shared blocks of {@code templates} (tool files are left out), each of at least
      * {@code minTokens} tokens on {@code tokenizer}, ordered by their first place.
      */
-    public static List<SharedBlock> find(List<Template> templates, Tokenizer tokenizer, int minTokens) {
+    public static List<RepeatedBlock> find(List<Template> templates, Tokenizer tokenizer, int minTokens) {
         RepositoryWords words = new RepositoryWords();
         Map<String, Template> byPath = new HashMap<>();
         for (Template template : templates) {
@@ -66,7 +66,7 @@ public final class SharedBlocks {
      * @throws TareException when a template given back holds other words than those gathered (its
      *                       file changed in between)
      */
-    public static List<SharedBlock> find(RepositoryWords words, Function<String, Template> templates, Tokenizer tokenizer,
+    public static List<RepeatedBlock> find(RepositoryWords words, Function<String, Template> templates, Tokenizer tokenizer,
                                          int minTokens) {
         List<String> paths = words.paths();
         if (paths.size() < 2) {
@@ -239,7 +239,7 @@ public final class SharedBlocks {
             for (Map.Entry<Integer, List<Integer>> entry : byTemplate.entrySet()) {
                 int t = entry.getKey();
                 Template template = template(t);
-                Located where = locate(t, template);
+                Positions where = locate(t, template);
                 for (int k : entry.getValue()) {
                     Candidate c = candidates.get(k);
                     int local = local(t, c.positions()[0]);
@@ -267,7 +267,7 @@ public final class SharedBlocks {
             return template;
         }
 
-        private Located locate(int t, Template template) {
+        private Positions locate(int t, Template template) {
             int size = runs.starts[t + 1] - runs.starts[t];
             int[] message = new int[size];
             int[] start = new int[size];
@@ -296,7 +296,7 @@ public final class SharedBlocks {
                 throw new TareException(template.path() + " changed while shared blocks were looked for;"
                         + " run the command again");
             }
-            return new Located(message, start, end);
+            return new Positions(message, start, end);
         }
 
         /**
@@ -304,7 +304,7 @@ public final class SharedBlocks {
          * around blocks already taken is kept only if what it adds beyond them, estimated, still
          * reaches the minimum.
          */
-        List<SharedBlock> blocks() {
+        List<RepeatedBlock> blocks() {
             // The suffix order is no longer needed once the candidates hold their positions.
             sa = null;
             List<Candidate> order = measured();
@@ -348,28 +348,28 @@ public final class SharedBlocks {
         }
 
         /** The kept candidates as blocks with their places, each template's positions located once. */
-        private List<SharedBlock> places(List<Candidate> kept) {
+        private List<RepeatedBlock> places(List<Candidate> kept) {
             Map<Integer, List<int[]>> byTemplate = new java.util.TreeMap<>();
             for (int k = 0; k < kept.size(); k++) {
                 for (int p : kept.get(k).positions()) {
                     byTemplate.computeIfAbsent(templateAt(p), t -> new ArrayList<>()).add(new int[] {p, k});
                 }
             }
-            List<List<SharedBlock.Place>> places = new ArrayList<>();
+            List<List<RepeatedBlock.Place>> places = new ArrayList<>();
             kept.forEach(c -> places.add(new ArrayList<>()));
             String[] texts = new String[kept.size()];
             for (Map.Entry<Integer, List<int[]>> entry : byTemplate.entrySet()) {
                 int t = entry.getKey();
                 Template template = template(t);
-                Located where = locate(t, template);
+                Positions where = locate(t, template);
                 String path = template.path();
                 for (int[] item : entry.getValue()) {
                     Candidate c = kept.get(item[1]);
                     int local = local(t, item[0]);
-                    List<SharedBlock.Place> list = places.get(item[1]);
-                    SharedBlock.Place place = new SharedBlock.Place(path, where.message()[local], where.start()[local],
+                    List<RepeatedBlock.Place> list = places.get(item[1]);
+                    RepeatedBlock.Place place = new RepeatedBlock.Place(path, where.message()[local], where.start()[local],
                             where.end()[local + c.length() - 1]);
-                    SharedBlock.Place last = list.isEmpty() ? null : list.get(list.size() - 1);
+                    RepeatedBlock.Place last = list.isEmpty() ? null : list.get(list.size() - 1);
                     if (last == null) {
                         // Templates come in order and positions in order within one: this is the block's first copy.
                         texts[item[1]] = template.messages().get(place.message()).content()
@@ -382,12 +382,12 @@ public final class SharedBlocks {
                     }
                 }
             }
-            List<SharedBlock> blocks = new ArrayList<>();
+            List<RepeatedBlock> blocks = new ArrayList<>();
             for (int k = 0; k < kept.size(); k++) {
                 Candidate c = kept.get(k);
-                blocks.add(new SharedBlock(places.get(k), c.length(), c.tokens(), texts[k]));
+                blocks.add(new RepeatedBlock(places.get(k), c.length(), c.tokens(), texts[k]));
             }
-            blocks.sort(Comparator.comparing((SharedBlock b) -> b.places().get(0).path())
+            blocks.sort(Comparator.comparing((RepeatedBlock b) -> b.places().get(0).path())
                     .thenComparingInt(b -> b.places().get(0).message()).thenComparingInt(b -> b.places().get(0).start())
                     .thenComparingInt(b -> -b.places().size()));
             return blocks;
@@ -395,6 +395,6 @@ public final class SharedBlocks {
     }
 
     /** Where each position of one template's words stands in its messages. */
-    private record Located(int[] message, int[] start, int[] end) {
+    private record Positions(int[] message, int[] start, int[] end) {
     }
 }

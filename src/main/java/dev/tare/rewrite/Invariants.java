@@ -1,9 +1,9 @@
 package dev.tare.rewrite;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import dev.tare.lint.MessageText;
+import dev.tare.lint.MessageView;
 import dev.tare.lint.StrictJson;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.TemplateView;
 import dev.tare.structure.Fence;
 import dev.tare.structure.Region;
 import dev.tare.structure.Role;
@@ -52,8 +52,8 @@ final class Invariants {
             problems.add("the front matter or the keys beside the messages changed");
         }
         placeholders(before, after, problems);
-        TemplateText beforeText = TemplateText.of(before);
-        TemplateText afterText = TemplateText.of(after);
+        TemplateView beforeText = TemplateView.of(before);
+        TemplateView afterText = TemplateView.of(after);
         code(beforeText, afterText, problems);
         nonWhitespace(trace, problems);
         paragraphs(trace, messageRanges(beforeText), sourceFences(beforeText), sourceFences(afterText), problems);
@@ -95,10 +95,10 @@ final class Invariants {
         return counts;
     }
 
-    private static void code(TemplateText before, TemplateText after, List<String> problems) {
+    private static void code(TemplateView before, TemplateView after, List<String> problems) {
         for (int m = 0; m < before.messages().size(); m++) {
-            MessageText was = before.messages().get(m);
-            MessageText is = after.messages().get(m);
+            MessageView was = before.messages().get(m);
+            MessageView is = after.messages().get(m);
             if (!spans(was).equals(spans(is))) {
                 problems.add("the inline code of " + where(before, was) + " changed");
             }
@@ -117,7 +117,7 @@ final class Invariants {
         }
     }
 
-    private static List<String> spans(MessageText message) {
+    private static List<String> spans(MessageView message) {
         List<String> spans = new ArrayList<>();
         for (Region region : message.structure().regions()) {
             if (region.role() == Role.INLINE_CODE) {
@@ -127,12 +127,12 @@ final class Invariants {
         return spans;
     }
 
-    private static String text(MessageText message, Fence fence) {
+    private static String text(MessageView message, Fence fence) {
         return message.content().substring(fence.start(), fence.end());
     }
 
     /** Whether two fenced json blocks have the same fence lines and bodies that read to equal JSON trees. */
-    private static boolean sameJson(MessageText was, Fence a, MessageText is, Fence b) {
+    private static boolean sameJson(MessageView was, Fence a, MessageView is, Fence b) {
         if (!a.language().equals("json") || !b.language().equals("json") || !a.closed() || !b.closed()) {
             return false;
         }
@@ -146,7 +146,7 @@ final class Invariants {
         return tree.isPresent() && tree.equals(StrictJson.tree(isContent.substring(b.bodyStart(), b.bodyEnd())));
     }
 
-    private static void wholeJson(TemplateText before, MessageText was, MessageText is, List<String> problems) {
+    private static void wholeJson(TemplateView before, MessageView was, MessageView is, List<String> problems) {
         if (!was.fences().isEmpty() || was.content().equals(is.content())) {
             return;
         }
@@ -191,9 +191,9 @@ final class Invariants {
     }
 
     /** The fenced code blocks of every message, as {@code [start, end)} offsets of the file's text. */
-    private static List<int[]> sourceFences(TemplateText text) {
+    private static List<int[]> sourceFences(TemplateView text) {
         List<int[]> ranges = new ArrayList<>();
-        for (MessageText message : text.messages()) {
+        for (MessageView message : text.messages()) {
             for (Fence fence : message.fences()) {
                 ranges.add(new int[] {message.sourceOffset(fence.start()), message.sourceOffset(fence.end())});
             }
@@ -202,9 +202,9 @@ final class Invariants {
     }
 
     /** Each message's text as {@code [start, end)} offsets of the file's text. */
-    private static List<int[]> messageRanges(TemplateText text) {
+    private static List<int[]> messageRanges(TemplateView text) {
         List<int[]> ranges = new ArrayList<>();
-        for (MessageText message : text.messages()) {
+        for (MessageView message : text.messages()) {
             ranges.add(new int[] {message.sourceOffset(0), message.sourceOffset(message.content().length())});
         }
         return ranges;
@@ -325,7 +325,7 @@ final class Invariants {
         }
     }
 
-    private static String where(TemplateText text, MessageText message) {
+    private static String where(TemplateView text, MessageView message) {
         return text.template().isChat() ? "message " + (message.index() + 1) : "the text";
     }
 

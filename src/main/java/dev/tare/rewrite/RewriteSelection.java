@@ -1,7 +1,6 @@
 package dev.tare.rewrite;
 
 import dev.tare.TareException;
-import dev.tare.rewrite.FixOptions;
 import dev.tare.lint.Edit;
 import dev.tare.lint.EditKind;
 import dev.tare.lint.Finding;

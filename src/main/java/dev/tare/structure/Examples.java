@@ -31,7 +31,7 @@ final class Examples {
     private Examples() {
     }
 
-    static void mark(String text, TextLines lines, Role[] roles, List<MarkdownBlocks.HeadingLine> headings,
+    static void mark(String text, LineSpans lines, Role[] roles, List<MarkdownBlocks.HeadingLine> headings,
                      Optional<String>[] sections) {
         for (int i = 0; i < roles.length; i++) {
             if (sections[i].isPresent() && EXAMPLE_WORDS.matcher(sections[i].get()).find()) {
@@ -64,7 +64,7 @@ final class Examples {
     }
 
     /** Paragraphs from a line labelled as an example's part to their end, and runs of speakers' turns. */
-    private static void labelled(String text, TextLines lines, Role[] roles) {
+    private static void labelled(String text, LineSpans lines, Role[] roles) {
         String[] labels = new String[roles.length];
         for (int i = 0; i < roles.length; i++) {
             if (prose(roles[i])) {

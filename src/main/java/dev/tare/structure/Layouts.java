@@ -10,7 +10,7 @@ final class Layouts {
     }
 
     /** Marks tab-separated and aligned lines among those not already code, HTML or a table. */
-    static void mark(TextLines lines, String text, Role[] roles) {
+    static void mark(LineSpans lines, String text, Role[] roles) {
         int n = lines.count();
         int[] tabs = new int[n];
         for (int i = 0; i < n; i++) {

@@ -35,10 +35,10 @@ final class MarkdownBlocks {
     final List<int[]> codeSpans = new ArrayList<>();
     final List<Fence> fences = new ArrayList<>();
     final List<HeadingLine> headings = new ArrayList<>();
-    private final TextLines lines;
+    private final LineSpans lines;
 
     /** Reads {@code text} (whose lines are {@code lines}); lines no block claims are blank or prose. */
-    MarkdownBlocks(String text, TextLines lines) {
+    MarkdownBlocks(String text, LineSpans lines) {
         this.lines = lines;
         this.roles = new Role[lines.count()];
         visitChildren(PARSER.parse(text), Role.PROSE);

@@ -39,7 +39,7 @@ public final class Structure {
      * @param message     the message's index in its template
      */
     public static Structure of(String content, List<Segment> segments, int segmentBase, int message) {
-        TextLines lines = new TextLines(content);
+        LineSpans lines = new LineSpans(content);
         MarkdownBlocks first = new MarkdownBlocks(content, lines);
         boolean[] code = new boolean[lines.count()];
         for (int i = 0; i < code.length; i++) {
@@ -112,7 +112,7 @@ public final class Structure {
         java.util.Arrays.fill(at, Math.max(0, start), Math.min(at.length, end), role);
     }
 
-    private static List<Region> regions(String content, TextLines lines, Role[] at, int[] branches,
+    private static List<Region> regions(String content, LineSpans lines, Role[] at, int[] branches,
                                         Optional<String>[] sections, int message) {
         List<Region> out = new ArrayList<>();
         int start = 0;

@@ -26,7 +26,7 @@ final class TaggedSections {
      * themselves marked in {@code tagLines}. Only pairs that match are sections; a stray tag is left
      * to Markdown.
      */
-    static Optional<String>[] of(String text, TextLines lines, boolean[] code, boolean[] tagLines) {
+    static Optional<String>[] of(String text, LineSpans lines, boolean[] code, boolean[] tagLines) {
         @SuppressWarnings("unchecked")
         Optional<String>[] sections = new Optional[lines.count()];
         java.util.Arrays.fill(sections, Optional.empty());

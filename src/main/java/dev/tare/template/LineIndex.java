@@ -1,6 +1,5 @@
 package dev.tare.template;
 
-import dev.tare.template.Locator;
 import java.util.Arrays;
 
 /**

@@ -1,7 +1,5 @@
 package dev.tare.app;
 
-import dev.tare.app.Check;
-import dev.tare.app.CheckOptions;
 import dev.tare.lint.CrossTemplateRule;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
@@ -10,7 +8,6 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.tare.TareException;
-import dev.tare.app.TemplateLoader;
 import dev.tare.source.SourceText;
 import dev.tare.template.Template;
 import dev.tare.tokenize.TokenizerRegistry;

@@ -1,8 +1,5 @@
 package dev.tare.app;
 
-import dev.tare.app.Check;
-import dev.tare.app.CheckOptions;
-import dev.tare.app.CheckResult;
 import dev.tare.lint.Baseline;
 import dev.tare.lint.Finding;
 import dev.tare.lint.Severity;
@@ -11,9 +8,6 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import dev.tare.app.BaselineFile;
-import dev.tare.app.ScanOptions;
-import dev.tare.app.TemplateScan;
 
 import dev.tare.tokenize.TokenizerRegistry;
 import dev.tare.workspace.Workspace;

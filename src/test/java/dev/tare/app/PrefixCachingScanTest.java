@@ -1,9 +1,5 @@
 package dev.tare.app;
 
-import dev.tare.app.ScanOptions;
-import dev.tare.app.ScanResult;
-import dev.tare.app.ScannedTemplate;
-import dev.tare.app.TemplateScan;
 import dev.tare.workspace.Workspace;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;

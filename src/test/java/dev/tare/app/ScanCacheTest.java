@@ -1,8 +1,5 @@
 package dev.tare.app;
 
-import dev.tare.app.ScanOptions;
-import dev.tare.app.ScanResult;
-import dev.tare.app.TemplateScan;
 import dev.tare.cache.CacheFolder;
 import dev.tare.workspace.Workspace;
 import static org.junit.jupiter.api.Assertions.assertEquals;

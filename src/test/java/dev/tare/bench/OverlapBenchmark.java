@@ -1,7 +1,7 @@
 package dev.tare.bench;
 
 import dev.tare.app.TemplateLoader;
-import dev.tare.overlap.SharedBlock;
+import dev.tare.overlap.RepeatedBlock;
 import dev.tare.overlap.SharedBlocks;
 import dev.tare.template.Template;
 import dev.tare.tokenize.Tokenizer;
@@ -78,7 +78,7 @@ public class OverlapBenchmark {
             parsed.add(loader.load(path));
         }
         tokenizer = new TokenizerRegistry().defaultTokenizer();
-        List<SharedBlock> blocks = SharedBlocks.find(parsed, tokenizer, MIN_TOKENS);
+        List<RepeatedBlock> blocks = SharedBlocks.find(parsed, tokenizer, MIN_TOKENS);
         if (parsed.size() != templates || blocks.isEmpty()) {
             throw new IllegalStateException("the benchmark repository has " + parsed.size() + " templates and "
                     + blocks.size() + " shared blocks");
@@ -97,7 +97,7 @@ public class OverlapBenchmark {
     }
 
     @Benchmark
-    public List<SharedBlock> sharedBlocks() {
+    public List<RepeatedBlock> sharedBlocks() {
         return SharedBlocks.find(parsed, tokenizer, MIN_TOKENS);
     }
 }

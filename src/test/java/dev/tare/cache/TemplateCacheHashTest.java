@@ -1,6 +1,5 @@
 package dev.tare.cache;
 
-import dev.tare.cache.TemplateCache;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNotEquals;
 

@@ -46,9 +46,9 @@ class SharedBlocksTest {
                 "a.md", "Start of the first prompt.\n\n" + X + "\n\nFirst prompt ends here.\n",
                 "b.md", "Quite another opening line.\n\n" + X + "\n",
                 "c.md", "Nothing in common at all with the others, only this line.\n");
-        List<SharedBlock> blocks = find(files);
+        List<RepeatedBlock> blocks = find(files);
         assertEquals(1, blocks.size());
-        SharedBlock block = blocks.get(0);
+        RepeatedBlock block = blocks.get(0);
         assertEquals(X, block.text());
         assertEquals(List.of("a.md", "b.md"), block.paths());
         assertEquals(List.of(X, X), copies(block, files));
@@ -62,7 +62,7 @@ class SharedBlocksTest {
         Map<String, String> files = files(
                 "a.md", "Arrivals desk.\n\n" + X + "\n\nSigned, the harbour master.\n",
                 "b.md", "Departures office.\n\n" + reflowed + "\n\nEnd of notice.\n");
-        List<SharedBlock> blocks = find(files);
+        List<RepeatedBlock> blocks = find(files);
         assertEquals(1, blocks.size());
         assertEquals(List.of(X, reflowed), copies(blocks.get(0), files));
     }
@@ -75,7 +75,7 @@ class SharedBlocksTest {
                 "a.md", "Arrivals desk.\n\n" + X + " " + Y + " " + Z + "\n\nPrompt a is over.\n",
                 "b.md", "Departures office.\n\n" + X + "\n" + Y + "\n" + Z + "\n",
                 "c.md", "Weather watch.\n\n" + Y + "\n\nPrompt c is over.\n");
-        List<SharedBlock> blocks = find(files);
+        List<RepeatedBlock> blocks = find(files);
         assertEquals(2, blocks.size(), blocks.toString());
         assertEquals(List.of("a.md", "b.md"), blocks.get(0).paths());
         assertEquals(X + " " + Y + " " + Z, blocks.get(0).text());
@@ -91,7 +91,7 @@ class SharedBlocksTest {
                 "a.md", "Prompt a begins.\n\nNote well. " + Y + " Thank you.\n",
                 "b.md", "Prompt b begins.\n\nNote well. " + Y + " Thank you.\n",
                 "c.md", "Weather watch.\n\n" + Y + "\n");
-        List<SharedBlock> blocks = find(files);
+        List<RepeatedBlock> blocks = find(files);
         assertEquals(1, blocks.size(), blocks.toString());
         assertEquals(Y, blocks.get(0).text());
         assertEquals(List.of("a.md", "b.md", "c.md"), blocks.get(0).paths());
@@ -104,7 +104,7 @@ class SharedBlocksTest {
                 "a.md", "Arrivals desk.\n\n" + X + " Note well.\n",
                 "b.md", "Departures office.\n\n" + X + " Note well.\n",
                 "c.md", "Prompt c begins.\n\nNote well.\n");
-        List<SharedBlock> blocks = find(files);
+        List<RepeatedBlock> blocks = find(files);
         assertEquals(1, blocks.size(), blocks.toString());
         assertEquals(X + " Note well.", blocks.get(0).text());
         assertEquals(List.of("a.md", "b.md"), blocks.get(0).paths());
@@ -120,14 +120,14 @@ class SharedBlocksTest {
                 "a.md", "Arrivals desk.\n\n" + X + " " + y + "\n\nPrompt a is over.\n",
                 "b.md", "Departures office.\n\n" + X + " " + y + " " + Z + "\n",
                 "c.md", "Weather watch.\n\n" + y + " " + Z + "\n\nPrompt c is over.\n");
-        List<SharedBlock> blocks = find(files);
+        List<RepeatedBlock> blocks = find(files);
         assertEquals(2, blocks.size(), blocks.toString());
         assertEquals(X + " " + y, blocks.get(0).text());
         assertEquals(List.of("a.md", "b.md"), blocks.get(0).paths());
         assertEquals(y + " " + Z, blocks.get(1).text());
         assertEquals(List.of("b.md", "c.md"), blocks.get(1).paths());
-        SharedBlock.Place inB = blocks.get(0).places().get(1);
-        SharedBlock.Place alsoInB = blocks.get(1).places().get(0);
+        RepeatedBlock.Place inB = blocks.get(0).places().get(1);
+        RepeatedBlock.Place alsoInB = blocks.get(1).places().get(0);
         assertTrue(alsoInB.start() < inB.end(), "the two copies in b overlap");
     }
 
@@ -136,8 +136,8 @@ class SharedBlocksTest {
         Map<String, String> files = files(
                 "a.md", "Arrivals desk.\n\n" + X + " {{ berth }} " + Z + "\n",
                 "b.md", "Departures office.\n\n" + X + " " + Z + "\n");
-        List<SharedBlock> blocks = find(files);
-        assertEquals(List.of(X, Z), blocks.stream().map(SharedBlock::text).toList());
+        List<RepeatedBlock> blocks = find(files);
+        assertEquals(List.of(X, Z), blocks.stream().map(RepeatedBlock::text).toList());
     }
 
     @Test
@@ -145,7 +145,7 @@ class SharedBlocksTest {
         Map<String, String> files = files(
                 "a.md", "First section.\n\n" + X + "\n\nSecond section.\n\n" + X + "\n",
                 "b.md", "Only once here.\n\n" + X + "\n");
-        List<SharedBlock> blocks = find(files);
+        List<RepeatedBlock> blocks = find(files);
         assertEquals(1, blocks.size());
         assertEquals(3, blocks.get(0).places().size());
         assertEquals(List.of("a.md", "b.md"), blocks.get(0).paths());
@@ -164,7 +164,7 @@ class SharedBlocksTest {
                 "prompts/arrival.chat.yaml", "messages:\n  - role: system\n    content: |\n      Arrivals desk.\n\n      "
                         + X + "\n  - role: user\n    content: \"{{ question }}\"\n",
                 "tools/port.tools.json", "[{\"name\": \"berth\", \"description\": \"" + X + "\"}]\n");
-        List<SharedBlock> blocks = find(files);
+        List<RepeatedBlock> blocks = find(files);
         assertEquals(1, blocks.size());
         assertEquals(List.of("prompts/arrival.chat.yaml", "prompts/partials/pilots.md"), blocks.get(0).paths());
         assertEquals(0, blocks.get(0).places().get(0).message());
@@ -182,7 +182,7 @@ class SharedBlocksTest {
         java.util.Collections.reverse(reversed);
         reversed.forEach(path -> words.add(RuleHarness.template(path, files.get(path))));
         List<String> asked = new ArrayList<>();
-        List<SharedBlock> blocks = SharedBlocks.find(words, path -> {
+        List<RepeatedBlock> blocks = SharedBlocks.find(words, path -> {
             asked.add(path);
             return RuleHarness.template(path, files.get(path));
         }, O200K, MIN);
@@ -211,16 +211,16 @@ class SharedBlocksTest {
         return files;
     }
 
-    private static List<SharedBlock> find(Map<String, String> files) {
+    private static List<RepeatedBlock> find(Map<String, String> files) {
         List<Template> templates = new ArrayList<>();
         files.forEach((path, text) -> templates.add(RuleHarness.template(path, text)));
         return SharedBlocks.find(templates, O200K, MIN);
     }
 
     /** The text of each place, cut from its template's message. */
-    private static List<String> copies(SharedBlock block, Map<String, String> files) {
+    private static List<String> copies(RepeatedBlock block, Map<String, String> files) {
         List<String> copies = new ArrayList<>();
-        for (SharedBlock.Place place : block.places()) {
+        for (RepeatedBlock.Place place : block.places()) {
             Template template = RuleHarness.template(place.path(), files.get(place.path()));
             copies.add(template.messages().get(place.message()).content().substring(place.start(), place.end()));
         }

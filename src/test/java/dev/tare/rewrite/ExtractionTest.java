@@ -1,7 +1,6 @@
 package dev.tare.rewrite;
 
 import dev.tare.app.Fix;
-import dev.tare.rewrite.FixOptions;
 import dev.tare.app.FixResult;
 import dev.tare.workspace.FileSystemOps;
 import static org.junit.jupiter.api.Assertions.assertEquals;

@@ -11,7 +11,7 @@ import dev.tare.lint.LintContext;
 import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.TemplateView;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
 import dev.tare.template.TemplateKind;
@@ -73,7 +73,7 @@ final class BaselineGrowth implements Rule {
     }
 
     static Finding finding(Template template, LintContext context, RuleDescriptor rule, String message) {
-        TemplateText text = context.text(template);
+        TemplateView text = context.text(template);
         return text.finding(rule, text.messages().get(0), 0, 0, message, Optional.empty(), List.of());
     }
 

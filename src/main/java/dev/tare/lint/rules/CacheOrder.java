@@ -8,8 +8,8 @@ import dev.tare.lint.Related;
 import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
-import dev.tare.lint.TemplateText;
-import dev.tare.overlap.LeadingText;
+import dev.tare.lint.TemplateView;
+import dev.tare.overlap.StaticPrefix;
 import dev.tare.template.Message;
 import dev.tare.template.Rendering;
 import dev.tare.template.Segment;
@@ -28,7 +28,7 @@ import java.util.Optional;
  * The rule fires when the static text before the first variable is shorter than the minimum but the
  * template's static text as a whole reaches it, and says how many tokens every call would start with
  * were the per-call text moved after the static text. The leading text is measured as the scan
- * measures cached tokens ({@link LeadingText}: includes pasted in, a variable inside an include
+ * measures cached tokens ({@link StaticPrefix}: includes pasted in, a variable inside an include
  * counts where it stands), so that the two agree on where a template's per-call part starts.
  */
 final class CacheOrder implements Rule {
@@ -63,8 +63,8 @@ final class CacheOrder implements Rule {
         int prefix;
         int total;
         try {
-            prefix = tokens(tokenizer, LeadingText.of(template, context.renderer(), samples.get()));
-            total = tokens(tokenizer, LeadingText.reordered(template, context.renderer()));
+            prefix = tokens(tokenizer, StaticPrefix.of(template, context.renderer(), samples.get()));
+            total = tokens(tokenizer, StaticPrefix.reordered(template, context.renderer()));
         } catch (TareException e) {
             return List.of();
         }
@@ -76,7 +76,7 @@ final class CacheOrder implements Rule {
             return List.of();
         }
         Segment first = perCall.get(0);
-        TemplateText text = context.text(template);
+        TemplateView text = context.text(template);
         UnsizedVariable.Location at = UnsizedVariable.locate(text, template, first);
         List<Related> related = new ArrayList<>();
         for (Segment other : perCall.subList(1, Math.min(perCall.size(), 6))) {

@@ -11,7 +11,7 @@ import dev.tare.lint.LintContext;
 import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.TemplateView;
 import dev.tare.source.YamlDocument;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
@@ -72,7 +72,7 @@ final class ContextLimit implements Rule {
         if (over.isEmpty()) {
             return List.of();
         }
-        TemplateText text = context.text(template);
+        TemplateView text = context.text(template);
         String message = String.join("; ", over) + "; the call would be cut or refused (token counts are planning"
                 + " estimates)";
         OptionalInt line = stated.isPresent() ? text.metaLine(KEY) : OptionalInt.empty();

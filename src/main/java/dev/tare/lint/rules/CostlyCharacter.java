@@ -5,11 +5,11 @@ import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
-import dev.tare.lint.MessageText;
+import dev.tare.lint.MessageView;
 import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.TemplateView;
 import dev.tare.template.Template;
 import dev.tare.tokenize.Tokenizer;
 import java.text.Normalizer;
@@ -64,12 +64,12 @@ final class CostlyCharacter implements Rule {
 
     @Override
     public List<Finding> check(Template template, LintContext context) {
-        TemplateText text = context.text(template);
+        TemplateView text = context.text(template);
         // Asked for at the first candidate, not before: a template in plain ASCII then loads no tokenizer
         // here, which in the pre-commit hook spares loading every target's tokenizer for nothing.
         List<Tokenizer> tokenizers = new ArrayList<>();
         List<Finding> findings = new ArrayList<>();
-        for (MessageText message : text.messages()) {
+        for (MessageView message : text.messages()) {
             String content = message.content();
             for (int[] range : message.prose()) {
                 int i = range[0];

@@ -4,11 +4,11 @@ import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
-import dev.tare.lint.MessageText;
+import dev.tare.lint.MessageView;
 import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.TemplateView;
 import dev.tare.structure.Role;
 import dev.tare.template.Template;
 import java.util.ArrayList;
@@ -43,9 +43,9 @@ final class InvisibleCharacter implements Rule {
 
     @Override
     public List<Finding> check(Template template, LintContext context) {
-        TemplateText text = context.text(template);
+        TemplateView text = context.text(template);
         List<Finding> findings = new ArrayList<>();
-        for (MessageText message : text.messages()) {
+        for (MessageView message : text.messages()) {
             String content = message.content();
             for (int[] range : message.prose()) {
                 for (int i = range[0]; i < range[1]; i++) {

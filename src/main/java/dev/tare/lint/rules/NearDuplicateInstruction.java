@@ -5,12 +5,12 @@ import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
-import dev.tare.lint.MessageText;
+import dev.tare.lint.MessageView;
 import dev.tare.lint.Rewrite;
 import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.TemplateView;
 import dev.tare.template.Template;
 import java.util.ArrayList;
 import java.util.HashMap;
@@ -58,10 +58,10 @@ final class NearDuplicateInstruction implements Rule {
 
     @Override
     public List<Finding> check(Template template, LintContext context) {
-        TemplateText text = context.text(template);
-        List<Located> all = new ArrayList<>();
+        TemplateView text = context.text(template);
+        List<SentenceSite> all = new ArrayList<>();
         Map<String, Integer> vocabulary = new HashMap<>();
-        for (MessageText message : text.messages()) {
+        for (MessageView message : text.messages()) {
             if (all.size() >= MAX_SENTENCES) {
                 break;
             }
@@ -69,16 +69,16 @@ final class NearDuplicateInstruction implements Rule {
             for (int index = 0; index < sentences.size() && all.size() < MAX_SENTENCES; index++) {
                 Sentences.Sentence sentence = sentences.get(index);
                 if (sentence.instruction() && sentence.words() >= Sentences.MIN_WORDS + 2) {
-                    all.add(new Located(message, sentence, sentences, index,
+                    all.add(new SentenceSite(message, sentence, sentences, index,
                             WordVector.of(words(sentence.text()), vocabulary), sentence.text().toLowerCase(Locale.ROOT)));
                 }
             }
         }
         List<Finding> findings = new ArrayList<>();
         for (int j = 1; j < all.size(); j++) {
-            Located later = all.get(j);
+            SentenceSite later = all.get(j);
             for (int i = 0; i < j; i++) {
-                Located earlier = all.get(i);
+                SentenceSite earlier = all.get(i);
                 if (earlier.message() != later.message() || earlier.sentence().branch() != later.sentence().branch()) {
                     continue;
                 }
@@ -102,9 +102,9 @@ final class NearDuplicateInstruction implements Rule {
         return findings;
     }
 
-    private Finding finding(TemplateText text, Located earlier, Located later, double similarity, LintContext context,
+    private Finding finding(TemplateView text, SentenceSite earlier, SentenceSite later, double similarity, LintContext context,
                             Template template) {
-        MessageText message = later.message();
+        MessageView message = later.message();
         Optional<Rewrite> rewrite = message.isProtected(later.sentence().start(), later.sentence().end()) ? Optional.empty()
                 : Sentences.removal(message.content(), later.sentences(), later.index(), true)
                         .filter(r -> !message.isProtected(r[0], r[1]))
@@ -170,7 +170,7 @@ final class NearDuplicateInstruction implements Rule {
     }
 
     /** A sentence with its message, its message's sentences, its index among them, its word counts and its lower-case text. */
-    record Located(MessageText message, Sentences.Sentence sentence, List<Sentences.Sentence> sentences, int index,
+    record SentenceSite(MessageView message, Sentences.Sentence sentence, List<Sentences.Sentence> sentences, int index,
                    WordVector words, String lowerCase) {
     }
 

@@ -8,7 +8,7 @@ import dev.tare.lint.LintContext;
 import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.TemplateView;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
 import dev.tare.tokenize.Tokenizer;
@@ -57,7 +57,7 @@ final class OverBudget implements Rule {
         if (estimated <= budget.getAsInt()) {
             return List.of();
         }
-        TemplateText text = context.text(template);
+        TemplateView text = context.text(template);
         String sections = Sections.costliest(template, context, tokenizer).stream().limit(3)
                 .map(s -> s.label() + " (" + lines(s) + ") " + s.tokens())
                 .collect(Collectors.joining(", "));

@@ -6,12 +6,12 @@ import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
-import dev.tare.lint.MessageText;
+import dev.tare.lint.MessageView;
 import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
 import dev.tare.lint.StrictJson;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.TemplateView;
 import dev.tare.structure.Region;
 import dev.tare.structure.Role;
 import dev.tare.template.Template;
@@ -43,9 +43,9 @@ final class PrettyJson implements Rule {
 
     @Override
     public List<Finding> check(Template template, LintContext context) {
-        TemplateText text = context.text(template);
+        TemplateView text = context.text(template);
         List<Finding> findings = new ArrayList<>();
-        for (MessageText message : text.messages()) {
+        for (MessageView message : text.messages()) {
             String content = message.content();
             String stripped = content.strip();
             if (message.fences().isEmpty() && (stripped.startsWith("{") || stripped.startsWith("["))) {
@@ -61,7 +61,7 @@ final class PrettyJson implements Rule {
      * A finding of {@code rule} offering {@code [start, end)} of the message minified (followed by
      * {@code lineBreak}), when that text is pretty-printed JSON.
      */
-    static Optional<Finding> minified(RuleDescriptor rule, TemplateText text, MessageText message, int start, int end,
+    static Optional<Finding> minified(RuleDescriptor rule, TemplateView text, MessageView message, int start, int end,
                                       String lineBreak, LintContext context, Template template) {
         String json = message.content().substring(start, end);
         if (json.strip().isEmpty() || !json.contains("\n")) {
@@ -94,7 +94,7 @@ final class PrettyJson implements Rule {
     }
 
     /** Whether every placeholder inside {@code [start, end)} appears, in order, in the minified text. */
-    private static boolean keepsPlaceholders(MessageText message, int start, int end, String minified) {
+    private static boolean keepsPlaceholders(MessageView message, int start, int end, String minified) {
         String content = message.content();
         int at = 0;
         for (Region region : message.touching(start, end, Role.PLACEHOLDER)) {

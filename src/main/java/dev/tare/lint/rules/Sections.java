@@ -3,8 +3,8 @@ package dev.tare.lint.rules;
 import dev.tare.TareException;
 import dev.tare.footprint.Estimates;
 import dev.tare.lint.LintContext;
-import dev.tare.lint.MessageText;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.MessageView;
+import dev.tare.lint.TemplateView;
 import dev.tare.structure.Region;
 import dev.tare.structure.Role;
 import dev.tare.template.Message;
@@ -40,9 +40,9 @@ final class Sections {
 
     /** The sections of the template, costliest first (ties by position). */
     static List<Section> costliest(Template template, LintContext context, Tokenizer tokenizer) {
-        TemplateText text = context.text(template);
+        TemplateView text = context.text(template);
         List<Section> sections = new ArrayList<>();
-        for (MessageText message : text.messages()) {
+        for (MessageView message : text.messages()) {
             String prefix = text.messages().size() > 1 ? "message " + (message.index() + 1) + " (" + message.message().role() + ")" : "";
             String content = message.content();
             List<int[]> cuts = new ArrayList<>();
@@ -74,7 +74,7 @@ final class Sections {
     }
 
     /** The includes of {@code message}, sorted by their offset in the content. */
-    private static List<Segment.Include> includes(Template template, MessageText message) {
+    private static List<Segment.Include> includes(Template template, MessageView message) {
         int base = base(template);
         List<Segment.Include> includes = new ArrayList<>();
         for (Segment segment : message.message().segments()) {
@@ -90,7 +90,7 @@ final class Sections {
         return template.isChat() ? 0 : template.bodyStart();
     }
 
-    private static int tokens(Template template, MessageText message, List<Segment.Include> includes, int start, int end,
+    private static int tokens(Template template, MessageView message, List<Segment.Include> includes, int start, int end,
                               LintContext context, Tokenizer tokenizer) {
         String content = message.content();
         StringBuilder plain = new StringBuilder();

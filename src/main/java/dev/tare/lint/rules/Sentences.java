@@ -1,6 +1,6 @@
 package dev.tare.lint.rules;
 
-import dev.tare.lint.MessageText;
+import dev.tare.lint.MessageView;
 import dev.tare.structure.Region;
 import dev.tare.structure.Role;
 import java.util.ArrayList;
@@ -56,7 +56,7 @@ final class Sentences {
     record Unit(int start, int end, int lineStart, int next, boolean listItem) {
     }
 
-    static List<Sentence> of(MessageText message) {
+    static List<Sentence> of(MessageView message) {
         String content = message.content();
         List<Unit> units = units(message, content);
         List<Sentence> sentences = new ArrayList<>();
@@ -66,7 +66,7 @@ final class Sentences {
         return sentences;
     }
 
-    private static List<Unit> units(MessageText message, String content) {
+    private static List<Unit> units(MessageView message, String content) {
         List<Unit> units = new ArrayList<>();
         int start = -1;
         int lineStart = -1;
@@ -106,7 +106,7 @@ final class Sentences {
         return units;
     }
 
-    private static boolean onlyPlaceholders(MessageText message, ContentLine line, String content) {
+    private static boolean onlyPlaceholders(MessageView message, ContentLine line, String content) {
         for (int i = line.start(); i < line.end(); i++) {
             char c = content.charAt(i);
             if (c != ' ' && c != '\t' && !message.touches(i, i + 1, Role.PLACEHOLDER)) {
@@ -116,7 +116,7 @@ final class Sentences {
         return true;
     }
 
-    private static void split(MessageText message, Unit unit, List<Sentence> out) {
+    private static void split(MessageView message, Unit unit, List<Sentence> out) {
         String content = message.content();
         int start = unit.start();
         for (int i = unit.start(); i < unit.end(); i++) {
@@ -131,7 +131,7 @@ final class Sentences {
         add(message, start, unit.end(), unit, out);
     }
 
-    private static void add(MessageText message, int from, int to, Unit unit, List<Sentence> out) {
+    private static void add(MessageView message, int from, int to, Unit unit, List<Sentence> out) {
         String content = message.content();
         int start = from;
         while (start < to && Character.isWhitespace(content.charAt(start))) {

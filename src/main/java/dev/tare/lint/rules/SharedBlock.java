@@ -11,14 +11,15 @@ import dev.tare.lint.Example;
 import dev.tare.lint.Extraction;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
-import dev.tare.lint.MessageText;
+import dev.tare.lint.MessageView;
 import dev.tare.lint.Related;
 import dev.tare.lint.Replaceable;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
 import dev.tare.lint.Suppressions;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.TemplateView;
 import dev.tare.overlap.PartialNames;
+import dev.tare.overlap.RepeatedBlock;
 import dev.tare.overlap.SharedBlocks;
 import dev.tare.template.PlaceholderSyntax;
 import dev.tare.template.Template;
@@ -99,7 +100,7 @@ final class SharedBlock implements CrossTemplateRule {
     @Override
     public List<Finding> checkAll(LintContext context) {
         List<Finding> findings = new ArrayList<>();
-        for (Planned planned : plan(context)) {
+        for (BlockPlan planned : plan(context)) {
             findings.add(finding(planned, context));
         }
         return findings;
@@ -108,11 +109,11 @@ final class SharedBlock implements CrossTemplateRule {
     /** One extraction per block the rule can act on, with the copies it leaves; some may replace nothing. */
     @Override
     public List<Extraction> extractions(LintContext context) {
-        return plan(context).stream().map(Planned::extraction).flatMap(Optional::stream).toList();
+        return plan(context).stream().map(BlockPlan::extraction).flatMap(Optional::stream).toList();
     }
 
     /** One block, its places that no directive silences, and what its rewrite would do. */
-    private record Planned(dev.tare.overlap.SharedBlock block, List<Place> places, Optional<Extraction> extraction,
+    private record BlockPlan(RepeatedBlock block, List<Place> places, Optional<Extraction> extraction,
                            String outcome) {
     }
 
@@ -147,13 +148,13 @@ final class SharedBlock implements CrossTemplateRule {
         }
     }
 
-    private List<Planned> plan(LintContext context) {
+    private List<BlockPlan> plan(LintContext context) {
         int minimum = context.limit("shared_block_tokens", MIN_TOKENS);
-        List<dev.tare.overlap.SharedBlock> blocks = SharedBlocks.find(context.words(), context::template,
+        List<RepeatedBlock> blocks = SharedBlocks.find(context.words(), context::template,
                 context.primaryTokenizer(), minimum);
         List<List<Place>> located = locate(blocks, context);
         Set<String> named = new HashSet<>();
-        List<Planned> planned = new ArrayList<>();
+        List<BlockPlan> planned = new ArrayList<>();
         for (int b = 0; b < blocks.size(); b++) {
             List<Place> places = located.get(b);
             if (places.stream().map(Place::path).distinct().count() < 2) {
@@ -168,11 +169,11 @@ final class SharedBlock implements CrossTemplateRule {
      * Every block's places that no directive silences, in the block's order; each template that holds
      * one is asked of the context once.
      */
-    private static List<List<Place>> locate(List<dev.tare.overlap.SharedBlock> blocks, LintContext context) {
+    private static List<List<Place>> locate(List<RepeatedBlock> blocks, LintContext context) {
         Map<String, List<int[]>> byPath = new TreeMap<>();
         List<Place[]> found = new ArrayList<>();
         for (int b = 0; b < blocks.size(); b++) {
-            List<dev.tare.overlap.SharedBlock.Place> at = blocks.get(b).places();
+            List<RepeatedBlock.Place> at = blocks.get(b).places();
             found.add(new Place[at.size()]);
             for (int k = 0; k < at.size(); k++) {
                 byPath.computeIfAbsent(at.get(k).path(), p -> new ArrayList<>()).add(new int[] {b, k});
@@ -180,11 +181,11 @@ final class SharedBlock implements CrossTemplateRule {
         }
         for (Map.Entry<String, List<int[]>> entry : byPath.entrySet()) {
             Template template = context.template(entry.getKey());
-            TemplateText text = TemplateText.of(template);
+            TemplateView text = TemplateView.of(template);
             Suppressions suppressions = Suppressions.of(text);
             for (int[] item : entry.getValue()) {
-                dev.tare.overlap.SharedBlock.Place at = blocks.get(item[0]).places().get(item[1]);
-                MessageText message = text.messages().get(at.message());
+                RepeatedBlock.Place at = blocks.get(item[0]).places().get(item[1]);
+                MessageView message = text.messages().get(at.message());
                 int line = text.line(message, at.start());
                 if (!suppressions.silences(DESCRIPTOR.id(), line)) {
                     found.get(item[0])[item[1]] = place(template, text, message, at, line, context);
@@ -198,8 +199,8 @@ final class SharedBlock implements CrossTemplateRule {
         return places;
     }
 
-    private static Place place(Template template, TemplateText text, MessageText message,
-                               dev.tare.overlap.SharedBlock.Place at, int line, LintContext context) {
+    private static Place place(Template template, TemplateView text, MessageView message,
+                               RepeatedBlock.Place at, int line, LintContext context) {
         String content = message.content();
         int start = at.start();
         int end = at.end();
@@ -218,16 +219,16 @@ final class SharedBlock implements CrossTemplateRule {
     }
 
     /** How the block would move into a partial, or why it cannot. */
-    private Planned extraction(dev.tare.overlap.SharedBlock block, List<Place> places, LintContext context,
+    private BlockPlan extraction(RepeatedBlock block, List<Place> places, LintContext context,
                                Set<String> named) {
         Place first = places.get(0);
         if (!first.syntax().hasIncludes()) {
-            return new Planned(block, places, Optional.empty(), "it is not moved into a partial, as "
+            return new BlockPlan(block, places, Optional.empty(), "it is not moved into a partial, as "
                     + first.syntax().label() + " templates have no includes");
         }
         String folder = context.config().templates().partials();
         if (folder.isEmpty()) {
-            return new Planned(block, places, Optional.empty(), "it is not moved into a partial, as no partials"
+            return new BlockPlan(block, places, Optional.empty(), "it is not moved into a partial, as no partials"
                     + " folder is configured; set templates.partials in tare.yaml");
         }
         Optional<Reuse> reuse = reusable(places);
@@ -290,7 +291,7 @@ final class SharedBlock implements CrossTemplateRule {
                     ? "no two of its copies are the same to the character; make them the same first"
                     : refused.get(0).reason();
             Extraction none = new Extraction(DESCRIPTOR.id(), partial, created, List.of(), refused, block.tokens());
-            return new Planned(block, places, Optional.of(none), "it is not moved into a partial: " + why);
+            return new BlockPlan(block, places, Optional.of(none), "it is not moved into a partial: " + why);
         }
         if (created.isPresent()) {
             named.add(partial);
@@ -299,7 +300,7 @@ final class SharedBlock implements CrossTemplateRule {
         String outcome = "'tare fix --include-review' replaces " + count(copies.size(), "copy", "copies") + " with "
                 + tag + (created.isPresent() ? ", a new partial " + partial : ", as " + partial + " holds the same text")
                 + (refused.isEmpty() ? "" : "; " + count(refused.size(), "copy stays", "copies stay") + " (see 'tare fix')");
-        return new Planned(block, places, Optional.of(extraction), outcome);
+        return new BlockPlan(block, places, Optional.of(extraction), outcome);
     }
 
     /** A partial whose whole text is the block, perhaps with one line break after it. */
@@ -368,7 +369,7 @@ final class SharedBlock implements CrossTemplateRule {
         return relative;
     }
 
-    private Finding finding(Planned planned, LintContext context) {
+    private Finding finding(BlockPlan planned, LintContext context) {
         List<Place> places = planned.places();
         Place at = places.stream().filter(p -> p.kind() != TemplateKind.PARTIAL).findFirst().orElse(places.get(0));
         long templates = places.stream().map(Place::path).distinct().count();

@@ -4,7 +4,7 @@ import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
 import dev.tare.lint.Rewrite;
 import dev.tare.lint.RuleDescriptor;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.TemplateView;
 import dev.tare.template.Template;
 import java.util.List;
 import java.util.Optional;
@@ -20,7 +20,7 @@ final class ToolFindings {
 
     static Finding at(Template template, LintContext context, RuleDescriptor rule, int line, String message,
                       Optional<Rewrite> rewrite) {
-        TemplateText text = context.text(template);
+        TemplateView text = context.text(template);
         int start = text.lineStart(line);
         int end = template.source().indexOf('\n', start);
         end = end < 0 ? template.source().length() : end;

@@ -4,11 +4,11 @@ import dev.tare.lint.EditKind;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
-import dev.tare.lint.MessageText;
+import dev.tare.lint.MessageView;
 import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.TemplateView;
 import dev.tare.template.Template;
 import java.util.ArrayList;
 import java.util.List;
@@ -31,9 +31,9 @@ final class TrailingWhitespace implements Rule {
 
     @Override
     public List<Finding> check(Template template, LintContext context) {
-        TemplateText text = context.text(template);
+        TemplateView text = context.text(template);
         List<Finding> findings = new ArrayList<>();
-        for (MessageText message : text.messages()) {
+        for (MessageView message : text.messages()) {
             String content = message.content();
             for (ContentLine line : ContentLine.of(content)) {
                 int start = line.end();

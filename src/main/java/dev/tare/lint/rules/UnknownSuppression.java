@@ -7,7 +7,7 @@ import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
 import dev.tare.lint.Suppressions;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.TemplateView;
 import dev.tare.template.Template;
 import java.util.ArrayList;
 import java.util.List;
@@ -28,7 +28,7 @@ final class UnknownSuppression implements Rule {
 
     @Override
     public List<Finding> check(Template template, LintContext context) {
-        TemplateText text = context.text(template);
+        TemplateView text = context.text(template);
         List<Finding> findings = new ArrayList<>();
         for (Suppressions.Directive directive : Suppressions.of(text).directives()) {
             for (String id : directive.ids()) {

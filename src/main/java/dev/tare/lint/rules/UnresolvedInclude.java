@@ -7,7 +7,7 @@ import dev.tare.lint.LintContext;
 import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.TemplateView;
 import dev.tare.template.Segment;
 import dev.tare.template.Template;
 import java.util.List;
@@ -42,7 +42,7 @@ final class UnresolvedInclude implements Rule {
                     .filter(include -> e.getMessage().contains("'" + include.name() + "'")
                             || e.getMessage().contains("line " + include.span().line() + ":"))
                     .findFirst().orElse(includes.get(0));
-            TemplateText text = context.text(template);
+            TemplateView text = context.text(template);
             UnsizedVariable.Location location = UnsizedVariable.locate(text, template, at);
             return List.of(text.finding(DESCRIPTOR, location.message(), location.start(), location.end(),
                     e.getMessage(), Optional.empty(), List.of()));

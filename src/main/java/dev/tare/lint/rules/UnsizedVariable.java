@@ -3,11 +3,11 @@ package dev.tare.lint.rules;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
-import dev.tare.lint.MessageText;
+import dev.tare.lint.MessageView;
 import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.TemplateView;
 import dev.tare.template.Segment;
 import dev.tare.template.Template;
 import dev.tare.template.VariableSpec;
@@ -38,7 +38,7 @@ final class UnsizedVariable implements Rule {
 
     @Override
     public List<Finding> check(Template template, LintContext context) {
-        TemplateText text = context.text(template);
+        TemplateView text = context.text(template);
         List<Finding> findings = new ArrayList<>();
         Set<String> reported = new HashSet<>();
         for (TemplateNames.Use use : TemplateNames.of(template)) {
@@ -73,21 +73,21 @@ final class UnsizedVariable implements Rule {
     }
 
     /** Where a segment stands, as a message and content offsets. */
-    record Location(MessageText message, int start, int end) {
+    record Location(MessageView message, int start, int end) {
     }
 
-    static Location locate(TemplateText text, Template template, Segment segment) {
+    static Location locate(TemplateView text, Template template, Segment segment) {
         int base = template.isChat() ? 0 : template.bodyStart();
         // The segment is normally one of the messages' own: finding it by identity spares comparing
         // every segment's whole record on the way.
-        for (MessageText message : text.messages()) {
+        for (MessageView message : text.messages()) {
             for (Segment own : message.message().segments()) {
                 if (own == segment) {
                     return new Location(message, segment.span().start() - base, segment.span().end() - base);
                 }
             }
         }
-        for (MessageText message : text.messages()) {
+        for (MessageView message : text.messages()) {
             if (message.message().segments().contains(segment)) {
                 return new Location(message, segment.span().start() - base, segment.span().end() - base);
             }

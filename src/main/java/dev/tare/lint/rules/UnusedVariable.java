@@ -6,7 +6,7 @@ import dev.tare.lint.LintContext;
 import dev.tare.lint.Rule;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
-import dev.tare.lint.TemplateText;
+import dev.tare.lint.TemplateView;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
 import java.util.ArrayList;
@@ -50,7 +50,7 @@ final class UnusedVariable implements Rule {
                 used.add(occurrence.variable().rootName());
             }
         }
-        TemplateText text = context.text(template);
+        TemplateView text = context.text(template);
         List<Finding> findings = new ArrayList<>();
         for (String name : template.meta().variables().keySet()) {
             if (used.contains(name)) {

@@ -16,7 +16,7 @@ import java.util.Set;
  * blocks that say what is prose and what must stay as written), and the way back from content
  * offsets to the file.
  */
-public final class MessageText {
+public final class MessageView {
     /** Text that is not prose at all: prose rules never read or edit it. */
     private static final Set<Role> NOT_PROSE = EnumSet.of(Role.FENCED_CODE, Role.INDENTED_CODE, Role.INLINE_CODE,
             Role.HTML, Role.PLACEHOLDER, Role.URL, Role.RAW);
@@ -26,7 +26,7 @@ public final class MessageText {
     private final Structure structure;
     private final ContentMap map;
 
-    MessageText(int index, Message message, Structure structure, ContentMap map) {
+    MessageView(int index, Message message, Structure structure, ContentMap map) {
         this.index = index;
         this.message = message;
         this.structure = structure;

@@ -12,8 +12,8 @@ import java.util.List;
  * @param tokens the tokens of its first copy on the tokenizer it was found with
  * @param text   the text of its first copy
  */
-public record SharedBlock(List<Place> places, int words, int tokens, String text) {
-    public SharedBlock {
+public record RepeatedBlock(List<Place> places, int words, int tokens, String text) {
+    public RepeatedBlock {
         places = List.copyOf(places);
     }
 

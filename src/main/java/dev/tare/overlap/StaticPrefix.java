@@ -18,11 +18,11 @@ import java.util.OptionalInt;
  * The scan's cached tokens and the {@code cache-order} rule both measure the leading text here, so
  * that they agree on where a template's per-call part starts.
  */
-public final class LeadingText {
+public final class StaticPrefix {
     /** Marks where a variable stands; template files cannot contain it, as reading refuses NUL bytes. */
     private static final String MARK = "\u0000";
 
-    private LeadingText() {
+    private StaticPrefix() {
     }
 
     /**

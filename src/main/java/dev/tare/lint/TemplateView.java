@@ -13,20 +13,20 @@ import java.util.Optional;
  * the mapping from message offsets to the file's lines and columns. Rules locate findings and build
  * rewrites through it, so every finding points into the file and every rewrite edits the file.
  */
-public final class TemplateText {
+public final class TemplateView {
     /** Characters of context on each side of an edit when its token saving is measured. */
     private static final int SAVING_WINDOW = 1000;
 
     private final Template template;
     private final SourceLines lines;
-    private final List<MessageText> messages;
+    private final List<MessageView> messages;
     private Optional<dev.tare.source.YamlDocument> meta;
 
-    TemplateText(Template template) {
+    TemplateView(Template template) {
         this.template = template;
         this.lines = new SourceLines(template.source());
         List<ContentMap> maps = template.isChat() ? ChatContentMaps.of(template, lines) : List.of();
-        List<MessageText> built = new ArrayList<>();
+        List<MessageView> built = new ArrayList<>();
         for (int i = 0; i < template.messages().size(); i++) {
             Message message = template.messages().get(i);
             int base = template.isChat() ? 0 : template.bodyStart();
@@ -38,7 +38,7 @@ public final class TemplateText {
                 case TOOLS -> ContentMap.approximate(lines.lineStart(toolLine(message)), message.content().length());
                 default -> ContentMap.shifted(template.bodyStart(), message.content().length());
             };
-            built.add(new MessageText(i, message, structure, map));
+            built.add(new MessageView(i, message, structure, map));
         }
         this.messages = List.copyOf(built);
     }
@@ -48,8 +48,8 @@ public final class TemplateText {
     }
 
     /** The template prepared as rules see it, outside any check (for verifying a rewrite's result). */
-    public static TemplateText of(Template template) {
-        return new TemplateText(template);
+    public static TemplateView of(Template template) {
+        return new TemplateView(template);
     }
 
     /**
@@ -90,12 +90,12 @@ public final class TemplateText {
     }
 
     /** Its messages, in order; one for a text template. */
-    public List<MessageText> messages() {
+    public List<MessageView> messages() {
         return messages;
     }
 
     /** The 1-based line of content offset {@code offset} in {@code message}. */
-    public int line(MessageText message, int offset) {
+    public int line(MessageView message, int offset) {
         return lines.line(message.sourceOffset(offset));
     }
 
@@ -105,7 +105,7 @@ public final class TemplateText {
     }
 
     /** A finding of {@code rule} over {@code [start, end)} of {@code message}. */
-    public Finding finding(RuleDescriptor rule, MessageText message, int start, int end, String text,
+    public Finding finding(RuleDescriptor rule, MessageView message, int start, int end, String text,
                            Optional<Rewrite> rewrite, List<Related> related) {
         int from = message.sourceOffset(start);
         int to = Math.max(from, end > start ? message.sourceOffset(end - 1) + 1 : from);
@@ -118,7 +118,7 @@ public final class TemplateText {
      * edit replacing exactly that text with {@code replacement}, its saving measured by
      * {@code tokenizer} (no rewrite when the edit cannot be written back to the file exactly).
      */
-    public Finding edit(RuleDescriptor rule, MessageText message, int start, int end, String replacement, String text,
+    public Finding edit(RuleDescriptor rule, MessageView message, int start, int end, String replacement, String text,
                         Tokenizer tokenizer) {
         return finding(rule, message, start, end, text, rewrite(message, new Edit(start, end, replacement), tokenizer),
                 List.of());
@@ -131,7 +131,7 @@ public final class TemplateText {
     }
 
     /** A related place at content offset {@code offset} of {@code message}. */
-    public Related related(MessageText message, int offset, String text) {
+    public Related related(MessageView message, int offset, String text) {
         int at = message.sourceOffset(offset);
         return new Related(template.path(), lines.line(at), lines.column(at), text);
     }
@@ -141,7 +141,7 @@ public final class TemplateText {
      * with its saving measured by {@code tokenizer} over the text around the edits; empty when the
      * edits cannot be written back to the file exactly.
      */
-    public Optional<Rewrite> rewrite(MessageText message, List<Edit> edits, Tokenizer tokenizer) {
+    public Optional<Rewrite> rewrite(MessageView message, List<Edit> edits, Tokenizer tokenizer) {
         List<Edit> sorted = new ArrayList<>(edits);
         sorted.sort(null);
         Optional<List<Edit>> moved = message.toSource(sorted);
@@ -157,8 +157,8 @@ public final class TemplateText {
         return Optional.of(new Rewrite(moved.get(), tokenizer.count(before) - tokenizer.count(after)));
     }
 
-    /** The rewrite made of the one edit {@code edit}, as {@link #rewrite(MessageText, List, Tokenizer)} makes it. */
-    public Optional<Rewrite> rewrite(MessageText message, Edit edit, Tokenizer tokenizer) {
+    /** The rewrite made of the one edit {@code edit}, as {@link #rewrite(MessageView, List, Tokenizer)} makes it. */
+    public Optional<Rewrite> rewrite(MessageView message, Edit edit, Tokenizer tokenizer) {
         return rewrite(message, List.of(edit), tokenizer);
     }
 

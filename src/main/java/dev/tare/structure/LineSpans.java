@@ -3,13 +3,13 @@ package dev.tare.structure;
 import java.util.Arrays;
 
 /** The lines of a text as offsets; a line ends at {@code \n}, {@code \r\n} or a lone {@code \r}, as Markdown reads them. */
-final class TextLines {
+final class LineSpans {
     private final String text;
     private final int[] starts;
     private final int[] ends;
     private final int count;
 
-    TextLines(String text) {
+    LineSpans(String text) {
         this.text = text;
         int[] s = new int[16];
         int[] e = new int[16];
