@@ -1,11 +1,6 @@
 package dev.tare.cli;
 
-import dev.tare.app.BaselineFile;
-import dev.tare.app.ScanOptions;
-import dev.tare.app.ScanResult;
-import dev.tare.app.TemplateScan;
-import dev.tare.lint.Baseline;
-import dev.tare.tokenize.TokenizerRegistry;
+import dev.tare.app.BaselineUpdate;
 import dev.tare.workspace.SafeFileWriter;
 import dev.tare.workspace.Workspace;
 import java.nio.file.Path;
@@ -35,18 +30,14 @@ final class BaselineCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        Workspace workspace = Workspace.open(paths, common.configFile());
-        ScanResult scan = new TemplateScan(workspace, new TokenizerRegistry()).run(ScanOptions.defaults());
-        Baseline baseline = scan.baseline();
-        Path file = workspace.root().resolve(workspace.config().baseline().file());
-        SafeFileWriter.Outcome outcome = BaselineFile.write(file, baseline);
-        String what = switch (outcome) {
+        BaselineUpdate.Report report = BaselineUpdate.run(Workspace.open(paths, common.configFile()));
+        String what = switch (report.outcome()) {
             case WRITTEN -> "Wrote";
             case UNCHANGED -> "Unchanged:";
             case CHANGED_MEANWHILE -> "Left alone (it changed while Tare ran):";
         };
-        spec.commandLine().getOut().println(what + " " + file + " (" + baseline.tokens().size() + " templates"
-                + (scan.skipped().isEmpty() ? "" : ", " + scan.skipped().size() + " files skipped: see 'tare scan'") + ").");
-        return outcome == SafeFileWriter.Outcome.CHANGED_MEANWHILE ? ExitCodes.USAGE : ExitCodes.OK;
+        spec.commandLine().getOut().println(what + " " + report.file() + " (" + report.templates() + " templates"
+                + (report.skipped() == 0 ? "" : ", " + report.skipped() + " files skipped: see 'tare scan'") + ").");
+        return report.outcome() == SafeFileWriter.Outcome.CHANGED_MEANWHILE ? ExitCodes.USAGE : ExitCodes.OK;
     }
 }

@@ -1,13 +1,11 @@
 package dev.tare.cli;
 
 import dev.tare.TareException;
-import dev.tare.app.Check;
-import dev.tare.app.CheckOptions;
 import dev.tare.app.CheckResult;
+import dev.tare.app.StagedCheck;
+import dev.tare.report.FixReport;
 import dev.tare.app.PreCommitHook;
-import dev.tare.footprint.Target;
 import dev.tare.report.CheckReport;
-import dev.tare.tokenize.TokenizerRegistry;
 import dev.tare.workspace.Workspace;
 import java.io.IOException;
 import java.nio.file.Files;
@@ -163,20 +161,10 @@ final class HookCommand implements Runnable {
 
         @Override
         public Integer call() {
-            Workspace workspace = Workspace.open(List.of(), common.configFile());
-            TokenizerRegistry tokenizers = new TokenizerRegistry();
-            // Every staged template is counted with every target's tokenizer: load them while git is read
-            // and the rules are set up.
-            List<String> needed = workspace.config().targets().stream().map(Target::tokenizer).toList();
-            tokenizers.preload(needed.isEmpty() ? List.of(TokenizerRegistry.DEFAULT) : needed, workspace.config().root());
-            if (workspace.config().hookFix()) {
-                dev.tare.app.FixResult fixed = new dev.tare.app.Fix(workspace, tokenizers,
-                        dev.tare.workspace.FileSystemOps.DEFAULT).runStaged(dev.tare.rewrite.FixOptions.defaults());
-                if (!fixed.files().isEmpty() || !fixed.skipped().isEmpty()) {
-                    spec.commandLine().getOut().print(dev.tare.report.FixReport.text(fixed, false));
-                }
-            }
-            CheckResult result = new Check(workspace, tokenizers).runStaged(CheckOptions.defaults());
+            StagedCheck.Outcome outcome = StagedCheck.run(Workspace.open(List.of(), common.configFile()));
+            outcome.fixed().filter(fixed -> !fixed.files().isEmpty() || !fixed.skipped().isEmpty())
+                    .ifPresent(fixed -> spec.commandLine().getOut().print(FixReport.text(fixed, false)));
+            CheckResult result = outcome.result();
             if (!result.findings().isEmpty()) {
                 spec.commandLine().getOut().print(CheckReport.text(result));
                 spec.commandLine().getOut().flush();

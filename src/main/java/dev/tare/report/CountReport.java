@@ -1,5 +1,6 @@
 package dev.tare.report;
 
+import dev.tare.app.FileCounts.FileTokens;
 import java.util.List;
 
 /** Renders whole-file token counts. */
@@ -7,22 +8,12 @@ public final class CountReport {
     private CountReport() {
     }
 
-    /**
-     * One counted file.
-     *
-     * @param path   the path as given (or {@code -} for standard input), with {@code /}
-     * @param tokens tokens of the file's text
-     * @param chars  characters of the file's text
-     */
-    public record Entry(String path, int tokens, int chars) {
-    }
-
     /** One line per file, then a total when there is more than one. */
-    public static String text(String tokenizer, List<Entry> entries) {
+    public static String text(String tokenizer, List<FileTokens> entries) {
         TextTable table = new TextTable(List.of("TOKENS", "CHARS", "PATH"), true, true, false);
         long total = 0;
         long chars = 0;
-        for (Entry entry : entries) {
+        for (FileTokens entry : entries) {
             table.row(List.of(TextTable.number(entry.tokens()), TextTable.number(entry.chars()), entry.path()));
             total += entry.tokens();
             chars += entry.chars();
@@ -35,12 +26,12 @@ public final class CountReport {
     }
 
     /** The JSON document of the design contract, written as it is made: it may name many thousand files. */
-    public static String json(String tokenizer, List<Entry> entries) {
+    public static String json(String tokenizer, List<FileTokens> entries) {
         return Json.stream(out -> {
             out.writeStringField("tokenizer", tokenizer);
             out.writeArrayFieldStart("files");
             long total = 0;
-            for (Entry entry : entries) {
+            for (FileTokens entry : entries) {
                 out.writeStartObject();
                 out.writeStringField("path", entry.path());
                 out.writeNumberField("tokens", entry.tokens());

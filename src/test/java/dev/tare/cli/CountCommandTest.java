@@ -53,8 +53,8 @@ class CountCommandTest {
 
         Cli.Run missing = Cli.run("count", "@" + dir.resolve("no-such-list.txt"));
         assertEquals(2, missing.exitCode());
-        assertTrue(missing.err().startsWith("tare: ") && missing.err().contains("no-such-list.txt: the list of files"
-                + " cannot be read"), missing.err());
+        assertTrue(missing.err().startsWith("tare: ") && missing.err().contains("no-such-list.txt: no such list of files;"),
+                missing.err());
     }
 
     @Test
