@@ -5,10 +5,8 @@ import java.io.InputStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayDeque;
-import java.util.ArrayList;
 import java.util.Deque;
 import java.util.Iterator;
-import java.util.List;
 import org.eclipse.jgit.ignore.IgnoreNode;
 
 /**
@@ -22,7 +20,6 @@ final class GitIgnores {
     }
 
     private final Deque<Level> levels = new ArrayDeque<>();
-    private final List<Path> consulted = new ArrayList<>();
 
     /** Loads the rules that apply above {@code root}: its ancestors up to the git top, and info/exclude. */
     static GitIgnores above(Path root) throws IOException {
@@ -31,33 +28,20 @@ final class GitIgnores {
         if (top == null) {
             return ignores;
         }
-        ignores.push(top, top.resolve(".git").resolve("info").resolve("exclude"), false);
+        ignores.push(top, top.resolve(".git").resolve("info").resolve("exclude"));
         Deque<Path> chain = new ArrayDeque<>();
         for (Path dir = root.getParent(); dir != null && dir.startsWith(top); dir = dir.getParent()) {
             chain.push(dir);
         }
         for (Path dir : chain) {
-            ignores.enterUnlisted(dir);
+            ignores.enter(dir);
         }
         return ignores;
     }
 
-    /**
-     * Starts the rules of {@code dir}'s own {@code .gitignore}, if any, until {@link #leave}: for a
-     * folder the walk lists, whose listing shows a {@code .gitignore} appearing.
-     */
+    /** Starts the rules of {@code dir}'s own {@code .gitignore}, if any, until {@link #leave}. */
     void enter(Path dir) throws IOException {
-        push(dir, dir.resolve(".gitignore"), true);
-    }
-
-    /** As {@link #enter}, for a folder the walk does not list: its {@code .gitignore} is noted even when absent. */
-    void enterUnlisted(Path dir) throws IOException {
-        push(dir, dir.resolve(".gitignore"), false);
-    }
-
-    /** The rule files read, and the files whose appearance would change the rules (see {@link FileSelection}). */
-    List<Path> consulted() {
-        return List.copyOf(consulted);
+        push(dir, dir.resolve(".gitignore"));
     }
 
     /** Ends the rules started by the matching {@link #enter}. */
@@ -87,14 +71,10 @@ final class GitIgnores {
         return false;
     }
 
-    private void push(Path dir, Path rulesFile, boolean listed) throws IOException {
+    private void push(Path dir, Path rulesFile) throws IOException {
         if (!Files.isRegularFile(rulesFile)) {
-            if (!listed) {
-                consulted.add(rulesFile);
-            }
             return;
         }
-        consulted.add(rulesFile);
         IgnoreNode node = new IgnoreNode();
         try (InputStream in = Files.newInputStream(rulesFile)) {
             node.parse(rulesFile.toString(), in);
@@ -104,7 +84,6 @@ final class GitIgnores {
 
     private Path gitTop(Path root) {
         for (Path dir = root; dir != null; dir = dir.getParent()) {
-            consulted.add(dir.resolve(".git"));
             if (Files.exists(dir.resolve(".git"))) {
                 return dir;
             }

@@ -12,9 +12,7 @@ import java.nio.file.SimpleFileVisitor;
 import java.nio.file.attribute.BasicFileAttributes;
 import java.util.ArrayList;
 import java.util.EnumSet;
-import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Map;
 import java.util.Set;
 import java.util.TreeSet;
 
@@ -56,7 +54,6 @@ public final class TemplateFinder {
         Set<String> paths = new TreeSet<>();
         List<SkippedFile> skipped = new ArrayList<>();
         List<Path> from = starts.isEmpty() ? List.of(root) : starts;
-        Map<Path, Long> listed = new LinkedHashMap<>();
         GitIgnores ignores;
         try {
             ignores = GitIgnores.above(root);
@@ -78,15 +75,13 @@ public final class TemplateFinder {
                 }
                 enterAncestors(ignores, absolute);
                 Files.walkFileTree(absolute, EnumSet.of(FileVisitOption.FOLLOW_LINKS), Integer.MAX_VALUE,
-                        new Walker(ignores, paths, skipped, listed, absolute));
+                        new Walker(ignores, paths, skipped, absolute));
             }
         } catch (IOException e) {
             throw new TareException(root + ": the folder walk failed (" + e.getMessage() + ")", e);
         }
         skipped.sort(null);
-        List<WalkedFolder> folders = new ArrayList<>();
-        listed.forEach((folder, names) -> folders.add(new WalkedFolder(folder, names)));
-        return new FileSelection(new ArrayList<>(paths), skipped, folders, ignores.consulted());
+        return new FileSelection(new ArrayList<>(paths), skipped);
     }
 
     /**
@@ -105,7 +100,7 @@ public final class TemplateFinder {
             chain.add(0, dir);
         }
         for (Path dir : chain) {
-            ignores.enterUnlisted(dir);
+            ignores.enter(dir);
         }
     }
 
@@ -147,31 +142,19 @@ public final class TemplateFinder {
         private final GitIgnores ignores;
         private final Set<String> paths;
         private final List<SkippedFile> skipped;
-        /** Per folder listed, the hash of the names seen in it so far (see {@link WalkedFolder}). */
-        private final Map<Path, Long> listed;
 
         /** Where this walk started, which the caller did not check: it may lie below a link. */
         private final Path start;
 
-        Walker(GitIgnores ignores, Set<String> paths, List<SkippedFile> skipped, Map<Path, Long> listed, Path start) {
+        Walker(GitIgnores ignores, Set<String> paths, List<SkippedFile> skipped, Path start) {
             this.start = start;
             this.ignores = ignores;
             this.paths = paths;
             this.skipped = skipped;
-            this.listed = listed;
-        }
-
-        /** Every entry of a listed folder passes here once, whatever becomes of it. */
-        private void seen(Path entry) {
-            Path folder = entry.getParent();
-            if (folder != null && listed.containsKey(folder)) {
-                listed.merge(folder, WalkedFolder.nameHash(entry.getFileName().toString()), Long::sum);
-            }
         }
 
         @Override
         public FileVisitResult preVisitDirectory(Path dir, BasicFileAttributes attrs) throws IOException {
-            seen(dir);
             String relative = relative(dir);
             if (!dir.equals(root)) {
                 if (dir.getFileName().toString().equals(".git") || dir.getFileName().toString().equals(".tare")) {
@@ -188,7 +171,6 @@ public final class TemplateFinder {
                 }
             }
             ignores.enter(dir);
-            listed.put(dir, 0L);
             return FileVisitResult.CONTINUE;
         }
 
@@ -200,7 +182,6 @@ public final class TemplateFinder {
 
         @Override
         public FileVisitResult visitFile(Path file, BasicFileAttributes attrs) throws IOException {
-            seen(file);
             String relative = relative(file);
             if (!attrs.isRegularFile() || OWN_FILES.contains(relative) || ignores.isIgnored(file, false)) {
                 return FileVisitResult.CONTINUE;
@@ -217,7 +198,6 @@ public final class TemplateFinder {
 
         @Override
         public FileVisitResult visitFileFailed(Path file, IOException failure) {
-            seen(file);
             String relative = relative(file);
             if (failure instanceof FileSystemLoopException) {
                 skipped.add(new SkippedFile(relative, "symbolic link loop; not followed"));
