@@ -6,8 +6,7 @@ package dev.tare.tokenize;
  * {@code \s} as Java's regular expressions define it with {@code UNICODE_CHARACTER_CLASS}
  * (separators, the controls from tab to carriage return, and next-line). Latin-1 is tabulated
  * once and other code points are classified on the way: tabulating the whole Basic Multilingual
- * Plane cost about 9 ms at every start, which a pre-commit hook feels, and the benchmark scan ran no
- * faster for it.
+ * Plane would cost every start, which a pre-commit hook feels, and a scan runs no faster for it.
  */
 final class CharClass {
     /** {@code \p{L}}. */

@@ -9,7 +9,7 @@ package dev.tare.tokenize;
  *
  * <p>An abstract class rather than an interface: a scan counts with two encodings in one loop, and
  * there the first JIT tier calls a class's method through a table at a fixed place, where an
- * interface's took a search through a stub on every piece (4 % of a cold scan's CPU).
+ * interface's takes a search through a stub on every piece.
  */
 abstract class Pretokenizer {
 
