@@ -9,7 +9,7 @@
 #
 # Environment: JAVA_HOME (run and build with that JDK), BENCH_RUNS (default 3), BENCH_COUNT and
 # BENCH_SEED (corpus size and seed, passed to the generator), TARE_JAVA_OPTS (extra JVM options,
-# read by the ./tare launcher).
+# read by the ./tare launcher), BENCH_TARE (the checkout measured; default this one).
 set -euo pipefail
 
 source "$(dirname "${BASH_SOURCE[0]}")/common.sh"
@@ -18,7 +18,7 @@ bench_require scan.sh
 bench_whole_number scan.sh BENCH_RUNS "$runs"
 
 cd "$bench_repo"
-./tare --version >/dev/null
+"$bench_tare/tare" --version >/dev/null
 corpus="$(bench_corpus)"
 work="$(mktemp -d "${TMPDIR:-/tmp}/tare-bench.XXXXXX")"
 trap 'rm -rf "$work"' EXIT
@@ -48,11 +48,11 @@ walls=()
 warm_walls=()
 for run in $(seq 1 "$runs"); do
   rm -rf "$corpus/.tare"
-  bench_time 0 "$work/scan" ./tare scan "$corpus" --format json
+  bench_time 0 "$work/scan" "$bench_tare/tare" scan "$corpus" --format json
   walls+=("$bench_wall")
   line "$run cold"
   mv "$work/scan" "$work/scan.cold"
-  bench_time 0 "$work/scan" ./tare scan "$corpus" --format json
+  bench_time 0 "$work/scan" "$bench_tare/tare" scan "$corpus" --format json
   cmp -s "$work/scan.cold" "$work/scan" || { echo "scan.sh: the warm scan printed other bytes than the cold one" >&2; exit 1; }
   warm_walls+=("$bench_wall")
   line "$run warm"
@@ -62,7 +62,7 @@ done
 # with no work.
 help_walls=()
 for run in $(seq 1 "$runs"); do
-  bench_time 0 "$work/help" ./tare scan --help
+  bench_time 0 "$work/help" "$bench_tare/tare" scan --help
   help_walls+=("$bench_wall")
   line "$run help" 0
 done
