@@ -57,13 +57,14 @@ public final class FilePlanner {
     /** Plans the rewrites of {@code original}, which parsed to {@code template}. */
     public Plan plan(SourceText original, Template template) {
         List<Tokenizer> counters = rules.tokenizers(template);
-        Rounds work = new Rounds(original, counters, tokens(template, counters), findings(original, original.text()));
+        Rounds work = new Rounds(original, counters, tokens(template, counters),
+                rules.findings(original, original.text()));
         Map<String, Integer> reviewLeft = selection.reviewLeft(work.findings);
         // Safe rewrites go first, to their fixpoint, and must keep what safe promises before any review
         // rewrite is added on top: a safe rewrite that fails is dropped, never written.
         Optional<String> stuck = work.run(candidate -> candidate.rewriteClass() == RewriteClass.SAFE);
         if (stuck.isEmpty() && work.rounds > 0) {
-            List<String> broken = parse(original, work.trace.current())
+            List<String> broken = rules.parse(original, work.trace.current())
                     .map(after -> SafePromise.broken(template, after))
                     .orElse(List.of("after the safe rewrites the file no longer parses"));
             if (!broken.isEmpty()) {
@@ -138,7 +139,7 @@ public final class FilePlanner {
                     }
                     applied.sort((a, b) -> a.edit().compareTo(b.edit()));
                     String text = Rewrite.apply(roundText, applied.stream().map(Trace.AuthoredEdit::edit).toList());
-                    Optional<Template> parsed = parse(original, text);
+                    Optional<Template> parsed = rules.parse(original, text);
                     if (parsed.isEmpty()) {
                         return Optional.of("after the edits of " + first.rule() + " the file no longer parses");
                     }
@@ -148,7 +149,7 @@ public final class FilePlanner {
                     current = counts;
                 }
                 trace.apply(applied);
-                findings = findings(original, trace.current());
+                findings = rules.findings(original, trace.current());
             }
         }
 
@@ -165,7 +166,7 @@ public final class FilePlanner {
     }
 
     private List<String> verify(SourceText original, Template before, Trace trace) {
-        Optional<Template> after = parse(original, trace.current());
+        Optional<Template> after = rules.parse(original, trace.current());
         if (after.isEmpty()) {
             return List.of("the rewritten file no longer parses");
         }
@@ -180,14 +181,6 @@ public final class FilePlanner {
             problems.add("the bytes to be written would not read back: " + e.getMessage());
         }
         return problems;
-    }
-
-    private List<Finding> findings(SourceText original, String text) {
-        return rules.findings(original, text);
-    }
-
-    private Optional<Template> parse(SourceText original, String text) {
-        return rules.parse(original, text);
     }
 
     /** Tokens of the prompt text the template itself holds: its messages as written, includes not expanded. */

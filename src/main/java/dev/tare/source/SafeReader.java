@@ -144,8 +144,17 @@ public final class SafeReader {
         return null;
     }
 
-    /** The text of valid UTF-8 without NUL, or an error naming the first bad byte. */
+    /**
+     * The text of valid UTF-8 without NUL, or an error naming the first bad byte. The JDK's own
+     * {@code String} decoding, much the fastest, replaces every malformed sequence with U+FFFD, so a
+     * text without U+FFFD (and without NUL) came from valid input; only a text that has one is
+     * decoded again strictly, to tell a genuine U+FFFD from a bad byte and to find where it is.
+     */
     private static String decodeUtf8(byte[] bytes, int start) {
+        String text = new String(bytes, start, bytes.length - start, StandardCharsets.UTF_8);
+        if (text.indexOf('\uFFFD') < 0 && text.indexOf('\0') < 0) {
+            return text;
+        }
         CharBuffer chars = CharBuffer.allocate(bytes.length - start);
         decodeOrRefuse(bytes, start, chars);
         return chars.flip().toString();
