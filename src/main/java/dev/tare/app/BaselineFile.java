@@ -3,6 +3,7 @@ package dev.tare.app;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.tare.TareException;
+import dev.tare.config.TareConfig;
 import dev.tare.lint.Baseline;
 import dev.tare.source.SafeReader;
 import dev.tare.source.YamlDocument;
@@ -26,6 +27,11 @@ public final class BaselineFile {
     private static final int FORMAT = 1;
 
     private BaselineFile() {
+    }
+
+    /** Where {@code config}'s baseline file is ({@code baseline.file} under the root). */
+    static Path path(TareConfig config) {
+        return config.root().resolve(config.baseline().file());
     }
 
     /** The baseline at {@code file}, read when first asked for and then kept. */

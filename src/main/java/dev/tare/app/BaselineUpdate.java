@@ -26,7 +26,7 @@ public final class BaselineUpdate {
     public static Report run(Workspace workspace) {
         ScanResult scan = new TemplateScan(workspace, new TokenizerRegistry()).run(ScanOptions.defaults());
         Baseline baseline = scan.baseline();
-        Path file = workspace.root().resolve(workspace.config().baseline().file());
+        Path file = BaselineFile.path(workspace.config());
         SafeFileWriter.Outcome outcome = BaselineFile.write(file, baseline);
         return new Report(file, baseline.tokens().size(), scan.skipped().size(), outcome);
     }

@@ -28,7 +28,6 @@ import dev.tare.workspace.SkippedFile;
 import dev.tare.workspace.StagedTemplates;
 import dev.tare.workspace.Workspace;
 import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
@@ -37,12 +36,14 @@ import java.util.Optional;
 import java.util.Set;
 import java.util.concurrent.CompletableFuture;
 import java.util.function.Function;
+import java.util.function.Predicate;
 
 /**
  * Runs the enabled rules over every template of a workspace: finds, reads and parses the files
  * through the shared {@link TemplateLoader}, turns a file that fails to parse into the findings of
  * the syntax-error rules, runs the cross-template rules once over all the templates, applies
- * configured severities and inline suppressions, and sorts the findings. Files that cannot be read at all are listed as skipped, with the reason.
+ * configured severities and inline suppressions, and sorts the findings. Files that cannot be read
+ * at all are listed as skipped, with the reason.
  */
 public final class Check {
     private final Workspace workspace;
@@ -61,7 +62,7 @@ public final class Check {
      */
     public synchronized RuleCatalog catalog() {
         if (catalog == null) {
-            catalog = dev.tare.app.RulePacks.catalog(workspace.config());
+            catalog = RulePacks.catalog(workspace.config());
         }
         return catalog;
     }
@@ -74,10 +75,7 @@ public final class Check {
      * {@link TemplateCache}).
      */
     public CheckResult run(CheckOptions options) {
-        return runOnDisk(options, options.cache() ? cacheKey() : "");
-    }
-
-    private CheckResult runOnDisk(CheckOptions options, String key) {
+        String key = options.cache() ? cacheKey() : "";
         TemplateLoader loader = new TemplateLoader(workspace);
         CompletableFuture<TemplateCache<CheckedFile>> opening = CompletableFuture.supplyAsync(() -> options.cache()
                 ? TemplateCache.open(workspace.root(), workspace.starts().isEmpty(), "check", key, new CheckedFileCodec())
@@ -119,7 +117,7 @@ public final class Check {
         for (String pack : config.rules().packs()) {
             key.contents(config.root().resolve(pack).normalize());
         }
-        return key.contents(config.root().resolve(config.baseline().file())).toString();
+        return key.contents(BaselineFile.path(config)).toString();
     }
 
     private CheckResult run(CheckOptions options, TemplateLoader loader, FileSelection selection,
@@ -267,7 +265,6 @@ public final class Check {
      */
     private static RunTemplates runTemplates(Map<String, Integer> stamps, RepositoryWords words, TemplateLoader loader,
                                              Function<String, SourceText> reader) {
-        RepositoryWords[] gathered = {words};
         Function<String, Template> again = path -> {
             Template template = loader.parse(reader.apply(path));
             Integer stamp = stamps.get(path);
@@ -276,19 +273,8 @@ public final class Check {
             }
             return template;
         };
-        return new RunTemplates(new java.util.TreeSet<>(stamps.keySet()).stream().toList(), again, () -> {
-            synchronized (gathered) {
-                RepositoryWords once = gathered[0];
-                gathered[0] = null;
-                if (once != null) {
-                    return once;
-                }
-            }
-            // A second analysis gathers the words again, a template at a time.
-            RepositoryWords fresh = new RepositoryWords();
-            new java.util.TreeSet<>(stamps.keySet()).forEach(path -> fresh.add(again.apply(path)));
-            return fresh;
-        });
+        return RunTemplates.reparsed(new java.util.TreeSet<>(stamps.keySet()).stream().toList(), again,
+                Optional.ofNullable(words));
     }
 
     /**
@@ -312,10 +298,6 @@ public final class Check {
             return new Finding(finding.path(), finding.line(), finding.column(), finding.endLine(),
                     finding.endColumn(), finding.rule(), severity, message, finding.rewriteClass(), finding.rewrite(),
                     finding.related());
-        }
-
-        void add(Finding finding) {
-            all.add(configure(finding));
         }
 
         /** Adds a finding {@link #configure} gave. */
@@ -344,9 +326,15 @@ public final class Check {
      */
     static LintContext onDisk(Workspace workspace, TokenizerRegistry tokenizers, Renderer renderer,
                               RunTemplates templates, Set<String> ruleIds) {
-        Path root = workspace.config().root();
-        return new LintContext(workspace.config(), tokenizers, renderer, templates, ruleIds, Map.of(),
-                path -> Files.exists(root.resolve(path)),
-                BaselineFile.readOnce(root.resolve(workspace.config().baseline().file())));
+        return onDisk(workspace, tokenizers, renderer, templates, ruleIds, path -> false);
+    }
+
+    /** As {@link #onDisk}, where a path also names a file when {@code unwritten} holds it (a fix not yet written). */
+    static LintContext onDisk(Workspace workspace, TokenizerRegistry tokenizers, Renderer renderer,
+                              RunTemplates templates, Set<String> ruleIds, Predicate<String> unwritten) {
+        TareConfig config = workspace.config();
+        return new LintContext(config, tokenizers, renderer, templates, ruleIds, Map.of(),
+                unwritten.or(path -> Files.exists(config.root().resolve(path))),
+                BaselineFile.readOnce(BaselineFile.path(config)));
     }
 }

@@ -6,7 +6,6 @@ import dev.tare.rewrite.FilePlanner;
 import dev.tare.rewrite.FileRules;
 import dev.tare.rewrite.RuleSaving;
 import dev.tare.rewrite.TokenChange;
-import dev.tare.source.FileBytes;
 import dev.tare.source.SourceText;
 import dev.tare.template.Template;
 import dev.tare.tokenize.Tokenizer;
@@ -101,7 +100,6 @@ final class Extracted {
     }
 
     private Template parse(String path, String text, boolean bom) {
-        return loader.parse(new SourceText(path, loader.workspace().root().resolve(path), text, bom,
-                FileBytes.encode(text, bom).length));
+        return loader.parse(SourceText.unwritten(path, loader.workspace().root().resolve(path), text, bom));
     }
 }

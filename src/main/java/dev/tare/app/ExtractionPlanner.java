@@ -1,7 +1,6 @@
 package dev.tare.app;
 
 import dev.tare.TareException;
-import dev.tare.config.TareConfig;
 import dev.tare.lint.CrossTemplateRule;
 import dev.tare.lint.Edit;
 import dev.tare.lint.Extraction;
@@ -13,8 +12,8 @@ import dev.tare.lint.RunTemplates;
 import dev.tare.overlap.RepositoryWords;
 import dev.tare.rewrite.NotApplied;
 import dev.tare.rewrite.RewriteSelection;
-import dev.tare.source.FileBytes;
 import dev.tare.source.SourceText;
+import dev.tare.template.Message;
 import dev.tare.template.Renderer;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
@@ -289,7 +288,7 @@ final class ExtractionPlanner {
     }
 
     private static List<String> roles(Template template) {
-        return template.messages().stream().map(dev.tare.template.Message::role).toList();
+        return template.messages().stream().map(Message::role).toList();
     }
 
     private static Optional<String> same(String path, String how, Rendering was, Rendering is) {
@@ -338,8 +337,8 @@ final class ExtractionPlanner {
             }
             SourceText original = originals.get(path);
             boolean bom = original != null && original.hadBom();
-            return Optional.of(loader.parse(new SourceText(path, loader.workspace().root().resolve(path), text, bom,
-                    FileBytes.encode(text, bom).length)));
+            return Optional.of(loader.parse(SourceText.unwritten(path, loader.workspace().root().resolve(path), text,
+                    bom)));
         }
 
         /** A context over every text that parses; their words are gathered here, a template at a time. */
@@ -356,21 +355,8 @@ final class ExtractionPlanner {
                     // A file that no longer parses takes no part; its own fix was dropped already.
                 }
             }
-            RepositoryWords[] gathered = {words};
-            RunTemplates run = new RunTemplates(parsed, path -> template(path).orElseThrow(), () -> {
-                RepositoryWords once = gathered[0];
-                gathered[0] = null;
-                if (once != null) {
-                    return once;
-                }
-                RepositoryWords again = new RepositoryWords();
-                parsed.forEach(path -> again.add(template(path).orElseThrow()));
-                return again;
-            });
-            TareConfig config = loader.workspace().config();
-            return new LintContext(config, tokenizers, renderer, run, catalog.ids(), Map.of(),
-                    path -> texts.containsKey(path) || Files.exists(loader.workspace().root().resolve(path)),
-                    BaselineFile.readOnce(config.root().resolve(config.baseline().file())));
+            RunTemplates run = RunTemplates.reparsed(parsed, path -> template(path).orElseThrow(), Optional.of(words));
+            return Check.onDisk(loader.workspace(), tokenizers, renderer, run, catalog.ids(), texts::containsKey);
         }
     }
 }

@@ -37,7 +37,7 @@ public final class OverviewRun {
         CheckResult check = new Check(workspace, tokenizers)
                 .run(new CheckOptions(CheckOptions.defaults().failOn(), options.cache()));
         BaselineConfig config = workspace.config().baseline();
-        Optional<BaselineStatus> baseline = BaselineFile.read(workspace.root().resolve(config.file()))
+        Optional<BaselineStatus> baseline = BaselineFile.read(BaselineFile.path(workspace.config()))
                 .map(recorded -> BaselineStatus.compare(config.file(), config.tolerancePercent(), recorded,
                         scan.baseline(), workspace.starts().isEmpty()));
         List<TemplateLines> lines = withLines ? lines(scan) : List.of();

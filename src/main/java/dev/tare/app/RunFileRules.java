@@ -4,7 +4,6 @@ import dev.tare.TareException;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
 import dev.tare.rewrite.FileRules;
-import dev.tare.source.FileBytes;
 import dev.tare.source.SourceText;
 import dev.tare.template.Template;
 import dev.tare.tokenize.Tokenizer;
@@ -33,7 +32,7 @@ final class RunFileRules implements FileRules {
     @Override
     public Optional<Template> parse(SourceText original, String text) {
         try {
-            return Optional.of(loader.parse(version(original, text)));
+            return Optional.of(loader.parse(original.withText(text)));
         } catch (TareException e) {
             return Optional.empty();
         }
@@ -41,7 +40,7 @@ final class RunFileRules implements FileRules {
 
     @Override
     public List<Finding> findings(SourceText original, String text) {
-        SourceText version = version(original, text);
+        SourceText version = original.withText(text);
         return check.run(CheckOptions.defaults(), loader, new FileSelection(List.of(original.path()), List.of()),
                 path -> version).findings();
     }
@@ -51,11 +50,5 @@ final class RunFileRules implements FileRules {
         LintContext context = new LintContext(loader.workspace().config(), tokenizers, loader.renderer(),
                 List.of(template), Set.of(), Map.of());
         return context.targetTokenizers(template);
-    }
-
-    /** {@code text} as a version of the file {@code original}: same path, file and byte-order mark. */
-    static SourceText version(SourceText original, String text) {
-        return new SourceText(original.path(), original.file(), text, original.hadBom(),
-                FileBytes.encode(text, original.hadBom()).length);
     }
 }

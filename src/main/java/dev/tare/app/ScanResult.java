@@ -1,7 +1,10 @@
 package dev.tare.app;
 
+import dev.tare.footprint.Price;
 import dev.tare.footprint.Target;
 import dev.tare.lint.Baseline;
+import dev.tare.overlap.PrefixShare;
+import dev.tare.template.TemplateKind;
 import dev.tare.workspace.SkippedFile;
 import java.util.Comparator;
 import java.util.LinkedHashMap;
@@ -79,7 +82,7 @@ public record ScanResult(String root, String tokenizer, List<String> targets, Li
             estimatedTokens += template.estimatedTokens();
             template.targets().forEach((name, footprint) -> inputByTarget.merge(name, (long) footprint.inputTokens(), Long::sum));
         }
-        int partials = (int) templates.stream().filter(t -> t.kind() == dev.tare.template.TemplateKind.PARTIAL).count();
+        int partials = (int) templates.stream().filter(t -> t.kind() == TemplateKind.PARTIAL).count();
         return new Totals(count, partials, staticTokens, estimatedTokens, inputByTarget);
     }
 
@@ -101,7 +104,7 @@ public record ScanResult(String root, String tokenizer, List<String> targets, Li
             double reorderedSaving = 0;
             boolean priced = false;
             for (ScannedTemplate template : templates) {
-                dev.tare.overlap.PrefixShare share = template.prefixes().get(target.name());
+                PrefixShare share = template.prefixes().get(target.name());
                 if (share == null || !template.countsInTotals()) {
                     continue;
                 }
@@ -135,7 +138,7 @@ public record ScanResult(String root, String tokenizer, List<String> targets, Li
                               java.util.OptionalDouble savingPerMonth, java.util.OptionalDouble reorderedSavingPerMonth) {
         /** The currency of the savings, when the target is priced. */
         public java.util.Optional<String> currency() {
-            return target.price().map(dev.tare.footprint.Price::currency);
+            return target.price().map(Price::currency);
         }
     }
 

@@ -2,10 +2,10 @@ package dev.tare.cli;
 
 import dev.tare.TareException;
 import dev.tare.app.CheckResult;
-import dev.tare.app.StagedCheck;
-import dev.tare.report.FixReport;
 import dev.tare.app.PreCommitHook;
+import dev.tare.app.StagedCheck;
 import dev.tare.report.CheckReport;
+import dev.tare.report.FixReport;
 import dev.tare.workspace.Workspace;
 import java.io.IOException;
 import java.nio.file.Files;

@@ -1,5 +1,6 @@
 package dev.tare.cli;
 
+import dev.tare.app.RulePacks;
 import dev.tare.lint.ExampleRunner;
 import dev.tare.lint.RuleCatalog;
 import dev.tare.report.RuleReport;
@@ -41,7 +42,7 @@ final class RulesCommand implements Callable<Integer> {
     /** The rules of the repository in the current folder, or of the one {@code --config} names. */
     static RuleCatalog catalog(CommonOptions common) {
         List<Path> start = common.configFile().map(f -> List.of(f.toAbsolutePath().getParent())).orElse(List.of());
-        return dev.tare.app.RulePacks.catalog(Workspace.open(start, common.configFile()).config());
+        return RulePacks.catalog(Workspace.open(start, common.configFile()).config());
     }
 
     /** {@code tare rules test}: runs every rule's worked examples and reports the ones that fail. */

@@ -1,8 +1,11 @@
 package dev.tare.lint;
 
 import dev.tare.TareException;
+import dev.tare.config.TemplatesConfig;
 import dev.tare.source.SourceText;
+import dev.tare.template.PartialDirectory;
 import dev.tare.template.PlaceholderSyntax;
+import dev.tare.template.Renderer;
 import dev.tare.template.Template;
 import dev.tare.template.TemplateParser;
 import dev.tare.template.TemplateSyntaxException;
@@ -150,12 +153,12 @@ public final class ExampleRunner {
 
     /** A context over the example's files, its includes resolved among them in the default partials folder. */
     private static LintContext acrossContext(Map<String, String> files, Example example, Set<String> ruleIds) {
-        String partials = dev.tare.config.TemplatesConfig.DEFAULT_PARTIALS;
+        String partials = TemplatesConfig.DEFAULT_PARTIALS;
         TemplateParser parser = new TemplateParser(PlaceholderSyntax.DOUBLE_BRACE);
         Map<String, Template> templates = new java.util.LinkedHashMap<>();
         files.forEach((path, text) -> templates.put(path, parser.parse(
                 new SourceText(path, ROOT.resolve(path), text, false, text.length()), path.startsWith(partials + "/"))));
-        dev.tare.template.Renderer renderer = new dev.tare.template.Renderer(new dev.tare.template.PartialDirectory(
+        Renderer renderer = new Renderer(new PartialDirectory(
                 partials, path -> Optional.ofNullable(templates.get(path))));
         return LintContext.forExample(ROOT, example, ruleIds, List.copyOf(templates.values()), renderer);
     }

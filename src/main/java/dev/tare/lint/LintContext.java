@@ -3,6 +3,7 @@ package dev.tare.lint;
 import dev.tare.TareException;
 import dev.tare.config.TareConfig;
 import dev.tare.footprint.Target;
+import dev.tare.overlap.RepositoryWords;
 import dev.tare.source.YamlDocument;
 import dev.tare.template.IncludeResolver;
 import dev.tare.template.Renderer;
@@ -128,7 +129,7 @@ public final class LintContext {
     }
 
     /** The words of every template of the run (tool files too; the analysis leaves them out), for one analysis. */
-    public dev.tare.overlap.RepositoryWords words() {
+    public RepositoryWords words() {
         return templates.words().get();
     }
 

@@ -4,7 +4,9 @@ import dev.tare.overlap.RepositoryWords;
 import dev.tare.template.Template;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.TreeMap;
+import java.util.concurrent.atomic.AtomicReference;
 import java.util.function.Function;
 import java.util.function.Supplier;
 
@@ -20,6 +22,27 @@ import java.util.function.Supplier;
 public record RunTemplates(List<String> paths, Function<String, Template> loader, Supplier<RepositoryWords> words) {
     public RunTemplates {
         paths = List.copyOf(paths);
+    }
+
+    /**
+     * Templates parsed again when a rule asks for one. The words {@code gathered} while the run read
+     * them serve the first analysis that asks; a later one gathers them again, a template at a time.
+     *
+     * @param paths every template's path, sorted
+     */
+    public static RunTemplates reparsed(List<String> paths, Function<String, Template> loader,
+                                        Optional<RepositoryWords> gathered) {
+        AtomicReference<RepositoryWords> unused = new AtomicReference<>(gathered.orElse(null));
+        List<String> sorted = List.copyOf(paths);
+        return new RunTemplates(sorted, loader, () -> {
+            RepositoryWords first = unused.getAndSet(null);
+            if (first != null) {
+                return first;
+            }
+            RepositoryWords again = new RepositoryWords();
+            sorted.forEach(path -> again.add(loader.apply(path)));
+            return again;
+        });
     }
 
     /** Templates held in memory (a fix's texts, a rule's example, a test). */

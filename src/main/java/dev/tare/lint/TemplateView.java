@@ -1,5 +1,6 @@
 package dev.tare.lint;
 
+import dev.tare.source.YamlDocument;
 import dev.tare.structure.Structure;
 import dev.tare.template.Message;
 import dev.tare.template.Template;
@@ -20,7 +21,7 @@ public final class TemplateView {
     private final Template template;
     private final SourceLines lines;
     private final List<MessageView> messages;
-    private Optional<dev.tare.source.YamlDocument> meta;
+    private Optional<YamlDocument> meta;
 
     TemplateView(Template template) {
         this.template = template;
@@ -63,17 +64,17 @@ public final class TemplateView {
         return meta.isPresent() ? meta.get().line(key) : java.util.OptionalInt.empty();
     }
 
-    private Optional<dev.tare.source.YamlDocument> readMeta() {
+    private Optional<YamlDocument> readMeta() {
         String source = template.source();
         try {
             if (template.isChat()) {
                 return Optional.of(template.path().toLowerCase(java.util.Locale.ROOT).endsWith(".json")
-                        ? dev.tare.source.YamlDocument.parseJson(source) : dev.tare.source.YamlDocument.parseYaml(source));
+                        ? YamlDocument.parseJson(source) : YamlDocument.parseYaml(source));
             }
             if (template.bodyStart() == 0) {
                 return Optional.empty();
             }
-            return Optional.of(dev.tare.source.YamlDocument.parseYaml(source.substring(0, template.bodyStart())));
+            return Optional.of(YamlDocument.parseYaml(source.substring(0, template.bodyStart())));
         } catch (dev.tare.TareException e) {
             return Optional.empty();
         }

@@ -6,6 +6,7 @@ import dev.tare.app.ScanResult;
 import dev.tare.app.ScannedTemplate;
 import dev.tare.footprint.Footprint;
 import dev.tare.overlap.PrefixShare;
+import dev.tare.template.TemplateKind;
 import dev.tare.workspace.SkippedFile;
 import java.io.IOException;
 import java.util.ArrayList;
@@ -65,7 +66,7 @@ public final class ScanReport {
             out.append(totals.partials()).append(totals.partials() == 1 ? " partial is" : " partials are")
                     .append(" listed but left out of the total; their tokens count inside each template that includes them.\n");
         }
-        long tools = result.templates().stream().filter(t -> t.kind() == dev.tare.template.TemplateKind.TOOLS).count();
+        long tools = result.templates().stream().filter(t -> t.kind() == TemplateKind.TOOLS).count();
         if (tools > 0) {
             out.append(tools).append(tools == 1 ? " tool file is" : " tool files are")
                     .append(" listed but left out of the total; their tokens count in each template whose front matter names them.\n");

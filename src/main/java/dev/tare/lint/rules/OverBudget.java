@@ -1,5 +1,6 @@
 package dev.tare.lint.rules;
 
+import dev.tare.config.Glob;
 import dev.tare.footprint.Estimates;
 import dev.tare.footprint.Target;
 import dev.tare.lint.Example;
@@ -85,7 +86,7 @@ final class OverBudget implements Rule {
             return template.isChat() ? "set in the file" : "set in front matter";
         }
         for (Map.Entry<String, Integer> entry : context.config().budgets().byGlob().entrySet()) {
-            if (dev.tare.config.Glob.of(entry.getKey()).matches(template.path())) {
+            if (Glob.of(entry.getKey()).matches(template.path())) {
                 return "budgets '" + entry.getKey() + "' in tare.yaml";
             }
         }

@@ -8,6 +8,7 @@ import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
 import dev.tare.lint.TemplateView;
 import dev.tare.template.Rendering;
+import dev.tare.template.Segment;
 import dev.tare.template.Template;
 import java.util.ArrayList;
 import java.util.HashSet;
@@ -41,7 +42,7 @@ final class UnusedVariable implements Rule {
             used.add(use.root());
         }
         Rendering rendering = context.rendering(template).orElse(null);
-        if (rendering == null && template.segments().stream().anyMatch(s -> s instanceof dev.tare.template.Segment.Include)) {
+        if (rendering == null && template.segments().stream().anyMatch(s -> s instanceof Segment.Include)) {
             return List.of();
         }
         if (rendering != null) {
