@@ -80,8 +80,11 @@ final class ScanCommand implements Callable<Integer> {
         } else {
             ScanResult result = new TemplateScan(workspace, new TokenizerRegistry()).run(options,
                     TerminalProgress.forOutput(format != Format.text));
-            spec.commandLine().getOut().print(format == Format.json ? ScanReport.json(result, order)
-                    : ScanReport.text(result, order));
+            if (format == Format.json) {
+                ScanReport.json(result, order, spec.commandLine().getOut());
+            } else {
+                spec.commandLine().getOut().print(ScanReport.text(result, order));
+            }
             spec.commandLine().getOut().flush();
         }
         return ExitCodes.OK;

@@ -25,9 +25,17 @@ final class Figures {
     private Figures() {
     }
 
-    /** The FOOTPRINT object of the JSON contract: the keys the target has inputs for. */
+    /** The FOOTPRINT object of the JSON contract, as a tree for reports built whole. */
     static ObjectNode json(Footprint f) {
-        java.util.Map<String, Object> values = new java.util.HashMap<>();
+        return Json.object(fields(f));
+    }
+
+    /**
+     * The FOOTPRINT object's fields in the contract's order: the token counts, then the keys the
+     * target has inputs for, then the flags that are set.
+     */
+    static Map<String, Object> fields(Footprint f) {
+        Map<String, Object> values = new java.util.HashMap<>();
         f.cachedInputTokens().ifPresent(v -> values.put("cached_input_tokens", v));
         f.costPerCall().ifPresent(v -> values.put("cost_per_call", v));
         f.costPerMonth().ifPresent(v -> values.put("cost_per_month", v));
@@ -50,30 +58,22 @@ final class Figures {
             load.endToEndMillis().ifPresent(v -> values.put("end_to_end_ms", v));
             load.contextLimit().ifPresent(v -> values.put("context_limit", v));
         });
-        ObjectNode node = Json.mapper().createObjectNode();
-        node.put("input_tokens", f.inputTokens());
-        node.put("framing_tokens", f.framingTokens());
+        Map<String, Object> fields = new LinkedHashMap<>();
+        fields.put("input_tokens", f.inputTokens());
+        fields.put("framing_tokens", f.framingTokens());
         for (String key : Coverage.KEYS) {
             Object value = values.get(key);
-            if (value instanceof Integer v) {
-                node.put(key, v);
-            } else if (value instanceof Long v) {
-                node.put(key, v);
-            } else if (value instanceof Double v) {
-                node.put(key, v);
-            } else if (value instanceof java.math.BigInteger v) {
-                node.put(key, v);
-            } else if (value instanceof String v) {
-                node.put(key, v);
+            if (value != null) {
+                fields.put(key, value);
             }
         }
         if (f.exceedsContext()) {
-            node.put("exceeds_context", true);
+            fields.put("exceeds_context", true);
         }
         if (f.calibrated()) {
-            node.put("calibrated", true);
+            fields.put("calibrated", true);
         }
-        return node;
+        return fields;
     }
 
     static String money(double amount, String currency, int decimals) {

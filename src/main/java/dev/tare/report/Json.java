@@ -13,6 +13,7 @@ import java.io.IOException;
 import java.io.StringWriter;
 import java.io.UncheckedIOException;
 import java.io.Writer;
+import java.util.Map;
 
 /** The JSON conventions every machine-readable report shares: snake_case keys, tool and version first. */
 final class Json {
@@ -83,6 +84,38 @@ final class Json {
         } catch (IOException e) {
             throw new UncheckedIOException("a report could not be written as JSON", e);
         }
+    }
+
+    /** An object of plain values (numbers, strings, booleans) as a tree, in the map's order. */
+    static ObjectNode object(Map<String, ?> fields) {
+        ObjectNode node = mapper().createObjectNode();
+        fields.forEach((key, value) -> node.set(key, mapper().valueToTree(value)));
+        return node;
+    }
+
+    /** Writes an object of plain values (numbers, strings, booleans) in the map's order. */
+    static void object(JsonGenerator out, Map<String, ?> fields) throws IOException {
+        out.writeStartObject();
+        for (Map.Entry<String, ?> field : fields.entrySet()) {
+            out.writeFieldName(field.getKey());
+            Object value = field.getValue();
+            if (value instanceof Integer v) {
+                out.writeNumber(v);
+            } else if (value instanceof Long v) {
+                out.writeNumber(v);
+            } else if (value instanceof Double v) {
+                out.writeNumber(v);
+            } else if (value instanceof java.math.BigInteger v) {
+                out.writeNumber(v);
+            } else if (value instanceof Boolean v) {
+                out.writeBoolean(v);
+            } else if (value instanceof String v) {
+                out.writeString(v);
+            } else {
+                throw new IllegalArgumentException("not a plain JSON value: " + value);
+            }
+        }
+        out.writeEndObject();
     }
 
     /** Writes one part of a streamed report as {@link #write} would write it in place. */

@@ -1,7 +1,6 @@
 package dev.tare.report;
 
 import com.fasterxml.jackson.core.JsonGenerator;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.tare.app.ScanResult;
 import dev.tare.app.ScannedTemplate;
 import dev.tare.footprint.Footprint;
@@ -9,7 +8,10 @@ import dev.tare.overlap.PrefixShare;
 import dev.tare.template.TemplateKind;
 import dev.tare.workspace.SkippedFile;
 import java.io.IOException;
+import java.io.StringWriter;
+import java.io.Writer;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 
@@ -97,7 +99,14 @@ public final class ScanReport {
      * one tree first: on 20,000 templates that halves the time and memory of writing it.
      */
     public static String json(ScanResult result, ScanResult.Order order) {
-        return Json.stream(out -> {
+        StringWriter out = new StringWriter(1 << 16);
+        json(result, order, out);
+        return out.toString();
+    }
+
+    /** {@link #json(ScanResult, ScanResult.Order)} written to {@code writer} as it is made, which is flushed and left open. */
+    public static void json(ScanResult result, ScanResult.Order order, Writer writer) {
+        Json.stream(out -> {
             out.writeStringField("root", result.root());
             out.writeStringField("tokenizer", result.tokenizer());
             out.writeArrayFieldStart("targets_selected");
@@ -112,7 +121,7 @@ public final class ScanReport {
             }
             out.writeEndArray();
             out.writeFieldName("totals");
-            Json.tree(out, totals(result));
+            totals(out, result);
             List<String> cautions = TargetSections.cautions(result);
             if (!cautions.isEmpty()) {
                 out.writeArrayFieldStart("cautions");
@@ -129,7 +138,7 @@ public final class ScanReport {
                 out.writeEndObject();
             }
             out.writeEndArray();
-        });
+        }, writer);
     }
 
     private static void template(JsonGenerator out, ScannedTemplate template) throws IOException {
@@ -144,13 +153,13 @@ public final class ScanReport {
         strings(out, "includes", template.includes());
         out.writeObjectFieldStart("targets");
         for (Map.Entry<String, Footprint> entry : template.targets().entrySet()) {
-            ObjectNode footprint = footprint(entry.getValue());
+            Map<String, Object> footprint = Figures.fields(entry.getValue());
             PrefixShare share = template.prefixes().get(entry.getKey());
             if (share != null) {
                 prefix(footprint, share);
             }
             out.writeFieldName(entry.getKey());
-            Json.tree(out, footprint);
+            Json.object(out, footprint);
         }
         out.writeEndObject();
         out.writeEndObject();
@@ -164,28 +173,31 @@ public final class ScanReport {
         out.writeEndArray();
     }
 
-    private static ObjectNode totals(ScanResult result) {
+    private static void totals(JsonGenerator out, ScanResult result) throws IOException {
         ScanResult.Totals totals = result.totals();
-        ObjectNode totalNode = Json.mapper().createObjectNode();
-        totalNode.put("templates", totals.templates());
-        totalNode.put("partials", totals.partials());
-        totalNode.put("static_tokens", totals.staticTokens());
-        totalNode.put("estimated_tokens", totals.estimatedTokens());
-        ObjectNode byTarget = totalNode.putObject("targets");
-        totals.inputTokensByTarget().forEach((name, tokens) -> byTarget.putObject(name).put("input_tokens", tokens));
+        out.writeStartObject();
+        out.writeNumberField("templates", totals.templates());
+        out.writeNumberField("partials", totals.partials());
+        out.writeNumberField("static_tokens", totals.staticTokens());
+        out.writeNumberField("estimated_tokens", totals.estimatedTokens());
+        Map<String, Map<String, Object>> byTarget = new LinkedHashMap<>();
+        totals.inputTokensByTarget().forEach((name, tokens) -> byTarget.computeIfAbsent(name, n -> new LinkedHashMap<>())
+                .put("input_tokens", tokens));
         result.cacheTotals().forEach((name, cache) -> {
-            ObjectNode target = byTarget.has(name) ? (ObjectNode) byTarget.get(name) : byTarget.putObject(name);
+            Map<String, Object> target = byTarget.computeIfAbsent(name, n -> new LinkedHashMap<>());
             target.put("cached_input_tokens", cache.cachedTokens());
             target.put("reordered_cached_input_tokens", cache.reorderedCachedTokens());
             cache.savingPerMonth().ifPresent(v -> target.put("cache_saving_per_month", v));
             cache.reorderedSavingPerMonth().ifPresent(v -> target.put("reordered_cache_saving_per_month", v));
             cache.currency().filter(c -> cache.savingPerMonth().isPresent()).ifPresent(c -> target.put("currency", c));
         });
-        return totalNode;
-    }
-
-    static ObjectNode footprint(Footprint footprint) {
-        return Figures.json(footprint);
+        out.writeObjectFieldStart("targets");
+        for (Map.Entry<String, Map<String, Object>> target : byTarget.entrySet()) {
+            out.writeFieldName(target.getKey());
+            Json.object(out, target.getValue());
+        }
+        out.writeEndObject();
+        out.writeEndObject();
     }
 
     /**
@@ -194,11 +206,11 @@ public final class ScanReport {
      * cache's minimum on), the same with every template's per-call parts after its static parts, and
      * what caching saves per month in each case (estimates).
      */
-    private static void prefix(ObjectNode node, PrefixShare share) {
-        node.put("shared_prefix_tokens", share.sharedTokens());
-        share.savingPerMonth().ifPresent(v -> node.put("cache_saving_per_month", v));
-        node.put("reordered_shared_prefix_tokens", share.reorderedSharedTokens());
-        node.put("reordered_cached_input_tokens", share.reorderedCachedTokens());
-        share.reorderedSavingPerMonth().ifPresent(v -> node.put("reordered_cache_saving_per_month", v));
+    private static void prefix(Map<String, Object> fields, PrefixShare share) {
+        fields.put("shared_prefix_tokens", share.sharedTokens());
+        share.savingPerMonth().ifPresent(v -> fields.put("cache_saving_per_month", v));
+        fields.put("reordered_shared_prefix_tokens", share.reorderedSharedTokens());
+        fields.put("reordered_cached_input_tokens", share.reorderedCachedTokens());
+        share.reorderedSavingPerMonth().ifPresent(v -> fields.put("reordered_cache_saving_per_month", v));
     }
 }
