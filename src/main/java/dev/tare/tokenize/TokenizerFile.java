@@ -25,10 +25,23 @@ final class TokenizerFile implements Tokenizer {
     /** The largest tokenizer file read; large vocabularies take a few tens of megabytes. */
     static final long MAX_BYTES = 128L * 1024 * 1024;
 
+    /** The tokenizers library's switch (a system property or environment variable) that stops its usage reports. */
+    static final String NO_REPORTING = "OPT_OUT_TRACKING";
+
     private static final Map<String, String> OPTIONS = Map.of(
             "addSpecialTokens", "false",
             "truncation", "false",
             "padding", "false");
+
+    static {
+        // The tokenizers library reports its use over the network the first time a tokenizer is
+        // made (it asks the cloud instance-metadata address, then its telemetry address) unless this
+        // switch of its own is set. Tare sends nothing anywhere, and where nothing answers that
+        // address each attempt waits out a one-second time-out. A value the user set is kept.
+        if (System.getProperty(NO_REPORTING) == null && System.getenv(NO_REPORTING) == null) {
+            System.setProperty(NO_REPORTING, "true");
+        }
+    }
 
     private final String name;
     private final Function<String, long[]> ids;

@@ -63,6 +63,16 @@ class TokenizerFileTest {
     }
 
     @Test
+    void theLibrarysUsageReportsAreSwitchedOffBeforeItMakesATokenizer() throws IOException {
+        Path file = Files.writeString(folder.resolve("tiny-quiet.json"), TINY, StandardCharsets.UTF_8);
+        registry.get(file.toString(), Path.of("."));
+        // The library reads the switch as an environment variable or a system property; a value the
+        // person running Tare set is theirs to keep.
+        String set = System.getenv(TokenizerFile.NO_REPORTING);
+        assertEquals(set == null ? "true" : null, System.getProperty(TokenizerFile.NO_REPORTING));
+    }
+
+    @Test
     void noTruncationOnLongText() throws IOException {
         Path file = Files.writeString(folder.resolve("tiny-long.json"), TINY, StandardCharsets.UTF_8);
         Tokenizer tiny = registry.get(file.toString(), Path.of("."));
