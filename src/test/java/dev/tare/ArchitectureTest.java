@@ -85,6 +85,14 @@ class ArchitectureTest {
     }
 
     @Test
+    void onlyTheTokenizerFileUsesTheTokenizersLibrary() {
+        noClasses().that().doNotHaveFullyQualifiedName("dev.tare.tokenize.TokenizerFile")
+                .should().dependOnClassesThat().resideInAnyPackage("ai.djl..")
+                .because("TokenizerFile switches the library's usage reports off before it makes a tokenizer")
+                .check(main);
+    }
+
+    @Test
     void everyClassHasANameOfItsOwn() {
         Map<String, List<String>> byName = main.stream()
                 .filter(type -> !type.isNestedClass() && !type.isAnonymousClass())
