@@ -11,6 +11,7 @@ import dev.tare.tokenize.TokenizerRegistry;
 import dev.tare.workspace.Workspace;
 import java.util.List;
 import java.util.Optional;
+import java.util.OptionalDouble;
 import java.util.OptionalInt;
 
 /**
@@ -28,20 +29,22 @@ public final class CostEstimate {
      * @param inputTokens  the prompt size, when given as a number
      * @param file         the template, when given as a file (inside the workspace)
      * @param outputTokens output tokens per call, overriding the template's and the target's
-     * @param cachedTokens leading input tokens served from the prefix cache
+     * @param prefixTokens the static prefix (P), overriding the file's; none for a bare token count
+     * @param callsPerDay  calls a day, overriding the target's
      * @param sweep        settings to sweep; empty for one footprint
      * @param concurrency  requests served at once, overriding the target's
      */
     public record Request(String target, OptionalInt inputTokens, Optional<String> file, OptionalInt outputTokens,
-                          OptionalInt cachedTokens, List<Sweep.Axis> sweep, OptionalInt concurrency) {
+                          OptionalInt prefixTokens, OptionalDouble callsPerDay, List<Sweep.Axis> sweep,
+                          OptionalInt concurrency) {
         public Request {
             sweep = List.copyOf(sweep);
         }
 
-        /** A request at the target's own concurrency. */
+        /** A request at the target's own traffic and concurrency. */
         public Request(String target, OptionalInt inputTokens, Optional<String> file, OptionalInt outputTokens,
-                       OptionalInt cachedTokens, List<Sweep.Axis> sweep) {
-            this(target, inputTokens, file, outputTokens, cachedTokens, sweep, OptionalInt.empty());
+                       OptionalInt prefixTokens, List<Sweep.Axis> sweep) {
+            this(target, inputTokens, file, outputTokens, prefixTokens, OptionalDouble.empty(), sweep, OptionalInt.empty());
         }
     }
 
@@ -73,23 +76,27 @@ public final class CostEstimate {
         Target configured = workspace.config().target(request.target());
         Target target = request.concurrency().isPresent()
                 ? configured.withConcurrency(request.concurrency().getAsInt()) : configured;
+        if (request.callsPerDay().isPresent()) {
+            target = target.withCallsPerDay(request.callsPerDay().getAsDouble());
+        }
         CallSize measured = request.file().isPresent()
                 ? measure(workspace, target, request.file().get())
                 : CallSize.of(request.inputTokens().orElseThrow(() -> new IllegalArgumentException("no prompt size")),
                 target.outputTokens().orElse(0));
-        int cached = request.cachedTokens().orElse(0);
-        if (request.cachedTokens().isPresent()) {
-            if (target.prefixCacheMinTokens().isEmpty()) {
-                throw new TareException("target '" + target.name() + "' has no prefix cache; set its"
-                        + " prefix_cache_min_tokens to count cached tokens");
+        int prefix = measured.staticPrefixTokens();
+        if (request.prefixTokens().isPresent()) {
+            prefix = request.prefixTokens().getAsInt();
+            if (target.prefixCache().isEmpty()) {
+                throw new TareException("target '" + target.name() + "' has no prefix cache; give it prefix_cache:"
+                        + " {min_tokens: N} (a provider's) or {block_tokens: N} (a server's) to estimate caching");
             }
-            if (cached > measured.inputTokens()) {
-                throw new TareException("--cached-tokens " + cached + " is more than the " + measured.inputTokens()
-                        + " input tokens");
+            if (prefix > measured.inputTokens()) {
+                throw new TareException("--prefix-tokens " + prefix + " is more than the " + measured.inputTokens()
+                        + " input tokens; the static prefix is part of the input");
             }
         }
         CallSize call = new CallSize(measured.inputTokens(), measured.framingTokens(),
-                request.outputTokens().orElse(measured.outputTokens()), cached);
+                request.outputTokens().orElse(measured.outputTokens()), prefix);
         List<Sweep.Row> rows = request.sweep().isEmpty() ? List.of() : Sweep.run(target, call, request.sweep());
         return new Result(target, request.file(), call, Footprints.estimate(target, call), Coverage.of(target),
                 request.sweep(), rows);
@@ -110,6 +117,7 @@ public final class CostEstimate {
             throw new TareException(template.path() + " names another target in its front matter, not '"
                     + target.name() + "'");
         }
-        return new CallSize(footprint.inputTokens(), footprint.framingTokens(), footprint.outputTokens(), 0);
+        return new CallSize(footprint.inputTokens(), footprint.framingTokens(), footprint.outputTokens(),
+                footprint.caching().map(Footprint.Caching::staticPrefixTokens).orElse(0));
     }
 }

@@ -31,13 +31,14 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
             out.writeInt(s.inputTokens());
             out.writeInt(s.framingTokens());
             out.writeInt(s.outputTokens());
-            out.writeInt(s.sharedPrefixTokens());
+            out.writeInt(s.staticPrefixTokens());
             out.writeInt(r.estimatedByTarget().getOrDefault(size.getKey(), 0));
         }
         out.writeInt(r.leadingIds().size());
         for (Map.Entry<String, CachePrefixes.LeadingIds> leading : r.leadingIds().entrySet()) {
             CachePrefixes.LeadingIds ids = leading.getValue();
             out.writeUTF(leading.getKey());
+            out.writeUTF(ids.head());
             writeInts(out, ids.now());
             boolean same = Arrays.equals(ids.now(), ids.reordered());
             out.writeBoolean(same);
@@ -68,8 +69,9 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
         int leadingCount = in.readInt();
         for (int t = 0; t < leadingCount; t++) {
             String name = in.readUTF();
+            String head = in.readUTF();
             int[] now = readInts(in);
-            leading.put(name, new CachePrefixes.LeadingIds(now, in.readBoolean() ? now : readInts(in)));
+            leading.put(name, new CachePrefixes.LeadingIds(head, now, in.readBoolean() ? now : readInts(in)));
         }
         return new Measurement(path, kind, characters, staticTokens, estimatedTokens, variables, unsized, includes,
                 sizes, byTarget, leading);

@@ -1,6 +1,7 @@
 package dev.tare.app;
 
 import dev.tare.footprint.Price;
+import dev.tare.footprint.Footprint;
 import dev.tare.footprint.Target;
 import dev.tare.lint.Baseline;
 import dev.tare.overlap.PrefixShare;
@@ -94,7 +95,7 @@ public record ScanResult(String root, String tokenizer, List<String> targets, Li
     public Map<String, CacheTotals> cacheTotals() {
         Map<String, CacheTotals> totals = new LinkedHashMap<>();
         for (Target target : targetConfigs) {
-            if (target.prefixCacheMinTokens().isEmpty()) {
+            if (target.prefixCache().isEmpty()) {
                 continue;
             }
             int count = 0;
@@ -109,8 +110,9 @@ public record ScanResult(String root, String tokenizer, List<String> targets, Li
                     continue;
                 }
                 count++;
-                cached += share.cachedTokens();
-                reordered += share.reorderedCachedTokens();
+                cached += template.targets().get(target.name()).caching()
+                        .map(Footprint.Caching::cacheablePrefixTokens).orElse(0);
+                reordered += target.prefixCache().get().cacheable(share.reorderedStaticPrefixTokens());
                 if (share.savingPerMonth().isPresent()) {
                     priced = true;
                     saving += share.savingPerMonth().getAsDouble();

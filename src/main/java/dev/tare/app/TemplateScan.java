@@ -10,8 +10,8 @@ import dev.tare.footprint.Footprint;
 import dev.tare.footprint.Footprints;
 import dev.tare.footprint.Framing;
 import dev.tare.footprint.Target;
+import dev.tare.footprint.Traffic;
 import dev.tare.overlap.CachePrefixes;
-import dev.tare.overlap.PrefixShare;
 import dev.tare.source.SourceText;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
@@ -113,7 +113,7 @@ public final class TemplateScan {
         }
         skipped.sort(null);
         for (Target target : targets) {
-            if (target.prefixCacheMinTokens().isPresent()) {
+            if (target.prefixCache().isPresent()) {
                 applySharedPrefixes(target, templates, outcomes);
             }
         }
@@ -131,49 +131,50 @@ public final class TemplateScan {
         return key.toString();
     }
 
-    /** Re-estimates the footprints on {@code target} with the prefix each template shares with others. */
+    /**
+     * Re-estimates the footprints on {@code target} with each template's static prefix cached as
+     * the traffic of every template sharing it allows.
+     */
     private static void applySharedPrefixes(Target target, List<ScannedTemplate> templates, List<Outcome> outcomes) {
         Map<String, CachePrefixes.LeadingIds> byPath = new LinkedHashMap<>();
+        Map<String, CallSize> calls = new LinkedHashMap<>();
         for (Outcome outcome : outcomes) {
             CachePrefixes.LeadingIds ids = outcome.leadingIds().get(target.name());
             if (ids != null) {
                 byPath.put(outcome.template().orElseThrow().path(), ids);
+                calls.put(outcome.template().orElseThrow().path(), outcome.callSizes().get(target.name()));
             }
         }
         List<Integer> indexes = new ArrayList<>();
-        List<CachePrefixes.LeadingIds> leading = new ArrayList<>();
-        List<CallSize> calls = new ArrayList<>();
+        List<CachePrefixes.Prefix> prefixes = new ArrayList<>();
         for (int i = 0; i < templates.size(); i++) {
-            CachePrefixes.LeadingIds ids = byPath.get(templates.get(i).path());
+            String path = templates.get(i).path();
+            CachePrefixes.LeadingIds ids = byPath.get(path);
             if (ids != null) {
-                Footprint f = templates.get(i).targets().get(target.name());
                 indexes.add(i);
-                leading.add(ids);
-                calls.add(new CallSize(f.inputTokens(), f.framingTokens(), f.outputTokens(), 0));
+                prefixes.add(new CachePrefixes.Prefix(calls.get(path), ids, Traffic.of(target)));
             }
         }
-        List<PrefixShare> shares = CachePrefixes.share(target, leading, calls);
+        List<CachePrefixes.Shared> shared = CachePrefixes.share(target, prefixes);
         for (int k = 0; k < indexes.size(); k++) {
-            CallSize call = calls.get(k);
-            PrefixShare share = shares.get(k);
-            Footprint cached = Footprints.estimate(target, new CallSize(call.inputTokens(), call.framingTokens(),
-                    call.outputTokens(), share.cachedTokens()));
-            templates.set(indexes.get(k), templates.get(indexes.get(k)).withPrefix(target.name(), cached, share));
+            int at = indexes.get(k);
+            templates.set(at, templates.get(at).withPrefix(target.name(), shared.get(k).footprint(), shared.get(k).share()));
         }
     }
 
     /**
-     * What became of one file: measured, or skipped with a reason. A measured template carries, per
-     * target with a prefix cache, its leading static token ids.
+     * What became of one file: measured, or skipped with a reason. A measured template carries its
+     * call on each target and, per target with a prefix cache, its leading static token ids.
      */
     private record Outcome(Optional<ScannedTemplate> template, Optional<SkippedFile> skipped,
-                           Map<String, CachePrefixes.LeadingIds> leadingIds) {
-        static Outcome of(ScannedTemplate template, Map<String, CachePrefixes.LeadingIds> leadingIds) {
-            return new Outcome(Optional.of(template), Optional.empty(), leadingIds);
+                           Map<String, CallSize> callSizes, Map<String, CachePrefixes.LeadingIds> leadingIds) {
+        static Outcome of(Measurement measured, Map<String, Target> targets) {
+            return new Outcome(Optional.of(measured.template(targets)), Optional.empty(), measured.callSizes(),
+                    measured.leadingIds());
         }
 
         static Outcome of(SkippedFile skipped) {
-            return new Outcome(Optional.empty(), Optional.of(skipped), Map.of());
+            return new Outcome(Optional.empty(), Optional.of(skipped), Map.of(), Map.of());
         }
     }
 
@@ -235,7 +236,7 @@ public final class TemplateScan {
         Outcome measure(String path) {
             Optional<Measurement> remembered = cache.find(path);
             if (remembered.isPresent()) {
-                return Outcome.of(remembered.get().template(targetsByName), remembered.get().leadingIds());
+                return Outcome.of(remembered.get(), targetsByName);
             }
             try {
                 SourceText text = loader.read(path);
@@ -245,7 +246,7 @@ public final class TemplateScan {
                 List<String> dependencies = new ArrayList<>(new LinkedHashSet<>(samples.includes()));
                 dependencies.addAll(template.meta().tools());
                 cache.remember(path, text.text(), dependencies, measured);
-                return Outcome.of(measured.template(targetsByName), measured.leadingIds());
+                return Outcome.of(measured, targetsByName);
             } catch (TareException e) {
                 return Outcome.of(new SkippedFile(path, e.getMessage()));
             }
@@ -260,6 +261,8 @@ public final class TemplateScan {
             int declared = Estimates.declaredTokens(samples);
             Counts counts = new Counts();
             List<Template> tools = toolsSentWith(template);
+            Optional<CachePrefixes.Texts> texts = leadingTexts(template, samples);
+            Map<String, CachePrefixes.LeadingIds> leading = new LinkedHashMap<>();
             Map<String, CallSize> callSizes = new LinkedHashMap<>();
             Map<String, Integer> estimatedByTarget = new LinkedHashMap<>();
             for (Target target : targetsOf(template)) {
@@ -269,12 +272,28 @@ public final class TemplateScan {
                 int framing = template.kind() == TemplateKind.TOOLS
                         ? Framing.toolTokens(target, template.messages().size())
                         : Framing.tokens(target, template.isChat(), template.messages().size());
+                // A provider reads the tool definitions first, so they open the static prefix.
+                int toolPart = 0;
                 for (Template toolFile : tools) {
-                    estimated += target.scaled(toolTokens(toolFile, tokenizer));
-                    framing += Framing.toolTokens(target, toolFile.messages().size());
+                    int definitions = target.scaled(toolTokens(toolFile, tokenizer));
+                    int around = Framing.toolTokens(target, toolFile.messages().size());
+                    estimated += definitions;
+                    framing += around;
+                    toolPart += definitions + around;
                 }
                 int output = template.meta().outputTokens().orElse(target.outputTokens().orElse(0));
-                callSizes.put(target.name(), new CallSize(estimated + framing, framing, output, 0));
+                int input = estimated + framing;
+                int prefix = 0;
+                if (texts.isPresent() && target.prefixCache().isPresent()) {
+                    CachePrefixes.LeadingIds ids = CachePrefixes.leading(String.join("\n", template.meta().tools()),
+                            texts.get(), tokenizer);
+                    leading.put(target.name(), ids);
+                    // Without a per-call part every token of the call is the same each time.
+                    prefix = samples.variables().isEmpty() ? input : toolPart
+                            + (template.isChat() ? texts.get().now().size() * target.messageOverheadTokens() : 0)
+                            + target.scaled(ids.now().length);
+                }
+                callSizes.put(target.name(), new CallSize(input, framing, output, Math.min(prefix, input)));
             }
             Set<String> variables = new LinkedHashSet<>();
             Set<String> unsized = new LinkedHashSet<>();
@@ -286,27 +305,19 @@ public final class TemplateScan {
             }
             return new Measurement(template.path(), template.kind(), characters, counts.of(primary, empty),
                     counts.of(primary, samples) + declared, List.copyOf(variables), List.copyOf(unsized),
-                    List.copyOf(new LinkedHashSet<>(samples.includes())), callSizes, estimatedByTarget,
-                    leadingIds(template, samples, callSizes.keySet()));
+                    List.copyOf(new LinkedHashSet<>(samples.includes())), callSizes, estimatedByTarget, leading);
         }
 
-        /** Leading static token ids per target with a prefix cache; none for partials and tool files, which are never sent alone. */
-        private Map<String, CachePrefixes.LeadingIds> leadingIds(Template template, Rendering samples, Set<String> measuredTargets) {
-            if (template.kind() == TemplateKind.PARTIAL || template.kind() == TemplateKind.TOOLS) {
-                return Map.of();
+        /**
+         * The template's leading texts, when some target has a prefix cache; none for partials and
+         * tool files, which are never sent alone.
+         */
+        private Optional<CachePrefixes.Texts> leadingTexts(Template template, Rendering samples) {
+            if (template.kind() == TemplateKind.PARTIAL || template.kind() == TemplateKind.TOOLS
+                    || targets.stream().allMatch(target -> target.prefixCache().isEmpty())) {
+                return Optional.empty();
             }
-            Map<String, CachePrefixes.LeadingIds> ids = new LinkedHashMap<>();
-            CachePrefixes.Texts texts = null;
-            for (Target target : targets) {
-                if (target.prefixCacheMinTokens().isEmpty() || !measuredTargets.contains(target.name())) {
-                    continue;
-                }
-                if (texts == null) {
-                    texts = CachePrefixes.texts(template, loader.renderer(), samples);
-                }
-                ids.put(target.name(), CachePrefixes.leading(texts, byTarget.get(target.name())));
-            }
-            return ids;
+            return Optional.of(CachePrefixes.texts(template, loader.renderer(), samples));
         }
 
         private List<Target> targetsOf(Template template) {

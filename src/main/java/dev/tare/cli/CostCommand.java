@@ -9,6 +9,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
+import java.util.OptionalDouble;
 import java.util.OptionalInt;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -51,8 +52,19 @@ final class CostCommand implements Callable<Integer> {
             description = "Output tokens per call. Default: the template's output_tokens, else the target's, else 0.")
     private Integer outputTokens;
 
-    @Option(names = "--cached-tokens", paramLabel = "C",
-            description = "Leading input tokens served from the prefix cache (targets with prefix_cache_min_tokens). Default: 0.")
+    @Option(names = "--prefix-tokens", paramLabel = "P",
+            description = {"The static prefix: leading input tokens every call sends alike (tools, then the text up to"
+                    + " the first per-call part), on a target with a prefix_cache. Tare works out the part the cache"
+                    + " holds and how often it is found there.",
+                    "Default: measured from FILE; 0 with --tokens."})
+    private Integer prefixTokens;
+
+    @Option(names = "--calls-per-day", paramLabel = "N",
+            description = "Calls a day, for monthly costs and the prefix cache's hit rate. Default: the target's calls_per_day.")
+    private Double callsPerDay;
+
+    /** The option this command had before prefix caching was estimated from the static prefix; kept to say so. */
+    @Option(names = "--cached-tokens", paramLabel = "C", hidden = true)
     private Integer cachedTokens;
 
     @Option(names = "--concurrency", paramLabel = "N", description = "Requests served at once: decode step time,"
@@ -77,7 +89,14 @@ final class CostCommand implements Callable<Integer> {
         }
         nonNegative(commandLine, "--tokens", tokens);
         nonNegative(commandLine, "--output-tokens", outputTokens);
-        nonNegative(commandLine, "--cached-tokens", cachedTokens);
+        if (cachedTokens != null) {
+            throw new CommandLine.ParameterException(commandLine, "--cached-tokens is gone: give --prefix-tokens P (the"
+                    + " static prefix) and Tare works out the cached part from the target's prefix_cache and traffic");
+        }
+        nonNegative(commandLine, "--prefix-tokens", prefixTokens);
+        if (callsPerDay != null && !(callsPerDay >= 0) || callsPerDay != null && callsPerDay.isInfinite()) {
+            throw new CommandLine.ParameterException(commandLine, "--calls-per-day must be 0 or more (got " + callsPerDay + ")");
+        }
         if (concurrency != null && concurrency < 1) {
             throw new CommandLine.ParameterException(commandLine, "--concurrency must be 1 or more (got " + concurrency + ")");
         }
@@ -92,7 +111,8 @@ final class CostCommand implements Callable<Integer> {
         Optional<String> relative = Optional.ofNullable(file).map(f -> workspace.root()
                 .relativize(f.toAbsolutePath().normalize()).toString().replace('\\', '/'));
         CostEstimate.Result result = CostEstimate.run(workspace, new CostEstimate.Request(target, optional(tokens),
-                relative, optional(outputTokens), optional(cachedTokens), axes, optional(concurrency)));
+                relative, optional(outputTokens), optional(prefixTokens),
+                callsPerDay == null ? OptionalDouble.empty() : OptionalDouble.of(callsPerDay), axes, optional(concurrency)));
         String report = format == Format.json ? CostReport.json(result) : CostReport.text(result);
         commandLine.getOut().print(report);
         commandLine.getOut().flush();

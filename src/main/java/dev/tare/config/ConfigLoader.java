@@ -2,6 +2,7 @@ package dev.tare.config;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.tare.TareException;
+import dev.tare.footprint.PrefixCache;
 import dev.tare.footprint.Price;
 import dev.tare.footprint.Target;
 import dev.tare.source.SafeReader;
@@ -28,10 +29,13 @@ public final class ConfigLoader {
 
     private static final Set<String> TOP = Set.of("templates", "targets", "budgets", "baseline", "rules", "hook");
     private static final Set<String> TEMPLATES = Set.of("include", "exclude", "placeholder", "partials", "max_file_bytes");
-    private static final Set<String> TARGET = Set.of("name", "tokenizer", "price", "prefix_cache_min_tokens",
+    private static final Set<String> TARGET = Set.of("name", "tokenizer", "price", "prefix_cache",
             "message_overhead_tokens", "reply_overhead_tokens", "calls_per_day", "output_tokens", "model", "weight_bits",
             "kv_bits", "device", "scale", "tool_overhead_tokens", "concurrency");
-    private static final Set<String> PRICE = Set.of("input", "cached_input", "output", "currency");
+    private static final Set<String> PRICE = Set.of("input", "cached_input", "cache_write", "output", "currency");
+    private static final Set<String> PREFIX_CACHE = Set.of("min_tokens", "step_tokens", "ttl_seconds", "block_tokens");
+    /** Five minutes: the shortest entry lifetime in the prompt-caching documentation of the providers we know (from memory). */
+    private static final double DEFAULT_TTL_SECONDS = 300;
     private static final Set<String> BASELINE = Set.of("file", "tolerance_percent");
     private static final Set<String> RULES = Set.of("disable", "severity", "packs", "limits");
     private static final Set<String> HOOK = Set.of("fix");
@@ -141,6 +145,10 @@ public final class ConfigLoader {
             if (!target.isObject()) {
                 throw in.problem(path, "must be a mapping with at least name and tokenizer");
             }
+            if (target.has("prefix_cache_min_tokens")) {
+                throw in.problem(path + ".prefix_cache_min_tokens", "is replaced by prefix_cache: {min_tokens: N,"
+                        + " step_tokens: S, ttl_seconds: T} (see the README); write the minimum there");
+            }
             in.onlyKeys(target, path, TARGET);
             String name = in.text(target, "name", path + ".name")
                     .orElseThrow(() -> in.problem(path, "has no name"));
@@ -155,7 +163,7 @@ public final class ConfigLoader {
                         + String.join(", ", TokenizerRegistry.BUILT_IN));
             }
             targets.add(new Target(name, tokenizer, price(in, target, path),
-                    in.wholeNumber(target, "prefix_cache_min_tokens", path + ".prefix_cache_min_tokens", 0),
+                    prefixCache(in, target, path),
                     in.wholeNumber(target, "message_overhead_tokens", path + ".message_overhead_tokens", 0).orElse(0),
                     in.wholeNumber(target, "reply_overhead_tokens", path + ".reply_overhead_tokens", 0).orElse(0),
                     in.number(target, "calls_per_day", path + ".calls_per_day", 0),
@@ -177,6 +185,39 @@ public final class ConfigLoader {
         return scale;
     }
 
+    /**
+     * {@code prefix_cache}: a provider's ({@code min_tokens}, {@code step_tokens}, default 1, and
+     * {@code ttl_seconds}, default 300) or a server's ({@code block_tokens}).
+     */
+    private static Optional<PrefixCache> prefixCache(ConfigReader in, JsonNode target, String path) {
+        String at = path + ".prefix_cache";
+        JsonNode node = in.object(target, "prefix_cache", at);
+        if (node == null) {
+            return Optional.empty();
+        }
+        in.onlyKeys(node, at, PREFIX_CACHE);
+        OptionalInt block = in.wholeNumber(node, "block_tokens", at + ".block_tokens", 1);
+        OptionalInt min = in.wholeNumber(node, "min_tokens", at + ".min_tokens", 1);
+        OptionalInt step = in.wholeNumber(node, "step_tokens", at + ".step_tokens", 1);
+        OptionalDouble ttl = in.number(node, "ttl_seconds", at + ".ttl_seconds", 0);
+        if (block.isPresent()) {
+            if (min.isPresent() || step.isPresent() || ttl.isPresent()) {
+                throw in.problem(at, "has block_tokens (a server's cache) beside min_tokens, step_tokens or ttl_seconds"
+                        + " (a provider's); keep one kind");
+            }
+            return Optional.of(PrefixCache.blocks(block.getAsInt()));
+        }
+        if (min.isEmpty()) {
+            throw in.problem(at, "names no min_tokens (a provider's shortest cached prefix) or block_tokens"
+                    + " (a server's KV block size)");
+        }
+        if (ttl.isPresent() && ttl.getAsDouble() == 0) {
+            throw in.problem(at + ".ttl_seconds", "must be above 0 (how long an entry lives after its last use)");
+        }
+        return Optional.of(new PrefixCache(min.getAsInt(), step.orElse(1),
+                OptionalDouble.of(ttl.orElse(DEFAULT_TTL_SECONDS))));
+    }
+
     private static Optional<Price> price(ConfigReader in, JsonNode target, String path) {
         String at = path + ".price";
         JsonNode node = in.object(target, "price", at);
@@ -189,8 +230,9 @@ public final class ConfigLoader {
         double output = in.number(node, "output", at + ".output", 0)
                 .orElseThrow(() -> in.problem(at, "has no output price (per million tokens)"));
         OptionalDouble cached = in.number(node, "cached_input", at + ".cached_input", 0);
+        OptionalDouble write = in.number(node, "cache_write", at + ".cache_write", 0);
         String currency = in.text(node, "currency", at + ".currency").orElse("USD");
-        return Optional.of(new Price(input, cached, output, currency));
+        return Optional.of(new Price(input, cached, write, output, currency));
     }
 
     private static Budgets budgets(ConfigReader in, JsonNode top) {

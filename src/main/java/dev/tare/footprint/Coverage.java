@@ -15,8 +15,9 @@ import java.util.Map;
  */
 public record Coverage(List<String> computes, Map<String, List<String>> missing, boolean outputConfigured) {
     /** The FOOTPRINT keys of the JSON contract, in order. */
-    public static final List<String> KEYS = List.of("input_tokens", "framing_tokens", "cached_input_tokens",
-            "cost_per_call", "cost_per_month", "currency", "params_total", "params_active", "prefill_flops",
+    public static final List<String> KEYS = List.of("input_tokens", "framing_tokens", "static_prefix_tokens",
+            "cacheable_prefix_tokens", "cache_hit_rate", "cached_input_tokens", "cost_per_call", "cost_per_month",
+            "cost_per_month_uncached", "currency", "params_total", "params_active", "prefill_flops",
             "prefill_ms", "decode_ms_per_token", "tokens_per_second", "time_to_first_token_ms", "weight_bytes",
             "kv_bytes_per_token", "kv_cache_bytes", "max_concurrent", "context_limit", "concurrency",
             "decode_bytes_per_step", "tokens_per_second_total", "end_to_end_ms");
@@ -33,10 +34,19 @@ public record Coverage(List<String> computes, Map<String, List<String>> missing,
         Map<String, List<String>> needs = new LinkedHashMap<>();
         needs.put("input_tokens", List.of());
         needs.put("framing_tokens", List.of());
-        needs.put("cached_input_tokens", absent(target.prefixCacheMinTokens().isEmpty(), "prefix_cache_min_tokens"));
+        List<String> prefixCache = absent(target.prefixCache().isEmpty(), "prefix_cache");
+        needs.put("static_prefix_tokens", prefixCache);
+        needs.put("cacheable_prefix_tokens", prefixCache);
+        // A provider's cache is found as often as it is used; a server's keeps its blocks.
+        List<String> hits = target.prefixCache().isPresent() && target.prefixCache().get().ttlSeconds().isPresent()
+                ? absent(target.callsPerDay().isEmpty(), "calls_per_day") : prefixCache;
+        needs.put("cache_hit_rate", hits);
+        needs.put("cached_input_tokens", hits);
         List<String> price = absent(target.price().isEmpty(), "price");
         needs.put("cost_per_call", price);
-        needs.put("cost_per_month", join(price, absent(target.callsPerDay().isEmpty(), "calls_per_day")));
+        List<String> month = join(price, absent(target.callsPerDay().isEmpty(), "calls_per_day"));
+        needs.put("cost_per_month", month);
+        needs.put("cost_per_month_uncached", month);
         needs.put("currency", price);
         List<String> model = absent(target.model().isEmpty(), "model");
         List<String> weights = join(model, absent(target.weightBits().isEmpty(), "weight_bits"));

@@ -13,9 +13,11 @@ import java.util.OptionalLong;
  * @param inputTokens          tokens sent per call (I): estimated tokens plus framing
  * @param framingTokens        per-message and per-reply tokens the target's chat format adds
  * @param outputTokens         output tokens assumed per call (O); 0 when none are configured
- * @param cachedInputTokens    leading input tokens served from the prefix cache, on targets with one
- * @param costPerCall          price of one call, in {@code currency}
- * @param costPerMonth         price of a month (30 days) of the target's calls, in {@code currency}
+ * @param caching              the static prefix and what the prefix cache makes of it, on targets with one
+ * @param costPerCall          expected price of one call, in {@code currency}, with the prefix cache's hits
+ *                             and writes
+ * @param costPerMonth         expected price of a month (30 days) of the template's calls, in {@code currency}
+ * @param costPerMonthUncached the same month with nothing cached
  * @param currency             the currency of the costs
  * @param prefillFlops         floating-point operations to process the prompt
  * @param prefillMillis        time before the first output token, in milliseconds
@@ -29,8 +31,9 @@ import java.util.OptionalLong;
  *                             makes every figure here a calibrated estimate
  * @param load                 the model's params and the figures under load, on targets with a model
  */
-public record Footprint(int inputTokens, int framingTokens, int outputTokens, OptionalInt cachedInputTokens,
-                        OptionalDouble costPerCall, OptionalDouble costPerMonth, Optional<String> currency,
+public record Footprint(int inputTokens, int framingTokens, int outputTokens, Optional<Caching> caching,
+                        OptionalDouble costPerCall, OptionalDouble costPerMonth, OptionalDouble costPerMonthUncached,
+                        Optional<String> currency,
                         OptionalDouble prefillFlops, OptionalDouble prefillMillis,
                         OptionalDouble decodeMillisPerToken, OptionalLong weightBytes, OptionalLong kvBytesPerToken,
                         OptionalLong kvCacheBytes, OptionalLong maxConcurrent, boolean calibrated,
@@ -38,10 +41,40 @@ public record Footprint(int inputTokens, int framingTokens, int outputTokens, Op
 
     /** Token counts only, as for a target that names nothing but a tokenizer. */
     public Footprint(int inputTokens, int framingTokens) {
-        this(inputTokens, framingTokens, 0, OptionalInt.empty(), OptionalDouble.empty(), OptionalDouble.empty(),
-                Optional.empty(), OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(),
+        this(inputTokens, framingTokens, 0, Optional.empty(), OptionalDouble.empty(), OptionalDouble.empty(),
+                OptionalDouble.empty(), Optional.empty(), OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(),
                 OptionalLong.empty(), OptionalLong.empty(), OptionalLong.empty(), OptionalLong.empty(), false,
                 Optional.empty());
+    }
+
+    /**
+     * A call's static prefix and the prefix cache (design.md, "Prefix caching").
+     *
+     * @param staticPrefixTokens    P: the leading tokens every call of the template sends alike
+     * @param cacheablePrefixTokens C: the part of P the cache holds (its minimum and steps, or whole blocks)
+     * @param hitRate               h: the share of calls that find C in the cache (1 on a server's cache)
+     * @param sharedCallsPerDay     the calls a day of every template sharing those C tokens, which h comes from
+     */
+    public record Caching(int staticPrefixTokens, int cacheablePrefixTokens, double hitRate,
+                          OptionalDouble sharedCallsPerDay) {
+        /** The cached input tokens expected per call: h × C. */
+        public double cachedInputTokens() {
+            return hitRate * cacheablePrefixTokens;
+        }
+
+        /**
+         * Whether h is known: from the traffic of a provider's cache (without traffic h is taken as 0,
+         * every cacheable token written), or a server's cache, which keeps its blocks (h = 1).
+         */
+        public boolean hitRateKnown() {
+            return sharedCallsPerDay.isPresent() || hitRate == 1;
+        }
+    }
+
+    /** The cached input tokens expected per call, on targets with a prefix cache whose hit rate is known. */
+    public OptionalDouble cachedInputTokens() {
+        return caching.filter(Caching::hitRateKnown).isPresent()
+                ? OptionalDouble.of(caching.get().cachedInputTokens()) : OptionalDouble.empty();
     }
 
     /**

@@ -13,27 +13,35 @@ public final class Footprints {
     private Footprints() {
     }
 
-    /** The footprint of {@code call} on {@code target}. */
+    /** The footprint of {@code call} on {@code target}, called as often as the target's {@code calls_per_day}. */
     public static Footprint estimate(Target target, CallSize call) {
+        return estimate(target, call, Traffic.of(target));
+    }
+
+    /** The footprint of {@code call} on {@code target}, called as {@code traffic} says. */
+    public static Footprint estimate(Target target, CallSize call, Traffic traffic) {
         int input = call.inputTokens();
         int output = call.outputTokens();
-        OptionalInt cached = OptionalInt.empty();
-        if (target.prefixCacheMinTokens().isPresent()) {
-            int shared = Math.min(call.sharedPrefixTokens(), input);
-            cached = OptionalInt.of(shared > 0 && shared >= target.prefixCacheMinTokens().getAsInt() ? shared : 0);
-        }
+        Optional<Footprint.Caching> caching = target.prefixCache().map(cache -> caching(cache, call, traffic));
+        int cacheable = caching.map(Footprint.Caching::cacheablePrefixTokens).orElse(0);
+        double hitRate = caching.map(Footprint.Caching::hitRate).orElse(0.0);
 
         OptionalDouble costPerCall = OptionalDouble.empty();
         OptionalDouble costPerMonth = OptionalDouble.empty();
+        OptionalDouble costPerMonthUncached = OptionalDouble.empty();
         Optional<String> currency = Optional.empty();
         if (target.price().isPresent()) {
             Price price = target.price().get();
-            double perCall = Formulas.costPerCall(input, cached.orElse(0), output, price.inputPerMillion(),
-                    price.cachedInputPerMillion().orElse(price.inputPerMillion()), price.outputPerMillion());
+            double perCall = Formulas.costPerCall(input, cacheable, hitRate, output, price.inputPerMillion(),
+                    price.cachedInput(), price.cacheWrite(), price.outputPerMillion());
             costPerCall = OptionalDouble.of(perCall);
             currency = Optional.of(price.currency());
-            if (target.callsPerDay().isPresent()) {
-                costPerMonth = OptionalDouble.of(Formulas.costPerMonth(perCall, target.callsPerDay().getAsDouble()));
+            if (traffic.callsPerDay().isPresent()) {
+                double calls = traffic.callsPerDay().getAsDouble();
+                costPerMonth = OptionalDouble.of(Formulas.costPerMonth(perCall, calls));
+                double uncached = Formulas.costPerCall(input, 0, output, price.inputPerMillion(), price.cachedInput(),
+                        price.outputPerMillion());
+                costPerMonthUncached = OptionalDouble.of(Formulas.costPerMonth(uncached, calls));
             }
         }
 
@@ -49,7 +57,9 @@ public final class Footprints {
             ModelShape model = target.model().get();
             int batch = target.batch();
             long tokens = (long) input + output;
-            prefillFlops = OptionalDouble.of(Formulas.prefillFlops(model, input));
+            // Tokens found in the prefix cache are not computed again: on a server's cache the static
+            // prefix's whole blocks, on a provider's the expected h × C.
+            prefillFlops = OptionalDouble.of(Formulas.prefillFlops(model, input, Math.round(hitRate * cacheable)));
             if (target.weightBits().isPresent()) {
                 weightBytes = OptionalDouble.of(Formulas.weightBytes(model.paramsTotal(),
                         target.weightBits().getAsDouble()));
@@ -99,9 +109,21 @@ public final class Footprints {
             load = Optional.of(new Footprint.Load(model.paramsTotal(), model.paramsActive(), model.contextLimit(),
                     batch, stepBytes, perRequest, total, firstToken, endToEnd));
         }
-        return new Footprint(input, call.framingTokens(), output, cached, costPerCall, costPerMonth, currency,
+        return new Footprint(input, call.framingTokens(), output, caching, costPerCall, costPerMonth,
+                costPerMonthUncached, currency,
                 prefillFlops, prefillMillis, decodeMillis, bytes(weightBytes), bytes(kvPerToken), bytes(kvCache),
                 maxConcurrent, target.isCalibrated(), load);
+    }
+
+    /**
+     * The static prefix P (at most the input), the part C the cache holds, and the hit rate from the
+     * traffic of every template sharing C: none without traffic on a provider's cache, all on a server's.
+     */
+    private static Footprint.Caching caching(PrefixCache cache, CallSize call, Traffic traffic) {
+        int prefix = Math.min(call.staticPrefixTokens(), call.inputTokens());
+        int cacheable = cache.cacheable(prefix);
+        double hitRate = cache.hitRate(traffic.sharedCallsPerDay().orElse(0));
+        return new Footprint.Caching(prefix, cacheable, hitRate, traffic.sharedCallsPerDay());
     }
 
     /** Whole bytes: a fractional precision such as 4.5 bits can leave half a byte. */

@@ -187,13 +187,92 @@ public final class Formulas {
 
     /**
      * cost_per_call = ((I − cached) × input + cached × cached_input + O × output) / 1e6, prices per
-     * million tokens.
+     * million tokens: every cached token read from the cache.
      */
     public static double costPerCall(long inputTokens, long cachedTokens, long outputTokens, double inputPerMillion,
                                      double cachedInputPerMillion, double outputPerMillion) {
-        return ((inputTokens - cachedTokens) * inputPerMillion + cachedTokens * cachedInputPerMillion
-                + outputTokens * outputPerMillion) / 1e6;
+        return costPerCall(inputTokens, cachedTokens, 1, outputTokens, inputPerMillion, cachedInputPerMillion,
+                inputPerMillion, outputPerMillion);
     }
+
+    /**
+     * cost_per_call = ((I − C) × p_in + C × (h × p_cached + (1 − h) × p_write) + O × p_out) / 1e6
+     * (design.md, "Prefix caching — hosted"): of the C cacheable tokens, a share h is read from the
+     * cache and the rest is written to it, at the write price (the input price when the provider
+     * charges no premium).
+     */
+    public static double costPerCall(long inputTokens, long cacheableTokens, double hitRate, long outputTokens,
+                                     double inputPerMillion, double cachedInputPerMillion, double cacheWritePerMillion,
+                                     double outputPerMillion) {
+        double cacheable = cacheableTokens * (hitRate * cachedInputPerMillion + (1 - hitRate) * cacheWritePerMillion);
+        return ((inputTokens - cacheableTokens) * inputPerMillion + cacheable + outputTokens * outputPerMillion) / 1e6;
+    }
+
+    /**
+     * C = 0 when P &lt; min, else min + floor((P − min) / step) × step: providers cache a prefix from a
+     * minimum length on, in steps (design.md, "Prefix caching — hosted"). With min = step = a block
+     * size this is a self-hosted server's whole blocks, floor(P / block) × block (PagedAttention,
+     * Kwon et al. 2023).
+     */
+    public static int cacheableTokens(int prefixTokens, int minTokens, int stepTokens) {
+        if (minTokens < 1 || stepTokens < 1) {
+            throw new IllegalArgumentException("the cache's minimum and step must be at least 1 token");
+        }
+        if (prefixTokens < minTokens) {
+            return 0;
+        }
+        return minTokens + (prefixTokens - minTokens) / stepTokens * stepTokens;
+    }
+
+    /**
+     * h = 1 − e^(−λ × ttl), λ the calls per second that share the cached prefix: with calls arriving
+     * as a Poisson process and each hit keeping the entry alive for another ttl, a call finds the
+     * entry when the call before it came less than ttl earlier (design.md, "Prefix caching — hosted").
+     */
+    public static double hitRate(double callsPerDay, double ttlSeconds) {
+        if (callsPerDay <= 0 || ttlSeconds <= 0) {
+            return 0;
+        }
+        return 1 - Math.exp(-callsPerDay / SECONDS_PER_DAY * ttlSeconds);
+    }
+
+    /**
+     * The traffic below which caching a prefix costs more than it saves, in calls per day of every
+     * template sharing it: caching pays when h × p_cached + (1 − h) × p_write &lt; p_in, so from
+     * h* = (p_write − p_in) / (p_write − p_cached) on, reached at λ* = −ln(1 − h*) / ttl. 0 when
+     * writes carry no premium (caching never costs more); infinite when reads cost no less than
+     * uncached input or the entry lives no time (it never pays).
+     */
+    public static double breakEvenCallsPerDay(double ttlSeconds, double inputPerMillion, double cachedInputPerMillion,
+                                              double cacheWritePerMillion) {
+        if (cacheWritePerMillion <= inputPerMillion) {
+            return 0;
+        }
+        if (cachedInputPerMillion >= inputPerMillion || ttlSeconds <= 0) {
+            return Double.POSITIVE_INFINITY;
+        }
+        double hit = (cacheWritePerMillion - inputPerMillion) / (cacheWritePerMillion - cachedInputPerMillion);
+        return -Math.log(1 - hit) / ttlSeconds * SECONDS_PER_DAY;
+    }
+
+    /**
+     * prefill_flops when the first {@code cachedTokens} of the prompt are already in the KV cache:
+     * only the I − C_b new tokens are computed, each attending to all tokens before it,
+     * 2 × N_active × (I − C_b) + 2 × L × (I² − C_b²) × (H × D) (design.md, "Prefix caching —
+     * self-hosted").
+     */
+    public static double prefillFlops(ModelShape model, long inputTokens, long cachedTokens) {
+        if (cachedTokens <= 0) {
+            return prefillFlops(model, inputTokens);
+        }
+        long cached = Math.min(cachedTokens, inputTokens);
+        if (cached == inputTokens) {
+            return 2 * model.outputParams();
+        }
+        return prefillFlops(model, inputTokens) - prefillFlops(model, cached) + 2 * model.outputParams();
+    }
+
+    private static final double SECONDS_PER_DAY = 86_400;
 
     /** cost_per_month = cost_per_call × calls_per_day × 30. */
     public static double costPerMonth(double costPerCall, double callsPerDay) {

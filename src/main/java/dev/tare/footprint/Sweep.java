@@ -145,9 +145,10 @@ public final class Sweep {
 
     private static CallSize with(CallSize call, String key, double value) {
         return switch (key) {
-            case "input_tokens" -> new CallSize((int) value, 0, call.outputTokens(), 0);
+            case "input_tokens" -> new CallSize((int) value, 0, call.outputTokens(),
+                    Math.min(call.staticPrefixTokens(), (int) value));
             case "output_tokens" -> new CallSize(call.inputTokens(), call.framingTokens(), (int) value,
-                    call.sharedPrefixTokens());
+                    call.staticPrefixTokens());
             default -> call;
         };
     }
@@ -161,7 +162,7 @@ public final class Sweep {
                     OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty())),
                     key, OptionalDouble.of(value)));
         }
-        Target swept = new Target(t.name(), t.tokenizer(), t.price(), t.prefixCacheMinTokens(),
+        Target swept = new Target(t.name(), t.tokenizer(), t.price(), t.prefixCache(),
                 t.messageOverheadTokens(), t.replyOverheadTokens(), t.callsPerDay(), t.outputTokens(), t.model(),
                 weightBits, kvBits, device, t.scale(), t.toolOverheadTokens(), t.concurrency());
         return key.equals("concurrency") ? swept.withConcurrency((int) value) : swept;

@@ -11,7 +11,7 @@ import java.util.OptionalInt;
  * @param name                  the name used with {@code --target} and in front matter
  * @param tokenizer             a built-in encoding name or a path to a {@code tokenizer.json}
  * @param price                 per-million-token prices, for hosted targets
- * @param prefixCacheMinTokens  the shortest prefix the provider caches
+ * @param prefixCache           the provider's or the server's prefix cache, when it has one
  * @param messageOverheadTokens framing tokens the chat format adds per message
  * @param replyOverheadTokens   framing tokens the chat format adds per call, priming the reply
  * @param callsPerDay           traffic, for monthly figures
@@ -25,7 +25,7 @@ import java.util.OptionalInt;
  * @param toolOverheadTokens    tokens the provider adds per tool definition sent with a call
  * @param concurrency           requests served at once (the decode batch); batch 1 when not set
  */
-public record Target(String name, String tokenizer, Optional<Price> price, OptionalInt prefixCacheMinTokens,
+public record Target(String name, String tokenizer, Optional<Price> price, Optional<PrefixCache> prefixCache,
                            int messageOverheadTokens, int replyOverheadTokens, OptionalDouble callsPerDay,
                            OptionalInt outputTokens, Optional<ModelShape> model, OptionalDouble weightBits,
                            OptionalDouble kvBits, Optional<Device> device, double scale, int toolOverheadTokens,
@@ -41,19 +41,26 @@ public record Target(String name, String tokenizer, Optional<Price> price, Optio
     }
 
     /** A target that serves one request at a time unless told otherwise. */
-    public Target(String name, String tokenizer, Optional<Price> price, OptionalInt prefixCacheMinTokens,
+    public Target(String name, String tokenizer, Optional<Price> price, Optional<PrefixCache> prefixCache,
                         int messageOverheadTokens, int replyOverheadTokens, OptionalDouble callsPerDay,
                         OptionalInt outputTokens, Optional<ModelShape> model, OptionalDouble weightBits,
                         OptionalDouble kvBits, Optional<Device> device, double scale, int toolOverheadTokens) {
-        this(name, tokenizer, price, prefixCacheMinTokens, messageOverheadTokens, replyOverheadTokens, callsPerDay,
+        this(name, tokenizer, price, prefixCache, messageOverheadTokens, replyOverheadTokens, callsPerDay,
                 outputTokens, model, weightBits, kvBits, device, scale, toolOverheadTokens, OptionalInt.empty());
     }
 
     /** The same target serving {@code requests} requests at once. */
     public Target withConcurrency(int requests) {
-        return new Target(name, tokenizer, price, prefixCacheMinTokens, messageOverheadTokens,
+        return new Target(name, tokenizer, price, prefixCache, messageOverheadTokens,
                 replyOverheadTokens, callsPerDay, outputTokens, model, weightBits, kvBits, device, scale,
                 toolOverheadTokens, OptionalInt.of(requests));
+    }
+
+    /** The same target with each template called {@code calls} times a day. */
+    public Target withCallsPerDay(double calls) {
+        return new Target(name, tokenizer, price, prefixCache, messageOverheadTokens, replyOverheadTokens,
+                OptionalDouble.of(calls), outputTokens, model, weightBits, kvBits, device, scale, toolOverheadTokens,
+                concurrency);
     }
 
     /** The decode batch: {@code concurrency}, else 1. */
@@ -62,11 +69,11 @@ public record Target(String name, String tokenizer, Optional<Price> price, Optio
     }
 
     /** A target without calibration: scale 1 and no per-tool overhead. */
-    public Target(String name, String tokenizer, Optional<Price> price, OptionalInt prefixCacheMinTokens,
+    public Target(String name, String tokenizer, Optional<Price> price, Optional<PrefixCache> prefixCache,
                         int messageOverheadTokens, int replyOverheadTokens, OptionalDouble callsPerDay,
                         OptionalInt outputTokens, Optional<ModelShape> model, OptionalDouble weightBits,
                         OptionalDouble kvBits, Optional<Device> device) {
-        this(name, tokenizer, price, prefixCacheMinTokens, messageOverheadTokens, replyOverheadTokens, callsPerDay,
+        this(name, tokenizer, price, prefixCache, messageOverheadTokens, replyOverheadTokens, callsPerDay,
                 outputTokens, model, weightBits, kvBits, device, 1.0, 0);
     }
 
@@ -81,16 +88,16 @@ public record Target(String name, String tokenizer, Optional<Price> price, Optio
     }
 
     /** A target without a model or device: priced, or tokens only. */
-    public Target(String name, String tokenizer, Optional<Price> price, OptionalInt prefixCacheMinTokens,
+    public Target(String name, String tokenizer, Optional<Price> price, Optional<PrefixCache> prefixCache,
                         int messageOverheadTokens, int replyOverheadTokens, OptionalDouble callsPerDay,
                         OptionalInt outputTokens) {
-        this(name, tokenizer, price, prefixCacheMinTokens, messageOverheadTokens, replyOverheadTokens, callsPerDay,
+        this(name, tokenizer, price, prefixCache, messageOverheadTokens, replyOverheadTokens, callsPerDay,
                 outputTokens, Optional.empty(), OptionalDouble.empty(), OptionalDouble.empty(), Optional.empty());
     }
 
     /** A target that names only a tokenizer. */
     public static Target ofTokenizer(String name, String tokenizer) {
-        return new Target(name, tokenizer, Optional.empty(), OptionalInt.empty(), 0, 0, OptionalDouble.empty(),
+        return new Target(name, tokenizer, Optional.empty(), Optional.empty(), 0, 0, OptionalDouble.empty(),
                 OptionalInt.empty());
     }
 }

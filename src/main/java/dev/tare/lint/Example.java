@@ -16,7 +16,7 @@ import java.util.TreeMap;
  */
 public record Example(String before, String after, Map<String, Integer> settings) {
     /** The setting that stands in for the target's shortest cacheable prefix. */
-    public static final String PREFIX_CACHE_MIN_TOKENS = "prefix_cache_min_tokens";
+    public static final String PREFIX_CACHE_MIN_TOKENS = "prefix_cache.min_tokens";
     /** The setting that stands in for the template's count in a committed baseline, on the default tokenizer. */
     public static final String BASELINE_TOKENS = "baseline_tokens";
     /** The setting that stands in for {@code rules.limits.shared_block_tokens}. */

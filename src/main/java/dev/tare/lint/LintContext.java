@@ -2,6 +2,7 @@ package dev.tare.lint;
 
 import dev.tare.TareException;
 import dev.tare.config.TareConfig;
+import dev.tare.footprint.PrefixCache;
 import dev.tare.footprint.Target;
 import dev.tare.overlap.RepositoryWords;
 import dev.tare.source.YamlDocument;
@@ -219,14 +220,17 @@ public final class LintContext {
         return config.budgets().budgetFor(template.path());
     }
 
-    /** The shortest prefix the template's targets cache: the smallest configured, else {@value #DEFAULT_PREFIX_CACHE_MIN_TOKENS}. */
+    /** The shortest prefix the providers of the template's targets cache: the smallest configured, else {@value #DEFAULT_PREFIX_CACHE_MIN_TOKENS}. */
     public int prefixCacheMinTokens(Template template) {
         Integer setting = settings.get(Example.PREFIX_CACHE_MIN_TOKENS);
         if (setting != null) {
             return setting;
         }
-        return targets(template).stream().map(Target::prefixCacheMinTokens).filter(OptionalInt::isPresent)
-                .mapToInt(OptionalInt::getAsInt).min().orElse(DEFAULT_PREFIX_CACHE_MIN_TOKENS);
+        // A provider's minimum: a server's cache of small blocks would make nearly every template's
+        // start cacheable, which is not what this minimum is for.
+        return targets(template).stream().flatMap(target -> target.prefixCache().stream())
+                .filter(cache -> cache.ttlSeconds().isPresent())
+                .mapToInt(PrefixCache::minTokens).min().orElse(DEFAULT_PREFIX_CACHE_MIN_TOKENS);
     }
 
     /** The tokenizer of one target. */

@@ -3,7 +3,9 @@ package dev.tare.overlap;
 import dev.tare.footprint.CallSize;
 import dev.tare.footprint.Footprint;
 import dev.tare.footprint.Footprints;
+import dev.tare.footprint.PrefixCache;
 import dev.tare.footprint.Target;
+import dev.tare.footprint.Traffic;
 import dev.tare.template.Renderer;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
@@ -12,14 +14,15 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.OptionalDouble;
+import java.util.function.Function;
 
 /**
- * Prefix caching across the templates of a repository: per target with a prefix cache, the leading
- * static tokens each template shares with another (design.md, "Formulas": cached input tokens), as
- * the templates stand and as they would be with every template's per-call parts after its static
- * parts, and what caching them saves per month. The leading token ids of each template are taken
- * once ({@link #leading}); {@link #share} then compares all of them at once, sorted, in
- * n log n comparisons rather than one per pair.
+ * Prefix caching across the templates of a repository (design.md, "Prefix caching"): each
+ * template's static prefix on a target with a prefix cache, how much of it the cache holds, and how
+ * often it is found there, from the traffic of every template whose calls begin with the same
+ * cacheable tokens; as the templates stand, and as they would be with every template's per-call
+ * parts after its static parts. The leading token ids of each template are taken once
+ * ({@link #leading}); {@link #share} then compares all of them at once, sorted.
  */
 public final class CachePrefixes {
     /**
@@ -47,12 +50,35 @@ public final class CachePrefixes {
     /**
      * A template's leading token ids on one tokenizer, at most {@link #MAX_LEADING_IDS} each.
      *
+     * @param head      what a request sends before the template's text: its tool files, by path
      * @param now       the ids of the text before the first per-call part
      * @param reordered the ids of the reordered text (the same array when the template has no variable)
      */
-    public record LeadingIds(int[] now, int[] reordered) {
-        /** Leading ids of a template that takes no part in prefix sharing (a partial or a tool file). */
-        public static final LeadingIds NONE = new LeadingIds(new int[0], new int[0]);
+    public record LeadingIds(String head, int[] now, int[] reordered) {
+    }
+
+    /**
+     * One template's call on the target, and its leading ids there.
+     *
+     * @param call    the call, its static prefix as written included
+     * @param leading the leading ids the prefix ends in
+     * @param traffic how often the template is called
+     */
+    public record Prefix(CallSize call, LeadingIds leading, Traffic traffic) {
+        /** The static prefix with every per-call part last: the same tools and framing, the reordered text. */
+        int reorderedTokens() {
+            return Math.min(call.inputTokens(), call.staticPrefixTokens() - leading.now().length + leading.reordered().length);
+        }
+    }
+
+    /**
+     * A template's footprint with its prefix cached as the traffic of every template sharing it
+     * allows, and what reordering would change.
+     *
+     * @param footprint the footprint as the template stands
+     * @param share     the prefix beside it
+     */
+    public record Shared(Footprint footprint, PrefixShare share) {
     }
 
     /** The leading texts of {@code template}, rendered once and shared by every target. */
@@ -62,11 +88,11 @@ public final class CachePrefixes {
         return new Texts(now, reordered);
     }
 
-    /** The leading token ids of {@code texts} on {@code tokenizer}. */
-    public static LeadingIds leading(Texts texts, Tokenizer tokenizer) {
+    /** The leading token ids of {@code texts} on {@code tokenizer}, after {@code head}. */
+    public static LeadingIds leading(String head, Texts texts, Tokenizer tokenizer) {
         int[] now = ids(tokenizer, texts.now());
         int[] reordered = texts.reordered().equals(texts.now()) ? now : ids(tokenizer, texts.reordered());
-        return new LeadingIds(now, reordered);
+        return new LeadingIds(head, now, reordered);
     }
 
     private static int[] ids(Tokenizer tokenizer, List<String> messages) {
@@ -85,46 +111,59 @@ public final class CachePrefixes {
     }
 
     /**
-     * How each template's leading tokens are shared on {@code target}, which must have a prefix
-     * cache.
+     * Each template's footprint on {@code target}, which must have a prefix cache, with the traffic
+     * of the templates sharing its cacheable prefix, and the same with every per-call part last.
      *
-     * @param leading each template's leading ids on the target's tokenizer, in any order
-     * @param calls   each template's call on the target, in the same order, without cached tokens
-     * @return one share per template, in the same order
+     * @return one result per prefix, in the same order
      */
-    public static List<PrefixShare> share(Target target, List<LeadingIds> leading, List<CallSize> calls) {
-        int minimum = target.prefixCacheMinTokens().orElseThrow(
+    public static List<Shared> share(Target target, List<Prefix> prefixes) {
+        PrefixCache cache = target.prefixCache().orElseThrow(
                 () -> new IllegalArgumentException("target " + target.name() + " has no prefix cache"));
-        int[] now = SharedPrefixes.lengths(leading.stream().map(LeadingIds::now).toList());
-        int[] reordered = SharedPrefixes.lengths(leading.stream().map(LeadingIds::reordered).toList());
-        List<PrefixShare> shares = new ArrayList<>(leading.size());
-        for (int i = 0; i < leading.size(); i++) {
-            CallSize call = calls.get(i);
-            int cached = cached(now[i], minimum, call);
-            int cachedReordered = cached(reordered[i], minimum, call);
-            Footprint uncached = Footprints.estimate(target, withShared(call, 0));
-            shares.add(new PrefixShare(now[i], cached, reordered[i], cachedReordered,
-                    saving(target, uncached, call, cached), saving(target, uncached, call, cachedReordered)));
+        int n = prefixes.size();
+        List<CallSize> now = new ArrayList<>(n);
+        List<CallSize> reordered = new ArrayList<>(n);
+        for (Prefix prefix : prefixes) {
+            now.add(prefix.call());
+            reordered.add(prefix.call().withStaticPrefix(prefix.reorderedTokens()));
         }
-        return shares;
+        double[] pooledNow = pooled(cache, prefixes, now, LeadingIds::now);
+        double[] pooledReordered = pooled(cache, prefixes, reordered, LeadingIds::reordered);
+        List<Shared> shared = new ArrayList<>(n);
+        for (int i = 0; i < n; i++) {
+            Traffic traffic = prefixes.get(i).traffic();
+            Footprint footprint = Footprints.estimate(target, now.get(i), traffic.sharedBy(pooledNow[i]));
+            Footprint whenReordered = Footprints.estimate(target, reordered.get(i), traffic.sharedBy(pooledReordered[i]));
+            shared.add(new Shared(footprint, new PrefixShare(reordered.get(i).staticPrefixTokens(),
+                    saving(footprint), saving(whenReordered))));
+        }
+        return shared;
     }
 
-    /** The cached tokens of a shared run: all of it from the cache's minimum on, none below, never more than the call. */
-    private static int cached(int shared, int minimum, CallSize call) {
-        int within = Math.min(shared, call.inputTokens());
-        return within > 0 && within >= minimum ? within : 0;
+    /** The calls a day of the templates whose first C tokens equal each one's, C its cacheable prefix. */
+    private static double[] pooled(PrefixCache cache, List<Prefix> prefixes, List<CallSize> calls,
+                                   Function<LeadingIds, int[]> ids) {
+        int n = prefixes.size();
+        List<SharedPrefixes.Sequence> sequences = new ArrayList<>(n);
+        int[] depths = new int[n];
+        double[] weights = new double[n];
+        for (int i = 0; i < n; i++) {
+            Prefix prefix = prefixes.get(i);
+            int[] leading = ids.apply(prefix.leading());
+            sequences.add(new SharedPrefixes.Sequence(prefix.leading().head(), leading));
+            CallSize call = calls.get(i);
+            // The prefix's tools and framing stand before its text: the text must match from there on.
+            int beforeText = call.staticPrefixTokens() - Math.min(leading.length, call.staticPrefixTokens());
+            depths[i] = cache.cacheable(call.staticPrefixTokens()) - beforeText;
+            weights[i] = prefix.traffic().callsPerDay().orElse(0);
+        }
+        return SharedPrefixes.pooled(sequences, depths, weights);
     }
 
-    /** The monthly cost without the cache less the monthly cost with {@code cached} tokens cached. */
-    private static OptionalDouble saving(Target target, Footprint uncached, CallSize call, int cached) {
-        if (uncached.costPerMonth().isEmpty()) {
+    /** The monthly cost without the cache less the expected monthly cost with it. */
+    private static OptionalDouble saving(Footprint footprint) {
+        if (footprint.costPerMonth().isEmpty() || footprint.costPerMonthUncached().isEmpty()) {
             return OptionalDouble.empty();
         }
-        Footprint withCache = Footprints.estimate(target, withShared(call, cached));
-        return OptionalDouble.of(uncached.costPerMonth().getAsDouble() - withCache.costPerMonth().getAsDouble());
-    }
-
-    private static CallSize withShared(CallSize call, int shared) {
-        return new CallSize(call.inputTokens(), call.framingTokens(), call.outputTokens(), shared);
+        return OptionalDouble.of(footprint.costPerMonthUncached().getAsDouble() - footprint.costPerMonth().getAsDouble());
     }
 }

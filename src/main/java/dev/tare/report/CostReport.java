@@ -6,6 +6,7 @@ import dev.tare.app.CostEstimate;
 import dev.tare.footprint.CallSize;
 import dev.tare.footprint.Cautions;
 import dev.tare.footprint.Footprint;
+import dev.tare.footprint.Formulas;
 import dev.tare.footprint.Precision;
 import dev.tare.footprint.Sweep;
 import dev.tare.footprint.Target;
@@ -123,7 +124,11 @@ public final class CostReport {
         table.row(List.of("tokenizer", target.tokenizer()));
         target.price().ifPresent(p -> table.row(List.of("price", Figures.price(p))));
         target.callsPerDay().ifPresent(c -> table.row(List.of("calls per day", Figures.significant(c))));
-        target.prefixCacheMinTokens().ifPresent(m -> table.row(List.of("prefix cache", "from " + Figures.count(m) + " tokens")));
+        target.prefixCache().ifPresent(cache -> table.row(List.of("prefix cache", Figures.prefixCache(cache))));
+        target.price().filter(p -> p.cacheWrite() > p.inputPerMillion()).ifPresent(p -> target.prefixCache()
+                .flatMap(cache -> cache.ttlSeconds().stream().boxed().findFirst())
+                .ifPresent(ttl -> table.row(List.of("caching pays from", Figures.breakEven(
+                        Formulas.breakEvenCallsPerDay(ttl, p.inputPerMillion(), p.cachedInput(), p.cacheWrite()))))));
         target.model().ifPresent(m -> table.row(List.of("model", Figures.model(m))));
         if (target.model().isPresent()) {
             table.row(List.of("weights", Figures.bits(target.weightBits())));
@@ -140,13 +145,24 @@ public final class CostReport {
     private static String figures(Footprint f) {
         TextTable table = new TextTable(List.of("FIGURE", "ESTIMATE"), false, false);
         table.row(List.of("input tokens", Figures.count(f.inputTokens())));
-        f.cachedInputTokens().ifPresent(c -> table.row(List.of("cached input tokens", Figures.count(c))));
+        f.caching().ifPresent(c -> {
+            table.row(List.of("static prefix tokens", Figures.count(c.staticPrefixTokens())));
+            table.row(List.of("cacheable prefix tokens", Figures.count(c.cacheablePrefixTokens())));
+            if (c.hitRateKnown()) {
+                table.row(List.of("cache hit rate", Figures.percent(c.hitRate())));
+                table.row(List.of("cached input tokens (expected)", Figures.count(Math.round(c.cachedInputTokens()))));
+            }
+        });
         table.row(List.of("output tokens", Figures.count(f.outputTokens())));
         if (f.hasCost()) {
             table.row(List.of("cost per call", Figures.perCall(f)));
         }
         if (f.costPerMonth().isPresent()) {
             table.row(List.of("cost per month", Figures.perMonth(f)));
+        }
+        if (f.caching().isPresent() && f.costPerMonthUncached().isPresent()) {
+            table.row(List.of("cost per month uncached",
+                    Figures.money(f.costPerMonthUncached().getAsDouble(), f.currency().orElse(""), 2)));
         }
         f.load().ifPresent(load -> {
             table.row(List.of("params total", Figures.params(load.paramsTotal()) + " (stored: memory)"));

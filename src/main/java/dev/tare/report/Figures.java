@@ -6,6 +6,7 @@ import dev.tare.footprint.Device;
 import dev.tare.footprint.Footprint;
 import dev.tare.footprint.ModelShape;
 import dev.tare.footprint.Precision;
+import dev.tare.footprint.PrefixCache;
 import dev.tare.footprint.Price;
 import dev.tare.footprint.Target;
 import java.math.BigDecimal;
@@ -36,7 +37,15 @@ final class Figures {
      */
     static Map<String, Object> fields(Footprint f) {
         Map<String, Object> values = new java.util.HashMap<>();
-        f.cachedInputTokens().ifPresent(v -> values.put("cached_input_tokens", v));
+        f.caching().ifPresent(c -> {
+            values.put("static_prefix_tokens", c.staticPrefixTokens());
+            values.put("cacheable_prefix_tokens", c.cacheablePrefixTokens());
+            if (c.hitRateKnown()) {
+                values.put("cache_hit_rate", round(c.hitRate(), 4));
+                values.put("cached_input_tokens", round(c.cachedInputTokens(), 1));
+            }
+        });
+        f.costPerMonthUncached().ifPresent(v -> values.put("cost_per_month_uncached", v));
         f.costPerCall().ifPresent(v -> values.put("cost_per_call", v));
         f.costPerMonth().ifPresent(v -> values.put("cost_per_month", v));
         f.currency().ifPresent(v -> values.put("currency", v));
@@ -74,6 +83,11 @@ final class Figures {
             fields.put("calibrated", true);
         }
         return fields;
+    }
+
+    /** {@code value} rounded to {@code decimals} places, for JSON figures that are shares or expectations. */
+    private static double round(double value, int decimals) {
+        return BigDecimal.valueOf(value).setScale(decimals, java.math.RoundingMode.HALF_EVEN).doubleValue();
     }
 
     static String money(double amount, String currency, int decimals) {
@@ -216,7 +230,29 @@ final class Figures {
     static String price(Price p) {
         return p.currency() + " " + plain(p.inputPerMillion()) + " input"
                 + p.cachedInputPerMillion().stream().mapToObj(v -> ", " + plain(v) + " cached input").findFirst().orElse("")
+                + p.cacheWritePerMillion().stream().mapToObj(v -> ", " + plain(v) + " cache write").findFirst().orElse("")
                 + ", " + plain(p.outputPerMillion()) + " output, per million tokens";
+    }
+
+    /** One line describing a prefix cache. */
+    static String prefixCache(PrefixCache cache) {
+        if (cache.ttlSeconds().isEmpty()) {
+            return "prefix cache of " + count(cache.stepTokens()) + "-token blocks";
+        }
+        return "prefix cache from " + count(cache.minTokens()) + " tokens"
+                + (cache.stepTokens() > 1 ? " in steps of " + count(cache.stepTokens()) : "")
+                + ", entries live " + plain(cache.ttlSeconds().getAsDouble()) + " s after their last use";
+    }
+
+    /** The traffic from which caching a prefix pays, in calls a day of every template sharing it. */
+    static String breakEven(double callsPerDay) {
+        return Double.isInfinite(callsPerDay) ? "never (cached reads cost no less than input)"
+                : significant(callsPerDay) + " calls a day sharing the prefix (below that, cache writes cost more than reads save)";
+    }
+
+    /** A share as a percentage with one decimal: {@code 63.2%}. */
+    static String percent(double share) {
+        return String.format(Locale.ROOT, "%.1f%%", share * 100);
     }
 
     /**
@@ -229,7 +265,7 @@ final class Figures {
                 || target.kvBits().isPresent();
         List<String> lines = new ArrayList<>();
         if (!deviceSet && target.price().isEmpty()) {
-            lines.add(target.name() + ": estimates tokens only; set price (and calls_per_day, prefix_cache_min_tokens)"
+            lines.add(target.name() + ": estimates tokens only; set price (and calls_per_day, prefix_cache)"
                     + " for cost, or model, weight_bits, kv_bits and device for memory and time");
             return lines;
         }
@@ -237,7 +273,7 @@ final class Figures {
         Map<List<String>, List<String>> figuresByKeys = new LinkedHashMap<>();
         for (Map.Entry<String, List<String>> entry : coverage.missing().entrySet()) {
             String figure = entry.getKey();
-            boolean cost = figure.startsWith("cost") || figure.equals("cached_input_tokens");
+            boolean cost = figure.startsWith("cost") || figure.startsWith("cache") || figure.equals("static_prefix_tokens");
             if (figure.equals("currency") || (cost ? !costWanted : !deviceSet)) {
                 continue;
             }

@@ -107,9 +107,10 @@ public final class MarkdownReport {
                             ? Figures.money(cache.reorderedSavingPerMonth().getAsDouble(), currency, 2) : "–");
         });
         out.append(table.render()).append('\n');
-        out.append("A template's leading static tokens count as cached when another template on the target starts with"
-                + " the same ones, at least the target's `prefix_cache_min_tokens`; the last columns move every"
-                + " template's variables after its static text. Savings are at each target's `calls_per_day`.\n\n");
+        out.append("A template's static prefix is its tool definitions, then its text up to the first per-call part;"
+                + " the cache holds it from the target's `prefix_cache` minimum on, and a call finds it there as often as"
+                + " the traffic of every template sharing it keeps the entry alive. The last columns move every"
+                + " template's per-call parts after its static text. Savings are at each target's `calls_per_day`.\n\n");
     }
 
     private static String kvCache(TargetTotals t) {

@@ -201,16 +201,13 @@ public final class ScanReport {
     }
 
     /**
-     * Prefix sharing beside a template's footprint on a target with a prefix cache: the longest
-     * leading static run it shares with another template (cached_input_tokens is that run from the
-     * cache's minimum on), the same with every template's per-call parts after its static parts, and
-     * what caching saves per month in each case (estimates).
+     * Beside a template's footprint on a target with a prefix cache: what caching saves per month, and
+     * the static prefix and saving with every template's per-call parts after its static parts
+     * (estimates).
      */
     private static void prefix(Map<String, Object> fields, PrefixShare share) {
-        fields.put("shared_prefix_tokens", share.sharedTokens());
         share.savingPerMonth().ifPresent(v -> fields.put("cache_saving_per_month", v));
-        fields.put("reordered_shared_prefix_tokens", share.reorderedSharedTokens());
-        fields.put("reordered_cached_input_tokens", share.reorderedCachedTokens());
+        fields.put("reordered_static_prefix_tokens", share.reorderedStaticPrefixTokens());
         share.reorderedSavingPerMonth().ifPresent(v -> fields.put("reordered_cache_saving_per_month", v));
     }
 }

@@ -5,6 +5,7 @@ import dev.tare.app.ScannedTemplate;
 import dev.tare.footprint.Cautions;
 import dev.tare.footprint.Coverage;
 import dev.tare.footprint.Footprint;
+import dev.tare.footprint.PrefixCache;
 import dev.tare.footprint.Target;
 import dev.tare.overlap.PrefixShare;
 import java.util.ArrayList;
@@ -54,45 +55,63 @@ final class TargetSections {
     }
 
     private static String cost(Target target, List<ScannedTemplate> templates) {
-        TextTable table = new TextTable(List.of("PATH", "INPUT", "CACHED", "OUTPUT", "COST/CALL", "COST/MONTH"),
-                false, true, true, true, true, true);
+        boolean caches = target.prefixCache().isPresent();
+        List<String> heads = caches
+                ? List.of("PATH", "INPUT", "STATIC PREFIX", "CACHEABLE", "HIT RATE", "OUTPUT", "COST/CALL", "COST/MONTH",
+                "UNCACHED/MONTH")
+                : List.of("PATH", "INPUT", "OUTPUT", "COST/CALL", "COST/MONTH");
+        TextTable table = new TextTable(heads, false, true, true, true, true, true, true, true, true);
         for (ScannedTemplate template : templates) {
             Footprint f = template.targets().get(target.name());
-            if (f != null) {
-                table.row(List.of(template.path(), Figures.count(f.inputTokens()),
-                        f.cachedInputTokens().isPresent() ? Figures.count(f.cachedInputTokens().getAsInt()) : "-",
-                        Figures.count(f.outputTokens()), Figures.perCall(f), Figures.perMonth(f)));
+            if (f == null) {
+                continue;
             }
+            List<String> row = new ArrayList<>(List.of(template.path(), Figures.count(f.inputTokens())));
+            f.caching().ifPresent(c -> row.addAll(List.of(Figures.count(c.staticPrefixTokens()),
+                    Figures.count(c.cacheablePrefixTokens()), c.hitRateKnown() ? Figures.percent(c.hitRate()) : "-")));
+            row.addAll(List.of(Figures.count(f.outputTokens()), Figures.perCall(f), Figures.perMonth(f)));
+            if (caches) {
+                row.add(f.costPerMonthUncached().isPresent()
+                        ? Figures.money(f.costPerMonthUncached().getAsDouble(), f.currency().orElse(""), 2) : "-");
+            }
+            table.row(row);
         }
         StringBuilder head = new StringBuilder("Cost on ").append(target.name()).append(" (")
                 .append(Figures.price(target.price().orElseThrow()));
         target.callsPerDay().ifPresent(calls -> head.append("; ").append(Figures.significant(calls)).append(" calls a day"));
-        target.prefixCacheMinTokens().ifPresent(min -> head.append("; prefixes of ").append(Figures.count(min))
-                .append("+ tokens shared with another template are cached"));
+        target.prefixCache().ifPresent(cache -> head.append("; ").append(Figures.prefixCache(cache)));
         return head.append(")").append(calibration(target)).append(":\n").append(table.render()).toString();
     }
 
-    /** Each template's shared prefix on a target with a prefix cache, as written and with per-call parts last. */
+    /**
+     * What caching saves per template on a target with a prefix cache, as written and with every
+     * template's per-call parts after its static parts.
+     */
     private static String prefixCache(Target target, List<ScannedTemplate> templates, ScanResult.CacheTotals totals) {
-        TextTable table = new TextTable(List.of("PATH", "SHARED", "CACHED", "SAVES/MONTH", "REORDERED SHARED", "CACHED",
-                "SAVES/MONTH"), false, true, true, true, true, true, true);
+        TextTable table = new TextTable(List.of("PATH", "STATIC PREFIX", "CACHEABLE", "SAVES/MONTH", "REORDERED PREFIX",
+                "CACHEABLE", "SAVES/MONTH"), false, true, true, true, true, true, true);
         String currency = totals.currency().orElse("");
+        PrefixCache cache = target.prefixCache().orElseThrow();
         for (ScannedTemplate template : templates) {
             PrefixShare share = template.prefixes().get(target.name());
-            if (share != null) {
-                table.row(List.of(template.path(), Figures.count(share.sharedTokens()), Figures.count(share.cachedTokens()),
-                        money(share.savingPerMonth(), currency), Figures.count(share.reorderedSharedTokens()),
-                        Figures.count(share.reorderedCachedTokens()), money(share.reorderedSavingPerMonth(), currency)));
+            Footprint f = template.targets().get(target.name());
+            if (share != null && f != null && f.caching().isPresent()) {
+                Footprint.Caching now = f.caching().get();
+                table.row(List.of(template.path(), Figures.count(now.staticPrefixTokens()),
+                        Figures.count(now.cacheablePrefixTokens()), money(share.savingPerMonth(), currency),
+                        Figures.count(share.reorderedStaticPrefixTokens()),
+                        Figures.count(cache.cacheable(share.reorderedStaticPrefixTokens())),
+                        money(share.reorderedSavingPerMonth(), currency)));
             }
         }
         table.rule();
         table.row(List.of("total (" + totals.templates() + " templates)", "", Figures.count(totals.cachedTokens()),
                 money(totals.savingPerMonth(), currency), "", Figures.count(totals.reorderedCachedTokens()),
                 money(totals.reorderedSavingPerMonth(), currency)));
-        return "Prefix cache on " + target.name() + " (SHARED: leading static tokens the template shares with another"
-                + " template; CACHED from " + Figures.count(target.prefixCacheMinTokens().orElse(0)) + " on; REORDERED:"
-                + " as if every template's per-call parts came after its static parts)" + calibration(target) + ":\n"
-                + table.render();
+        return "Prefix cache on " + target.name() + " (" + Figures.prefixCache(cache) + "; STATIC PREFIX: tools, then"
+                + " the text up to the first per-call part; SAVES: the month without the cache less the expected month"
+                + " with it; REORDERED: as if every template's per-call parts came after its static parts)"
+                + calibration(target) + ":\n" + table.render();
     }
 
     /** One line per target: the tokens per call cacheable now and with per-call parts last, and the savings. */

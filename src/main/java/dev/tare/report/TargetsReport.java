@@ -66,10 +66,20 @@ public final class TargetsReport {
                 ObjectNode price = node.putObject("price");
                 price.put("input", p.inputPerMillion());
                 p.cachedInputPerMillion().ifPresent(v -> price.put("cached_input", v));
+                p.cacheWritePerMillion().ifPresent(v -> price.put("cache_write", v));
                 price.put("output", p.outputPerMillion());
                 price.put("currency", p.currency());
             });
-            target.prefixCacheMinTokens().ifPresent(v -> node.put("prefix_cache_min_tokens", v));
+            target.prefixCache().ifPresent(cache -> {
+                ObjectNode prefix = node.putObject("prefix_cache");
+                if (cache.ttlSeconds().isPresent()) {
+                    prefix.put("min_tokens", cache.minTokens());
+                    prefix.put("step_tokens", cache.stepTokens());
+                    prefix.put("ttl_seconds", cache.ttlSeconds().getAsDouble());
+                } else {
+                    prefix.put("block_tokens", cache.stepTokens());
+                }
+            });
             target.callsPerDay().ifPresent(v -> node.put("calls_per_day", v));
             target.outputTokens().ifPresent(v -> node.put("output_tokens", v));
             target.model().ifPresent(m -> node.set("model", model(m)));

@@ -40,7 +40,7 @@ class ScanCacheTest {
         stamped = new StampedFiles(root);
         stamped.write("tare.yaml", "templates: {include: [\"prompts/**/*.md\", \"tools/*.json\"]}\n"
                 + "targets:\n  - {name: hosted, tokenizer: o200k_base, price: {input: 2.0, cached_input: 0.5, output: 8.0},"
-                + " output_tokens: 100, prefix_cache_min_tokens: 3, calls_per_day: 1000}\n"
+                + " output_tokens: 100, prefix_cache: {min_tokens: 3}, calls_per_day: 1000}\n"
                 + "  - {name: lite, tokenizer: cl100k_base, message_overhead_tokens: 4}\n");
         stamped.write("prompts/partials/policy.md", "Never share a customer's account number.");
         stamped.write("prompts/reply.md", "---\ntools: [tools/lookup.json]\nvariables: {name: {sample: \"Ada\"}}\n---\n"

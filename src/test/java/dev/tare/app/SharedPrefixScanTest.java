@@ -1,12 +1,13 @@
 package dev.tare.app;
 
-import dev.tare.workspace.Workspace;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.tare.footprint.Footprint;
+import dev.tare.overlap.CachePrefixes;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
+import dev.tare.workspace.Workspace;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -20,14 +21,19 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 /**
- * cached_input_tokens in a scan: the leading static token ids a template shares with another on the
- * same target, counted from prefix_cache_min_tokens (design.md, "Formulas"). Expected token counts
- * come from Tare's o200k_base, which TiktokenReferenceTest checks against the reference encoder.
+ * Prefix caching in a scan (design.md, "Prefix caching — hosted"): each template's static prefix P,
+ * the cacheable part C, the hit rate h = 1 − e^(−λ × ttl) from the calls of every template whose
+ * calls begin with the same C tokens, and the cost per call with reads and writes. Expected token
+ * counts come from Tare's o200k_base, which TiktokenReferenceTest checks against the reference encoder.
  */
 class SharedPrefixScanTest {
     private static final String PREAMBLE = "You are the support assistant of a water utility. Answer in plain words,"
             + " cite the account notes you were given, never guess a meter reading, and hand the customer to a"
             + " person when they ask for one or when a leak may be dangerous.\n\n";
+    private static final String OTHER = "You write the monthly newsletter of a water utility: short paragraphs, one"
+            + " tip about saving water, and the dates of planned works, in a friendly voice.\n\n";
+    /** 288 calls a day with a 300-second entry: λ × ttl = 1 for one template alone. */
+    private static final int CALLS = 288;
 
     @TempDir
     Path root;
@@ -40,8 +46,9 @@ class SharedPrefixScanTest {
                 targets:
                   - name: hosted
                     tokenizer: o200k_base
-                    price: {input: 2.0, cached_input: 0.5, output: 8.0, currency: USD}
-                    prefix_cache_min_tokens: 20
+                    price: {input: 2.0, cached_input: 0.5, cache_write: 2.5, output: 8.0, currency: USD}
+                    prefix_cache: {min_tokens: 20, ttl_seconds: 300}
+                    calls_per_day: 288
                     output_tokens: 10
                   - name: plain
                     tokenizer: o200k_base
@@ -49,46 +56,70 @@ class SharedPrefixScanTest {
         write("prompts/partials/preamble.md", PREAMBLE);
         write("prompts/answer.md", PREAMBLE + "{{question}}\nAnswer briefly.");
         write("prompts/summary.md", "{{> preamble}}{{ticket}}\nSummarize the ticket.");
+        write("prompts/newsletter.md", OTHER + "{{month}}");
         write("prompts/variable-first.md", "{{greeting}}" + PREAMBLE + "Say hello.");
         write("prompts/short.md", "Short.");
     }
 
     @Test
-    void templatesSharingAStaticPrefixGetItCached() {
+    void templatesSharingAStaticPrefixPoolTheirTraffic() {
         Map<String, ScannedTemplate> byPath = scan();
-        int shared = o200k.count(PREAMBLE);
-        // The preamble is the same text before the first variable in answer.md and (through the include)
-        // in summary.md, so both share all its tokens.
+        int preamble = o200k.count(PREAMBLE);
+        // answer.md and summary.md (through its include) both begin with the preamble and then a
+        // variable: P = C = the preamble's tokens (the minimum is 20, in steps of 1), and their calls
+        // keep one entry alive: λ × ttl = 2 × 288 / 86,400 × 300 = 2.
         Footprint answer = byPath.get("prompts/answer.md").targets().get("hosted");
-        assertEquals(shared, answer.cachedInputTokens().getAsInt());
-        assertEquals(shared, byPath.get("prompts/summary.md").targets().get("hosted").cachedInputTokens().getAsInt());
-        // A variable before the preamble makes every call's prefix differ; a short template has too few tokens.
-        assertEquals(0, byPath.get("prompts/variable-first.md").targets().get("hosted").cachedInputTokens().getAsInt());
-        assertEquals(0, byPath.get("prompts/short.md").targets().get("hosted").cachedInputTokens().getAsInt());
-        // The cost formula with the cached share: ((I − cached) × 2.0 + cached × 0.5 + 10 × 8.0) / 1e6.
+        Footprint.Caching caching = answer.caching().orElseThrow();
+        assertEquals(preamble, caching.staticPrefixTokens());
+        assertEquals(preamble, caching.cacheablePrefixTokens());
+        double hit = 1 - Math.exp(-2);
+        assertEquals(hit, caching.hitRate(), 1e-12);
+        assertEquals(2.0 * CALLS, caching.sharedCallsPerDay().getAsDouble(), 1e-9);
+        assertEquals(hit, byPath.get("prompts/summary.md").targets().get("hosted").caching().orElseThrow().hitRate(), 1e-12);
+        // ((I − C) × 2.0 + C × (h × 0.5 + (1 − h) × 2.5) + 10 × 8.0) / 1e6, and a month of 288 calls a day.
         int input = answer.inputTokens();
-        assertEquals(((input - shared) * 2.0 + shared * 0.5 + 10 * 8.0) / 1e6, answer.costPerCall().getAsDouble(), 1e-12);
-        // A target without a prefix cache has no cached figure at all.
-        assertTrue(byPath.get("prompts/answer.md").targets().get("plain").cachedInputTokens().isEmpty());
+        double perCall = ((input - preamble) * 2.0 + preamble * (hit * 0.5 + (1 - hit) * 2.5) + 10 * 8.0) / 1e6;
+        assertEquals(perCall, answer.costPerCall().getAsDouble(), 1e-12);
+        assertEquals(perCall * CALLS * 30, answer.costPerMonth().getAsDouble(), 1e-9);
+        assertEquals((input * 2.0 + 10 * 8.0) / 1e6 * CALLS * 30, answer.costPerMonthUncached().getAsDouble(), 1e-9);
+        // A template whose prefix no other shares keeps its entry alive alone: λ × ttl = 1.
+        assertEquals(1 - Math.exp(-1),
+                byPath.get("prompts/newsletter.md").targets().get("hosted").caching().orElseThrow().hitRate(), 1e-12);
     }
 
     @Test
-    void thresholdAboveTheSharedPrefixCachesNothing() throws IOException {
-        int shared = o200k.count(PREAMBLE);
+    void aVariableFirstOrAShortTemplateHasNothingToCache() {
+        Map<String, ScannedTemplate> byPath = scan();
+        Footprint.Caching first = byPath.get("prompts/variable-first.md").targets().get("hosted").caching().orElseThrow();
+        assertEquals(0, first.staticPrefixTokens());
+        assertEquals(0, first.cacheablePrefixTokens());
+        // Without a variable the whole call is static, but shorter than the minimum.
+        Footprint shortOne = byPath.get("prompts/short.md").targets().get("hosted");
+        assertEquals(shortOne.inputTokens(), shortOne.caching().orElseThrow().staticPrefixTokens());
+        assertEquals(0, shortOne.caching().orElseThrow().cacheablePrefixTokens());
+        assertEquals(0, shortOne.cachedInputTokens().getAsDouble(), 1e-12);
+        // A target without a prefix cache has no caching figure at all.
+        assertTrue(byPath.get("prompts/answer.md").targets().get("plain").caching().isEmpty());
+    }
+
+    @Test
+    void aMinimumAboveTheStaticPrefixCachesNothing() throws IOException {
+        int preamble = o200k.count(PREAMBLE);
         write("tare.yaml", Files.readString(root.resolve("tare.yaml"))
-                .replace("prefix_cache_min_tokens: 20", "prefix_cache_min_tokens: " + (shared + 1)));
-        assertEquals(0, scan().get("prompts/answer.md").targets().get("hosted").cachedInputTokens().getAsInt());
+                .replace("min_tokens: 20", "min_tokens: " + (preamble + 1)));
+        Footprint answer = scan().get("prompts/answer.md").targets().get("hosted");
+        assertEquals(0, answer.caching().orElseThrow().cacheablePrefixTokens());
+        assertEquals(answer.costPerMonthUncached().getAsDouble(), answer.costPerMonth().getAsDouble(), 1e-9);
     }
 
     @Test
-    void sharedPrefixIsBoundedToTheKeptIds() throws IOException {
+    void staticPrefixIsBoundedToTheKeptIds() throws IOException {
         // "word", 19,999 × " word" and the newline are one o200k token each: 20,001, over the kept 16,384.
         String big = "word" + " word".repeat(19_999) + "\n";
         write("prompts/big-a.md", big + "{{a}}");
-        write("prompts/big-b.md", big + "{{b}}");
         assertEquals(20_001, o200k.count(big));
-        assertEquals(dev.tare.overlap.CachePrefixes.MAX_LEADING_IDS,
-                scan().get("prompts/big-a.md").targets().get("hosted").cachedInputTokens().getAsInt());
+        assertEquals(CachePrefixes.MAX_LEADING_IDS,
+                scan().get("prompts/big-a.md").targets().get("hosted").caching().orElseThrow().staticPrefixTokens());
     }
 
     private Map<String, ScannedTemplate> scan() {

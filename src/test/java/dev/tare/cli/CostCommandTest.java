@@ -35,7 +35,7 @@ class CostCommandTest {
                   - name: hosted
                     tokenizer: o200k_base
                     price: {input: 2.50, cached_input: 0.60, output: 10.00, currency: USD}
-                    prefix_cache_min_tokens: 1024
+                    prefix_cache: {min_tokens: 1024, step_tokens: 128, ttl_seconds: 300}
                     calls_per_day: 20000
                     output_tokens: 300
                   - name: box
@@ -87,10 +87,23 @@ class CostCommandTest {
         assertEquals(0.008, plain.get("cost_per_call").asDouble(), 1e-12);
         assertEquals(4800, plain.get("cost_per_month").asDouble(), 1e-6);
         assertEquals("USD", plain.get("currency").asText());
-        // 1,200 cached: (800 × 2.50 + 1200 × 0.60 + 3000) / 1e6 = 0.00572.
-        JsonNode cached = json("--target", "hosted", "--tokens", "2000", "--cached-tokens", "1200").get("footprint");
-        assertEquals(1200, cached.get("cached_input_tokens").asInt());
-        assertEquals(0.00572, cached.get("cost_per_call").asDouble(), 1e-12);
+        // A 1,200-token static prefix: C = 1024 + floor(176 / 128) × 128 = 1,152; at 20,000 calls a day the
+        // entry is always warm (λ × ttl = 69.4): (848 × 2.50 + 1152 × 0.60 + 3000) / 1e6 = 0.0058112.
+        JsonNode cached = json("--target", "hosted", "--tokens", "2000", "--prefix-tokens", "1200").get("footprint");
+        assertEquals(1200, cached.get("static_prefix_tokens").asInt());
+        assertEquals(1152, cached.get("cacheable_prefix_tokens").asInt());
+        assertEquals(1.0, cached.get("cache_hit_rate").asDouble(), 1e-12);
+        assertEquals(1152, cached.get("cached_input_tokens").asDouble(), 1e-9);
+        assertEquals(0.0058112, cached.get("cost_per_call").asDouble(), 1e-12);
+        assertEquals(4800, cached.get("cost_per_month_uncached").asDouble(), 1e-6);
+        // 144 calls a day: λ × ttl = 0.5, h = 1 − e^−0.5 = 0.3935 (four places in JSON), a month of 144 calls.
+        JsonNode rare = json("--target", "hosted", "--tokens", "2000", "--prefix-tokens", "1200", "--calls-per-day", "144")
+                .get("footprint");
+        double h = 1 - Math.exp(-0.5);
+        assertEquals(0.3935, rare.get("cache_hit_rate").asDouble(), 1e-12);
+        double perCall = (848 * 2.50 + 1152 * (h * 0.60 + (1 - h) * 2.50) + 3000) / 1e6;
+        assertEquals(perCall, rare.get("cost_per_call").asDouble(), 1e-12);
+        assertEquals(perCall * 144 * 30, rare.get("cost_per_month").asDouble(), 1e-9);
     }
 
     @Test
@@ -154,10 +167,14 @@ class CostCommandTest {
                 "unknown key 'bits'");
         assertUsage(Cli.run("cost", "--config", config, "--target", "box", "--tokens", "5", "--sweep", "kv_bits=fp3"),
                 "unknown precision 'fp3'");
-        assertUsage(Cli.run("cost", "--config", config, "--target", "box", "--tokens", "5", "--cached-tokens", "2"),
+        assertUsage(Cli.run("cost", "--config", config, "--target", "box", "--tokens", "5", "--prefix-tokens", "2"),
                 "has no prefix cache");
-        assertUsage(Cli.run("cost", "--config", config, "--target", "hosted", "--tokens", "5", "--cached-tokens", "9"),
+        assertUsage(Cli.run("cost", "--config", config, "--target", "hosted", "--tokens", "5", "--prefix-tokens", "9"),
                 "more than the 5 input tokens");
+        assertUsage(Cli.run("cost", "--config", config, "--target", "hosted", "--tokens", "5", "--cached-tokens", "2"),
+                "--cached-tokens is gone: give --prefix-tokens P");
+        assertUsage(Cli.run("cost", "--config", config, "--target", "hosted", "--tokens", "5", "--calls-per-day", "-1"),
+                "--calls-per-day must be 0 or more");
         assertUsage(Cli.run("cost", "--config", config, "--target", "hosted", root.resolve("none.md").toString()),
                 "no such file");
     }

@@ -30,7 +30,7 @@ class ScanFootprintTest {
                   - name: hosted
                     tokenizer: o200k_base
                     price: {input: 2.50, cached_input: 0.60, output: 10.00, currency: USD}
-                    prefix_cache_min_tokens: 1024
+                    prefix_cache: {min_tokens: 1024, step_tokens: 128}
                     calls_per_day: 20000
                     output_tokens: 300
                   - name: box
@@ -54,17 +54,18 @@ class ScanFootprintTest {
         for (JsonNode template : doc.get("templates")) {
             JsonNode hosted = template.get("targets").get("hosted");
             // The FOOTPRINT keys, then prefix sharing on this target with a prefix cache.
-            assertEquals(List.of("input_tokens", "framing_tokens", "cached_input_tokens", "cost_per_call",
-                    "cost_per_month", "currency", "shared_prefix_tokens", "cache_saving_per_month",
-                    "reordered_shared_prefix_tokens", "reordered_cached_input_tokens", "reordered_cache_saving_per_month"),
-                    keys(hosted));
+            assertEquals(List.of("input_tokens", "framing_tokens", "static_prefix_tokens", "cacheable_prefix_tokens",
+                    "cache_hit_rate", "cached_input_tokens", "cost_per_call", "cost_per_month", "cost_per_month_uncached",
+                    "currency", "cache_saving_per_month", "reordered_static_prefix_tokens",
+                    "reordered_cache_saving_per_month"), keys(hosted));
             // The design's cost formula on the template's own counts (nothing cached below 1,024 tokens).
             assertEquals((hosted.get("input_tokens").asInt() * 2.50 + 300 * 10.00) / 1e6,
                     hosted.get("cost_per_call").asDouble(), 1e-12);
             JsonNode box = template.get("targets").get("box");
             List<String> expected = new ArrayList<>(Coverage.KEYS);
             // No price, and the catalog's opt-1.3b states no context limit.
-            expected.removeAll(List.of("cached_input_tokens", "cost_per_call", "cost_per_month", "currency",
+            expected.removeAll(List.of("static_prefix_tokens", "cacheable_prefix_tokens", "cache_hit_rate",
+                    "cached_input_tokens", "cost_per_call", "cost_per_month", "cost_per_month_uncached", "currency",
                     "context_limit"));
             assertEquals(expected, keys(box));
             // opt-1.3b at fp16 KV: 2 × 24 layers × 32 heads × 64 × 2 bytes = 196,608 bytes per token.

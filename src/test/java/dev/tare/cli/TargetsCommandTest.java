@@ -33,7 +33,7 @@ class TargetsCommandTest {
         Cli.Run text = Cli.run("targets", "--config", config.toString());
         assertEquals(0, text.exitCode(), text.err());
         assertTrue(text.out().contains("hosted") && text.out().contains("edge"), text.out());
-        assertTrue(text.out().contains("cost_per_month not estimated; set calls_per_day"), text.out());
+        assertTrue(text.out().contains("cost_per_month, cost_per_month_uncached not estimated; set calls_per_day"), text.out());
         assertTrue(text.out().contains("weight_bytes") && text.out().contains("set weight_bits"), text.out());
         assertTrue(text.out().contains("catalog device phone-12gb with overrides: 8 GiB"), text.out());
         assertTrue(text.out().contains("planning estimates"), text.out());

@@ -1,16 +1,18 @@
 package dev.tare.config;
 
-import dev.tare.footprint.Target;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.tare.TareException;
+import dev.tare.footprint.PrefixCache;
+import dev.tare.footprint.Target;
 import dev.tare.template.PlaceholderSyntax;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import java.util.OptionalDouble;
 import java.util.OptionalInt;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -40,8 +42,8 @@ class ConfigLoaderTest {
                 targets:
                   - name: hosted
                     tokenizer: o200k_base
-                    price: {input: 2.0, cached_input: 0.5, output: 8.0}
-                    prefix_cache_min_tokens: 1024
+                    price: {input: 2.0, cached_input: 0.5, cache_write: 2.5, output: 8.0}
+                    prefix_cache: {min_tokens: 1024, step_tokens: 128, ttl_seconds: 600}
                     message_overhead_tokens: 4
                     reply_overhead_tokens: 3
                     calls_per_day: 20000
@@ -58,6 +60,8 @@ class ConfigLoaderTest {
         assertEquals(4, hosted.messageOverheadTokens());
         assertEquals(0.5, hosted.price().orElseThrow().cachedInputPerMillion().getAsDouble());
         assertEquals("USD", hosted.price().orElseThrow().currency());
+        assertEquals(2.5, hosted.price().orElseThrow().cacheWrite());
+        assertEquals(new PrefixCache(1024, 128, OptionalDouble.of(600)), hosted.prefixCache().orElseThrow());
         assertEquals(OptionalInt.of(6000), config.budgets().budgetFor("prompts/agents/x/y.md"));
         assertEquals(OptionalInt.of(2000), config.budgets().budgetFor("prompts/a.md"));
         assertEquals(2.5, config.baseline().tolerancePercent());
@@ -92,6 +96,33 @@ class ConfigLoaderTest {
         assertTrue(problem("budgets: {default: many}\n").contains("budgets.default: must be a whole number"));
         assertTrue(problem("templates: {partials: ../elsewhere}\n").contains("must be a folder inside the repository"));
         assertTrue(problem("hook: {fix: maybe}\n").contains("hook.fix: must be true or false"));
+    }
+
+    @Test
+    void prefixCachesOfBothKinds() throws IOException {
+        Target hosted = load("targets:\n  - {name: a, tokenizer: o200k_base, prefix_cache: {min_tokens: 1024}}\n").target("a");
+        // Steps of one token and a five-minute entry unless said otherwise.
+        assertEquals(new PrefixCache(1024, 1, OptionalDouble.of(300)), hosted.prefixCache().orElseThrow());
+        Target server = load("targets:\n  - {name: a, tokenizer: o200k_base, prefix_cache: {block_tokens: 16}}\n").target("a");
+        assertEquals(PrefixCache.blocks(16), server.prefixCache().orElseThrow());
+        // Without a cache_write price, writes cost the input price.
+        Target plain = load("targets:\n  - {name: a, tokenizer: o200k_base, price: {input: 2, output: 8}}\n").target("a");
+        assertEquals(2.0, plain.price().orElseThrow().cacheWrite());
+    }
+
+    @Test
+    void prefixCacheMistakesNameTheKey() throws IOException {
+        String old = problem("targets:\n  - name: a\n    tokenizer: o200k_base\n    prefix_cache_min_tokens: 1024\n");
+        assertTrue(old.contains("targets[0].prefix_cache_min_tokens: is replaced by prefix_cache: {min_tokens: N"), old);
+        assertTrue(old.contains("line 4"), old);
+        assertTrue(problem("targets:\n  - {name: a, tokenizer: o200k_base, prefix_cache: {block_tokens: 16, min_tokens: 8}}\n")
+                .contains("keep one kind"));
+        assertTrue(problem("targets:\n  - {name: a, tokenizer: o200k_base, prefix_cache: {ttl_seconds: 60}}\n")
+                .contains("names no min_tokens"));
+        assertTrue(problem("targets:\n  - {name: a, tokenizer: o200k_base, prefix_cache: {min_tokens: 0}}\n")
+                .contains("prefix_cache.min_tokens"));
+        assertTrue(problem("targets:\n  - {name: a, tokenizer: o200k_base, prefix_cache: {min_tokens: 8, ttl_seconds: 0}}\n")
+                .contains("prefix_cache.ttl_seconds: must be above 0"));
     }
 
     @Test

@@ -15,20 +15,57 @@ import org.junit.jupiter.api.Test;
 class FootprintsTest {
     private static final double EXACT = 1e-9;
 
-    /** The prefix cache counts only from prefix_cache_min_tokens (the design's cost formula). */
+    /** The prefix cache holds a static prefix only from its minimum on (design.md, "Prefix caching — hosted"). */
     @Test
     void cachedPrefixCountsOnlyFromTheMinimum() {
+        // 20,000 calls a day with a 300 s entry: λ × ttl = 69.4, so h = 1 − e^−69.4, 1 to fifteen places.
         Target hosted = Targets.priced(2.50, 0.60, 10.00, 1024, 20_000);
-        // 1,000 shared tokens are under the 1,024 minimum: nothing cached, (2000 × 2.5 + 300 × 10) / 1e6 = 0.008.
+        // A 1,000-token static prefix is under the 1,024 minimum: nothing cached, (2000 × 2.5 + 300 × 10) / 1e6 = 0.008.
         Footprint below = Footprints.estimate(hosted, new CallSize(2000, 0, 300, 1000));
-        assertEquals(0, below.cachedInputTokens().getAsInt());
+        assertEquals(0, below.caching().orElseThrow().cacheablePrefixTokens());
+        assertEquals(0, below.cachedInputTokens().getAsDouble(), EXACT);
         assertEquals(0.008, below.costPerCall().getAsDouble(), EXACT);
-        // 1,200 shared: (800 × 2.5 + 1200 × 0.6 + 300 × 10) / 1e6 = 0.00572; a month 0.00572 × 20,000 × 30 = 3,432.
+        // 1,200: (800 × 2.5 + 1200 × 0.6 + 300 × 10) / 1e6 = 0.00572; a month 0.00572 × 20,000 × 30 = 3,432.
         Footprint above = Footprints.estimate(hosted, new CallSize(2000, 0, 300, 1200));
-        assertEquals(1200, above.cachedInputTokens().getAsInt());
+        assertEquals(1200, above.cachedInputTokens().getAsDouble(), EXACT);
         assertEquals(0.00572, above.costPerCall().getAsDouble(), EXACT);
         assertEquals(3432, above.costPerMonth().getAsDouble(), 1e-6);
+        assertEquals(4800, above.costPerMonthUncached().getAsDouble(), 1e-6);
         assertEquals("USD", above.currency().orElseThrow());
+    }
+
+    /** Little traffic: most calls write the prefix at the premium instead of reading it. */
+    @Test
+    void rareCallsPayTheWritePremium() {
+        Target hosted = new Target("hosted", "o200k_base",
+                Optional.of(new Price(3.00, OptionalDouble.of(0.30), OptionalDouble.of(3.75), 15.00, "USD")),
+                Optional.of(new PrefixCache(1024, 128, OptionalDouble.of(300))), 0, 0, OptionalDouble.of(48),
+                OptionalInt.empty());
+        // P = 1,300: C = 1024 + floor(276 / 128) × 128 = 1,280. λ × ttl = 48 / 86,400 × 300 = 1/6.
+        Footprint f = Footprints.estimate(hosted, new CallSize(3000, 0, 0, 1300));
+        double h = 1 - Math.exp(-1.0 / 6);
+        assertEquals(1280, f.caching().orElseThrow().cacheablePrefixTokens());
+        assertEquals(h, f.caching().orElseThrow().hitRate(), EXACT);
+        assertEquals((1720 * 3.00 + 1280 * (h * 0.30 + (1 - h) * 3.75)) / 1e6, f.costPerCall().getAsDouble(), EXACT);
+        // Below the break-even traffic (70.6 calls a day) caching costs more than it saves.
+        assertTrue(f.costPerMonth().getAsDouble() > f.costPerMonthUncached().getAsDouble());
+    }
+
+    /** A server's cache keeps whole blocks of the prefix: prefill computes only the rest. */
+    @Test
+    void serverCacheSkipsThePrefillOfWholeBlocks() {
+        ModelShape model = Targets.model(1e9, 24, 16, 16, 128);
+        Target plain = Targets.device(model, 16, 16, Targets.device(16, 0.75, 25, 120, 0.4));
+        Target cached = new Target("device", "o200k_base", Optional.empty(), Optional.of(PrefixCache.blocks(16)), 0, 0,
+                OptionalDouble.empty(), OptionalInt.empty(), Optional.of(model), OptionalDouble.of(16),
+                OptionalDouble.of(16), plain.device());
+        // P = 1,000: floor(1000 / 16) × 16 = 992 tokens are in the cache, found on every call.
+        Footprint f = Footprints.estimate(cached, new CallSize(2000, 0, 0, 1000));
+        assertEquals(992, f.caching().orElseThrow().cacheablePrefixTokens());
+        assertEquals(1, f.caching().orElseThrow().hitRate(), EXACT);
+        assertEquals(Formulas.prefillFlops(model, 2000, 992), f.prefillFlops().getAsDouble(), EXACT);
+        assertTrue(f.prefillFlops().getAsDouble() < Footprints.estimate(plain, new CallSize(2000, 0, 0, 1000))
+                .prefillFlops().getAsDouble());
     }
 
     @Test
@@ -36,6 +73,7 @@ class FootprintsTest {
         Target hosted = Targets.priced(2.50, 0.60, 10.00, null, 20_000);
         Footprint f = Footprints.estimate(hosted, new CallSize(2000, 0, 300, 1500));
         assertTrue(f.cachedInputTokens().isEmpty());
+        assertTrue(f.caching().isEmpty());
         assertEquals(0.008, f.costPerCall().getAsDouble(), EXACT);
     }
 
@@ -67,17 +105,23 @@ class FootprintsTest {
         targets.add(Target.ofTokenizer("tokens", "o200k_base"));
         targets.add(Targets.priced(1, 0.5, 2, 1024, 100));
         targets.add(Targets.device(Targets.model(1e9, 16, 8, 4, 64), 8, 8, Targets.device(4, 0.5, 10, 50, 0.5)));
-        targets.add(new Target("partial", "o200k_base", Optional.empty(), OptionalInt.empty(), 0, 0,
+        targets.add(new Target("partial", "o200k_base", Optional.empty(), Optional.empty(), 0, 0,
                 OptionalDouble.empty(), OptionalInt.of(10), Optional.of(Targets.model(1e9, 16, 8, 4, 64)),
                 OptionalDouble.empty(), OptionalDouble.of(16),
                 Optional.of(new Device("memory only", OptionalDouble.of(8), OptionalDouble.empty(),
                         OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty()))));
+        targets.add(new Target("server", "o200k_base", Optional.empty(), Optional.of(PrefixCache.blocks(16)), 0, 0,
+                OptionalDouble.empty(), OptionalInt.empty()));
         for (Target target : targets) {
             Footprint f = Footprints.estimate(target, CallSize.of(100, 10));
             List<String> present = new ArrayList<>(List.of("input_tokens", "framing_tokens"));
+            addIf(present, "static_prefix_tokens", f.caching().isPresent());
+            addIf(present, "cacheable_prefix_tokens", f.caching().isPresent());
+            addIf(present, "cache_hit_rate", f.caching().filter(Footprint.Caching::hitRateKnown).isPresent());
             addIf(present, "cached_input_tokens", f.cachedInputTokens().isPresent());
             addIf(present, "cost_per_call", f.costPerCall().isPresent());
             addIf(present, "cost_per_month", f.costPerMonth().isPresent());
+            addIf(present, "cost_per_month_uncached", f.costPerMonthUncached().isPresent());
             addIf(present, "currency", f.currency().isPresent());
             Optional<Footprint.Load> load = f.load();
             addIf(present, "params_total", load.isPresent());

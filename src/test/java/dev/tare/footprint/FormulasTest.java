@@ -1,6 +1,7 @@
 package dev.tare.footprint;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.junit.jupiter.api.Test;
@@ -105,6 +106,75 @@ class FormulasTest {
         assertEquals(0.00572, Formulas.costPerCall(2000, 1200, 300, 2.50, 0.60, 10.00), EXACT);
         // A month of 20,000 calls a day: 0.008 × 20,000 × 30 = 4,800.
         assertEquals(4800, Formulas.costPerMonth(0.008, 20_000), 1e-6);
+    }
+
+    /** Prefill with the first tokens already in the KV cache, design.md "Prefix caching — self-hosted"; hand-computed. */
+    @Test
+    void prefillWithCachedBlocksComputesOnlyTheNewTokens() {
+        ModelShape toy = new ModelShape(10, 2, 4, 1, 1, "formula", false);
+        // 2 × N × (I − C) + 2 × L × (I² − C²) × width = 2 × 10 × 1 + 2 × 2 × (9 − 4) × 4 = 20 + 80 = 100.
+        assertEquals(100, Formulas.prefillFlops(toy, 3, 2), EXACT);
+        assertEquals(Formulas.prefillFlops(toy, 3), Formulas.prefillFlops(toy, 3, 0), EXACT);
+        assertEquals(0, Formulas.prefillFlops(toy, 3, 3), EXACT);
+    }
+
+    /** The cacheable part of a static prefix, design.md "Prefix caching — hosted"; hand-computed. */
+    @Test
+    void cacheablePrefixStartsAtTheMinimumAndGrowsInSteps() {
+        assertEquals(0, Formulas.cacheableTokens(1023, 1024, 128));
+        assertEquals(1024, Formulas.cacheableTokens(1024, 1024, 128));
+        assertEquals(1024, Formulas.cacheableTokens(1151, 1024, 128));
+        assertEquals(1152, Formulas.cacheableTokens(1152, 1024, 128));
+        // 1024 + floor((3126 − 1024) / 128) × 128 = 1024 + 16 × 128 = 3072.
+        assertEquals(3072, Formulas.cacheableTokens(3126, 1024, 128));
+        // Whole blocks of 16: floor(100 / 16) × 16 = 96.
+        assertEquals(96, Formulas.cacheableTokens(100, 16, 16));
+        assertEquals(0, Formulas.cacheableTokens(15, 16, 16));
+        assertThrows(IllegalArgumentException.class, () -> Formulas.cacheableTokens(100, 0, 16));
+    }
+
+    /** h = 1 − e^(−λ × ttl), design.md "Prefix caching — hosted"; hand-computed. */
+    @Test
+    void hitRateFollowsTheArrivalsWithinTheTimeToLive() {
+        // One call per 300 s with a 300 s entry: λ × ttl = 1, h = 1 − 1/e.
+        assertEquals(1 - Math.exp(-1), Formulas.hitRate(288, 300), EXACT);
+        // One call a second: practically every call hits.
+        assertEquals(1, Formulas.hitRate(86_400, 300), EXACT);
+        assertEquals(0, Formulas.hitRate(0, 300), EXACT);
+        assertEquals(0, Formulas.hitRate(1000, 0), EXACT);
+    }
+
+    /** Cost per call with part of the cacheable prefix read and part written; hand-computed. */
+    @Test
+    void costPerCallSplitsTheCacheablePrefixIntoReadsAndWrites() {
+        // I = 2000, C = 1024, h = 0.5, O = 300 at 3.00 in, 0.30 cached, 3.75 write, 15.00 out (invented rates):
+        // (976 × 3.00 + 1024 × (0.5 × 0.30 + 0.5 × 3.75) + 300 × 15.00) / 1e6
+        // = (2928 + 1024 × 2.025 + 4500) / 1e6 = (2928 + 2073.6 + 4500) / 1e6 = 0.0095016.
+        assertEquals(0.0095016, Formulas.costPerCall(2000, 1024, 0.5, 300, 3.00, 0.30, 3.75, 15.00), EXACT);
+        // Every cacheable token read, no premium: the same as the plain cached formula.
+        assertEquals(Formulas.costPerCall(2000, 1200, 300, 2.50, 0.60, 10.00),
+                Formulas.costPerCall(2000, 1200, 1.0, 300, 2.50, 0.60, 2.50, 10.00), EXACT);
+        // Nothing hits: every cacheable token is written at the premium.
+        assertEquals((800 * 3.00 + 1200 * 3.75 + 300 * 15.00) / 1e6,
+                Formulas.costPerCall(2000, 1200, 0.0, 300, 3.00, 0.30, 3.75, 15.00), EXACT);
+    }
+
+    /** Where caching stops paying when writes carry a premium. */
+    @Test
+    void breakEvenTrafficMakesCachedAndUncachedCallsCostTheSame() {
+        // h* = (3.75 − 3.00) / (3.75 − 0.30) = 0.2174; λ* = −ln(1 − h*) / 300 s, × 86,400 s = 70.595 calls a day.
+        double breakEven = Formulas.breakEvenCallsPerDay(300, 3.00, 0.30, 3.75);
+        assertEquals(70.595, breakEven, 1e-3);
+        double uncached = Formulas.costPerCall(5000, 0, 200, 3.00, 0.30, 15.00);
+        double atBreakEven = Formulas.costPerCall(5000, 4096, Formulas.hitRate(breakEven, 300), 200, 3.00, 0.30,
+                3.75, 15.00);
+        assertEquals(uncached, atBreakEven, EXACT);
+        assertTrue(Formulas.costPerCall(5000, 4096, Formulas.hitRate(breakEven / 2, 300), 200, 3.00, 0.30, 3.75,
+                15.00) > uncached, "below the break-even traffic caching costs more");
+        // No write premium: caching never costs more, whatever the traffic.
+        assertEquals(0, Formulas.breakEvenCallsPerDay(300, 2.50, 0.60, 2.50), EXACT);
+        // Reads no cheaper than input: caching never pays.
+        assertEquals(Double.POSITIVE_INFINITY, Formulas.breakEvenCallsPerDay(300, 2.50, 2.50, 3.00));
     }
 
     /**

@@ -13,12 +13,13 @@ final class Targets {
                                double callsPerDay) {
         return new Target("hosted", "o200k_base",
                 Optional.of(new Price(input, OptionalDouble.of(cachedInput), output, "USD")),
-                prefixCacheMin == null ? OptionalInt.empty() : OptionalInt.of(prefixCacheMin), 0, 0,
+                prefixCacheMin == null ? Optional.empty()
+                        : Optional.of(new PrefixCache(prefixCacheMin, 1, OptionalDouble.of(300))), 0, 0,
                 OptionalDouble.of(callsPerDay), OptionalInt.empty());
     }
 
     static Target device(ModelShape model, double weightBits, double kvBits, Device device) {
-        return new Target("device", "o200k_base", Optional.empty(), OptionalInt.empty(), 0, 0,
+        return new Target("device", "o200k_base", Optional.empty(), Optional.empty(), 0, 0,
                 OptionalDouble.empty(), OptionalInt.empty(), Optional.of(model), OptionalDouble.of(weightBits),
                 OptionalDouble.of(kvBits), Optional.of(device));
     }

@@ -59,7 +59,8 @@ class MarkdownReportTest {
         JsonNode json = json(demo);
         java.util.List<JsonNode> templates = new java.util.ArrayList<>();
         json.get("templates").forEach(t -> {
-            if (!t.get("kind").asText().equals("partial")) {
+            // Partials and tool files are never sent alone.
+            if (!t.get("kind").asText().equals("partial") && !t.get("kind").asText().equals("tools")) {
                 templates.add(t);
             }
         });

@@ -24,7 +24,7 @@ import java.util.Optional;
 /**
  * Per-call text (a variable) ahead of a long static part. Providers cache a prompt's leading tokens
  * only when they are the same on every call and at least the target's
- * {@code prefix_cache_min_tokens} long; a variable before that point means no prefix is ever cached.
+ * {@code prefix_cache.min_tokens} long; a variable before that point means no prefix is ever cached.
  * The rule fires when the static text before the first variable is shorter than the minimum but the
  * template's static text as a whole reaches it, and says how many tokens every call would start with
  * were the per-call text moved after the static text. The leading text is measured as the scan
