@@ -76,13 +76,15 @@ public final class CostEstimate {
         Target configured = workspace.config().target(request.target());
         Target target = request.concurrency().isPresent()
                 ? configured.withConcurrency(request.concurrency().getAsInt()) : configured;
-        if (request.callsPerDay().isPresent()) {
-            target = target.withCallsPerDay(request.callsPerDay().getAsDouble());
-        }
         CallSize measured = request.file().isPresent()
                 ? measure(workspace, target, request.file().get())
                 : CallSize.of(request.inputTokens().orElseThrow(() -> new IllegalArgumentException("no prompt size")),
                 target.outputTokens().orElse(0));
+        OptionalDouble calls = request.callsPerDay().isPresent() || request.file().isEmpty() ? request.callsPerDay()
+                : callsPerDay(workspace, request.file().get());
+        if (calls.isPresent()) {
+            target = target.withCallsPerDay(calls.getAsDouble());
+        }
         int prefix = measured.staticPrefixTokens();
         if (request.prefixTokens().isPresent()) {
             prefix = request.prefixTokens().getAsInt();
@@ -100,6 +102,12 @@ public final class CostEstimate {
         List<Sweep.Row> rows = request.sweep().isEmpty() ? List.of() : Sweep.run(target, call, request.sweep());
         return new Result(target, request.file(), call, Footprints.estimate(target, call), Coverage.of(target),
                 request.sweep(), rows);
+    }
+
+    /** How often the template at {@code file} is called: its front matter, else the first traffic glob. */
+    private static OptionalDouble callsPerDay(Workspace workspace, String file) {
+        OptionalDouble stated = new TemplateLoader(workspace).load(file).meta().callsPerDay();
+        return stated.isPresent() ? stated : workspace.config().traffic().callsPerDay(file);
     }
 
     private static CallSize measure(Workspace workspace, Target target, String file) {

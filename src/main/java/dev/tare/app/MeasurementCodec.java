@@ -12,12 +12,17 @@ import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.OptionalDouble;
 
 /** How the scan keeps a template's {@link Measurement} in its {@link TemplateCache}. */
 final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
     @Override
     public void write(DataOutputStream out, Measurement r) throws IOException {
         out.writeUTF(r.kind().name());
+        out.writeBoolean(r.callsPerDay().isPresent());
+        if (r.callsPerDay().isPresent()) {
+            out.writeDouble(r.callsPerDay().getAsDouble());
+        }
         out.writeInt(r.characters());
         out.writeInt(r.staticTokens());
         out.writeInt(r.estimatedTokens());
@@ -51,6 +56,7 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
     @Override
     public Measurement read(DataInputStream in, String path) throws IOException {
         TemplateKind kind = TemplateKind.valueOf(in.readUTF());
+        OptionalDouble callsPerDay = in.readBoolean() ? OptionalDouble.of(in.readDouble()) : OptionalDouble.empty();
         int characters = in.readInt();
         int staticTokens = in.readInt();
         int estimatedTokens = in.readInt();
@@ -74,7 +80,7 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
             leading.put(name, new CachePrefixes.LeadingIds(head, now, in.readBoolean() ? now : readInts(in)));
         }
         return new Measurement(path, kind, characters, staticTokens, estimatedTokens, variables, unsized, includes,
-                sizes, byTarget, leading);
+                sizes, byTarget, leading, callsPerDay);
     }
 
     private static void writeInts(DataOutputStream out, int[] ints) throws IOException {

@@ -4,6 +4,7 @@ import dev.tare.TareException;
 import dev.tare.cache.CacheKey;
 import dev.tare.cache.TemplateCache;
 import dev.tare.config.TareConfig;
+import dev.tare.config.TrafficGlobs;
 import dev.tare.footprint.CallSize;
 import dev.tare.footprint.Estimates;
 import dev.tare.footprint.Footprint;
@@ -138,11 +139,14 @@ public final class TemplateScan {
     private static void applySharedPrefixes(Target target, List<ScannedTemplate> templates, List<Outcome> outcomes) {
         Map<String, CachePrefixes.LeadingIds> byPath = new LinkedHashMap<>();
         Map<String, CallSize> calls = new LinkedHashMap<>();
+        Map<String, Traffic> traffic = new LinkedHashMap<>();
         for (Outcome outcome : outcomes) {
             CachePrefixes.LeadingIds ids = outcome.leadingIds().get(target.name());
             if (ids != null) {
-                byPath.put(outcome.template().orElseThrow().path(), ids);
-                calls.put(outcome.template().orElseThrow().path(), outcome.callSizes().get(target.name()));
+                String path = outcome.template().orElseThrow().path();
+                byPath.put(path, ids);
+                calls.put(path, outcome.callSizes().get(target.name()));
+                traffic.put(path, outcome.traffic().get(target.name()));
             }
         }
         List<Integer> indexes = new ArrayList<>();
@@ -152,7 +156,7 @@ public final class TemplateScan {
             CachePrefixes.LeadingIds ids = byPath.get(path);
             if (ids != null) {
                 indexes.add(i);
-                prefixes.add(new CachePrefixes.Prefix(calls.get(path), ids, Traffic.of(target)));
+                prefixes.add(new CachePrefixes.Prefix(calls.get(path), ids, traffic.get(path)));
             }
         }
         List<CachePrefixes.Shared> shared = CachePrefixes.share(target, prefixes);
@@ -167,14 +171,17 @@ public final class TemplateScan {
      * call on each target and, per target with a prefix cache, its leading static token ids.
      */
     private record Outcome(Optional<ScannedTemplate> template, Optional<SkippedFile> skipped,
-                           Map<String, CallSize> callSizes, Map<String, CachePrefixes.LeadingIds> leadingIds) {
-        static Outcome of(Measurement measured, Map<String, Target> targets) {
-            return new Outcome(Optional.of(measured.template(targets)), Optional.empty(), measured.callSizes(),
-                    measured.leadingIds());
+                           Map<String, CallSize> callSizes, Map<String, CachePrefixes.LeadingIds> leadingIds,
+                           Map<String, Traffic> traffic) {
+        static Outcome of(Measurement measured, Map<String, Target> targets, TrafficGlobs globs) {
+            Map<String, Traffic> traffic = new LinkedHashMap<>();
+            measured.callSizes().keySet().forEach(name -> traffic.put(name, measured.traffic(targets.get(name), globs)));
+            return new Outcome(Optional.of(measured.template(targets, globs)), Optional.empty(), measured.callSizes(),
+                    measured.leadingIds(), traffic);
         }
 
         static Outcome of(SkippedFile skipped) {
-            return new Outcome(Optional.empty(), Optional.of(skipped), Map.of(), Map.of());
+            return new Outcome(Optional.empty(), Optional.of(skipped), Map.of(), Map.of(), Map.of());
         }
     }
 
@@ -236,7 +243,7 @@ public final class TemplateScan {
         Outcome measure(String path) {
             Optional<Measurement> remembered = cache.find(path);
             if (remembered.isPresent()) {
-                return Outcome.of(remembered.get(), targetsByName);
+                return Outcome.of(remembered.get(), targetsByName, config.traffic());
             }
             try {
                 SourceText text = loader.read(path);
@@ -246,7 +253,7 @@ public final class TemplateScan {
                 List<String> dependencies = new ArrayList<>(new LinkedHashSet<>(samples.includes()));
                 dependencies.addAll(template.meta().tools());
                 cache.remember(path, text.text(), dependencies, measured);
-                return Outcome.of(measured, targetsByName);
+                return Outcome.of(measured, targetsByName, config.traffic());
             } catch (TareException e) {
                 return Outcome.of(new SkippedFile(path, e.getMessage()));
             }
@@ -305,7 +312,8 @@ public final class TemplateScan {
             }
             return new Measurement(template.path(), template.kind(), characters, counts.of(primary, empty),
                     counts.of(primary, samples) + declared, List.copyOf(variables), List.copyOf(unsized),
-                    List.copyOf(new LinkedHashSet<>(samples.includes())), callSizes, estimatedByTarget, leading);
+                    List.copyOf(new LinkedHashSet<>(samples.includes())), callSizes, estimatedByTarget, leading,
+                    template.meta().callsPerDay());
         }
 
         /**

@@ -27,7 +27,8 @@ public final class ConfigLoader {
     /** The configuration file's name. */
     public static final String FILE_NAME = "tare.yaml";
 
-    private static final Set<String> TOP = Set.of("templates", "targets", "budgets", "baseline", "rules", "hook");
+    private static final Set<String> TOP = Set.of("templates", "targets", "budgets", "baseline", "rules", "hook",
+            "traffic");
     private static final Set<String> TEMPLATES = Set.of("include", "exclude", "placeholder", "partials", "max_file_bytes");
     private static final Set<String> TARGET = Set.of("name", "tokenizer", "price", "prefix_cache",
             "message_overhead_tokens", "reply_overhead_tokens", "calls_per_day", "output_tokens", "model", "weight_bits",
@@ -73,7 +74,7 @@ public final class ConfigLoader {
     private static TareConfig read(Path root, Optional<Path> file, ConfigReader in, JsonNode top) {
         if (top.isMissingNode() || top.isNull()) {
             return new TareConfig(root, file, TemplatesConfig.defaults(), List.of(), Budgets.NONE,
-                    BaselineConfig.DEFAULT, RulesConfig.DEFAULT, false);
+                    BaselineConfig.DEFAULT, RulesConfig.DEFAULT, false, TrafficGlobs.NONE);
         }
         if (!top.isObject()) {
             throw in.problem("", "the file must be a mapping with keys such as templates, targets and budgets");
@@ -86,7 +87,7 @@ public final class ConfigLoader {
             hookFix = in.bool(hook, "fix", "hook.fix").orElse(false);
         }
         return new TareConfig(root, file, templates(in, top), targets(in, top, root), budgets(in, top), baseline(in, top),
-                rules(in, top), hookFix);
+                rules(in, top), hookFix, traffic(in, top));
     }
 
     private static TemplatesConfig templates(ConfigReader in, JsonNode top) {
@@ -260,6 +261,26 @@ public final class ConfigLoader {
             }
         }
         return new Budgets(fallback, byGlob);
+    }
+
+    /** {@code traffic}: calls a day per template glob, first match wins. */
+    private static TrafficGlobs traffic(ConfigReader in, JsonNode top) {
+        JsonNode node = in.object(top, "traffic", "traffic");
+        if (node == null) {
+            return TrafficGlobs.NONE;
+        }
+        Map<String, Double> byGlob = new LinkedHashMap<>();
+        for (Map.Entry<String, JsonNode> entry : ConfigReader.fields(node)) {
+            String key = entry.getKey();
+            try {
+                Glob.of(key);
+            } catch (TareException e) {
+                throw in.problem("traffic." + key, e.getMessage());
+            }
+            OptionalDouble calls = in.number(node, key, "traffic." + key, 0);
+            calls.ifPresent(value -> byGlob.put(key, value));
+        }
+        return new TrafficGlobs(byGlob);
     }
 
     private static BaselineConfig baseline(ConfigReader in, JsonNode top) {

@@ -23,7 +23,8 @@ import java.util.stream.Collectors;
  * @param hookFix   whether the pre-commit hook applies safe rewrites before checking
  */
 public record TareConfig(Path root, Optional<Path> file, TemplatesConfig templates, List<Target> targets,
-                         Budgets budgets, BaselineConfig baseline, RulesConfig rules, boolean hookFix) {
+                         Budgets budgets, BaselineConfig baseline, RulesConfig rules, boolean hookFix,
+                         TrafficGlobs traffic) {
     public TareConfig {
         targets = List.copyOf(targets);
     }
@@ -31,7 +32,7 @@ public record TareConfig(Path root, Optional<Path> file, TemplatesConfig templat
     /** The configuration of a repository without {@code tare.yaml}. */
     public static TareConfig defaults(Path root) {
         return new TareConfig(root, Optional.empty(), TemplatesConfig.defaults(), List.of(), Budgets.NONE,
-                BaselineConfig.DEFAULT, RulesConfig.DEFAULT, false);
+                BaselineConfig.DEFAULT, RulesConfig.DEFAULT, false, TrafficGlobs.NONE);
     }
 
     /**

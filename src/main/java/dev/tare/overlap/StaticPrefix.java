@@ -38,7 +38,7 @@ public final class StaticPrefix {
         }
         TemplateMeta meta = template.meta();
         Template marked = new Template(template.path(), template.kind(),
-                new TemplateMeta(meta.target(), meta.budget(), meta.outputTokens(), marks, meta.tools()), template.messages(),
+                meta.withVariables(marks), template.messages(),
                 template.source(), template.bodyStart(), template.syntax());
         List<String> leading = new ArrayList<>();
         for (String message : renderer.renderWithSamples(marked).messages()) {

@@ -82,7 +82,8 @@ public final class MarkdownReport {
         }
         out.append(table.render()).append('\n');
         if (priced) {
-            out.append("Cost per month adds up every template as if each got the target's `calls_per_day`.\n\n");
+            out.append("Cost per month adds up every template at its own traffic: its front matter's `calls_per_day`, else"
+                    + " the first matching `traffic` glob, else the target's `calls_per_day`.\n\n");
         }
         List<String> cautions = TargetSections.cautions(overview.scan());
         cautions.forEach(line -> out.append("> ").append(text(line)).append("\n"));
@@ -110,7 +111,7 @@ public final class MarkdownReport {
         out.append("A template's static prefix is its tool definitions, then its text up to the first per-call part;"
                 + " the cache holds it from the target's `prefix_cache` minimum on, and a call finds it there as often as"
                 + " the traffic of every template sharing it keeps the entry alive. The last columns move every"
-                + " template's per-call parts after its static text. Savings are at each target's `calls_per_day`.\n\n");
+                + " template's per-call parts after its static text. Savings are at each template's traffic.\n\n");
     }
 
     private static String kvCache(TargetTotals t) {

@@ -7,6 +7,7 @@ import java.util.Iterator;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.Optional;
+import java.util.OptionalDouble;
 import java.util.OptionalInt;
 
 /** Reads the template keys of front matter or of a chat file into a {@link TemplateMeta}, located by line. */
@@ -39,7 +40,8 @@ final class MetaReader {
                 wholeNumber(root, "budget", 1),
                 wholeNumber(root, "output_tokens", 0),
                 variables(root.get("variables")),
-                toolsAreFiles ? toolFiles(root.get("tools")) : java.util.List.of());
+                toolsAreFiles ? toolFiles(root.get("tools")) : java.util.List.of(),
+                callsPerDay(root.get("calls_per_day")));
     }
 
     private java.util.List<String> toolFiles(JsonNode node) {
@@ -80,6 +82,16 @@ final class MetaReader {
                     + (min > 0 ? " above zero" : ", zero or more") + " (got " + node + ")");
         }
         return OptionalInt.of(node.asInt());
+    }
+
+    private OptionalDouble callsPerDay(JsonNode node) {
+        if (node == null || node.isNull()) {
+            return OptionalDouble.empty();
+        }
+        if (!node.isNumber() || !(node.asDouble() >= 0) || Double.isInfinite(node.asDouble())) {
+            throw problem("calls_per_day", "calls_per_day must be a number of calls a day, zero or more (got " + node + ")");
+        }
+        return OptionalDouble.of(node.asDouble());
     }
 
     private Map<String, VariableSpec> variables(JsonNode node) {

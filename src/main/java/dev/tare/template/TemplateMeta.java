@@ -3,6 +3,7 @@ package dev.tare.template;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.Optional;
+import java.util.OptionalDouble;
 import java.util.OptionalInt;
 
 /**
@@ -14,16 +15,24 @@ import java.util.OptionalInt;
  * @param outputTokens the output tokens expected per call, overriding the target's
  * @param variables    declared variables in declaration order
  * @param tools        root-relative paths of the tool files sent with every call of this template
+ * @param callsPerDay  how often it is called, overriding the configured traffic
  */
 public record TemplateMeta(Optional<String> target, OptionalInt budget, OptionalInt outputTokens,
-                           Map<String, VariableSpec> variables, java.util.List<String> tools) {
+                           Map<String, VariableSpec> variables, java.util.List<String> tools,
+                           OptionalDouble callsPerDay) {
     /** The meta of a template that declares nothing. */
     public static final TemplateMeta EMPTY =
-            new TemplateMeta(Optional.empty(), OptionalInt.empty(), OptionalInt.empty(), Map.of(), java.util.List.of());
+            new TemplateMeta(Optional.empty(), OptionalInt.empty(), OptionalInt.empty(), Map.of(), java.util.List.of(),
+                    OptionalDouble.empty());
 
     public TemplateMeta {
         variables = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(variables));
         tools = java.util.List.copyOf(tools);
+    }
+
+    /** The same declarations with {@code declared} as the variables. */
+    public TemplateMeta withVariables(Map<String, VariableSpec> declared) {
+        return new TemplateMeta(target, budget, outputTokens, declared, tools, callsPerDay);
     }
 
     /** The declaration for a variable, by its full dotted name or else by its first part. */

@@ -88,6 +88,30 @@ class SharedPrefixScanTest {
     }
 
     @Test
+    void frontMatterAndTrafficGlobsSetEachTemplatesCalls() throws IOException {
+        write("tare.yaml", Files.readString(root.resolve("tare.yaml"))
+                + "traffic: {\"prompts/sum*.md\": 576, \"prompts/**\": 1}\n");
+        write("prompts/answer.md", "---\ncalls_per_day: 864\n---\n" + PREAMBLE + "{{question}}\nAnswer briefly.");
+        write("prompts/broken.md", "---\ncalls_per_day: lots\n---\nHello.");
+        ScanResult result = new TemplateScan(Workspace.open(List.of(root), Optional.empty()), new TokenizerRegistry())
+                .run(ScanOptions.defaults());
+        Map<String, ScannedTemplate> byPath = result.templates().stream()
+                .collect(Collectors.toMap(ScannedTemplate::path, t -> t));
+        // answer's front matter says 864, the first glob gives summary 576: λ × ttl = 1,440 / 86,400 × 300 = 5.
+        Footprint answer = byPath.get("prompts/answer.md").targets().get("hosted");
+        assertEquals(1440, answer.caching().orElseThrow().sharedCallsPerDay().getAsDouble(), 1e-9);
+        assertEquals(1 - Math.exp(-5), answer.caching().orElseThrow().hitRate(), 1e-12);
+        assertEquals(answer.costPerCall().getAsDouble() * 864 * 30, answer.costPerMonth().getAsDouble(), 1e-9);
+        Footprint summary = byPath.get("prompts/summary.md").targets().get("hosted");
+        assertEquals(summary.costPerCall().getAsDouble() * 576 * 30, summary.costPerMonth().getAsDouble(), 1e-9);
+        // The second glob matches the rest; the target's 288 is left for templates no glob matches.
+        Footprint newsletter = byPath.get("prompts/newsletter.md").targets().get("hosted");
+        assertEquals(newsletter.costPerCall().getAsDouble() * 30, newsletter.costPerMonth().getAsDouble(), 1e-9);
+        assertTrue(result.skipped().stream().anyMatch(s -> s.path().equals("prompts/broken.md")
+                && s.reason().contains("calls_per_day must be a number of calls a day")), result.skipped().toString());
+    }
+
+    @Test
     void aVariableFirstOrAShortTemplateHasNothingToCache() {
         Map<String, ScannedTemplate> byPath = scan();
         Footprint.Caching first = byPath.get("prompts/variable-first.md").targets().get("hosted").caching().orElseThrow();

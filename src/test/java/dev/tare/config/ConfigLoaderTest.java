@@ -111,6 +111,16 @@ class ConfigLoaderTest {
     }
 
     @Test
+    void trafficGlobsTakeTheFirstMatch() throws IOException {
+        TareConfig config = load("traffic: {\"prompts/support/**\": 30000, \"prompts/**\": 500}\n");
+        assertEquals(OptionalDouble.of(30000), config.traffic().callsPerDay("prompts/support/a.md"));
+        assertEquals(OptionalDouble.of(500), config.traffic().callsPerDay("prompts/b.md"));
+        assertEquals(OptionalDouble.empty(), config.traffic().callsPerDay("other/c.md"));
+        assertTrue(problem("traffic: {\"a[b\": 5}\n").contains("traffic.a[b"));
+        assertTrue(problem("traffic: {\"prompts/**\": -5}\n").contains("traffic.prompts/**"));
+    }
+
+    @Test
     void prefixCacheMistakesNameTheKey() throws IOException {
         String old = problem("targets:\n  - name: a\n    tokenizer: o200k_base\n    prefix_cache_min_tokens: 1024\n");
         assertTrue(old.contains("targets[0].prefix_cache_min_tokens: is replaced by prefix_cache: {min_tokens: N"), old);
