@@ -81,7 +81,8 @@ public final class CostEstimate {
                 : CallSize.of(request.inputTokens().orElseThrow(() -> new IllegalArgumentException("no prompt size")),
                 target.outputTokens().orElse(0));
         OptionalDouble calls = request.callsPerDay().isPresent() || request.file().isEmpty() ? request.callsPerDay()
-                : callsPerDay(workspace, request.file().get());
+                : workspace.config().traffic().of(request.file().get(),
+                new TemplateLoader(workspace).load(request.file().get()).meta().callsPerDay(), target).callsPerDay();
         if (calls.isPresent()) {
             target = target.withCallsPerDay(calls.getAsDouble());
         }
@@ -102,12 +103,6 @@ public final class CostEstimate {
         List<Sweep.Row> rows = request.sweep().isEmpty() ? List.of() : Sweep.run(target, call, request.sweep());
         return new Result(target, request.file(), call, Footprints.estimate(target, call), Coverage.of(target),
                 request.sweep(), rows);
-    }
-
-    /** How often the template at {@code file} is called: its front matter, else the first traffic glob. */
-    private static OptionalDouble callsPerDay(Workspace workspace, String file) {
-        OptionalDouble stated = new TemplateLoader(workspace).load(file).meta().callsPerDay();
-        return stated.isPresent() ? stated : workspace.config().traffic().callsPerDay(file);
     }
 
     private static CallSize measure(Workspace workspace, Target target, String file) {

@@ -39,9 +39,8 @@ record Measurement(String path, TemplateKind kind, int characters, int staticTok
                 includes, footprints, estimatedByTarget);
     }
 
-    /** How often the template is called on {@code target}: its front matter, else the first traffic glob, else the target's. */
+    /** How often the template is called on {@code target}. */
     Traffic traffic(Target target, TrafficGlobs traffic) {
-        OptionalDouble calls = callsPerDay.isPresent() ? callsPerDay : traffic.callsPerDay(path);
-        return calls.isPresent() ? Traffic.of(calls.getAsDouble()) : Traffic.of(target);
+        return traffic.of(path, callsPerDay, target);
     }
 }

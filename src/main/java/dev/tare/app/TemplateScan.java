@@ -7,8 +7,6 @@ import dev.tare.config.TareConfig;
 import dev.tare.config.TrafficGlobs;
 import dev.tare.footprint.CallSize;
 import dev.tare.footprint.Estimates;
-import dev.tare.footprint.Footprint;
-import dev.tare.footprint.Footprints;
 import dev.tare.footprint.Framing;
 import dev.tare.footprint.Target;
 import dev.tare.footprint.Traffic;

@@ -1,5 +1,7 @@
 package dev.tare.config;
 
+import dev.tare.footprint.Target;
+import dev.tare.footprint.Traffic;
 import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.Map;
@@ -17,6 +19,16 @@ public record TrafficGlobs(Map<String, Double> byGlob) {
 
     public TrafficGlobs {
         byGlob = Collections.unmodifiableMap(new LinkedHashMap<>(byGlob));
+    }
+
+    /**
+     * How often the template at {@code path} is called on {@code target}: what its front matter
+     * states, else the first matching glob, else the target's {@code calls_per_day}; its prefix
+     * shared with no other template.
+     */
+    public Traffic of(String path, OptionalDouble stated, Target target) {
+        OptionalDouble calls = stated.isPresent() ? stated : callsPerDay(path);
+        return calls.isPresent() ? Traffic.of(calls.getAsDouble()) : Traffic.of(target);
     }
 
     /** The calls a day of a root-relative template path, when a glob matches it. */

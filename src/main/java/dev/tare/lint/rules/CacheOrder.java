@@ -1,6 +1,10 @@
 package dev.tare.lint.rules;
 
 import dev.tare.TareException;
+import dev.tare.footprint.CallSize;
+import dev.tare.footprint.Footprints;
+import dev.tare.footprint.Target;
+import dev.tare.footprint.Traffic;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
@@ -20,6 +24,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
+import java.util.OptionalDouble;
 
 /**
  * Per-call text (a variable) ahead of a long static part. Providers cache a prompt's leading tokens
@@ -60,14 +65,16 @@ final class CacheOrder implements Rule {
         }
         Tokenizer tokenizer = context.tokenizer(template);
         int minimum = context.prefixCacheMinTokens(template);
-        int prefix;
-        int total;
+        List<String> leading;
+        List<String> reordered;
         try {
-            prefix = tokens(tokenizer, StaticPrefix.of(template, context.renderer(), samples.get()));
-            total = tokens(tokenizer, StaticPrefix.reordered(template, context.renderer()));
+            leading = StaticPrefix.of(template, context.renderer(), samples.get());
+            reordered = StaticPrefix.reordered(template, context.renderer());
         } catch (TareException e) {
             return List.of();
         }
+        int prefix = tokens(tokenizer, leading);
+        int total = tokens(tokenizer, reordered);
         if (prefix >= minimum || total < minimum) {
             return List.of();
         }
@@ -87,10 +94,11 @@ final class CacheOrder implements Rule {
         String message = String.format(Locale.ROOT,
                 "'%s' %s after only %,d leading static tokens, below the %,d-token cache minimum, and %,d static"
                         + " tokens follow; with the per-call parts (%d %s) moved after the static parts, every call"
-                        + " would start with the same %,d tokens on %s, enough to be cached ('tare scan' shows what"
-                        + " is shared with other templates; planning estimate)",
+                        + " would start with the same %,d tokens on %s, enough to be cached%s ('tare scan' shows the"
+                        + " cache per template; planning estimate)",
                 source(first), first instanceof Segment.Include ? "brings in per-call text" : "comes", prefix, minimum,
-                total - prefix, variables, variables == 1 ? "variable" : "variables", total, tokenizer.name());
+                total - prefix, variables, variables == 1 ? "variable" : "variables", total, tokenizer.name(),
+                savings(template, context, leading, reordered));
         return List.of(text.finding(DESCRIPTOR, at.message(), at.start(), at.end(), message, Optional.empty(), related));
     }
 
@@ -125,6 +133,35 @@ final class CacheOrder implements Rule {
     private static String source(Segment segment) {
         return segment instanceof Segment.Variable variable ? variable.source()
                 : segment instanceof Segment.Include include ? include.source() : "";
+    }
+
+    /**
+     * What moving the per-call parts last would save a month on each priced target with a provider's
+     * cache, at this template's own traffic (shared prefixes would only add to it): the month with
+     * the prefix as written less the month with the reordered one, the same call otherwise.
+     */
+    private static String savings(Template template, LintContext context, List<String> leading, List<String> reordered) {
+        List<String> parts = new ArrayList<>();
+        for (Target target : context.targets(template)) {
+            if (target.price().isEmpty() || target.prefixCache().filter(c -> c.ttlSeconds().isPresent()).isEmpty()) {
+                continue;
+            }
+            Traffic traffic = context.config().traffic().of(template.path(), template.meta().callsPerDay(), target);
+            if (traffic.callsPerDay().isEmpty()) {
+                continue;
+            }
+            Tokenizer tokenizer = context.tokenizer(target);
+            int now = target.scaled(tokens(tokenizer, leading));
+            int later = target.scaled(tokens(tokenizer, reordered));
+            OptionalDouble asWritten = Footprints.estimate(target, new CallSize(later, 0, 0, now), traffic).costPerMonth();
+            OptionalDouble moved = Footprints.estimate(target, new CallSize(later, 0, 0, later), traffic).costPerMonth();
+            double saving = asWritten.getAsDouble() - moved.getAsDouble();
+            if (saving > 0) {
+                parts.add(String.format(Locale.ROOT, "%s %s %,.2f", target.name(),
+                        target.price().get().currency(), saving));
+            }
+        }
+        return parts.isEmpty() ? "" : ", saving about " + String.join(", ", parts) + " a month at this template's traffic";
     }
 
     private static int tokens(Tokenizer tokenizer, List<String> messages) {

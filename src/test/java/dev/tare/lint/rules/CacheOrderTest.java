@@ -4,6 +4,8 @@ import static dev.tare.lint.RuleHarness.findings;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import dev.tare.config.ConfigLoader;
+import dev.tare.config.TareConfig;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
 import dev.tare.lint.RewriteClass;
@@ -11,10 +13,13 @@ import dev.tare.lint.RuleHarness;
 import dev.tare.template.Template;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
+import java.io.IOException;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
 
 /** Per-call text ahead of a static part long enough to be cached; expected counts come from the tokenizer. */
 class CacheOrderTest {
@@ -34,6 +39,32 @@ class CacheOrderTest {
         assertTrue(found.get(0).message().contains("every call would start with the same " + total + " tokens"),
                 found.get(0).message());
         assertEquals(RewriteClass.NONE, found.get(0).rewriteClass());
+    }
+
+    @Test
+    void onAPricedTargetTheMessageSaysWhatMovingThePerCallPartsSaves(@TempDir Path dir) throws IOException {
+        Files.writeString(dir.resolve("tare.yaml"), """
+                targets:
+                  - name: hosted
+                    tokenizer: o200k_base
+                    price: {input: 2.0, cached_input: 0.5, output: 8.0, currency: USD}
+                    prefix_cache: {min_tokens: 32, ttl_seconds: 300}
+                    calls_per_day: 86400
+                """);
+        TareConfig config = ConfigLoader.load(dir.resolve("tare.yaml"));
+        String text = "Today is {{ date }}.\n" + STATIC;
+        List<Finding> found = findings(rule, "a.md", text, config);
+        assertEquals(1, found.size());
+        // As written nothing is cached (the leading part is under the minimum); reordered, all T static
+        // tokens are (steps of one), and one call a second keeps the entry warm (h = 1 − e^−300):
+        // T × h × (2.0 − 0.5) / 1e6 × 86,400 × 30 a month.
+        int total = o200k.count(text.replace("{{ date }}", ""));
+        int now = o200k.count("Today is ");
+        double hit = 1 - Math.exp(-300);
+        double saving = total * hit * 1.5 / 1e6 * 86_400 * 30;
+        assertTrue(now < 32, "the leading part is under the minimum, so nothing is cached now");
+        assertTrue(found.get(0).message().contains(String.format(java.util.Locale.ROOT,
+                "saving about hosted USD %,.2f a month at this template's traffic", saving)), found.get(0).message());
     }
 
     @Test
