@@ -42,6 +42,7 @@ final class HtmlTargets {
                 .append("</h3>\n<p class=\"facts\">Tokenizer <code>").append(Html.text(target.tokenizer())).append("</code>");
         target.price().ifPresent(p -> out.append(" · ").append(Html.text(Figures.price(p))));
         target.callsPerDay().ifPresent(c -> out.append(" · ").append(Html.text(Figures.significant(c))).append(" calls a day"));
+        target.prefixCache().ifPresent(cache -> out.append(" · ").append(Html.text(Figures.prefixCache(cache))));
         target.model().ifPresent(m -> out.append("<br>Model ").append(Html.text(Figures.model(m))));
         target.device().ifPresent(d -> out.append("<br>Device ").append(Html.text(Figures.device(d))));
         out.append("</p>\n<dl class=\"tiles small\">\n");
@@ -51,8 +52,7 @@ final class HtmlTargets {
         totals.costPerMonth().ifPresent(cost -> HtmlReport.tile(out, "Cost per month (estimate)",
                 "<span data-target=\"" + name + "\" data-total=\"cost_per_month\" data-value=\"" + Html.value(cost)
                         + "\" data-unit=\"money\">" + Html.text(Figures.money(cost, totals.currency().orElse(""), 2))
-                        + "</span>", "every template at " + Figures.significant(target.callsPerDay().orElse(0))
-                        + " calls a day"));
+                        + "</span>", "each template at its own traffic"));
         totals.largestKvCacheBytes().ifPresent(bytes -> HtmlReport.tile(out, "KV cache, largest request (estimate)",
                 "<span data-target=\"" + name + "\" data-total=\"max_kv_cache_bytes\" data-value=\"" + bytes
                         + "\" data-unit=\"bytes\">" + Html.text(Figures.bytes(bytes)) + "</span>",
@@ -64,7 +64,7 @@ final class HtmlTargets {
         ScanResult.CacheTotals cache = overview.scan().cacheTotals().get(target.name());
         if (cache != null) {
             HtmlReport.tile(out, "Cacheable tokens per call", targetNumber(name, "cached_input_tokens",
-                    cache.cachedTokens(), "tokens"), "leading static tokens shared with another template, summed");
+                    cache.cachedTokens(), "tokens"), "the cacheable part of each template's static prefix, summed");
             money(out, "Prefix-cache saving per month (estimate)", name, "cache_saving_per_month", cache.savingPerMonth(), cache);
             HtmlReport.tile(out, "Cacheable if per-call parts came last", targetNumber(name,
                     "reordered_cached_input_tokens", cache.reorderedCachedTokens(), "tokens"),
@@ -97,8 +97,8 @@ final class HtmlTargets {
                               ScanResult.CacheTotals cache) {
         amount.ifPresent(value -> HtmlReport.tile(out, label, "<span data-target=\"" + name + "\" data-total=\"" + total
                 + "\" data-value=\"" + Html.value(value) + "\" data-unit=\"money\">"
-                + Html.text(Figures.money(value, cache.currency().orElse(""), 2)) + "</span>", "at "
-                + Figures.significant(cache.target().callsPerDay().orElse(0)) + " calls a day"));
+                + Html.text(Figures.money(value, cache.currency().orElse(""), 2)) + "</span>",
+                "each template at its own traffic"));
     }
 
     private static String targetNumber(String name, String total, long value, String unit) {
