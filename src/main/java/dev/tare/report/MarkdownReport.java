@@ -12,9 +12,12 @@ import dev.tare.footprint.Target;
 import dev.tare.lint.BaselineChange;
 import dev.tare.lint.RewriteClass;
 import dev.tare.lint.Severity;
+import dev.tare.overlap.PrefixShare;
 import dev.tare.workspace.SkippedFile;
 import java.util.ArrayList;
+import java.util.Comparator;
 import java.util.List;
+import java.util.OptionalDouble;
 
 /**
  * Renders an {@link Overview} as a Markdown summary short enough for a pull-request comment: totals
@@ -102,16 +105,49 @@ public final class MarkdownReport {
                 ">If per-call parts came last", ">Saving per month then (estimate)");
         caches.forEach((name, cache) -> {
             String currency = cache.currency().orElse("");
-            table.row(text(name), Figures.count(cache.cachedTokens()),
-                    cache.savingPerMonth().isPresent() ? Figures.money(cache.savingPerMonth().getAsDouble(), currency, 2) : "–",
-                    Figures.count(cache.reorderedCachedTokens()), cache.reorderedSavingPerMonth().isPresent()
-                            ? Figures.money(cache.reorderedSavingPerMonth().getAsDouble(), currency, 2) : "–");
+            table.row(text(name), Figures.count(cache.cachedTokens()), money(cache.savingPerMonth(), currency),
+                    Figures.count(cache.reorderedCachedTokens()), money(cache.reorderedSavingPerMonth(), currency));
+        });
+        List<String[]> rows = new ArrayList<>();
+        caches.forEach((name, cache) -> {
+            if (cache.savingPerMonth().isEmpty()) {
+                return;
+            }
+            String currency = cache.currency().orElse("");
+            overview.scan().templates().stream()
+                    .filter(t -> t.countsInTotals() && t.prefixes().containsKey(name)
+                            && t.prefixes().get(name).reorderedSavingPerMonth().orElse(0) > 0)
+                    .sorted(Comparator.comparingDouble((ScannedTemplate t) -> t.prefixes().get(name)
+                            .reorderedSavingPerMonth().orElse(0)).reversed().thenComparing(ScannedTemplate::path))
+                    .limit(COSTLIEST)
+                    .forEach(t -> {
+                        Footprint f = t.targets().get(name);
+                        Footprint.Caching c = f.caching().orElseThrow();
+                        PrefixShare share = t.prefixes().get(name);
+                        rows.add(new String[] {code(t.path()), text(name), Figures.count(c.staticPrefixTokens()),
+                                Figures.count(c.cacheablePrefixTokens()),
+                                c.hitRateKnown() ? Figures.percent(c.hitRate()) : "–",
+                                money(f.costPerMonth(), currency), money(f.costPerMonthUncached(), currency),
+                                money(share.reorderedSavingPerMonth(), currency)});
+                    });
         });
         out.append(table.render()).append('\n');
+        if (!rows.isEmpty()) {
+            Table templates = new Table("Template", "Target", ">Static prefix", ">Cacheable", ">Hit rate",
+                    ">Cost per month (estimate)", ">Without caching (estimate)",
+                    ">Caching would save with per-call parts last (estimate)");
+            rows.forEach(templates::row);
+            out.append("Per priced target, up to ").append(COSTLIEST).append(" templates whose static parts, put first,")
+                    .append(" caching would save most on:\n\n").append(templates.render()).append('\n');
+        }
         out.append("A template's static prefix is its tool definitions, then its text up to the first per-call part;"
                 + " the cache holds it from the target's `prefix_cache` minimum on, and a call finds it there as often as"
                 + " the traffic of every template sharing it keeps the entry alive. The last columns move every"
                 + " template's per-call parts after its static text. Savings are at each template's traffic.\n\n");
+    }
+
+    private static String money(OptionalDouble amount, String currency) {
+        return amount.isPresent() ? Figures.money(amount.getAsDouble(), currency, 2) : "–";
     }
 
     private static String kvCache(TargetTotals t) {
