@@ -50,6 +50,20 @@ public record Overview(ScanResult scan, CheckResult check, List<RuleTally> rules
         return scan.templates().stream().filter(ScannedTemplate::countsInTotals).sorted(order).limit(limit).toList();
     }
 
+    /**
+     * Up to {@code limit} templates on {@code target} (partials and tool files left out) whose static
+     * parts, put before their per-call parts, the prefix cache would save most on a month: the
+     * largest savings first, then by path; none where nothing would be saved or no money is known.
+     */
+    public List<ScannedTemplate> cacheLeaders(String target, int limit) {
+        return scan.templates().stream()
+                .filter(t -> t.countsInTotals() && t.prefixes().containsKey(target)
+                        && t.prefixes().get(target).reorderedSavingPerMonth().orElse(0) > 0)
+                .sorted(Comparator.comparingDouble((ScannedTemplate t) -> t.prefixes().get(target)
+                        .reorderedSavingPerMonth().getAsDouble()).reversed().thenComparing(ScannedTemplate::path))
+                .limit(limit).toList();
+    }
+
     private static double monthlyCost(ScannedTemplate template, Optional<String> currency) {
         double sum = 0;
         for (Footprint f : template.targets().values()) {

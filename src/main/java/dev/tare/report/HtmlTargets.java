@@ -73,6 +73,7 @@ final class HtmlTargets {
                     cache.reorderedSavingPerMonth(), cache);
         }
         out.append("</dl>\n");
+        cacheLeaders(out, overview, target);
         List<ScannedTemplate> on = overview.scan().templates().stream()
                 .filter(t -> t.countsInTotals() && t.targets().containsKey(target.name())).toList();
         for (String line : TargetSections.cautions(target, on)) {
@@ -90,6 +91,41 @@ final class HtmlTargets {
                     "bytes", f -> f.kvCacheBytes().orElse(0), Figures::bytes, Figures::bytes);
         }
         out.append("</article>\n");
+    }
+
+    /**
+     * The templates whose static parts, put first, the target's prefix cache would save most on, with
+     * their prefix and monthly figures.
+     */
+    private static void cacheLeaders(StringBuilder out, Overview overview, Target target) {
+        List<ScannedTemplate> leaders = overview.cacheLeaders(target.name(), 10);
+        if (leaders.isEmpty()) {
+            return;
+        }
+        out.append("<h4>Where putting static parts first would save most (estimates)</h4>\n")
+                .append("<div class=\"table-frame\"><table class=\"figures\"><thead><tr><th scope=\"col\">Template</th>")
+                .append("<th scope=\"col\" class=\"num\">Static prefix</th><th scope=\"col\" class=\"num\">Cacheable</th>")
+                .append("<th scope=\"col\" class=\"num\">Hit rate</th><th scope=\"col\" class=\"num\">Cost per month</th>")
+                .append("<th scope=\"col\" class=\"num\">Without caching</th>")
+                .append("<th scope=\"col\" class=\"num\">Caching would save with per-call parts last</th></tr></thead>\n<tbody>\n");
+        for (ScannedTemplate t : leaders) {
+            Footprint f = t.targets().get(target.name());
+            Footprint.Caching c = f.caching().orElseThrow();
+            String currency = f.currency().orElse("");
+            out.append("<tr><th scope=\"row\">").append(Html.text(t.path())).append("</th>");
+            for (String cell : List.of(Figures.count(c.staticPrefixTokens()), Figures.count(c.cacheablePrefixTokens()),
+                    c.hitRateKnown() ? Figures.percent(c.hitRate()) : "–", amount(f.costPerMonth(), currency),
+                    amount(f.costPerMonthUncached(), currency),
+                    amount(t.prefixes().get(target.name()).reorderedSavingPerMonth(), currency))) {
+                out.append("<td class=\"num\">").append(Html.text(cell)).append("</td>");
+            }
+            out.append("</tr>\n");
+        }
+        out.append("</tbody></table></div>\n");
+    }
+
+    private static String amount(java.util.OptionalDouble value, String currency) {
+        return value.isPresent() ? Figures.money(value.getAsDouble(), currency, 2) : "–";
     }
 
     /** A tile with a monthly saving, on a priced target with traffic. */

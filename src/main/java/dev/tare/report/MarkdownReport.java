@@ -12,10 +12,8 @@ import dev.tare.footprint.Target;
 import dev.tare.lint.BaselineChange;
 import dev.tare.lint.RewriteClass;
 import dev.tare.lint.Severity;
-import dev.tare.overlap.PrefixShare;
 import dev.tare.workspace.SkippedFile;
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.List;
 import java.util.OptionalDouble;
 
@@ -110,26 +108,15 @@ public final class MarkdownReport {
         });
         List<String[]> rows = new ArrayList<>();
         caches.forEach((name, cache) -> {
-            if (cache.savingPerMonth().isEmpty()) {
-                return;
-            }
             String currency = cache.currency().orElse("");
-            overview.scan().templates().stream()
-                    .filter(t -> t.countsInTotals() && t.prefixes().containsKey(name)
-                            && t.prefixes().get(name).reorderedSavingPerMonth().orElse(0) > 0)
-                    .sorted(Comparator.comparingDouble((ScannedTemplate t) -> t.prefixes().get(name)
-                            .reorderedSavingPerMonth().orElse(0)).reversed().thenComparing(ScannedTemplate::path))
-                    .limit(COSTLIEST)
-                    .forEach(t -> {
-                        Footprint f = t.targets().get(name);
-                        Footprint.Caching c = f.caching().orElseThrow();
-                        PrefixShare share = t.prefixes().get(name);
-                        rows.add(new String[] {code(t.path()), text(name), Figures.count(c.staticPrefixTokens()),
-                                Figures.count(c.cacheablePrefixTokens()),
-                                c.hitRateKnown() ? Figures.percent(c.hitRate()) : "–",
-                                money(f.costPerMonth(), currency), money(f.costPerMonthUncached(), currency),
-                                money(share.reorderedSavingPerMonth(), currency)});
-                    });
+            for (ScannedTemplate t : overview.cacheLeaders(name, COSTLIEST)) {
+                Footprint f = t.targets().get(name);
+                Footprint.Caching c = f.caching().orElseThrow();
+                rows.add(new String[] {code(t.path()), text(name), Figures.count(c.staticPrefixTokens()),
+                        Figures.count(c.cacheablePrefixTokens()), c.hitRateKnown() ? Figures.percent(c.hitRate()) : "–",
+                        money(f.costPerMonth(), currency), money(f.costPerMonthUncached(), currency),
+                        money(t.prefixes().get(name).reorderedSavingPerMonth(), currency)});
+            }
         });
         out.append(table.render()).append('\n');
         if (!rows.isEmpty()) {

@@ -88,4 +88,26 @@ class HtmlReportTest {
         assertTrue(html.contains("<tr class=\"line level-" + LineView.level(tokens) + "\" data-line=\"4\" data-tokens=\""
                 + tokens + "\">"), html);
     }
+
+    @Test
+    void aCachingTargetListsWherePuttingStaticPartsFirstSavesMost() throws IOException {
+        write("tare.yaml", """
+                templates: {include: ["prompts/**/*.md"]}
+                targets:
+                  - name: hosted
+                    tokenizer: o200k_base
+                    price: {input: 2.0, cached_input: 0.5, output: 8.0, currency: USD}
+                    prefix_cache: {min_tokens: 20, ttl_seconds: 300}
+                    calls_per_day: 86400
+                """);
+        String rules = "Answer water billing questions briefly and politely, and never promise a refund. ".repeat(3);
+        write("prompts/late.md", "Today is {{ date }}.\n" + rules);
+        write("prompts/first.md", rules + "Today is {{ date }}.\n");
+        String html = html();
+        assertTrue(html.contains("Where putting static parts first would save most (estimates)"), html);
+        // late.md caches nothing as written and everything reordered; first.md already caches its rules.
+        int start = html.indexOf("Where putting static parts first");
+        String table = html.substring(start, html.indexOf("</table>", start));
+        assertTrue(table.contains("<th scope=\"row\">prompts/late.md</th>"), table);
+    }
 }
