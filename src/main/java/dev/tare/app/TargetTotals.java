@@ -15,8 +15,9 @@ import java.util.OptionalLong;
  * @param target          the target's configuration
  * @param templates       how many templates run on it
  * @param inputTokens     input tokens per call, summed over those templates
- * @param costPerMonth    cost per month summed over those templates, each at the target's
- *                        {@code calls_per_day}; empty when the target is not priced or has no traffic
+ * @param costPerMonth    cost per month summed over those templates, each at its own traffic (front
+ *                        matter, traffic globs, else the target's {@code calls_per_day}); empty when the
+ *                        target is not priced or no template has traffic
  * @param currency        the currency of {@code costPerMonth}
  * @param largestRequest  the template with the largest KV cache, on targets with a model and KV precision
  * @param largestKvCacheBytes the KV-cache bytes of that template's request
