@@ -63,6 +63,20 @@ public record Target(String name, String tokenizer, Optional<Price> price, Optio
                 concurrency);
     }
 
+    /**
+     * The traffic below which caching a prefix costs more than it saves, in calls a day of every
+     * template sharing it: only on a priced target whose provider charges a premium to write the cache.
+     */
+    public OptionalDouble cacheBreakEvenCallsPerDay() {
+        if (price.isEmpty() || prefixCache.isEmpty() || prefixCache.get().ttlSeconds().isEmpty()
+                || price.get().cacheWrite() <= price.get().inputPerMillion()) {
+            return OptionalDouble.empty();
+        }
+        Price p = price.get();
+        return OptionalDouble.of(Formulas.breakEvenCallsPerDay(prefixCache.get().ttlSeconds().getAsDouble(),
+                p.inputPerMillion(), p.cachedInput(), p.cacheWrite()));
+    }
+
     /** The decode batch: {@code concurrency}, else 1. */
     public int batch() {
         return concurrency.orElse(1);

@@ -6,7 +6,6 @@ import dev.tare.app.CostEstimate;
 import dev.tare.footprint.CallSize;
 import dev.tare.footprint.Cautions;
 import dev.tare.footprint.Footprint;
-import dev.tare.footprint.Formulas;
 import dev.tare.footprint.Precision;
 import dev.tare.footprint.Sweep;
 import dev.tare.footprint.Target;
@@ -125,10 +124,8 @@ public final class CostReport {
         target.price().ifPresent(p -> table.row(List.of("price", Figures.price(p))));
         target.callsPerDay().ifPresent(c -> table.row(List.of("calls per day", Figures.significant(c))));
         target.prefixCache().ifPresent(cache -> table.row(List.of("prefix cache", Figures.prefixCache(cache))));
-        target.price().filter(p -> p.cacheWrite() > p.inputPerMillion()).ifPresent(p -> target.prefixCache()
-                .flatMap(cache -> cache.ttlSeconds().stream().boxed().findFirst())
-                .ifPresent(ttl -> table.row(List.of("caching pays from", Figures.breakEven(
-                        Formulas.breakEvenCallsPerDay(ttl, p.inputPerMillion(), p.cachedInput(), p.cacheWrite()))))));
+        target.cacheBreakEvenCallsPerDay().ifPresent(calls -> table.row(List.of("caching pays from",
+                Figures.breakEven(calls))));
         target.model().ifPresent(m -> table.row(List.of("model", Figures.model(m))));
         if (target.model().isPresent()) {
             table.row(List.of("weights", Figures.bits(target.weightBits())));

@@ -190,6 +190,9 @@ public final class ScanReport {
             cache.savingPerMonth().ifPresent(v -> target.put("cache_saving_per_month", v));
             cache.reorderedSavingPerMonth().ifPresent(v -> target.put("reordered_cache_saving_per_month", v));
             cache.currency().filter(c -> cache.savingPerMonth().isPresent()).ifPresent(c -> target.put("currency", c));
+            // Never when reads cost no less than input: caching a prefix then pays at no traffic at all.
+            cache.target().cacheBreakEvenCallsPerDay().stream().filter(Double::isFinite).findFirst()
+                    .ifPresent(v -> target.put("cache_break_even_calls_per_day", v));
         });
         out.writeObjectFieldStart("targets");
         for (Map.Entry<String, Map<String, Object>> target : byTarget.entrySet()) {

@@ -108,7 +108,9 @@ final class TargetSections {
         table.row(List.of("total (" + totals.templates() + " templates)", "", Figures.count(totals.cachedTokens()),
                 money(totals.savingPerMonth(), currency), "", Figures.count(totals.reorderedCachedTokens()),
                 money(totals.reorderedSavingPerMonth(), currency)));
-        return "Prefix cache on " + target.name() + " (" + Figures.prefixCache(cache) + "; STATIC PREFIX: tools, then"
+        String breakEven = target.cacheBreakEvenCallsPerDay().stream()
+                .mapToObj(calls -> "; caching pays from " + Figures.breakEven(calls)).findFirst().orElse("");
+        return "Prefix cache on " + target.name() + " (" + Figures.prefixCache(cache) + breakEven + "; STATIC PREFIX: tools, then"
                 + " the text up to the first per-call part; SAVES: the month without the cache less the expected month"
                 + " with it; REORDERED: as if every template's per-call parts came after its static parts)"
                 + calibration(target) + ":\n" + table.render();

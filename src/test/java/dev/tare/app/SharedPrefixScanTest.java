@@ -3,6 +3,8 @@ package dev.tare.app;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
 import dev.tare.footprint.Footprint;
 import dev.tare.overlap.CachePrefixes;
 import dev.tare.tokenize.Tokenizer;
@@ -109,6 +111,19 @@ class SharedPrefixScanTest {
         assertEquals(newsletter.costPerCall().getAsDouble() * 30, newsletter.costPerMonth().getAsDouble(), 1e-9);
         assertTrue(result.skipped().stream().anyMatch(s -> s.path().equals("prompts/broken.md")
                 && s.reason().contains("calls_per_day must be a number of calls a day")), result.skipped().toString());
+    }
+
+    @Test
+    void writesAtAPremiumMakeCachingPayOnlyFromABreakEvenTraffic() throws IOException {
+        ScanResult result = new TemplateScan(Workspace.open(List.of(root), Optional.empty()), new TokenizerRegistry())
+                .run(ScanOptions.defaults());
+        // h* = (2.5 − 2.0) / (2.5 − 0.5) = 0.25, reached at −ln(0.75) / 300 s × 86,400 s = 82.85 calls a day.
+        double breakEven = -Math.log(0.75) / 300 * 86_400;
+        assertEquals(82.85, breakEven, 0.01);
+        JsonNode totals = new ObjectMapper().readTree(dev.tare.report.ScanReport.json(result, ScanResult.Order.PATH))
+                .get("totals").get("targets").get("hosted");
+        assertEquals(breakEven, totals.get("cache_break_even_calls_per_day").asDouble(), 1e-9);
+        assertTrue(dev.tare.report.ScanReport.text(result, ScanResult.Order.PATH).contains("caching pays from 82.9 calls a day"));
     }
 
     @Test
