@@ -356,7 +356,7 @@ final class ExtractionPlanner {
                 }
             }
             RunTemplates run = RunTemplates.reparsed(parsed, path -> template(path).orElseThrow(), Optional.of(words));
-            return Check.onDisk(loader.workspace(), tokenizers, renderer, run, catalog.ids(), texts::containsKey);
+            return Check.onDisk(loader, tokenizers, renderer, run, catalog.ids(), texts::containsKey);
         }
     }
 }

@@ -21,7 +21,6 @@ import dev.tare.tokenize.TokenizerRegistry;
 import dev.tare.workspace.FileSelection;
 import dev.tare.workspace.SkippedFile;
 import dev.tare.workspace.Workspace;
-import java.nio.file.Files;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
@@ -229,12 +228,12 @@ public final class TemplateScan {
     /** The per-file work, shared read-only by the scanning threads. */
     private record Measurer(TareConfig config, List<Target> targets, Map<String, Target> targetsByName,
                             Tokenizer primary, Map<String, Tokenizer> byTarget, TemplateLoader loader, TemplateCache<Measurement> cache,
-                            Map<String, Template> toolFiles, Map<String, Integer> toolTokens) {
+                            ToolFiles toolFiles, Map<String, Integer> toolTokens) {
 
         Measurer(TareConfig config, List<Target> targets, Tokenizer primary, Map<String, Tokenizer> byTarget,
                  TemplateLoader loader, TemplateCache<Measurement> cache) {
             this(config, targets, targets.stream().collect(Collectors.toMap(Target::name, t -> t, (a, b) -> a,
-                    LinkedHashMap::new)), primary, byTarget, loader, cache, new ConcurrentHashMap<>(),
+                    LinkedHashMap::new)), primary, byTarget, loader, cache, new ToolFiles(loader),
                     new ConcurrentHashMap<>());
         }
 
@@ -265,7 +264,7 @@ public final class TemplateScan {
             Rendering empty = sampled ? loader.renderer().renderStatic(template) : samples;
             int declared = Estimates.declaredTokens(samples);
             Counts counts = new Counts();
-            List<Template> tools = toolsSentWith(template);
+            List<Template> tools = toolFiles.sentWith(template);
             Optional<CachePrefixes.Texts> texts = leadingTexts(template, samples);
             Map<String, CachePrefixes.LeadingIds> leading = new LinkedHashMap<>();
             Map<String, CallSize> callSizes = new LinkedHashMap<>();
@@ -344,33 +343,6 @@ public final class TemplateScan {
         private int toolTokens(Template toolFile, Tokenizer tokenizer) {
             return toolTokens.computeIfAbsent(toolFile.path() + '\u0000' + tokenizer.name(),
                     key -> Estimates.tokens(tokenizer, loader.renderer().renderStatic(toolFile)));
-        }
-
-        /** The tool files the template's front matter says are sent with it, each parsed once per scan. */
-        private List<Template> toolsSentWith(Template template) {
-            List<Template> tools = new ArrayList<>();
-            for (String path : template.meta().tools()) {
-                Template tool = toolFiles.computeIfAbsent(path, this::loadToolFile);
-                tools.add(tool);
-            }
-            return tools;
-        }
-
-        private Template loadToolFile(String path) {
-            if (!Files.isRegularFile(config.root().resolve(path))) {
-                throw new TareException("front matter names tool file '" + path + "', which does not exist"
-                        + " (tool paths are relative to the folder of tare.yaml)");
-            }
-            Template tool;
-            try {
-                tool = loader.load(path);
-            } catch (TareException e) {
-                throw new TareException("tool file " + path + ": " + e.getMessage(), e);
-            }
-            if (tool.kind() != TemplateKind.TOOLS) {
-                throw new TareException("front matter names '" + path + "' as a tool file, but it holds no list of tools");
-            }
-            return tool;
         }
     }
 }

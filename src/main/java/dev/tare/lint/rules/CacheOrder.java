@@ -138,7 +138,8 @@ final class CacheOrder implements Rule {
     /**
      * What moving the per-call parts last would save a month on each priced target with a provider's
      * cache, at this template's own traffic (shared prefixes would only add to it): the month with
-     * the prefix as written less the month with the reordered one, the same call otherwise.
+     * the prefix as written less the month with the reordered one, the same call otherwise. The
+     * prefixes are the scan's, so the two agree on a template that shares its prefix with no other.
      */
     private static String savings(Template template, LintContext context, List<String> leading, List<String> reordered) {
         List<String> parts = new ArrayList<>();
@@ -151,8 +152,12 @@ final class CacheOrder implements Rule {
                 continue;
             }
             Tokenizer tokenizer = context.tokenizer(target);
-            int now = target.scaled(tokens(tokenizer, leading));
-            int later = target.scaled(tokens(tokenizer, reordered));
+            // As the scan measures a static prefix: the tools sent with the template, the framing of
+            // the leading messages, then their text.
+            int head = context.sentToolTokens(template, target)
+                    + (template.isChat() ? leading.size() * target.messageOverheadTokens() : 0);
+            int now = head + target.scaled(tokens(tokenizer, leading));
+            int later = head + target.scaled(tokens(tokenizer, reordered));
             OptionalDouble asWritten = Footprints.estimate(target, new CallSize(later, 0, 0, now), traffic).costPerMonth();
             OptionalDouble moved = Footprints.estimate(target, new CallSize(later, 0, 0, later), traffic).costPerMonth();
             double saving = asWritten.getAsDouble() - moved.getAsDouble();
