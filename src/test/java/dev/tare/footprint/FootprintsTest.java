@@ -108,6 +108,12 @@ class FootprintsTest {
         assertEquals(Formulas.prefillFlops(model, 2000, 992), f.prefillFlops().getAsDouble(), EXACT);
         assertTrue(f.prefillFlops().getAsDouble() < Footprints.estimate(plain, new CallSize(2000, 0, 0, 1000))
                 .prefillFlops().getAsDouble());
+        // The blocks are stored once for every request that starts with them (PagedAttention, §4.4).
+        // KV per token 2 × 24 × 16 × 128 × 2 bytes = 196,608; free 16 GiB × 0.75 − 2e9 weight bytes
+        // = 10,884,901,888. Alone: floor(free / (2,000 × 196,608)) = 27 requests; sharing 992 tokens:
+        // floor((free − 992 × 196,608) / (1,008 × 196,608)) = 53.
+        assertEquals(27, Footprints.estimate(plain, new CallSize(2000, 0, 0, 1000)).maxConcurrent().getAsLong());
+        assertEquals(53, f.maxConcurrent().getAsLong());
     }
 
     @Test
