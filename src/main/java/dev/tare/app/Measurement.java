@@ -25,7 +25,7 @@ import java.util.OptionalDouble;
 record Measurement(String path, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
                    List<String> variables, List<String> unsizedVariables, List<String> includes,
                    Map<String, CallSize> callSizes, Map<String, Integer> estimatedByTarget,
-                   Map<String, CachePrefixes.LeadingIds> leadingIds, OptionalDouble callsPerDay) {
+                   Map<String, CachePrefixes.LeadingIds> leadingIds, OptionalDouble callsPerDay, List<String> notes) {
 
     /**
      * The template as the scan reports it, with footprints estimated on {@code targets} (by name) at
@@ -36,7 +36,7 @@ record Measurement(String path, TemplateKind kind, int characters, int staticTok
         callSizes.forEach((name, size) -> footprints.put(name,
                 Footprints.estimate(targets.get(name), size, traffic(targets.get(name), traffic))));
         return new ScannedTemplate(path, kind, characters, staticTokens, estimatedTokens, variables, unsizedVariables,
-                includes, footprints, estimatedByTarget);
+                includes, footprints, estimatedByTarget, Map.of(), notes);
     }
 
     /** How often the template is called on {@code target}. */

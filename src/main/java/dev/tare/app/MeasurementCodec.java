@@ -29,6 +29,7 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
         writeStrings(out, r.variables());
         writeStrings(out, r.unsizedVariables());
         writeStrings(out, r.includes());
+        writeStrings(out, r.notes());
         out.writeInt(r.callSizes().size());
         for (Map.Entry<String, CallSize> size : r.callSizes().entrySet()) {
             CallSize s = size.getValue();
@@ -63,6 +64,7 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
         List<String> variables = readStrings(in);
         List<String> unsized = readStrings(in);
         List<String> includes = readStrings(in);
+        List<String> notes = readStrings(in);
         Map<String, CallSize> sizes = new LinkedHashMap<>();
         Map<String, Integer> byTarget = new LinkedHashMap<>();
         int targetCount = in.readInt();
@@ -80,7 +82,7 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
             leading.put(name, new CachePrefixes.LeadingIds(head, now, in.readBoolean() ? now : readInts(in)));
         }
         return new Measurement(path, kind, characters, staticTokens, estimatedTokens, variables, unsized, includes,
-                sizes, byTarget, leading, callsPerDay);
+                sizes, byTarget, leading, callsPerDay, notes);
     }
 
     private static void writeInts(DataOutputStream out, int[] ints) throws IOException {

@@ -23,12 +23,15 @@ import java.util.Map;
  *                         target's calibration, without framing or the tool files sent with it
  * @param prefixes         per target with a prefix cache, how the template's leading static tokens
  *                         are shared with other templates; empty for partials and tool files
+ * @param notes            what a reader of the figures should know about how they were made (a target
+ *                         the template names that the configuration lacks, say), one sentence each
  */
 public record ScannedTemplate(String path, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
                               List<String> variables, List<String> unsizedVariables, List<String> includes,
                               Map<String, Footprint> targets, Map<String, Integer> estimatedByTarget,
-                              Map<String, PrefixShare> prefixes) {
+                              Map<String, PrefixShare> prefixes, List<String> notes) {
     public ScannedTemplate {
+        notes = List.copyOf(notes);
         variables = List.copyOf(variables);
         unsizedVariables = List.copyOf(unsizedVariables);
         includes = List.copyOf(includes);
@@ -42,13 +45,13 @@ public record ScannedTemplate(String path, TemplateKind kind, int characters, in
                            List<String> variables, List<String> unsizedVariables, List<String> includes,
                            Map<String, Footprint> targets, Map<String, Integer> estimatedByTarget) {
         this(path, kind, characters, staticTokens, estimatedTokens, variables, unsizedVariables, includes, targets,
-                estimatedByTarget, Map.of());
+                estimatedByTarget, Map.of(), List.of());
     }
 
     /** The same template with other footprints. */
     public ScannedTemplate withTargets(Map<String, Footprint> footprints) {
         return new ScannedTemplate(path, kind, characters, staticTokens, estimatedTokens, variables, unsizedVariables,
-                includes, footprints, estimatedByTarget, prefixes);
+                includes, footprints, estimatedByTarget, prefixes, notes);
     }
 
     /** The same template with its footprint and prefix sharing on one more target with a prefix cache. */
@@ -58,7 +61,7 @@ public record ScannedTemplate(String path, TemplateKind kind, int characters, in
         Map<String, PrefixShare> shares = new LinkedHashMap<>(prefixes);
         shares.put(target, share);
         return new ScannedTemplate(path, kind, characters, staticTokens, estimatedTokens, variables, unsizedVariables,
-                includes, footprints, estimatedByTarget, shares);
+                includes, footprints, estimatedByTarget, shares, notes);
     }
 
     /**

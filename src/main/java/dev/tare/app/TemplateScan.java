@@ -269,7 +269,8 @@ public final class TemplateScan {
             Map<String, CachePrefixes.LeadingIds> leading = new LinkedHashMap<>();
             Map<String, CallSize> callSizes = new LinkedHashMap<>();
             Map<String, Integer> estimatedByTarget = new LinkedHashMap<>();
-            for (Target target : targetsOf(template)) {
+            List<String> notes = new ArrayList<>();
+            for (Target target : targetsOf(template, notes)) {
                 Tokenizer tokenizer = byTarget.get(target.name());
                 int estimated = target.scaled(counts.of(tokenizer, samples)) + declared;
                 estimatedByTarget.put(target.name(), estimated);
@@ -310,7 +311,7 @@ public final class TemplateScan {
             return new Measurement(template.path(), template.kind(), characters, counts.of(primary, empty),
                     counts.of(primary, samples) + declared, List.copyOf(variables), List.copyOf(unsized),
                     List.copyOf(new LinkedHashSet<>(samples.includes())), callSizes, estimatedByTarget, leading,
-                    template.meta().callsPerDay());
+                    template.meta().callsPerDay(), notes);
         }
 
         /**
@@ -325,9 +326,18 @@ public final class TemplateScan {
             return Optional.of(CachePrefixes.texts(template, loader.renderer(), samples));
         }
 
-        private List<Target> targetsOf(Template template) {
+        /**
+         * The targets the template is measured on: the one it names, else all. Without a tare.yaml no
+         * target is defined, so one it names is noted and it is measured as every other template is.
+         */
+        private List<Target> targetsOf(Template template, List<String> notes) {
             Optional<String> named = template.meta().target();
             if (named.isEmpty()) {
+                return targets;
+            }
+            if (config.file().isEmpty() && config.targets().isEmpty()) {
+                notes.add("names target '" + named.get() + "', which is defined in no tare.yaml; measured on "
+                        + primary.name() + " alone (tare init writes a tare.yaml to define targets in)");
                 return targets;
             }
             if (config.targets().stream().noneMatch(t -> t.name().equals(named.get()))) {

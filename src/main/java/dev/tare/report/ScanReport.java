@@ -44,7 +44,7 @@ public final class ScanReport {
         }
         ScanResult.Totals totals = result.totals();
         table.rule();
-        List<String> total = new ArrayList<>(List.of("total (" + totals.templates() + " templates)", "",
+        List<String> total = new ArrayList<>(List.of("total (" + CheckReport.plural(totals.templates(), "template") + ")", "",
                 TextTable.number(totals.staticTokens()), TextTable.number(totals.estimatedTokens())));
         result.targets().forEach(name -> total.add(TextTable.number(totals.inputTokensByTarget().get(name))));
         total.add("");
@@ -77,6 +77,11 @@ public final class ScanReport {
         if (unsized > 0) {
             out.append(unsized).append(unsized == 1 ? " template has" : " templates have")
                     .append(" variables with neither a sample nor a token size; their estimates leave those out.\n");
+        }
+        for (ScannedTemplate template : result.templates()) {
+            for (String note : template.notes()) {
+                out.append(template.path()).append(": ").append(note).append('\n');
+            }
         }
         if (!result.skipped().isEmpty()) {
             out.append("\nSkipped ").append(result.skipped().size()).append(result.skipped().size() == 1 ? " file:\n" : " files:\n");
@@ -151,6 +156,9 @@ public final class ScanReport {
         strings(out, "variables", template.variables());
         strings(out, "unsized_variables", template.unsizedVariables());
         strings(out, "includes", template.includes());
+        if (!template.notes().isEmpty()) {
+            strings(out, "notes", template.notes());
+        }
         out.writeObjectFieldStart("targets");
         for (Map.Entry<String, Footprint> entry : template.targets().entrySet()) {
             Map<String, Object> footprint = Figures.fields(entry.getValue());

@@ -73,13 +73,28 @@ class TemplateScanTest {
     }
 
     @Test
-    void aTemplateNamingAnUnknownTargetIsSkippedNotFatal() throws IOException {
+    void aTemplateNamingATargetTareYamlLacksIsSkippedNotFatal() throws IOException {
+        write("tare.yaml", "targets:\n  - {name: hosted, tokenizer: o200k_base}\n");
         write("prompts/a.md", "---\ntarget: elsewhere\n---\nx");
         write("prompts/b.md", "fine");
         ScanResult result = new TemplateScan(Workspace.open(List.of(root), Optional.empty()), new TokenizerRegistry())
                 .run(ScanOptions.defaults());
         assertEquals(List.of("prompts/b.md"), result.templates().stream().map(ScannedTemplate::path).toList());
-        assertTrue(result.skipped().get(0).reason().contains("names target 'elsewhere'"), result.skipped().toString());
+        assertTrue(result.skipped().get(0).reason().contains("names target 'elsewhere', which tare.yaml does not"
+                + " define (defined: hosted)"), result.skipped().toString());
+    }
+
+    @Test
+    void withoutATareYamlATemplateNamingATargetIsMeasuredOnTheDefaultAndSaysSo() throws IOException {
+        write("prompts/a.md", "---\ntarget: hosted-small\n---\nAnswer water billing questions.\n");
+        ScanResult result = new TemplateScan(Workspace.open(List.of(root), Optional.empty()), new TokenizerRegistry())
+                .run(ScanOptions.defaults());
+        assertTrue(result.skipped().isEmpty(), result.skipped().toString());
+        ScannedTemplate a = result.templates().get(0);
+        assertEquals(new TokenizerRegistry().get("o200k_base", root).count("Answer water billing questions.\n"),
+                a.staticTokens());
+        assertEquals(List.of("names target 'hosted-small', which is defined in no tare.yaml; measured on o200k_base"
+                + " alone (tare init writes a tare.yaml to define targets in)"), a.notes());
     }
 
     @Test
