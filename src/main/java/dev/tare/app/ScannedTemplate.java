@@ -15,8 +15,10 @@ import java.util.Map;
  * @param characters       characters of the file's text
  * @param staticTokens     tokens with every variable empty, on the scan's primary tokenizer
  * @param estimatedTokens  tokens with samples and declared sizes, on the primary tokenizer
- * @param variables        distinct variable names in order of first use, includes' variables too
- * @param unsizedVariables the variables with neither a sample nor a token size: the estimate leaves them out
+ * @param variables        distinct variable names in order of first use, includes' variables and the
+ *                         variables passed to function calls too
+ * @param unsizedVariables the variables, and the function calls by their function's name, with neither a
+ *                         sample nor a token size: the estimate leaves them out
  * @param includes         the distinct templates pasted in, in order of first use
  * @param targets          footprint per target name, for the targets this template runs on
  * @param estimatedByTarget the template's own estimated tokens on each of its targets: scaled by the

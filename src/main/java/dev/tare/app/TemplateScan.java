@@ -303,9 +303,11 @@ public final class TemplateScan {
             Set<String> variables = new LinkedHashSet<>();
             Set<String> unsized = new LinkedHashSet<>();
             for (Rendering.Occurrence occurrence : samples.variables()) {
-                variables.add(occurrence.variable().name());
+                // A call is listed by the variables it is passed, and as unsized by its function,
+                // the name its output's size is declared under.
+                variables.addAll(occurrence.part().variableNames());
                 if (occurrence.spec().isEmpty() || !occurrence.spec().get().isSized()) {
-                    unsized.add(occurrence.variable().name());
+                    unsized.add(occurrence.part().name());
                 }
             }
             return new Measurement(template.path(), template.kind(), characters, counts.of(primary, empty),

@@ -13,28 +13,29 @@ import java.util.Optional;
 import java.util.OptionalInt;
 
 /**
- * The text of a template before its first variable, message by message: the part that is the same
- * on every call, and so the only part a prefix cache can serve. Includes are pasted in as usual.
+ * The text of a template before its first variable or function call, message by message: the part
+ * that is the same on every call, and so the only part a prefix cache can serve. Includes are pasted
+ * in as usual.
  * The scan's cached tokens and the {@code cache-order} rule both measure the leading text here, so
  * that they agree on where a template's per-call part starts.
  */
 public final class StaticPrefix {
-    /** Marks where a variable stands; template files cannot contain it, as reading refuses NUL bytes. */
+    /** Marks where a variable or call stands; template files cannot contain it, as reading refuses NUL bytes. */
     private static final String MARK = "\u0000";
 
     private StaticPrefix() {
     }
 
     /**
-     * The messages up to the first variable, the last one cut where that variable stands.
+     * The messages up to the first variable or call, the last one cut where it stands.
      *
-     * @param samples the template's rendering with samples, which lists every variable occurrence
+     * @param samples the template's rendering with samples, which lists every variable and call occurrence
      */
     public static List<String> of(Template template, Renderer renderer, Rendering samples) {
-        // Rendering each variable as a mark finds the first one across messages and includes alike.
+        // Rendering each variable and call as a mark finds the first one across messages and includes alike.
         Map<String, VariableSpec> marks = new LinkedHashMap<>();
         for (Rendering.Occurrence occurrence : samples.variables()) {
-            marks.put(occurrence.variable().name(), new VariableSpec(OptionalInt.empty(), Optional.of(MARK)));
+            marks.put(occurrence.part().name(), new VariableSpec(OptionalInt.empty(), Optional.of(MARK)));
         }
         TemplateMeta meta = template.meta();
         Template marked = new Template(template.path(), template.kind(),

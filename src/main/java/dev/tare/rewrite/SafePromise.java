@@ -14,10 +14,10 @@ import java.util.Optional;
 /**
  * What a safe rewrite promises, checked on the texts before and after, independently of the rules
  * that made it: the same messages and roles; the same words in the same order (whitespace and
- * removed invisible characters aside, JSON by value); the same variables, includes and tags in the
- * same order; every fenced block the same (a JSON block: the same value); code, tables,
- * tab-separated and aligned blocks, raw sections and HTML byte for byte; the same indentation on
- * every line with text. Each broken promise is one sentence.
+ * removed invisible characters aside, JSON by value); the same variables, function calls, includes
+ * and tags in the same order; every fenced block the same (a JSON block: the same value); code,
+ * tables, tab-separated and aligned blocks, raw sections and HTML byte for byte; the same
+ * indentation on every line with text. Each broken promise is one sentence.
  */
 final class SafePromise {
     /** Characters an invisible edit may remove; the no-break spaces it may turn into spaces are whitespace here. */
@@ -41,7 +41,7 @@ final class SafePromise {
                 problems.add("the role of " + where + " changed");
             }
             if (!placeholders(was).equals(placeholders(is))) {
-                problems.add("the variables, includes or tags of " + where + " changed");
+                problems.add("the variables, calls, includes or tags of " + where + " changed");
             }
             Optional<JsonNode> json = StrictJson.tree(was.content());
             if (json.isPresent()) {
@@ -93,8 +93,8 @@ final class SafePromise {
     private static List<String> placeholders(Message message) {
         List<String> found = new ArrayList<>();
         for (Segment segment : message.segments()) {
-            if (segment instanceof Segment.Variable variable) {
-                found.add(variable.source());
+            if (segment instanceof Segment.PerCall part) {
+                found.add(part.source());
             } else if (segment instanceof Segment.Include include) {
                 found.add(include.source());
             } else if (segment instanceof Segment.Tag tag) {

@@ -10,8 +10,8 @@ import java.util.stream.Collectors;
 
 /**
  * Renders templates as Tare measures them: tags render to nothing, includes are pasted in
- * (refusing cycles and runaway depth), and each variable becomes either nothing ({@link #renderStatic})
- * or its declared sample ({@link #renderWithSamples}).
+ * (refusing cycles and runaway depth), and each variable or function call becomes either nothing
+ * ({@link #renderStatic}) or its declared sample ({@link #renderWithSamples}).
  */
 public final class Renderer {
     /** Includes nested deeper than this are refused as runaway. */
@@ -28,7 +28,7 @@ public final class Renderer {
         return render(template, false);
     }
 
-    /** The template with each variable replaced by its declared sample, or empty when it has none. */
+    /** The template with each variable and call replaced by its declared sample, or empty when it has none. */
     public Rendering renderWithSamples(Template template) {
         return render(template, true);
     }
@@ -63,9 +63,9 @@ public final class Renderer {
         for (Segment segment : segments) {
             if (segment instanceof Segment.Text text) {
                 out.add(text.text());
-            } else if (segment instanceof Segment.Variable variable) {
-                Optional<VariableSpec> spec = root.meta().variable(variable).or(() -> owner.meta().variable(variable));
-                variables.add(new Rendering.Occurrence(variable, owner.path(), spec));
+            } else if (segment instanceof Segment.PerCall part) {
+                Optional<VariableSpec> spec = root.meta().variable(part).or(() -> owner.meta().variable(part));
+                variables.add(new Rendering.Occurrence(part, owner.path(), spec));
                 if (samples) {
                     spec.flatMap(VariableSpec::sample).ifPresent(out::add);
                 }

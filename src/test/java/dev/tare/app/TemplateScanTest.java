@@ -50,6 +50,22 @@ class TemplateScanTest {
     }
 
     @Test
+    void dollarDoubleBraceCallsAreSizedUnderTheirFunctionAndReadTheVariablesTheyArePassed() throws IOException {
+        write("tare.yaml", "templates: {include: [\"prompts/**/*.md\"], placeholder: dollar-double-brace}\n");
+        write("prompts/outage.md", "---\nvariables:\n  city: {sample: Springfield}\n  outages.near: {tokens: 60}\n---\n"
+                + "Outages near {{$city}}: {{outages.near $city radius='5 km'}}. Write {{ \"{{\" }}ticket{{ '}}' }} as is."
+                + " {{time.now}}\n");
+        ScannedTemplate template = scanOne("prompts/outage.md");
+        String emptied = "Outages near : . Write {{ticket}} as is. \n";
+        assertEquals(o200k.count(emptied), template.staticTokens());
+        String withSamples = "Outages near Springfield: . Write {{ticket}} as is. \n";
+        assertEquals(o200k.count(withSamples) + 60, template.estimatedTokens(),
+                "the call's declared size counts, its argument's sample is not pasted in");
+        assertEquals(List.of("city"), template.variables());
+        assertEquals(List.of("time.now"), template.unsizedVariables());
+    }
+
+    @Test
     void chatFilesCountEachMessageAndAddFramingOnChatTargets() throws IOException {
         write("tare.yaml", "templates: {include: [\"**/*.chat.yaml\"]}\n"
                 + "targets:\n  - {name: t, tokenizer: o200k_base, message_overhead_tokens: 4, reply_overhead_tokens: 3}\n");
