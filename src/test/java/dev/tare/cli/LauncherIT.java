@@ -105,7 +105,7 @@ class LauncherIT {
     void usageErrorsExitTwoThroughTheRealProcess() throws Exception {
         Result launched = launch("scan", "--no-such-flag");
         assertEquals(2, launched.exitCode());
-        assertTrue(launched.err().startsWith("tare: Unknown option: '--no-such-flag'"), launched.err());
+        assertTrue(launched.err().startsWith("tare: unknown option '--no-such-flag'"), launched.err());
         assertEquals("", launched.out());
     }
 
