@@ -196,9 +196,17 @@ class StructureTest {
                 "Input: a\n", "1   2\n", "<ex>\n", "</ex>\n", "{% if a %}", "{% endif %}"};
         for (int round = 0; round < 200; round++) {
             StringBuilder text = new StringBuilder();
+            // Blocks must balance to parse: a stray end is left out, and open blocks are closed at the end.
+            int open = 0;
             for (int i = 0; i < 30; i++) {
-                text.append(pieces[random.nextInt(pieces.length)]);
+                String piece = pieces[random.nextInt(pieces.length)];
+                if (piece.equals("{% endif %}") && open == 0) {
+                    continue;
+                }
+                open += piece.equals("{% if a %}") ? 1 : piece.equals("{% endif %}") ? -1 : 0;
+                text.append(piece);
             }
+            text.append("{% endif %}".repeat(open));
             Structure structure = of(text.toString());
             List<Region> regions = structure.regions();
             int at = 0;
