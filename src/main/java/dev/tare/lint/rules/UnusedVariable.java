@@ -49,6 +49,11 @@ final class UnusedVariable implements Rule {
             for (Rendering.Occurrence occurrence : rendering.variables()) {
                 used.add(occurrence.variable().name());
                 used.add(occurrence.variable().rootName());
+                used.add(occurrence.input());
+                used.add(occurrence.input().split("\\.", 2)[0]);
+            }
+            for (Rendering.Loop loop : rendering.loops()) {
+                used.add(loop.iterable());
             }
         }
         TemplateView text = context.text(template);

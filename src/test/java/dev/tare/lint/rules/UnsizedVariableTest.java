@@ -54,6 +54,14 @@ class UnsizedVariableTest {
     }
 
     @Test
+    void aHandlebarsBlockReportsTheNameItReadsNotItsHelper() {
+        List<Finding> found = findings(rule, "{{#if overdue}}Offer a plan.{{else if paused}}Wait.{{/if}}"
+                + "{{#each readings}}- {{value}}\n{{/each}}\n");
+        assertEquals(List.of("'overdue'", "'paused'", "'readings'"),
+                found.stream().map(f -> f.message().split(" ")[0]).toList());
+    }
+
+    @Test
     void aDeclaredConditionNameNeedsNoSize() {
         assertTrue(findings(rule, "---\nvariables:\n  vip: {}\n---\n{% if vip %}Offer a plan.{% endif %}\n").isEmpty());
     }
