@@ -152,6 +152,17 @@ class StructureTest {
     }
 
     @Test
+    void aMustacheElseStartsAnotherBranchAndClosesNothing() {
+        String text = "{{#if paperless}}\nEmail it.\n{{^}}\nPost it.\n{{/if}}\nDone.\n";
+        Structure structure = of(text);
+        int email = structure.branchAt(text.indexOf("Email"));
+        assertNotEquals(0, email);
+        assertNotEquals(email, structure.branchAt(text.indexOf("Post")));
+        assertNotEquals(0, structure.branchAt(text.indexOf("Post")));
+        assertEquals(0, structure.branchAt(text.indexOf("Done")));
+    }
+
+    @Test
     void anAssignmentIsNoBlock() {
         String text = "{% set tone = 'calm' %}\nBe calm.\n";
         assertEquals(0, of(text).branchAt(text.indexOf("Be calm")));
