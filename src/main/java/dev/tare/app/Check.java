@@ -129,7 +129,7 @@ public final class Check {
         List<SkippedFile> skipped = new ArrayList<>(selection.skipped());
         // Each template is linted and let go; the cross-template rules get its words, and parse it
         // again only if they need more of it.
-        LintContext each = onDisk(workspace, tokenizers, loader.renderer(), RunTemplates.held(List.of()), catalog.ids());
+        LintContext each = onDisk(loader, tokenizers, loader.renderer(), RunTemplates.held(List.of()), catalog.ids());
         RepositoryWords words = new RepositoryWords();
         Map<String, Integer> stamps = new HashMap<>();
         Map<String, Suppressions> silenced = new HashMap<>();
@@ -156,7 +156,7 @@ public final class Check {
             if (kept.isPresent()) {
                 kept.get().findings().forEach(findings::addConfigured);
             } else {
-                LintContext all = onDisk(workspace, tokenizers, loader.renderer(),
+                LintContext all = onDisk(loader, tokenizers, loader.renderer(),
                         runTemplates(stamps, everyWordGathered ? words : null, loader, reader), catalog.ids());
                 List<Finding> found = new ArrayList<>();
                 for (Rule rule : rules) {
@@ -321,20 +321,22 @@ public final class Check {
     }
 
     /**
-     * A context over the files of {@code workspace}: a path names a file when it is there under the
-     * root, and the committed baseline is read once, when a rule first asks for it.
+     * A context over the files of the loader's workspace: a path names a file when it is there under
+     * the root, tool files are read through the loader once each, and the committed baseline is read
+     * once, when a rule first asks for it.
      */
-    static LintContext onDisk(Workspace workspace, TokenizerRegistry tokenizers, Renderer renderer,
+    static LintContext onDisk(TemplateLoader loader, TokenizerRegistry tokenizers, Renderer renderer,
                               RunTemplates templates, Set<String> ruleIds) {
-        return onDisk(workspace, tokenizers, renderer, templates, ruleIds, path -> false);
+        return onDisk(loader, tokenizers, renderer, templates, ruleIds, path -> false);
     }
 
     /** As {@link #onDisk}, where a path also names a file when {@code unwritten} holds it (a fix not yet written). */
-    static LintContext onDisk(Workspace workspace, TokenizerRegistry tokenizers, Renderer renderer,
+    static LintContext onDisk(TemplateLoader loader, TokenizerRegistry tokenizers, Renderer renderer,
                               RunTemplates templates, Set<String> ruleIds, Predicate<String> unwritten) {
-        TareConfig config = workspace.config();
+        TareConfig config = loader.workspace().config();
+        ToolFiles tools = new ToolFiles(loader);
         return new LintContext(config, tokenizers, renderer, templates, ruleIds, Map.of(),
-                unwritten.or(path -> Files.exists(config.root().resolve(path))),
+                unwritten.or(path -> Files.exists(config.root().resolve(path))), tools::find,
                 BaselineFile.readOnce(BaselineFile.path(config)));
     }
 }

@@ -306,8 +306,8 @@ final class ExtractionPlanner {
                         + (at + 1) + ")");
             }
         }
-        List<String> names = was.variables().stream().map(o -> o.variable().name()).toList();
-        List<String> now = is.variables().stream().map(o -> o.variable().name()).toList();
+        List<String> names = was.variables().stream().map(o -> o.part().name()).toList();
+        List<String> now = is.variables().stream().map(o -> o.part().name()).toList();
         if (!names.equals(now)) {
             return Optional.of(path + " would fill its variables in another order");
         }
@@ -356,7 +356,7 @@ final class ExtractionPlanner {
                 }
             }
             RunTemplates run = RunTemplates.reparsed(parsed, path -> template(path).orElseThrow(), Optional.of(words));
-            return Check.onDisk(loader.workspace(), tokenizers, renderer, run, catalog.ids(), texts::containsKey);
+            return Check.onDisk(loader, tokenizers, renderer, run, catalog.ids(), texts::containsKey);
         }
     }
 }

@@ -25,8 +25,9 @@ import java.util.OptionalDouble;
  */
 record Measurement(String path, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
                    int shortestEstimatedTokens, List<String> variables, List<String> unsizedVariables,
-                   List<String> includes, List<Rendering.Loop> loops, Map<String, CallSize> callSizes, Map<String, Integer> estimatedByTarget,
-                   Map<String, CachePrefixes.LeadingIds> leadingIds, OptionalDouble callsPerDay) {
+                   List<String> includes, List<Rendering.Loop> loops, Map<String, CallSize> callSizes,
+                   Map<String, Integer> estimatedByTarget, Map<String, CachePrefixes.LeadingIds> leadingIds,
+                   OptionalDouble callsPerDay, List<String> notes) {
 
     /**
      * The template as the scan reports it, with footprints estimated on {@code targets} (by name) at
@@ -37,7 +38,7 @@ record Measurement(String path, TemplateKind kind, int characters, int staticTok
         callSizes.forEach((name, size) -> footprints.put(name,
                 Footprints.estimate(targets.get(name), size, traffic(targets.get(name), traffic))));
         return new ScannedTemplate(path, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens,
-                variables, unsizedVariables, includes, loops, footprints, estimatedByTarget);
+                variables, unsizedVariables, includes, loops, footprints, estimatedByTarget, Map.of(), notes);
     }
 
     /** How often the template is called on {@code target}. */

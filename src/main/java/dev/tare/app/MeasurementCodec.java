@@ -40,6 +40,7 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
             out.writeUTF(loop.owner());
             out.writeInt(loop.line());
         }
+        writeStrings(out, r.notes());
         out.writeInt(r.callSizes().size());
         for (Map.Entry<String, CallSize> size : r.callSizes().entrySet()) {
             CallSize s = size.getValue();
@@ -81,6 +82,7 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
             loops.add(new Rendering.Loop(in.readUTF(), in.readUTF(), in.readInt(), in.readBoolean(), in.readUTF(),
                     in.readInt()));
         }
+        List<String> notes = readStrings(in);
         Map<String, CallSize> sizes = new LinkedHashMap<>();
         Map<String, Integer> byTarget = new LinkedHashMap<>();
         int targetCount = in.readInt();
@@ -98,7 +100,7 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
             leading.put(name, new CachePrefixes.LeadingIds(head, now, in.readBoolean() ? now : readInts(in)));
         }
         return new Measurement(path, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens, variables,
-                unsized, includes, loops, sizes, byTarget, leading, callsPerDay);
+                unsized, includes, loops, sizes, byTarget, leading, callsPerDay, notes);
     }
 
     private static void writeInts(DataOutputStream out, int[] ints) throws IOException {

@@ -46,7 +46,7 @@ public final class OverviewRun {
 
     private List<TemplateLines> lines(ScanResult scan) {
         TemplateLoader loader = new TemplateLoader(workspace);
-        LintContext context = Check.onDisk(workspace, tokenizers, loader.renderer(), RunTemplates.held(List.of()), Set.of());
+        LintContext context = Check.onDisk(loader, tokenizers, loader.renderer(), RunTemplates.held(List.of()), Set.of());
         LineCounter counter = new LineCounter(tokenizers.get(scan.tokenizer(), workspace.root()), loader.renderer(),
                 context);
         List<TemplateLines> lines = new ArrayList<>();

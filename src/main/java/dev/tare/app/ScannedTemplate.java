@@ -19,8 +19,10 @@ import java.util.Map;
  *                         heaviest branch of each conditional, each loop's expected items), on the
  *                         primary tokenizer
  * @param shortestEstimatedTokens the same on the shortest path (the lightest branch of each conditional)
- * @param variables        distinct variable names in order of first use, includes' variables too
- * @param unsizedVariables the variables with neither a sample nor a token size: the estimate leaves them out
+ * @param variables        distinct variable names in order of first use, includes' variables and the
+ *                         variables passed to function calls too
+ * @param unsizedVariables the variables, and the function calls by their function's name, with neither a
+ *                         sample nor a token size: the estimate leaves them out
  * @param includes         the distinct templates pasted in, in order of first use
  * @param loops            the loops on the longest path, with the items assumed for each
  * @param targets          footprint per target name, for the targets this template runs on
@@ -28,12 +30,16 @@ import java.util.Map;
  *                         target's calibration, without framing or the tool files sent with it
  * @param prefixes         per target with a prefix cache, how the template's leading static tokens
  *                         are shared with other templates; empty for partials and tool files
+ * @param notes            what a reader of the figures should know about how they were made (a target
+ *                         the template names that the configuration lacks, say), one sentence each
  */
 public record ScannedTemplate(String path, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
                               int shortestEstimatedTokens, List<String> variables, List<String> unsizedVariables,
-                              List<String> includes, List<Rendering.Loop> loops, Map<String, Footprint> targets, Map<String, Integer> estimatedByTarget,
-                              Map<String, PrefixShare> prefixes) {
+                              List<String> includes, List<Rendering.Loop> loops, Map<String, Footprint> targets,
+                              Map<String, Integer> estimatedByTarget, Map<String, PrefixShare> prefixes,
+                              List<String> notes) {
     public ScannedTemplate {
+        notes = List.copyOf(notes);
         variables = List.copyOf(variables);
         unsizedVariables = List.copyOf(unsizedVariables);
         includes = List.copyOf(includes);
@@ -49,13 +55,13 @@ public record ScannedTemplate(String path, TemplateKind kind, int characters, in
                            List<String> includes, List<Rendering.Loop> loops, Map<String, Footprint> targets,
                            Map<String, Integer> estimatedByTarget) {
         this(path, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens, variables, unsizedVariables,
-                includes, loops, targets, estimatedByTarget, Map.of());
+                includes, loops, targets, estimatedByTarget, Map.of(), List.of());
     }
 
     /** The same template with other footprints. */
     public ScannedTemplate withTargets(Map<String, Footprint> footprints) {
         return new ScannedTemplate(path, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens,
-                variables, unsizedVariables, includes, loops, footprints, estimatedByTarget, prefixes);
+                variables, unsizedVariables, includes, loops, footprints, estimatedByTarget, prefixes, notes);
     }
 
     /** The same template with its footprint and prefix sharing on one more target with a prefix cache. */
@@ -65,7 +71,7 @@ public record ScannedTemplate(String path, TemplateKind kind, int characters, in
         Map<String, PrefixShare> shares = new LinkedHashMap<>(prefixes);
         shares.put(target, share);
         return new ScannedTemplate(path, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens,
-                variables, unsizedVariables, includes, loops, footprints, estimatedByTarget, shares);
+                variables, unsizedVariables, includes, loops, footprints, estimatedByTarget, shares, notes);
     }
 
     /**

@@ -15,6 +15,7 @@ import dev.tare.source.SourceText;
 import dev.tare.template.RenderedPath;
 import dev.tare.template.Renderer;
 import dev.tare.template.Rendering;
+import dev.tare.template.Segment;
 import dev.tare.template.Template;
 import dev.tare.template.TemplateKind;
 import dev.tare.tokenize.Tokenizer;
@@ -22,7 +23,6 @@ import dev.tare.tokenize.TokenizerRegistry;
 import dev.tare.workspace.FileSelection;
 import dev.tare.workspace.SkippedFile;
 import dev.tare.workspace.Workspace;
-import java.nio.file.Files;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
@@ -230,12 +230,12 @@ public final class TemplateScan {
     /** The per-file work, shared read-only by the scanning threads. */
     private record Measurer(TareConfig config, List<Target> targets, Map<String, Target> targetsByName,
                             Tokenizer primary, Map<String, Tokenizer> byTarget, TemplateLoader loader, TemplateCache<Measurement> cache,
-                            Map<String, Template> toolFiles, Map<String, Integer> toolTokens) {
+                            ToolFiles toolFiles, Map<String, Integer> toolTokens) {
 
         Measurer(TareConfig config, List<Target> targets, Tokenizer primary, Map<String, Tokenizer> byTarget,
                  TemplateLoader loader, TemplateCache<Measurement> cache) {
             this(config, targets, targets.stream().collect(Collectors.toMap(Target::name, t -> t, (a, b) -> a,
-                    LinkedHashMap::new)), primary, byTarget, loader, cache, new ConcurrentHashMap<>(),
+                    LinkedHashMap::new)), primary, byTarget, loader, cache, new ToolFiles(loader),
                     new ConcurrentHashMap<>());
         }
 
@@ -265,12 +265,13 @@ public final class TemplateScan {
             Rendering empty = longest.empty();
             int declared = Estimates.declaredTokens(samples);
             Counts counts = new Counts();
-            List<Template> tools = toolsSentWith(template);
+            List<Template> tools = toolFiles.sentWith(template);
             Optional<CachePrefixes.Texts> texts = leadingTexts(template, samples);
             Map<String, CachePrefixes.LeadingIds> leading = new LinkedHashMap<>();
             Map<String, CallSize> callSizes = new LinkedHashMap<>();
             Map<String, Integer> estimatedByTarget = new LinkedHashMap<>();
-            for (Target target : targetsOf(template)) {
+            List<String> notes = new ArrayList<>();
+            for (Target target : targetsOf(template, notes)) {
                 Tokenizer tokenizer = byTarget.get(target.name());
                 int estimated = target.scaled(counts.of(tokenizer, samples)) + declared;
                 estimatedByTarget.put(target.name(), estimated);
@@ -303,7 +304,13 @@ public final class TemplateScan {
             Set<String> variables = new LinkedHashSet<>();
             Set<String> unsized = new LinkedHashSet<>();
             for (Rendering.Occurrence occurrence : samples.variables()) {
-                variables.add(occurrence.input());
+                // A call is listed by the variables it is passed, a variable by the input it reads; either
+                // is unsized under its input, the name its size is declared under (a call's function).
+                if (occurrence.part() instanceof Segment.Call call) {
+                    variables.addAll(call.variableNames());
+                } else {
+                    variables.add(occurrence.input());
+                }
                 if (occurrence.spec().isEmpty() || !occurrence.spec().get().isSized()) {
                     unsized.add(occurrence.input());
                 }
@@ -312,7 +319,7 @@ public final class TemplateScan {
             return new Measurement(template.path(), template.kind(), characters, counts.of(primary, empty),
                     estimated, shortestEstimate(template, longest, estimated, counts), List.copyOf(variables),
                     List.copyOf(unsized), List.copyOf(new LinkedHashSet<>(samples.includes())), samples.loops(),
-                    callSizes, estimatedByTarget, leading, template.meta().callsPerDay());
+                    callSizes, estimatedByTarget, leading, template.meta().callsPerDay(), notes);
         }
 
         /** The estimated tokens on the template's shortest path: on its only path when it has no branches. */
@@ -336,9 +343,18 @@ public final class TemplateScan {
             return Optional.of(CachePrefixes.texts(template, loader.renderer(), samples));
         }
 
-        private List<Target> targetsOf(Template template) {
+        /**
+         * The targets the template is measured on: the one it names, else all. Without a tare.yaml no
+         * target is defined, so one it names is noted and it is measured as every other template is.
+         */
+        private List<Target> targetsOf(Template template, List<String> notes) {
             Optional<String> named = template.meta().target();
             if (named.isEmpty()) {
+                return targets;
+            }
+            if (config.file().isEmpty() && config.targets().isEmpty()) {
+                notes.add("names target '" + named.get() + "', which is defined in no tare.yaml; measured on "
+                        + primary.name() + " alone (tare init writes a tare.yaml to define targets in)");
                 return targets;
             }
             if (config.targets().stream().noneMatch(t -> t.name().equals(named.get()))) {
@@ -354,33 +370,6 @@ public final class TemplateScan {
         private int toolTokens(Template toolFile, Tokenizer tokenizer) {
             return toolTokens.computeIfAbsent(toolFile.path() + '\u0000' + tokenizer.name(),
                     key -> Estimates.tokens(tokenizer, loader.renderer().renderStatic(toolFile)));
-        }
-
-        /** The tool files the template's front matter says are sent with it, each parsed once per scan. */
-        private List<Template> toolsSentWith(Template template) {
-            List<Template> tools = new ArrayList<>();
-            for (String path : template.meta().tools()) {
-                Template tool = toolFiles.computeIfAbsent(path, this::loadToolFile);
-                tools.add(tool);
-            }
-            return tools;
-        }
-
-        private Template loadToolFile(String path) {
-            if (!Files.isRegularFile(config.root().resolve(path))) {
-                throw new TareException("front matter names tool file '" + path + "', which does not exist"
-                        + " (tool paths are relative to the folder of tare.yaml)");
-            }
-            Template tool;
-            try {
-                tool = loader.load(path);
-            } catch (TareException e) {
-                throw new TareException("tool file " + path + ": " + e.getMessage(), e);
-            }
-            if (tool.kind() != TemplateKind.TOOLS) {
-                throw new TareException("front matter names '" + path + "' as a tool file, but it holds no list of tools");
-            }
-            return tool;
         }
     }
 }

@@ -233,7 +233,13 @@ public final class ConfigLoader {
         OptionalDouble cached = in.number(node, "cached_input", at + ".cached_input", 0);
         OptionalDouble write = in.number(node, "cache_write", at + ".cache_write", 0);
         String currency = in.text(node, "currency", at + ".currency").orElse("USD");
-        return Optional.of(new Price(input, cached, write, output, currency));
+        Price price = new Price(input, cached, write, output, currency);
+        // A write that costs less than a read would make caching free money; it is a typo.
+        if (write.isPresent() && price.cacheWrite() < price.cachedInput()) {
+            throw in.problem(at + ".cache_write", "must be at least the cached_input price ("
+                    + price.cachedInput() + "): writing a token to the cache costs the input price or more");
+        }
+        return Optional.of(price);
     }
 
     private static Budgets budgets(ConfigReader in, JsonNode top) {

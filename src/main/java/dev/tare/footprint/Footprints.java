@@ -101,8 +101,12 @@ public final class Footprints {
                     }
                 }
                 if (kvCache.isPresent() && d.memoryGib().isPresent() && d.usableFraction().isPresent()) {
+                    // A server's cache keeps the prefix's blocks once for every request that shares them.
+                    double shared = target.prefixCache().filter(c -> c.ttlSeconds().isEmpty()).isPresent()
+                            ? Formulas.sharedKvCacheBytes(model, cacheable, target.kvBits().getAsDouble()) : 0;
                     maxConcurrent = OptionalLong.of(Formulas.maxConcurrent(d.memoryGib().getAsDouble(),
-                            d.usableFraction().getAsDouble(), weightBytes.getAsDouble(), kvCache.getAsDouble()));
+                            d.usableFraction().getAsDouble(), weightBytes.getAsDouble(), shared,
+                            kvCache.getAsDouble() - shared));
                 }
             }
             load = Optional.of(new Footprint.Load(model.paramsTotal(), model.paramsActive(), model.contextLimit(),

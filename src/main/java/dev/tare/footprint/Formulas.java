@@ -54,6 +54,17 @@ public final class Formulas {
     }
 
     /**
+     * KV bytes of a prefix shared by concurrent requests: a server that keeps the prefix's whole blocks
+     * stores them once for every request that starts with it (Kwon et al., SOSP 2023, "Efficient
+     * Memory Management for Large Language Model Serving with PagedAttention", §4.4, shared prefix).
+     * Only global layers are counted: a sliding-window layer's rolling buffer soon holds each request's
+     * own latest tokens, so its share is taken as none.
+     */
+    public static double sharedKvCacheBytes(ModelShape model, long sharedTokens, double kvBits) {
+        return (double) model.globalLayers() * sharedTokens * model.kv().widthPerLayer() * kvBits / 8;
+    }
+
+    /**
      * Attention-score FLOPs of one token that sees {@code context} tokens: 2 × d_attn × n_ctx per
      * layer (Kaplan et al. 2020, Table 1), with n_ctx capped at the window on windowed layers.
      */
@@ -178,7 +189,16 @@ public final class Formulas {
      * 0 when the weights alone do not fit.
      */
     public static long maxConcurrent(double memoryGib, double usableFraction, double weightBytes, double kvCacheBytes) {
-        double free = memoryGib * BYTES_PER_GIB * usableFraction - weightBytes;
+        return maxConcurrent(memoryGib, usableFraction, weightBytes, 0, kvCacheBytes);
+    }
+
+    /**
+     * max_concurrent = floor((memory × usable − weight_bytes − kv_shared) / kv_per_request): the
+     * shared prefix's KV is held once, each request adds only its own part.
+     */
+    public static long maxConcurrent(double memoryGib, double usableFraction, double weightBytes, double sharedKvBytes,
+                                     double kvCacheBytes) {
+        double free = memoryGib * BYTES_PER_GIB * usableFraction - weightBytes - sharedKvBytes;
         if (free <= 0 || kvCacheBytes <= 0) {
             return 0;
         }

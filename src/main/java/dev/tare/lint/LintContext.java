@@ -2,6 +2,8 @@ package dev.tare.lint;
 
 import dev.tare.TareException;
 import dev.tare.config.TareConfig;
+import dev.tare.footprint.Estimates;
+import dev.tare.footprint.Framing;
 import dev.tare.footprint.PrefixCache;
 import dev.tare.footprint.Target;
 import dev.tare.overlap.RepositoryWords;
@@ -22,6 +24,7 @@ import java.util.Optional;
 import java.util.OptionalInt;
 import java.util.Set;
 import java.util.concurrent.ConcurrentHashMap;
+import java.util.function.Function;
 import java.util.function.Predicate;
 import java.util.function.Supplier;
 
@@ -53,6 +56,7 @@ public final class LintContext {
     private final Map<String, List<ToolDefinition>> tools = new ConcurrentHashMap<>();
     private final Set<String> paths;
     private final Predicate<String> files;
+    private final Function<String, Optional<Template>> toolFiles;
     /** Each tokenizer of the registry as rules get it, remembering its counts of long texts. */
     private final Map<Tokenizer, Tokenizer> remembering = new ConcurrentHashMap<>();
 
@@ -65,6 +69,7 @@ public final class LintContext {
     public LintContext(TareConfig config, TokenizerRegistry tokenizers, Renderer renderer, List<Template> templates,
                        Set<String> ruleIds, Map<String, Integer> settings) {
         this(config, tokenizers, renderer, RunTemplates.held(templates), ruleIds, settings, path -> false,
+                path -> templates.stream().filter(t -> t.path().equals(path) && t.kind() == TemplateKind.TOOLS).findFirst(),
                 Optional::empty);
     }
 
@@ -73,12 +78,13 @@ public final class LintContext {
      * one (a check of a whole repository).
      *
      * @param settings example settings that stand in for target values (see {@link Example#settings()})
-     * @param files    whether a root-relative path names a file besides the run's templates
-     * @param baseline the committed baseline, asked for only when a rule needs it
+     * @param files     whether a root-relative path names a file besides the run's templates
+     * @param toolFiles the tool file at a root-relative path, parsed, or empty when there is none there
+     * @param baseline  the committed baseline, asked for only when a rule needs it
      */
     public LintContext(TareConfig config, TokenizerRegistry tokenizers, Renderer renderer, RunTemplates templates,
                        Set<String> ruleIds, Map<String, Integer> settings, Predicate<String> files,
-                       Supplier<Optional<Baseline>> baseline) {
+                       Function<String, Optional<Template>> toolFiles, Supplier<Optional<Baseline>> baseline) {
         this.config = config;
         this.tokenizers = tokenizers;
         this.renderer = renderer;
@@ -87,6 +93,7 @@ public final class LintContext {
         this.settings = Map.copyOf(settings);
         this.paths = Set.copyOf(templates.paths());
         this.files = files;
+        this.toolFiles = toolFiles;
         this.baseline = baseline;
     }
 
@@ -258,6 +265,24 @@ public final class LintContext {
         return tools.computeIfAbsent(template.path(), path -> ToolFileParser.definitions(
                 path.toLowerCase(java.util.Locale.ROOT).endsWith(".json") ? YamlDocument.parseJson(template.source())
                         : YamlDocument.parseYaml(template.source())));
+    }
+
+    /**
+     * The tokens the tool definitions sent with {@code template} add to a call on {@code target}, which
+     * a provider reads before the messages: each tool file's definitions counted (and scaled) as the
+     * scan counts them, and the target's framing around each tool. Tool files that cannot be read
+     * add nothing; the scan reports them.
+     */
+    public int sentToolTokens(Template template, Target target) {
+        int total = 0;
+        for (String path : template.meta().tools()) {
+            Optional<Template> tools = toolFiles.apply(path);
+            if (tools.isPresent()) {
+                total += target.scaled(Estimates.tokens(tokenizer(target), renderer.renderStatic(tools.get())))
+                        + Framing.toolTokens(target, tools.get().messages().size());
+            }
+        }
+        return total;
     }
 
     /** A numeric limit from {@code rules.limits} (or an example's setting of that name), else its default. */

@@ -66,8 +66,9 @@ public final class CachePrefixes {
      */
     public record Prefix(CallSize call, LeadingIds leading, Traffic traffic) {
         /** The static prefix with every per-call part last: the same tools and framing, the reordered text. */
-        int reorderedTokens() {
-            return Math.min(call.inputTokens(), call.staticPrefixTokens() - leading.now().length + leading.reordered().length);
+        int reorderedTokens(Target target) {
+            int text = target.scaled(leading.now().length);
+            return Math.min(call.inputTokens(), call.staticPrefixTokens() - text + target.scaled(leading.reordered().length));
         }
     }
 
@@ -124,10 +125,10 @@ public final class CachePrefixes {
         List<CallSize> reordered = new ArrayList<>(n);
         for (Prefix prefix : prefixes) {
             now.add(prefix.call());
-            reordered.add(prefix.call().withStaticPrefix(prefix.reorderedTokens()));
+            reordered.add(prefix.call().withStaticPrefix(prefix.reorderedTokens(target)));
         }
-        double[] pooledNow = pooled(cache, prefixes, now, LeadingIds::now);
-        double[] pooledReordered = pooled(cache, prefixes, reordered, LeadingIds::reordered);
+        double[] pooledNow = pooled(target, cache, prefixes, now, LeadingIds::now);
+        double[] pooledReordered = pooled(target, cache, prefixes, reordered, LeadingIds::reordered);
         List<Shared> shared = new ArrayList<>(n);
         for (int i = 0; i < n; i++) {
             Traffic traffic = prefixes.get(i).traffic();
@@ -140,7 +141,7 @@ public final class CachePrefixes {
     }
 
     /** The calls a day of the templates whose first C tokens equal each one's, C its cacheable prefix. */
-    private static double[] pooled(PrefixCache cache, List<Prefix> prefixes, List<CallSize> calls,
+    private static double[] pooled(Target target, PrefixCache cache, List<Prefix> prefixes, List<CallSize> calls,
                                    Function<LeadingIds, int[]> ids) {
         int n = prefixes.size();
         List<SharedPrefixes.Sequence> sequences = new ArrayList<>(n);
@@ -151,9 +152,12 @@ public final class CachePrefixes {
             int[] leading = ids.apply(prefix.leading());
             sequences.add(new SharedPrefixes.Sequence(prefix.leading().head(), leading));
             CallSize call = calls.get(i);
-            // The prefix's tools and framing stand before its text: the text must match from there on.
-            int beforeText = call.staticPrefixTokens() - Math.min(leading.length, call.staticPrefixTokens());
-            depths[i] = cache.cacheable(call.staticPrefixTokens()) - beforeText;
+            // The prefix's tools and framing stand before its text: the text must match from there on,
+            // as deep in counted ids as the cacheable part reaches in the target's (scaled) tokens.
+            int text = Math.min(target.scaled(leading.length), call.staticPrefixTokens());
+            int beforeText = call.staticPrefixTokens() - text;
+            int cachedText = Math.max(0, cache.cacheable(call.staticPrefixTokens()) - beforeText);
+            depths[i] = text == 0 ? 0 : (int) Math.min(leading.length, (long) cachedText * leading.length / text);
             weights[i] = prefix.traffic().callsPerDay().orElse(0);
         }
         return SharedPrefixes.pooled(sequences, depths, weights);

@@ -6,10 +6,10 @@ import dev.tare.template.Template;
 import java.util.List;
 
 /**
- * The text of a template before its first per-call part (a variable, or a loop or branch that
- * depends on one), message by message: the part that is the same on every call, and so the only
- * part a prefix cache can serve. Includes are pasted in as usual. The scan's cached tokens and the
- * {@code cache-order} rule both measure the leading text here, so that they agree on where a
+ * The text of a template before its first per-call part (a variable or function call, or a loop or
+ * branch that depends on one), message by message: the part that is the same on every call, and so
+ * the only part a prefix cache can serve. Includes are pasted in as usual. The scan's cached tokens
+ * and the {@code cache-order} rule both measure the leading text here, so that they agree on where a
  * template's per-call part starts.
  */
 public final class StaticPrefix {

@@ -45,7 +45,7 @@ public final class ScanReport {
         }
         ScanResult.Totals totals = result.totals();
         table.rule();
-        List<String> total = new ArrayList<>(List.of("total (" + totals.templates() + " templates)", "",
+        List<String> total = new ArrayList<>(List.of("total (" + CheckReport.plural(totals.templates(), "template") + ")", "",
                 TextTable.number(totals.staticTokens()), TextTable.number(totals.estimatedTokens())));
         result.targets().forEach(name -> total.add(TextTable.number(totals.inputTokensByTarget().get(name))));
         total.add("");
@@ -88,6 +88,11 @@ public final class ScanReport {
         if (assumed > 0) {
             out.append(assumed).append(assumed == 1 ? " template has" : " templates have")
                     .append(" loops without declared items, counted once; declare variables: {NAME: {items: N}}.\n");
+        }
+        for (ScannedTemplate template : result.templates()) {
+            for (String note : template.notes()) {
+                out.append(template.path()).append(": ").append(note).append('\n');
+            }
         }
         if (!result.skipped().isEmpty()) {
             out.append("\nSkipped ").append(result.skipped().size()).append(result.skipped().size() == 1 ? " file:\n" : " files:\n");
@@ -164,6 +169,9 @@ public final class ScanReport {
         strings(out, "unsized_variables", template.unsizedVariables());
         strings(out, "includes", template.includes());
         loops(out, template);
+        if (!template.notes().isEmpty()) {
+            strings(out, "notes", template.notes());
+        }
         out.writeObjectFieldStart("targets");
         for (Map.Entry<String, Footprint> entry : template.targets().entrySet()) {
             Map<String, Object> footprint = Figures.fields(entry.getValue());

@@ -16,7 +16,7 @@ import java.util.stream.Collectors;
 
 /**
  * Renders templates as Tare measures them: includes are pasted in (refusing cycles and runaway
- * depth), each variable becomes either nothing or its declared sample, and the blocks of
+ * depth), each variable or function call becomes either nothing or its declared sample, and the blocks of
  * double-brace templates are followed along one path. A loop's body renders once per expected item
  * (its iterable's declared {@code items}, else 1); of a conditional's branches (an {@code if} without
  * {@code else} has an empty one) the path takes the longest or the shortest. Branches are weighed by
@@ -54,7 +54,7 @@ public final class Renderer {
         return render(template, Path.LONGEST).empty();
     }
 
-    /** The template on its longest path with each variable replaced by its declared sample, or empty when it has none. */
+    /** The template on its longest path with each variable and call replaced by its declared sample, or empty when it has none. */
     public Rendering renderWithSamples(Template template) {
         return render(template, Path.LONGEST).samples();
     }
@@ -272,6 +272,9 @@ public final class Renderer {
                     out.text(text.text());
                 } else if (segment instanceof Segment.Variable variable) {
                     variable(owner, variable, env, out);
+                } else if (segment instanceof Segment.Call call) {
+                    // A function call's output is declared under the function's full name only.
+                    perCall(owner, call, call.name(), root.meta().variable(call).or(() -> owner.meta().variable(call)), out);
                 } else if (segment instanceof Segment.Include include) {
                     include(owner, include, env, out);
                 } else if (segment instanceof Segment.Tag tag) {
@@ -301,18 +304,22 @@ public final class Renderer {
         private void variable(Template owner, Segment.Variable variable, Env env, Out out) {
             Binding binding = resolveName(variable.name(), owner, env);
             if (binding instanceof Input input) {
-                Optional<VariableSpec> spec = spec(input.name(), owner);
-                out.perCall();
-                out.variables.add(new Rendering.Occurrence(variable, owner.path(), spec, input.name()));
-                if (spec.isPresent() && spec.get().sample().isPresent()) {
-                    out.sample(spec.get().sample().get());
-                } else if (spec.isPresent() && spec.get().tokens().isPresent()) {
-                    out.declaredTokens += spec.get().tokens().getAsInt();
-                }
+                perCall(owner, variable, input.name(), spec(input.name(), owner), out);
             } else if (binding instanceof Value value) {
                 out.text(value.text());
             } else if (binding instanceof Body body) {
                 body(body, out);
+            }
+        }
+
+        /** A variable or call that reads {@code input}: its sample, or nothing and its declared size. */
+        private void perCall(Template owner, Segment.PerCall part, String input, Optional<VariableSpec> spec, Out out) {
+            out.perCall();
+            out.variables.add(new Rendering.Occurrence(part, owner.path(), spec, input));
+            if (spec.isPresent() && spec.get().sample().isPresent()) {
+                out.sample(spec.get().sample().get());
+            } else if (spec.isPresent() && spec.get().tokens().isPresent()) {
+                out.declaredTokens += spec.get().tokens().getAsInt();
             }
         }
 

@@ -6,15 +6,15 @@ import java.util.Optional;
 
 /**
  * A template rendered to the text a model would receive, one string per message, with every
- * variable occurrence that the rendering passed through (including those inside includes, once per
- * loop iteration), the loops it assumed, and where the first per-call part stands.
+ * per-call part (variable or function call) that the rendering passed through (including those inside
+ * includes, once per loop iteration), the loops it assumed, and where the first per-call part stands.
  *
  * @param messages     the rendered text of each message, in order
- * @param variables    each variable occurrence, in order, with the declaration that applies to it
+ * @param variables    each occurrence of a variable or call, in order, with the declaration that applies to it
  * @param includes     the root-relative paths of every template pasted in, in order, repeats kept
  * @param loops        each loop on the rendered path, once, in order
- * @param firstPerCall where the first part that can differ between calls stands (a variable, or a
- *                     loop or branch that depends on one); empty when there is none
+ * @param firstPerCall where the first part that can differ between calls stands (a variable or call, or
+ *                     a loop or branch that depends on one); empty when there is none
  */
 public record Rendering(List<String> messages, List<Occurrence> variables, List<String> includes, List<Loop> loops,
                         Optional<Position> firstPerCall) {
@@ -46,18 +46,17 @@ public record Rendering(List<String> messages, List<Occurrence> variables, List<
     }
 
     /**
-     * One variable occurrence.
+     * One occurrence of a variable or function call.
      *
-     * @param variable the segment
-     * @param owner    the path of the template it stands in
-     * @param spec     the declaration that applies: the rendered template's, else the owner's
-     * @param input    the template input it reads, as a dotted name: the variable's own name, or for a
-     *                 name the template binds, what it stands for ({@code item.text} in
-     *                 {@code {% for item in history %}} reads {@code history.text})
+     * @param part  the segment
+     * @param owner the path of the template it stands in
+     * @param spec  the declaration that applies: the rendered template's, else the owner's
+     * @param input the template input it reads, as a dotted name: a variable's own name (a call's
+     *              function), or for a name the template binds, what it stands for ({@code item.text} in
+     *              {@code {% for item in history %}} reads {@code history.text})
      */
-    public record Occurrence(Segment.Variable variable, String owner, Optional<VariableSpec> spec, String input) {
+    public record Occurrence(Segment.PerCall part, String owner, Optional<VariableSpec> spec, String input) {
     }
-
     /**
      * A loop the rendering assumed a number of iterations for.
      *

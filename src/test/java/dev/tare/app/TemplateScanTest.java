@@ -90,6 +90,22 @@ class TemplateScanTest {
     }
 
     @Test
+    void dollarDoubleBraceCallsAreSizedUnderTheirFunctionAndReadTheVariablesTheyArePassed() throws IOException {
+        write("tare.yaml", "templates: {include: [\"prompts/**/*.md\"], placeholder: dollar-double-brace}\n");
+        write("prompts/outage.md", "---\nvariables:\n  city: {sample: Springfield}\n  outages.near: {tokens: 60}\n---\n"
+                + "Outages near {{$city}}: {{outages.near $city radius='5 km'}}. Write {{ \"{{\" }}ticket{{ '}}' }} as is."
+                + " {{time.now}}\n");
+        ScannedTemplate template = scanOne("prompts/outage.md");
+        String emptied = "Outages near : . Write {{ticket}} as is. \n";
+        assertEquals(o200k.count(emptied), template.staticTokens());
+        String withSamples = "Outages near Springfield: . Write {{ticket}} as is. \n";
+        assertEquals(o200k.count(withSamples) + 60, template.estimatedTokens(),
+                "the call's declared size counts, its argument's sample is not pasted in");
+        assertEquals(List.of("city"), template.variables());
+        assertEquals(List.of("time.now"), template.unsizedVariables());
+    }
+
+    @Test
     void chatFilesCountEachMessageAndAddFramingOnChatTargets() throws IOException {
         write("tare.yaml", "templates: {include: [\"**/*.chat.yaml\"]}\n"
                 + "targets:\n  - {name: t, tokenizer: o200k_base, message_overhead_tokens: 4, reply_overhead_tokens: 3}\n");
@@ -113,13 +129,28 @@ class TemplateScanTest {
     }
 
     @Test
-    void aTemplateNamingAnUnknownTargetIsSkippedNotFatal() throws IOException {
+    void aTemplateNamingATargetTareYamlLacksIsSkippedNotFatal() throws IOException {
+        write("tare.yaml", "targets:\n  - {name: hosted, tokenizer: o200k_base}\n");
         write("prompts/a.md", "---\ntarget: elsewhere\n---\nx");
         write("prompts/b.md", "fine");
         ScanResult result = new TemplateScan(Workspace.open(List.of(root), Optional.empty()), new TokenizerRegistry())
                 .run(ScanOptions.defaults());
         assertEquals(List.of("prompts/b.md"), result.templates().stream().map(ScannedTemplate::path).toList());
-        assertTrue(result.skipped().get(0).reason().contains("names target 'elsewhere'"), result.skipped().toString());
+        assertTrue(result.skipped().get(0).reason().contains("names target 'elsewhere', which tare.yaml does not"
+                + " define (defined: hosted)"), result.skipped().toString());
+    }
+
+    @Test
+    void withoutATareYamlATemplateNamingATargetIsMeasuredOnTheDefaultAndSaysSo() throws IOException {
+        write("prompts/a.md", "---\ntarget: hosted-small\n---\nAnswer water billing questions.\n");
+        ScanResult result = new TemplateScan(Workspace.open(List.of(root), Optional.empty()), new TokenizerRegistry())
+                .run(ScanOptions.defaults());
+        assertTrue(result.skipped().isEmpty(), result.skipped().toString());
+        ScannedTemplate a = result.templates().get(0);
+        assertEquals(new TokenizerRegistry().get("o200k_base", root).count("Answer water billing questions.\n"),
+                a.staticTokens());
+        assertEquals(List.of("names target 'hosted-small', which is defined in no tare.yaml; measured on o200k_base"
+                + " alone (tare init writes a tare.yaml to define targets in)"), a.notes());
     }
 
     @Test

@@ -96,6 +96,9 @@ class ConfigLoaderTest {
         assertTrue(problem("budgets: {default: many}\n").contains("budgets.default: must be a whole number"));
         assertTrue(problem("templates: {partials: ../elsewhere}\n").contains("must be a folder inside the repository"));
         assertTrue(problem("hook: {fix: maybe}\n").contains("hook.fix: must be true or false"));
+        assertTrue(problem("targets:\n  - name: a\n    tokenizer: o200k_base\n"
+                + "    price: {input: 2.5, cached_input: 0.25, cache_write: 0.1, output: 10}\n")
+                .contains("line 4: targets[0].price.cache_write: must be at least the cached_input price (0.25)"));
     }
 
     @Test

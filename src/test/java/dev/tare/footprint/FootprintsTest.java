@@ -51,6 +51,48 @@ class FootprintsTest {
         assertTrue(f.costPerMonth().getAsDouble() > f.costPerMonthUncached().getAsDouble());
     }
 
+    /**
+     * A worked price list. The mechanics are those the hosted providers publish in their prompt-caching
+     * documentation: the cache matches an exact prefix (tools, then system, then messages), from a
+     * minimum length (1,024 tokens) in steps (128), reads cost a tenth of input, an entry lives five
+     * minutes and each hit refreshes it, and some providers charge a quarter more to write one (the
+     * figures from memory). Rates 2.50 input, 0.25 cached, 3.125 write, 10 output per million; calls of
+     * 5,000 input tokens and no output; hit rate h = 1 − e^(−λ × 300 s) with λ the calls per second.
+     */
+    @Test
+    void aHostedPriceListWorkedAtTwoTrafficsAndAShortPrefix() {
+        Target busy = new Target("hosted", "o200k_base",
+                Optional.of(new Price(2.50, OptionalDouble.of(0.25), OptionalDouble.of(3.125), 10.00, "USD")),
+                Optional.of(new PrefixCache(1024, 128, OptionalDouble.of(300))), 0, 0, OptionalDouble.of(40_000),
+                OptionalInt.empty());
+        // 3,000-token prefix: C = 1024 + floor((3000 − 1024) / 128) × 128 = 1024 + 15 × 128 = 2,944.
+        // 40,000 a day: λ × ttl = 40,000 / 86,400 × 300 = 138.9, h = 1 to sixty places;
+        // (2,056 × 2.50 + 2,944 × 0.25) / 1e6 = (5,140 + 736) / 1e6 = 0.005876 a call, × 1,200,000 calls a
+        // month = 7,051.20, against 5,000 × 2.50 / 1e6 × 1,200,000 = 15,000 uncached.
+        Footprint busyCall = Footprints.estimate(busy, new CallSize(5000, 0, 0, 3000));
+        assertEquals(2944, busyCall.caching().orElseThrow().cacheablePrefixTokens());
+        assertEquals(1, busyCall.caching().orElseThrow().hitRate(), EXACT);
+        assertEquals(0.005876, busyCall.costPerCall().getAsDouble(), EXACT);
+        assertEquals(7051.20, busyCall.costPerMonth().getAsDouble(), 1e-6);
+        assertEquals(15_000, busyCall.costPerMonthUncached().getAsDouble(), 1e-6);
+        // 100 a day: λ × ttl = 100 / 86,400 × 300 = 0.347222, h = 1 − e^−0.347222 = 0.293352;
+        // (5,140 + 2,944 × (0.293352 × 0.25 + 0.706648 × 3.125)) / 1e6 = (5,140 + 6,717.07) / 1e6
+        // = 0.0118571 a call: the writes eat most of the saving, but the traffic is above the break-even,
+        // h* = (3.125 − 2.50) / (3.125 − 0.25) = 0.217391, λ* = −ln(1 − h*) / 300 × 86,400 = 70.595 a day.
+        Footprint rareCall = Footprints.estimate(busy.withCallsPerDay(100), new CallSize(5000, 0, 0, 3000));
+        double h = 1 - Math.exp(-100.0 / 86_400 * 300);
+        assertEquals(0.293352, h, 1e-6);
+        assertEquals(0.0118571, rareCall.costPerCall().getAsDouble(), 1e-7);
+        assertEquals(35.571, rareCall.costPerMonth().getAsDouble(), 1e-3);
+        assertEquals(37.50, rareCall.costPerMonthUncached().getAsDouble(), 1e-9);
+        assertEquals(70.595, busy.cacheBreakEvenCallsPerDay().getAsDouble(), 1e-3);
+        // A 900-token prefix is under the minimum: nothing cached, every call 0.0125 at any traffic.
+        Footprint shortPrefix = Footprints.estimate(busy, new CallSize(5000, 0, 0, 900));
+        assertEquals(0, shortPrefix.caching().orElseThrow().cacheablePrefixTokens());
+        assertEquals(0.0125, shortPrefix.costPerCall().getAsDouble(), EXACT);
+        assertEquals(15_000, shortPrefix.costPerMonth().getAsDouble(), 1e-6);
+    }
+
     /** A server's cache keeps whole blocks of the prefix: prefill computes only the rest. */
     @Test
     void serverCacheSkipsThePrefillOfWholeBlocks() {
@@ -66,6 +108,12 @@ class FootprintsTest {
         assertEquals(Formulas.prefillFlops(model, 2000, 992), f.prefillFlops().getAsDouble(), EXACT);
         assertTrue(f.prefillFlops().getAsDouble() < Footprints.estimate(plain, new CallSize(2000, 0, 0, 1000))
                 .prefillFlops().getAsDouble());
+        // The blocks are stored once for every request that starts with them (PagedAttention, §4.4).
+        // KV per token 2 × 24 × 16 × 128 × 2 bytes = 196,608; free 16 GiB × 0.75 − 2e9 weight bytes
+        // = 10,884,901,888. Alone: floor(free / (2,000 × 196,608)) = 27 requests; sharing 992 tokens:
+        // floor((free − 992 × 196,608) / (1,008 × 196,608)) = 53.
+        assertEquals(27, Footprints.estimate(plain, new CallSize(2000, 0, 0, 1000)).maxConcurrent().getAsLong());
+        assertEquals(53, f.maxConcurrent().getAsLong());
     }
 
     @Test

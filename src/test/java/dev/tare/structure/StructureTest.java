@@ -172,7 +172,7 @@ class StructureTest {
     void rawSectionsAreKeptAsWritten() {
         String text = "Show {% raw %}{{ literally }}  this{% endraw %} please.\n";
         assertEquals(Role.RAW, roleOf(text, "{{ literally"));
-        assertTrue(of(text).verbatimTexts().stream().anyMatch(t -> t.contains("{{ literally }}  this")));
+        assertTrue(of(text).verbatimBlocks().stream().anyMatch(t -> t.contains("{{ literally }}  this")));
     }
 
     @Test

@@ -8,8 +8,12 @@ import dev.tare.config.ConfigLoader;
 import dev.tare.config.TareConfig;
 import dev.tare.lint.Example;
 import dev.tare.lint.Finding;
+import dev.tare.lint.LintContext;
 import dev.tare.lint.RewriteClass;
 import dev.tare.lint.RuleHarness;
+import dev.tare.template.IncludeResolver;
+import dev.tare.template.PlaceholderSyntax;
+import dev.tare.template.Renderer;
 import dev.tare.template.Template;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
@@ -18,6 +22,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -65,6 +70,52 @@ class CacheOrderTest {
         assertTrue(now < 32, "the leading part is under the minimum, so nothing is cached now");
         assertTrue(found.get(0).message().contains(String.format(java.util.Locale.ROOT,
                 "saving about hosted USD %,.2f a month at this template's traffic", saving)), found.get(0).message());
+    }
+
+    @Test
+    void theToolsSentWithTheTemplateOpenItsPrefixAsTheScanCountsThem(@TempDir Path dir) throws IOException {
+        Files.writeString(dir.resolve("tare.yaml"), """
+                targets:
+                  - name: hosted
+                    tokenizer: o200k_base
+                    tool_overhead_tokens: 7
+                    price: {input: 2.0, cached_input: 0.5, output: 8.0, currency: USD}
+                    prefix_cache: {min_tokens: 64, ttl_seconds: 300}
+                    calls_per_day: 86400
+                """);
+        TareConfig config = ConfigLoader.load(dir.resolve("tare.yaml"));
+        String lookup = "{\"name\":\"lookup_account\",\"description\":\"Find an account.\"}";
+        Template tools = RuleHarness.template("tools/accounts.json", "[" + lookup + "]\n");
+        Template template = RuleHarness.template("prompts/a.md",
+                "---\ntools: [tools/accounts.json]\n---\nToday is {{ date }}.\n" + STATIC + STATIC);
+        LintContext context = new LintContext(config, new TokenizerRegistry(), new Renderer(IncludeResolver.NONE),
+                List.of(template, tools), Set.of(), Map.of());
+        List<Finding> found = rule.check(template, context);
+        assertEquals(1, found.size());
+        // Providers read tool definitions before the messages (prompt-caching documentation of the
+        // hosted providers): reordered, the cached prefix is the tool (its minified JSON plus the
+        // target's 7 framing tokens) and then every static token of the text.
+        int tool = o200k.count(lookup) + 7;
+        int total = o200k.count("Today is .\n" + STATIC + STATIC);
+        assertTrue(tool + o200k.count("Today is ") < 64, "nothing is cached as written");
+        double saving = (tool + total) * (1 - Math.exp(-300)) * 1.5 / 1e6 * 86_400 * 30;
+        assertTrue(found.get(0).message().contains(String.format(java.util.Locale.ROOT,
+                "saving about hosted USD %,.2f a month", saving)), found.get(0).message());
+    }
+
+    @Test
+    void aFunctionCallAheadOfTheStaticPartBreaksThePrefixCacheToo() {
+        String text = "Today is {{time.today}}, in {{$city}}.\n" + STATIC;
+        List<Finding> found = findings(rule, PlaceholderSyntax.DOLLAR_DOUBLE_BRACE, "a.md", text, MINIMUM_32);
+        assertEquals(1, found.size());
+        assertEquals(10, found.get(0).column());
+        int total = o200k.count(text.replace("{{time.today}}", "").replace("{{$city}}", ""));
+        assertTrue(found.get(0).message().startsWith("'{{time.today}}' comes after only " + o200k.count("Today is ")
+                + " leading static tokens"), found.get(0).message());
+        assertTrue(found.get(0).message().contains("(1 variable and 1 call)"), found.get(0).message());
+        assertTrue(found.get(0).message().contains("every call would start with the same " + total + " tokens"),
+                found.get(0).message());
+        assertEquals("more per-call text: {{$city}}", found.get(0).related().get(0).message());
     }
 
     @Test
