@@ -70,7 +70,15 @@ public sealed interface Segment {
     record Include(String name, String source, Span span) implements Segment {
     }
 
-    /** Control flow, a comment, or an expression with no variable: renders to nothing here. */
-    record Tag(String source, Span span) implements Segment {
+    /**
+     * Control flow, a comment, or an expression with no variable. {@code control} says what it does
+     * when rendered: most tags render to nothing, a block's tags decide what its body renders, and a
+     * lone string literal renders as its value.
+     */
+    record Tag(String source, Span span, Control control) implements Segment {
+        /** A tag that renders to nothing and opens no block. */
+        public Tag(String source, Span span) {
+            this(source, span, Control.NONE);
+        }
     }
 }

@@ -4,6 +4,7 @@ import dev.tare.workspace.Workspace;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import dev.tare.template.Rendering;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.io.IOException;
@@ -47,6 +48,45 @@ class TemplateScanTest {
         assertEquals(List.of("customer", "history", "unsized", "agent"), template.variables());
         assertEquals(List.of("unsized", "agent"), template.unsizedVariables());
         assertEquals(List.of("prompts/partials/sign-off.md"), template.includes());
+    }
+
+    @Test
+    void loopsCountTheirItemsAndBranchesTheLongestPathWithTheShortestBeside() throws IOException {
+        write("tare.yaml", "templates: {include: [\"prompts/**/*.md\"]}\n");
+        write("prompts/history.md", "---\nvariables:\n  history: {items: 4, tokens: 10}\n---\n"
+                + "Conversation so far:\n{% for turn in history %}\n{{ turn.role }}: {{ turn.text }}\n{% endfor %}"
+                + "{% for q in questions %}Ask: {{ q }}\n{% endfor %}"
+                + "{% if overdue %}The account is overdue; offer a payment plan.{% else %}The account is paid.{% endif %}");
+        ScannedTemplate template = scanOne("prompts/history.md");
+        String turns = "Conversation so far:\n" + "\n: \n".repeat(4) + "Ask: \n";
+        assertEquals(o200k.count(turns + "The account is overdue; offer a payment plan."), template.staticTokens());
+        assertEquals(o200k.count(turns + "The account is overdue; offer a payment plan.") + 4 * 2 * 10,
+                template.estimatedTokens());
+        assertEquals(o200k.count(turns + "The account is paid.") + 4 * 2 * 10, template.shortestEstimatedTokens());
+        assertEquals(List.of("history.role", "history.text", "questions"), template.variables());
+        assertEquals(List.of("questions"), template.unsizedVariables());
+        assertEquals(List.of(new Rendering.Loop("turn", "history", 4, true, "prompts/history.md", 6),
+                new Rendering.Loop("q", "questions", 1, false, "prompts/history.md", 8)), template.loops());
+    }
+
+    @Test
+    void theJsonSaysWhichLoopsWereAssumedAndGivesTheShortestPath() throws IOException {
+        write("tare.yaml", "templates: {include: [\"prompts/**/*.md\"], partials: prompts/partials}\n");
+        write("prompts/partials/readings.md", "{{#each readings}}\n- {{value}}\n{{/each}}\n");
+        write("prompts/dispute.md", "Readings:\n{{> readings }}{{#if estimated}}Say which are estimated.{{/if}}");
+        ScanResult result = new TemplateScan(Workspace.open(List.of(root), Optional.empty()), new TokenizerRegistry())
+                .run(ScanOptions.defaults());
+        com.fasterxml.jackson.databind.JsonNode json = new com.fasterxml.jackson.databind.ObjectMapper()
+                .readTree(dev.tare.report.ScanReport.json(result, ScanResult.Order.PATH));
+        com.fasterxml.jackson.databind.JsonNode dispute = json.get("templates").get(0);
+        assertEquals("prompts/dispute.md", dispute.get("path").asText());
+        assertEquals(o200k.count("Readings:\n- \nSay which are estimated."), dispute.get("estimated_tokens").asInt());
+        assertEquals(o200k.count("Readings:\n- \n"), dispute.get("estimated_tokens_shortest").asInt());
+        assertEquals("{\"variable\":\"this\",\"iterable\":\"readings\",\"items\":1,\"declared\":false,"
+                + "\"in\":\"prompts/partials/readings.md\",\"line\":1}", dispute.get("loops").get(0).toString());
+        assertEquals(dispute.get("estimated_tokens_shortest").asInt(), json.get("totals").get("estimated_tokens_shortest").asInt());
+        assertTrue(dev.tare.report.ScanReport.text(result, ScanResult.Order.PATH)
+                .contains("1 template has loops without declared items, counted once"));
     }
 
     @Test

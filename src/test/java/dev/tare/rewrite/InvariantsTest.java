@@ -91,7 +91,7 @@ class InvariantsTest {
     void aChangedFilterOrTagIsCaughtThoughTheNameStays() {
         String text = "Pay {{ amount | currency }} {% if late %}now{% endif %}.\n";
         assertProblem(problems(text, TEXT, replace(text, " | currency", "")), "variable 'amount'");
-        assertProblem(problems(text, TEXT, replace(text, "{% if late %}", "")), "tag {% if late %}");
+        assertProblem(problems(text, TEXT, replace(text, "{% if late %}", "{% if early %}")), "tag {% if late %}");
     }
 
     @Test

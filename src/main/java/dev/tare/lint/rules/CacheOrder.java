@@ -68,7 +68,7 @@ final class CacheOrder implements Rule {
         List<String> leading;
         List<String> reordered;
         try {
-            leading = StaticPrefix.of(template, context.renderer(), samples.get());
+            leading = StaticPrefix.of(samples.get());
             reordered = StaticPrefix.reordered(template, context.renderer());
         } catch (TareException e) {
             return List.of();

@@ -1,5 +1,6 @@
 package dev.tare.lint.rules;
 
+import dev.tare.template.Control;
 import dev.tare.template.PlaceholderSyntax;
 import dev.tare.template.Segment;
 import dev.tare.template.Template;
@@ -21,7 +22,6 @@ import java.util.regex.Pattern;
  */
 final class TemplateNames {
     private static final Pattern STATEMENT = Pattern.compile("^\\{%[-+~]?\\s*(\\w+)(.*?)[-+~]?%}$", Pattern.DOTALL);
-    private static final Pattern SECTION = Pattern.compile("^\\{\\{[-~]?\\s*([#^/])\\s*([\\w.]+)");
     private static final Pattern NAME = Pattern.compile("[\\p{L}_][\\p{L}\\p{N}_]*(?:\\.[\\p{L}_][\\p{L}\\p{N}_]*)*");
     private static final Pattern FOR = Pattern.compile("^\\s*([\\w\\s,()]+?)\\s+in\\s+(.*)$", Pattern.DOTALL);
     private static final Pattern QUOTED = Pattern.compile("\"[^\"]*\"|'[^']*'");
@@ -61,6 +61,7 @@ final class TemplateNames {
         Deque<Set<String>> scopes = new ArrayDeque<>();
         Set<String> bound = new HashSet<>();
         int sections = 0;
+        Deque<Boolean> blocks = new ArrayDeque<>();
         for (Segment segment : template.segments()) {
             if (segment instanceof Segment.Variable variable) {
                 uses.add(new Use(variable.name(), segment, sections > 0 || isLocal(variable.rootName(), scopes, bound), true));
@@ -71,13 +72,19 @@ final class TemplateNames {
                 }
             } else if (tags && segment instanceof Segment.Tag tag) {
                 String source = tag.source();
-                Matcher section = SECTION.matcher(source);
-                if (section.find()) {
-                    if (section.group(1).equals("/")) {
-                        sections = Math.max(0, sections - 1);
-                    } else {
-                        uses.add(new Use(section.group(2), segment, sections > 0 || isLocal(section.group(2), scopes, bound), false));
-                        sections++;
+                if (source.startsWith("{{")) {
+                    // A Handlebars or Mustache block reads its subject (each's list, if's condition) in the
+                    // context around it; inside a block that walks or opens a value, names are the item's.
+                    if (tag.control() instanceof Control.Open open) {
+                        reads(open.subject(), segment, scopes, bound, uses, sections > 0);
+                        boolean context = open.block() != Control.Block.CONDITION && open.block() != Control.Block.INVERTED;
+                        blocks.push(context);
+                        sections += context ? 1 : 0;
+                    } else if (tag.control() instanceof Control.Middle middle) {
+                        boolean inner = !blocks.isEmpty() && blocks.peek();
+                        reads(middle.condition(), segment, scopes, bound, uses, sections - (inner ? 1 : 0) > 0);
+                    } else if (tag.control() instanceof Control.Close && !blocks.isEmpty()) {
+                        sections -= blocks.pop() ? 1 : 0;
                     }
                     continue;
                 }

@@ -53,6 +53,11 @@ final class UnusedVariable implements Rule {
                 if (part instanceof Segment.Variable variable) {
                     used.add(variable.rootName());
                 }
+                used.add(occurrence.input());
+                used.add(occurrence.input().split("\\.", 2)[0]);
+            }
+            for (Rendering.Loop loop : rendering.loops()) {
+                used.add(loop.iterable());
             }
         }
         TemplateView text = context.text(template);

@@ -55,6 +55,14 @@ class UnsizedVariableTest {
     }
 
     @Test
+    void aHandlebarsBlockReportsTheNameItReadsNotItsHelper() {
+        List<Finding> found = findings(rule, "{{#if overdue}}Offer a plan.{{else if paused}}Wait.{{/if}}"
+                + "{{#each readings}}- {{value}}\n{{/each}}\n");
+        assertEquals(List.of("'overdue'", "'paused'", "'readings'"),
+                found.stream().map(f -> f.message().split(" ")[0]).toList());
+    }
+
+    @Test
     void aCallsOutputIsSizedOnlyUnderTheFunctionsFullNameAndItsArgumentsMustBeDeclared() {
         String text = "---\nvariables:\n  city: {sample: Springfield}\n  weather: {tokens: 9}\n---\n"
                 + "{{$city}}: {{weather.forecast $city}} {{summarize input=$notes}}\n";

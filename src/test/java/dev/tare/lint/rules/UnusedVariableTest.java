@@ -42,6 +42,13 @@ class UnusedVariableTest {
     }
 
     @Test
+    void theListAHandlebarsEachWalksCountsAsUsed() {
+        String text = "---\nvariables:\n  history: {items: 6}\n  notes: {tokens: 9}\n---\n"
+                + "{{#each history}}\n- a turn\n{{/each}}\n{{#with account}}{{notes}}{{/with}}\n";
+        assertTrue(findings(rule, text).isEmpty());
+    }
+
+    @Test
     void aVariableReadOnlyInAConditionOrThroughAFieldIsUsed() {
         String text = "---\nvariables:\n  vip: {}\n  account: {tokens: 9}\n---\n{% if vip %}Number {{ account.id }}.{% endif %}\n";
         assertTrue(findings(rule, text).isEmpty());
