@@ -18,10 +18,11 @@ import java.util.Set;
  *                 {@code client.chat}), or what its {@code tare:} comment names
  * @param role     the chat role it speaks in, when the code says one ({@code "role": "system"} beside it,
  *                 a {@code system} key or argument, a call such as {@code SystemMessage(...)})
- * @param line     1-based file line where its value starts
- * @param column   1-based column (UTF-16 code units) where its value starts
- * @param start    file offset where the expression that makes the value starts
- * @param end      file offset just past it
+ * @param line     1-based file line of its first literal (or of the expression joined before it)
+ * @param column   1-based column (UTF-16 code units) there
+ * @param start    file offset there: where the literals and what is joined to them start
+ * @param end      file offset just past them and the string methods called on them; calls around them
+ *                 (a format call, dedent) lie outside
  * @param value    the decoded value: escapes interpreted, literals joined, each variable shown as written
  * @param parts    the text and variables of the value, in order, covering it without gaps
  * @param map      where each character of the value is written in the file

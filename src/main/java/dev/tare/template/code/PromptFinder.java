@@ -236,8 +236,12 @@ final class PromptFinder {
 
     /** A value built from literals: its tokens, its text, and the calls it went through. */
     private static final class Value {
+        /** The tokens of the whole expression, calls around the literals included. */
         int first;
         int last;
+        /** The tokens of the literals and the operands joined to them. */
+        int ownFirst;
+        int ownLast;
         DecodedText text;
         final List<Callee> through = new ArrayList<>();
     }
@@ -283,6 +287,8 @@ final class PromptFinder {
         }
         value.first = first;
         value.last = last;
+        value.ownFirst = first;
+        value.ownLast = last;
         value.text = text;
         wrap(value);
         return value;
@@ -591,7 +597,7 @@ final class PromptFinder {
     /** The call whose argument list opens at {@code open}, if a name stands right before it. */
     private Optional<Callee> callee(int open) {
         int k = open - 1;
-        if (!isWord(k) || NOT_CALLEES.contains(t.text(k))) {
+        if (!isWord(k) || NOT_CALLEES.contains(t.text(k)) && !t.is(k - 1, ".")) {
             return Optional.empty();
         }
         int last = k;
@@ -786,12 +792,11 @@ final class PromptFinder {
     /** The place of an arrow function's body: the name the function is assigned to, or the key it is the value of. */
     private Place arrow(int arrow) {
         int b = previous(arrow);
-        if (isWord(b) && t.is(previous(b), ":")) {
-            int k = previous(b);
-            for (int steps = 0; steps < 16 && k >= 0 && !t.is(k, ")"); steps++) {
-                k = previous(k);
+        if (!(isWord(b) && !t.is(previous(b), ":"))) {
+            // Past a return type ((street: string): Promise<string> =>) to the parameters' closing parenthesis.
+            for (int steps = 0; steps < 16 && b >= 0 && !(t.is(b, ")") && t.opener(b) == t.opener(arrow)); steps++) {
+                b = previous(b);
             }
-            b = k;
         }
         if (t.is(b, ")") && t.match(b) >= 0) {
             b = previous(t.match(b));
@@ -938,10 +943,14 @@ final class PromptFinder {
         int dot = name.lastIndexOf('.');
         int before = dot < 0 ? -1 : name.lastIndexOf('.', dot - 1);
         String tail = name.substring(before + 1);
+        List<String> words = NameWords.of(tail);
+        if (!NameWords.role(tail).isEmpty() && NameWords.saysPrompt(tail)
+                && words.stream().anyMatch(w -> w.startsWith("message") || w.startsWith("msg"))) {
+            return true;
+        }
         if (!NameWords.saysPromptStrongly(tail)) {
             return false;
         }
-        List<String> words = NameWords.of(tail);
         return callee.annotation() || !words.contains("system") || words.size() > 1
                 && words.stream().anyMatch(w -> !w.equals("system") && (NameWords.saysPromptStrongly(w)
                 || w.startsWith("message") || w.startsWith("msg")));
@@ -1096,25 +1105,30 @@ final class PromptFinder {
                     lines.column(sourceStart)));
             k = end;
         }
-        int start = t.view.from(t.start(value.first));
-        int end = t.view.to(t.end(value.last) - 1);
+        int start = t.view.from(t.start(value.ownFirst));
+        int end = t.view.to(t.end(value.ownLast) - 1);
         return new CodePrompt(name, role.isEmpty() ? Optional.empty() : Optional.of(role), lines.line(start),
                 lines.column(start), start, end, text.text(), parts, new ValueMap(text), comments.meta(),
                 comments.settings());
     }
 
     private static String name(Place place, List<Place> outer, int line) {
-        String outerName = null;
+        List<String> names = new ArrayList<>();
         for (Place up : outer) {
-            if (up.kind() == Kind.ASSIGN || up.kind() == Kind.KEYWORD || up.kind() == Kind.KEY) {
-                outerName = up.kind() == Kind.KEY && up.outer() != null ? up.outer() + "." + up.name() : up.name();
-                break;
-            }
-            if (up.kind() == Kind.ARGUMENT) {
-                outerName = up.name();
+            if (up.kind() == Kind.KEY) {
+                names.add(0, up.name());
+                if (up.outer() != null) {
+                    names.add(0, up.outer());
+                    break;
+                }
+            } else if (up.kind() != Kind.ELEMENT) {
+                if (up.kind() != Kind.NONE) {
+                    names.add(0, up.name());
+                }
                 break;
             }
         }
+        String outerName = names.isEmpty() ? null : String.join(".", names);
         return switch (place.kind()) {
             case ASSIGN, KEYWORD, ARGUMENT -> place.name();
             case KEY -> place.outer() != null ? place.outer() + "." + place.name()
