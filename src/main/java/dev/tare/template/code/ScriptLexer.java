@@ -311,7 +311,8 @@ final class ScriptLexer extends CodeLexer {
                 break;
             }
             default:
-                if (e >= '0' && e <= '7' && (octal || e == '0' && !(j + 2 < length && Character.isDigit(text.charAt(j + 2))))) {
+                boolean nul = e == '0' && !(j + 2 < length && Character.isDigit(text.charAt(j + 2)));
+                if (e >= '0' && e <= '7' && (octal || nul)) {
                     int limit = e <= '3' ? j + 4 : j + 3;
                     int k = j + 1;
                     int value = 0;

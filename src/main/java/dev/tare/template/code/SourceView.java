@@ -2,8 +2,9 @@ package dev.tare.template.code;
 
 /**
  * The text a lexer reads, and where each of its characters stands in the file. For most languages the
- * two are the same; Java turns its Unicode escapes (a backslash, one or more u's and four hex digits) into characters before anything
- * else (JLS §3.3), so its lexer reads the translated text and maps each character back to its escape.
+ * two are the same; Java turns its Unicode escapes (a backslash, one or more u's and four hex digits)
+ * into characters before anything else (JLS §3.3), so its lexer reads the translated text and maps each
+ * character back to its escape.
  */
 final class SourceView {
     private final String text;

@@ -57,7 +57,10 @@ final class StringMethods {
         return out;
     }
 
-    /** Python's {@code textwrap.dedent}: lines of only spaces and tabs emptied, then their common leading spaces and tabs removed. */
+    /**
+     * Python's {@code textwrap.dedent}: lines of only spaces and tabs emptied, then the spaces and tabs
+     * that lead every other line removed.
+     */
     static DecodedText dedent(DecodedText text) {
         List<int[]> lines = lines(text);
         String margin = null;

@@ -105,7 +105,8 @@ final class TareComments {
         String problem = switch (key) {
             case "budget" -> isWholeNumber(value) && Integer.parseInt(value) > 0 ? null
                     : "budget must be a whole number of tokens above zero";
-            case "output_tokens" -> isWholeNumber(value) ? null : "output_tokens must be a whole number of tokens, zero or more";
+            case "output_tokens" -> isWholeNumber(value) ? null
+                    : "output_tokens must be a whole number of tokens, zero or more";
             case "calls_per_day" -> isCount(value) ? null : "calls_per_day must be a number of calls a day, zero or more";
             case "target", "name", "role", "tools" -> value.isBlank() ? key + " must not be empty" : null;
             default -> null;
