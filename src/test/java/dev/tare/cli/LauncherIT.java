@@ -102,6 +102,14 @@ class LauncherIT {
     }
 
     @Test
+    void thePackageLeavesOneRunnableJarInTarget() throws Exception {
+        try (var jars = Files.list(Cli.projectDir().resolve("target"))) {
+            assertEquals(List.of("tare.jar"), jars.map(p -> p.getFileName().toString()).filter(n -> n.endsWith(".jar"))
+                    .toList());
+        }
+    }
+
+    @Test
     void usageErrorsExitTwoThroughTheRealProcess() throws Exception {
         Result launched = launch("scan", "--no-such-flag");
         assertEquals(2, launched.exitCode());
