@@ -60,6 +60,17 @@ public final class ToolFileParser {
         return tools;
     }
 
+    /** The messages of a tool template: one per definition, its minified JSON as literal text. */
+    static List<Message> messages(List<ToolDefinition> tools) {
+        List<Message> messages = new ArrayList<>();
+        for (ToolDefinition tool : tools) {
+            Span span = new Span(0, tool.json().length(), tool.line(), 1);
+            messages.add(new Message(Message.TOOL_ROLE, tool.json(), List.of(new Segment.Text(tool.json(), span)),
+                    new ContentOrigin.Made(tool.line())));
+        }
+        return messages;
+    }
+
     private static void collect(YamlDocument document, JsonNode schema, String schemaPath, String prefix,
                                 List<ToolDefinition.Parameter> out) {
         JsonNode properties = schema.get("properties");
