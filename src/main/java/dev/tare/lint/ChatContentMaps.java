@@ -8,7 +8,8 @@ import java.util.OptionalInt;
 
 /**
  * Builds the {@link ContentMap} of each message read from a string value of a YAML or JSON file (a
- * chat file's {@code content}) by reading the file's string values again: JSON strings and YAML double-quoted, single-quoted, plain one-line and literal
+ * chat file's {@code content}, a serialized prompt object's {@code template}) by reading the file's
+ * string values again: JSON strings and YAML double-quoted, single-quoted, plain one-line and literal
  * block scalars are followed character by character; any other form (folded blocks, multi-line plain
  * or quoted scalars, content given as a list of parts) is placed at the value's start and left
  * read-only. A map is only used when the characters it follows spell the parsed content exactly.

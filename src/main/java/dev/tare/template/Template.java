@@ -11,7 +11,7 @@ import java.util.Set;
  *
  * @param path       the path relative to the scanned root, with {@code /} separators
  * @param kind       text, chat, partial or tools
- * @param meta       front matter (or the keys beside {@code messages})
+ * @param meta       front matter (or the keys beside {@code messages} or {@code template})
  * @param messages   one message for a text template, or one per role marker; the chat messages in
  *                   order otherwise
  * @param source     the file's full text, without a byte-order mark
@@ -59,8 +59,8 @@ public record Template(String path, TemplateKind kind, TemplateMeta meta, List<M
     }
 
     /**
-     * Whether the file is a YAML or JSON document (a chat file or a tool file) whose keys beside the
-     * prompt are its metadata, rather than text with front matter.
+     * Whether the file is a YAML or JSON document (a chat file, a tool file or a serialized prompt
+     * object) whose keys beside the prompt are its metadata, rather than text with front matter.
      */
     public boolean isDocument() {
         return TemplateParser.isDocumentFile(path);

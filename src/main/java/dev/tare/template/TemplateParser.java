@@ -11,7 +11,7 @@ import java.util.OptionalInt;
 
 /**
  * Parses a file's text into a {@link Template}. A file whose name ends in {@code .yaml}, {@code .yml}
- * or {@code .json} is a document: a chat file or a tool file. Any other
+ * or {@code .json} is a document: a chat file, a tool file or a serialized prompt object. Any other
  * file is a text template (with optional front matter), split into chat messages at its role marker
  * lines unless role markers are off.
  */
@@ -94,17 +94,29 @@ public final class TemplateParser {
         if (root.isObject() && root.has("messages")) {
             return parseChat(source, document);
         }
-        throw new TareException("neither a chat file (a top-level 'messages' list of {role, content})"
-                + " nor a tool file (a list of tools, or a top-level 'tools' list)");
+        if (PromptObject.isPromptObject(root)) {
+            PlaceholderSyntax format = PromptObject.syntax(document, "template_format");
+            Message message = message(document, Message.TEXT_ROLE, "template", "", format);
+            TemplateMeta meta = new MetaReader(document, "prompt object", true).read();
+            return new Template(source.path(), TemplateKind.TEXT, meta, List.of(message), source.text(), 0, format);
+        }
+        throw new TareException("neither a chat file (a top-level 'messages' list of {role, content}), a tool file"
+                + " (a list of tools, or a top-level 'tools' list) nor a serialized prompt object (a 'template'"
+                + " string with 'input_variables')");
     }
 
-    /** A chat file: each message holds its text under {@code content}. */
+    /**
+     * A chat file. A message holds its text under {@code content}, or, in a serialized chat prompt
+     * object, under {@code prompt.template}, written in the {@code template_format} of the prompt or
+     * of the object (f-string unless stated).
+     */
     private Template parseChat(SourceText source, YamlDocument document) {
         JsonNode messagesNode = document.root().get("messages");
         if (!messagesNode.isArray()) {
             throw located(document, "messages", "'messages' must be a list of {role, content}");
         }
         List<Message> messages = new ArrayList<>();
+        PlaceholderSyntax templateSyntax = null;
         for (int i = 0; i < messagesNode.size(); i++) {
             String path = "messages[" + i + "]";
             JsonNode node = messagesNode.get(i);
@@ -115,10 +127,18 @@ public final class TemplateParser {
             if (role == null || !role.isTextual() || role.asText().isBlank()) {
                 throw located(document, path, path + " has no role (system, user, assistant, ...)");
             }
-            messages.add(message(document, role.asText().strip(), path + ".content", path, syntax));
+            if (!node.has("content") && PromptObject.isPromptMessage(node)) {
+                PlaceholderSyntax format = PromptObject.syntax(document,
+                        node.get("prompt").has("template_format") ? path + ".prompt.template_format" : "template_format");
+                templateSyntax = templateSyntax == null ? format : templateSyntax;
+                messages.add(message(document, role.asText().strip(), path + ".prompt.template", path, format));
+            } else {
+                messages.add(message(document, role.asText().strip(), path + ".content", path, syntax));
+            }
         }
         TemplateMeta meta = new MetaReader(document, "chat file", true).read();
-        return new Template(source.path(), TemplateKind.CHAT, meta, messages, source.text(), 0, syntax);
+        return new Template(source.path(), TemplateKind.CHAT, meta, messages, source.text(), 0,
+                templateSyntax == null ? syntax : templateSyntax);
     }
 
     /** A tool file as a template: one message per tool, its minified JSON, literal text. */
@@ -132,7 +152,7 @@ public final class TemplateParser {
      * The message whose text is the string at {@code contentPath} of the document, parsed with
      * {@code with}; its segments count offsets from the start of that text and carry the file's lines.
      *
-     * @param ownerPath where to point when the text itself has no known place
+     * @param ownerPath where to point when the text itself has no known place ({@code ""} for the root)
      */
     private static Message message(YamlDocument document, String role, String contentPath, String ownerPath,
                                    PlaceholderSyntax with) {

@@ -9,8 +9,10 @@ import java.util.Map;
 import org.junit.jupiter.api.Test;
 
 /**
- * Findings in role-marked text point at the file's own lines and columns, and rewrites edit the
- * file's own characters: a message between role markers is a stretch of the file.
+ * Findings in role-marked text and in serialized prompt objects point at the file's own lines and
+ * columns, and rewrites edit the file's own characters: a message between role markers is a stretch
+ * of the file, and a prompt object's template is a YAML or JSON string followed as chat contents are
+ * (RFC 8259 §7 for JSON string escapes; YAML 1.2.2 §8.1.2 for literal block scalars).
  */
 class PromptFormsRewriteTest {
     private static Rule rule(String id) {
@@ -51,5 +53,32 @@ class PromptFormsRewriteTest {
         assertEquals(1, blank.size());
         assertEquals(9, blank.get(0).line());
         assertEquals(MARKED.replace("high.\n\n\n\nWhy", "high.\n\nWhy"), RuleHarness.fixed(rule("blank-lines"), "bill.md", MARKED));
+    }
+
+    @Test
+    void aPromptObjectsTemplateIsFollowedThroughItsString() {
+        String json = "{\"input_variables\": [\"q\"], \"template\": \"Line one.\\nAnswer {q}.  Then stop.\"}";
+        List<Finding> found = RuleHarness.findings(rule("space-run"), "answer.json", json, Map.of());
+        assertEquals(1, found.size());
+        assertEquals(1, found.get(0).line());
+        assertEquals(json.indexOf(".  Then") + 2, found.get(0).column());
+        assertEquals(json.replace(".  Then", ". Then"), RuleHarness.fixed(rule("space-run"), "answer.json", json));
+
+        String yaml = "input_variables: [name]\ntemplate_format: mustache\ntemplate: |\n  Hello {{name}}.  \n  Bye  now.\n";
+        assertEquals(yaml.replace(".  \n", ".\n"), RuleHarness.fixed(rule("trailing-whitespace"), "greeting.yaml", yaml));
+        List<Finding> run = RuleHarness.findings(rule("space-run"), "greeting.yaml", yaml, Map.of());
+        assertEquals(5, run.get(0).line());
+        assertEquals(6, run.get(0).column());
+    }
+
+    @Test
+    void aChatShapedObjectsMessagesAreLocated() {
+        String yaml = "input_variables: []\nmessages:\n  - role: system\n    prompt:\n      template: \"Be  brief.\"\n";
+        List<Finding> found = RuleHarness.findings(rule("space-run"), "support.yaml", yaml, Map.of());
+        assertEquals(1, found.size());
+        assertEquals(5, found.get(0).line());
+        assertEquals(yaml.substring(yaml.lastIndexOf('\n', yaml.indexOf("Be  ")) + 1).indexOf("  brief") + 1, found.get(0).column());
+        assertTrue(found.get(0).rewrite().isPresent());
+        assertEquals(yaml.replace("Be  brief", "Be brief"), RuleHarness.fixed(rule("space-run"), "support.yaml", yaml));
     }
 }
