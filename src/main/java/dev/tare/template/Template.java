@@ -65,4 +65,17 @@ public record Template(String path, TemplateKind kind, TemplateMeta meta, List<M
     public boolean isDocument() {
         return TemplateParser.isDocumentFile(path);
     }
+
+    /**
+     * The tools this template defines in place ({@link TemplateMeta#inlineTools()}) as the tool file
+     * they would make: kind tools, one message per definition, at this template's path. Empty when
+     * it defines none.
+     */
+    public java.util.Optional<Template> inlineToolFile() {
+        if (meta.inlineTools().isEmpty()) {
+            return java.util.Optional.empty();
+        }
+        return java.util.Optional.of(new Template(path, TemplateKind.TOOLS, TemplateMeta.EMPTY,
+                ToolFileParser.messages(meta.inlineTools()), source, 0, PlaceholderSyntax.NONE));
+    }
 }
