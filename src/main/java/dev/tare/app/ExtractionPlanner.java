@@ -306,8 +306,8 @@ final class ExtractionPlanner {
                         + (at + 1) + ")");
             }
         }
-        List<String> names = was.variables().stream().map(o -> o.variable().name()).toList();
-        List<String> now = is.variables().stream().map(o -> o.variable().name()).toList();
+        List<String> names = was.variables().stream().map(o -> o.part().name()).toList();
+        List<String> now = is.variables().stream().map(o -> o.part().name()).toList();
         if (!names.equals(now)) {
             return Optional.of(path + " would fill its variables in another order");
         }

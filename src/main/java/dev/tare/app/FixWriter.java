@@ -1,5 +1,6 @@
 package dev.tare.app;
 
+import dev.tare.source.IoProblem;
 import dev.tare.rewrite.FileFix;
 import dev.tare.source.FileBytes;
 import dev.tare.source.SourceText;
@@ -39,8 +40,8 @@ final class FixWriter {
                         "it changed on disk after it was read, so it was left as it is; run the fix again");
             };
         } catch (IOException e) {
-            return fix.with(FileFix.Outcome.NOT_WRITTEN, "writing it failed (" + e.getClass().getSimpleName() + ": "
-                    + e.getMessage() + "); the file is as it was");
+            return fix.with(FileFix.Outcome.NOT_WRITTEN, "writing it failed (" + IoProblem.describe(e)
+                    + "); the file is as it was");
         }
     }
 
@@ -66,8 +67,8 @@ final class FixWriter {
                     + " partial was not written; run the fix again")
                     : fix.with(FileFix.Outcome.WRITTEN, "");
         } catch (IOException e) {
-            return fix.with(FileFix.Outcome.NOT_WRITTEN, "creating it failed (" + e.getClass().getSimpleName() + ": "
-                    + e.getMessage() + "); no file was left there");
+            return fix.with(FileFix.Outcome.NOT_WRITTEN, "creating it failed (" + IoProblem.describe(e)
+                    + "); no file was left there");
         }
     }
 

@@ -7,6 +7,7 @@ import dev.tare.footprint.Footprints;
 import dev.tare.footprint.Target;
 import dev.tare.footprint.Traffic;
 import dev.tare.overlap.CachePrefixes;
+import dev.tare.template.Rendering;
 import dev.tare.template.TemplateKind;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -23,9 +24,10 @@ import java.util.OptionalDouble;
  * @param callsPerDay the calls a day its front matter states
  */
 record Measurement(String path, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
-                   List<String> variables, List<String> unsizedVariables, List<String> includes,
-                   Map<String, CallSize> callSizes, Map<String, Integer> estimatedByTarget,
-                   Map<String, CachePrefixes.LeadingIds> leadingIds, OptionalDouble callsPerDay) {
+                   int shortestEstimatedTokens, List<String> variables, List<String> unsizedVariables,
+                   List<String> includes, List<Rendering.Loop> loops, Map<String, CallSize> callSizes,
+                   Map<String, Integer> estimatedByTarget, Map<String, CachePrefixes.LeadingIds> leadingIds,
+                   OptionalDouble callsPerDay, List<String> notes) {
 
     /**
      * The template as the scan reports it, with footprints estimated on {@code targets} (by name) at
@@ -35,8 +37,8 @@ record Measurement(String path, TemplateKind kind, int characters, int staticTok
         Map<String, Footprint> footprints = new LinkedHashMap<>();
         callSizes.forEach((name, size) -> footprints.put(name,
                 Footprints.estimate(targets.get(name), size, traffic(targets.get(name), traffic))));
-        return new ScannedTemplate(path, kind, characters, staticTokens, estimatedTokens, variables, unsizedVariables,
-                includes, footprints, estimatedByTarget);
+        return new ScannedTemplate(path, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens,
+                variables, unsizedVariables, includes, loops, footprints, estimatedByTarget, Map.of(), notes);
     }
 
     /** How often the template is called on {@code target}. */

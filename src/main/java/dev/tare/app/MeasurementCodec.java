@@ -3,6 +3,7 @@ package dev.tare.app;
 import dev.tare.cache.TemplateCache;
 import dev.tare.footprint.CallSize;
 import dev.tare.overlap.CachePrefixes;
+import dev.tare.template.Rendering;
 import dev.tare.template.TemplateKind;
 import java.io.DataInputStream;
 import java.io.DataOutputStream;
@@ -26,9 +27,20 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
         out.writeInt(r.characters());
         out.writeInt(r.staticTokens());
         out.writeInt(r.estimatedTokens());
+        out.writeInt(r.shortestEstimatedTokens());
         writeStrings(out, r.variables());
         writeStrings(out, r.unsizedVariables());
         writeStrings(out, r.includes());
+        out.writeInt(r.loops().size());
+        for (Rendering.Loop loop : r.loops()) {
+            out.writeUTF(loop.variable());
+            out.writeUTF(loop.iterable());
+            out.writeInt(loop.items());
+            out.writeBoolean(loop.declared());
+            out.writeUTF(loop.owner());
+            out.writeInt(loop.line());
+        }
+        writeStrings(out, r.notes());
         out.writeInt(r.callSizes().size());
         for (Map.Entry<String, CallSize> size : r.callSizes().entrySet()) {
             CallSize s = size.getValue();
@@ -60,9 +72,17 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
         int characters = in.readInt();
         int staticTokens = in.readInt();
         int estimatedTokens = in.readInt();
+        int shortestEstimatedTokens = in.readInt();
         List<String> variables = readStrings(in);
         List<String> unsized = readStrings(in);
         List<String> includes = readStrings(in);
+        int loopCount = in.readInt();
+        List<Rendering.Loop> loops = new ArrayList<>(loopCount);
+        for (int i = 0; i < loopCount; i++) {
+            loops.add(new Rendering.Loop(in.readUTF(), in.readUTF(), in.readInt(), in.readBoolean(), in.readUTF(),
+                    in.readInt()));
+        }
+        List<String> notes = readStrings(in);
         Map<String, CallSize> sizes = new LinkedHashMap<>();
         Map<String, Integer> byTarget = new LinkedHashMap<>();
         int targetCount = in.readInt();
@@ -79,8 +99,8 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
             int[] now = readInts(in);
             leading.put(name, new CachePrefixes.LeadingIds(head, now, in.readBoolean() ? now : readInts(in)));
         }
-        return new Measurement(path, kind, characters, staticTokens, estimatedTokens, variables, unsized, includes,
-                sizes, byTarget, leading, callsPerDay);
+        return new Measurement(path, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens, variables,
+                unsized, includes, loops, sizes, byTarget, leading, callsPerDay, notes);
     }
 
     private static void writeInts(DataOutputStream out, int[] ints) throws IOException {

@@ -4,6 +4,8 @@ import dev.tare.TareException;
 import dev.tare.config.BaselineConfig;
 import dev.tare.lint.LintContext;
 import dev.tare.lint.RunTemplates;
+import dev.tare.rewrite.FixOptions;
+import dev.tare.workspace.FileSystemOps;
 import dev.tare.tokenize.TokenizerRegistry;
 import dev.tare.workspace.Workspace;
 import java.util.ArrayList;
@@ -36,12 +38,17 @@ public final class OverviewRun {
         ScanResult scan = new TemplateScan(workspace, tokenizers).run(options);
         CheckResult check = new Check(workspace, tokenizers)
                 .run(new CheckOptions(CheckOptions.defaults().failOn(), options.cache()));
+        // What applying the rewrites saves, as fix would (safe ones first, review ones on top), so
+        // that the report's savings are fix's numbers, not the findings' one by one.
+        FixResult planned = new Fix(workspace, tokenizers, FileSystemOps.DEFAULT)
+                .run(new FixOptions(true, java.util.Set.of(), true));
         BaselineConfig config = workspace.config().baseline();
         Optional<BaselineStatus> baseline = BaselineFile.read(BaselineFile.path(workspace.config()))
                 .map(recorded -> BaselineStatus.compare(config.file(), config.tolerancePercent(), recorded,
                         scan.baseline(), workspace.starts().isEmpty()));
         List<TemplateLines> lines = withLines ? lines(scan) : List.of();
-        return new Overview(scan, check, RuleTally.of(check), TargetTotals.of(scan), config.file(), baseline, lines);
+        return new Overview(scan, check, RuleTally.of(check, planned), TargetTotals.of(scan), config.file(), baseline,
+                lines);
     }
 
     private List<TemplateLines> lines(ScanResult scan) {

@@ -72,6 +72,7 @@ public record ScanResult(String root, String tokenizer, List<String> targets, Li
         int count = 0;
         long staticTokens = 0;
         long estimatedTokens = 0;
+        long shortestEstimatedTokens = 0;
         Map<String, Long> inputByTarget = new LinkedHashMap<>();
         targets.forEach(name -> inputByTarget.put(name, 0L));
         for (ScannedTemplate template : templates) {
@@ -81,10 +82,11 @@ public record ScanResult(String root, String tokenizer, List<String> targets, Li
             count++;
             staticTokens += template.staticTokens();
             estimatedTokens += template.estimatedTokens();
+            shortestEstimatedTokens += template.shortestEstimatedTokens();
             template.targets().forEach((name, footprint) -> inputByTarget.merge(name, (long) footprint.inputTokens(), Long::sum));
         }
         int partials = (int) templates.stream().filter(t -> t.kind() == TemplateKind.PARTIAL).count();
-        return new Totals(count, partials, staticTokens, estimatedTokens, inputByTarget);
+        return new Totals(count, partials, staticTokens, estimatedTokens, shortestEstimatedTokens, inputByTarget);
     }
 
     /**
@@ -151,9 +153,10 @@ public record ScanResult(String root, String tokenizer, List<String> targets, Li
      * @param partials        partials found (their tokens are inside their includers' counts)
      * @param staticTokens    sum of static tokens on the primary tokenizer
      * @param estimatedTokens sum of estimated tokens on the primary tokenizer
+     * @param shortestEstimatedTokens sum of estimated tokens on each template's shortest path
      * @param inputTokensByTarget sum of input tokens per target, over the templates on that target
      */
-    public record Totals(int templates, int partials, long staticTokens, long estimatedTokens,
+    public record Totals(int templates, int partials, long staticTokens, long estimatedTokens, long shortestEstimatedTokens,
                          Map<String, Long> inputTokensByTarget) {
     }
 

@@ -39,9 +39,20 @@ public final class TemplateLoader {
         this.renderer = new Renderer(new PartialDirectory(config.templates().partials(), partials::load));
     }
 
-    /** The template files the workspace's configuration selects, and the links it would not follow. */
+    /**
+     * The template files the workspace's configuration selects, and the links it would not follow.
+     *
+     * @throws TareException when there is none: a scan, check or fix of nothing would pass while
+     *                       checking nothing, so the message names the globs tried, the files that
+     *                       look like prompts, and what to do
+     */
     public FileSelection find() {
-        return finder().find(workspace.starts());
+        TemplateFinder finder = finder();
+        FileSelection selection = finder.find(workspace.starts());
+        if (selection.paths().isEmpty()) {
+            throw new TareException(NoTemplates.message(workspace, finder.promptLikeFiles()));
+        }
+        return selection;
     }
 
     /** The files staged for the next commit that the configuration selects, read from the git index. */

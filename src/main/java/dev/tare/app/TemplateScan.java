@@ -12,10 +12,12 @@ import dev.tare.footprint.Target;
 import dev.tare.footprint.Traffic;
 import dev.tare.overlap.CachePrefixes;
 import dev.tare.source.SourceText;
+import dev.tare.template.RenderedPath;
+import dev.tare.template.Renderer;
 import dev.tare.template.Rendering;
+import dev.tare.template.Segment;
 import dev.tare.template.Template;
 import dev.tare.template.TemplateKind;
-import dev.tare.template.VariableSpec;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
 import dev.tare.workspace.FileSelection;
@@ -245,8 +247,9 @@ public final class TemplateScan {
             try {
                 SourceText text = loader.read(path);
                 Template template = loader.parse(text);
-                Rendering samples = loader.renderer().renderWithSamples(template);
-                Measurement measured = measure(template, samples, text.text().length());
+                RenderedPath longest = loader.renderer().render(template, Renderer.Path.LONGEST);
+                Rendering samples = longest.samples();
+                Measurement measured = measure(template, longest, text.text().length());
                 List<String> dependencies = new ArrayList<>(new LinkedHashSet<>(samples.includes()));
                 dependencies.addAll(template.meta().tools());
                 cache.remember(path, text.text(), dependencies, measured);
@@ -256,12 +259,10 @@ public final class TemplateScan {
             }
         }
 
-        private Measurement measure(Template template, Rendering samples, int characters) {
-            // With no sample in it, the sample rendering is the static one, and the same strings let
-            // Counts see that at once.
-            boolean sampled = samples.variables().stream()
-                    .anyMatch(occurrence -> occurrence.spec().flatMap(VariableSpec::sample).isPresent());
-            Rendering empty = sampled ? loader.renderer().renderStatic(template) : samples;
+        private Measurement measure(Template template, RenderedPath longest, int characters) {
+            // Without a sample, both renderings hold the same strings, and Counts sees that at once.
+            Rendering samples = longest.samples();
+            Rendering empty = longest.empty();
             int declared = Estimates.declaredTokens(samples);
             Counts counts = new Counts();
             List<Template> tools = toolFiles.sentWith(template);
@@ -269,7 +270,8 @@ public final class TemplateScan {
             Map<String, CachePrefixes.LeadingIds> leading = new LinkedHashMap<>();
             Map<String, CallSize> callSizes = new LinkedHashMap<>();
             Map<String, Integer> estimatedByTarget = new LinkedHashMap<>();
-            for (Target target : targetsOf(template)) {
+            List<String> notes = new ArrayList<>();
+            for (Target target : targetsOf(template, notes)) {
                 Tokenizer tokenizer = byTarget.get(target.name());
                 int estimated = target.scaled(counts.of(tokenizer, samples)) + declared;
                 estimatedByTarget.put(target.name(), estimated);
@@ -301,15 +303,31 @@ public final class TemplateScan {
             Set<String> variables = new LinkedHashSet<>();
             Set<String> unsized = new LinkedHashSet<>();
             for (Rendering.Occurrence occurrence : samples.variables()) {
-                variables.add(occurrence.variable().name());
+                // A call is listed by the variables it is passed, a variable by the input it reads; either
+                // is unsized under its input, the name its size is declared under (a call's function).
+                if (occurrence.part() instanceof Segment.Call call) {
+                    variables.addAll(call.variableNames());
+                } else {
+                    variables.add(occurrence.input());
+                }
                 if (occurrence.spec().isEmpty() || !occurrence.spec().get().isSized()) {
-                    unsized.add(occurrence.variable().name());
+                    unsized.add(occurrence.input());
                 }
             }
+            int estimated = counts.of(primary, samples) + declared;
             return new Measurement(template.path(), template.kind(), characters, counts.of(primary, empty),
-                    counts.of(primary, samples) + declared, List.copyOf(variables), List.copyOf(unsized),
-                    List.copyOf(new LinkedHashSet<>(samples.includes())), callSizes, estimatedByTarget, leading,
-                    template.meta().callsPerDay());
+                    estimated, shortestEstimate(template, longest, estimated, counts), List.copyOf(variables),
+                    List.copyOf(unsized), List.copyOf(new LinkedHashSet<>(samples.includes())), samples.loops(),
+                    callSizes, estimatedByTarget, leading, template.meta().callsPerDay(), notes);
+        }
+
+        /** The estimated tokens on the template's shortest path: on its only path when it has no branches. */
+        private int shortestEstimate(Template template, RenderedPath longest, int estimated, Counts counts) {
+            if (!longest.branched()) {
+                return estimated;
+            }
+            Rendering shortest = loader.renderer().render(template, Renderer.Path.SHORTEST).samples();
+            return counts.of(primary, shortest) + Estimates.declaredTokens(shortest);
         }
 
         /**
@@ -324,9 +342,18 @@ public final class TemplateScan {
             return Optional.of(CachePrefixes.texts(template, loader.renderer(), samples));
         }
 
-        private List<Target> targetsOf(Template template) {
+        /**
+         * The targets the template is measured on: the one it names, else all. Without a tare.yaml no
+         * target is defined, so one it names is noted and it is measured as every other template is.
+         */
+        private List<Target> targetsOf(Template template, List<String> notes) {
             Optional<String> named = template.meta().target();
             if (named.isEmpty()) {
+                return targets;
+            }
+            if (config.file().isEmpty() && config.targets().isEmpty()) {
+                notes.add("names target '" + named.get() + "', which is defined in no tare.yaml; measured on "
+                        + primary.name() + " alone (tare init writes a tare.yaml to define targets in)");
                 return targets;
             }
             if (config.targets().stream().noneMatch(t -> t.name().equals(named.get()))) {

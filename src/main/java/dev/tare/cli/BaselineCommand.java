@@ -36,8 +36,9 @@ final class BaselineCommand implements Callable<Integer> {
             case UNCHANGED -> "Unchanged:";
             case CHANGED_MEANWHILE -> "Left alone (it changed while Tare ran):";
         };
-        spec.commandLine().getOut().println(what + " " + report.file() + " (" + report.templates() + " templates"
-                + (report.skipped() == 0 ? "" : ", " + report.skipped() + " files skipped: see 'tare scan'") + ").");
+        spec.commandLine().getOut().println(what + " " + report.file() + " (" + report.templates()
+                + (report.templates() == 1 ? " template" : " templates") + (report.skipped() == 0 ? ""
+                : ", " + report.skipped() + (report.skipped() == 1 ? " file" : " files") + " skipped: see 'tare scan'") + ").");
         return report.outcome() == SafeFileWriter.Outcome.CHANGED_MEANWHILE ? ExitCodes.USAGE : ExitCodes.OK;
     }
 }

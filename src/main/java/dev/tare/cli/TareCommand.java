@@ -2,6 +2,7 @@ package dev.tare.cli;
 
 import dev.tare.Tare;
 import dev.tare.TareException;
+import dev.tare.config.Suggestion;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.io.PrintWriter;
 import java.util.Arrays;
@@ -17,7 +18,8 @@ import picocli.CommandLine;
         addMethodSubcommands = false,
         versionProvider = TareCommand.Version.class,
         description = "Measures and shrinks the token footprint of the prompt templates in a repository.",
-        footer = {"", "Exit codes: 0 ok, 1 findings, a budget breach or a file left unfixed by fix, 2 usage, configuration or input error,"
+        footer = {"", "Exit codes: 0 ok (scan: it measured something), 1 findings or a budget or baseline breach (check) or a file"
+                + " left unfixed (fix), 2 usage, configuration or input error, or no template found,"
                 + " 3 internal error (add --debug for the stack trace)."})
 public final class TareCommand implements Runnable {
     /**
@@ -124,10 +126,25 @@ public final class TareCommand implements Runnable {
     private static int handleParameterException(CommandLine.ParameterException ex, String[] args) {
         CommandLine commandLine = ex.getCommandLine();
         PrintWriter err = commandLine.getErr();
-        err.println("tare: " + ex.getMessage());
+        err.println("tare: " + (ex instanceof CommandLine.UnmatchedArgumentException unmatched
+                && !unmatched.getUnmatched().isEmpty() ? unmatched(commandLine, unmatched.getUnmatched().get(0))
+                : ex.getMessage()));
         err.println("Run '" + commandLine.getCommandSpec().qualifiedName() + " --help' for usage.");
         err.flush();
         return ExitCodes.USAGE;
+    }
+
+    /** An argument no command or option takes, with the name it most likely meant. */
+    private static String unmatched(CommandLine commandLine, String argument) {
+        boolean option = argument.startsWith("-");
+        String typed = option && argument.contains("=") ? argument.substring(0, argument.indexOf('=')) : argument;
+        java.util.Collection<String> names = option
+                ? commandLine.getCommandSpec().options().stream().flatMap(o -> Arrays.stream(o.names())).toList()
+                : commandLine.getSubcommands().keySet();
+        String what = option ? "unknown option '" + typed + "'"
+                : commandLine.getSubcommands().isEmpty() ? "unexpected argument '" + argument + "'"
+                : "unknown command '" + argument + "'";
+        return what + Suggestion.didYouMean(typed, names);
     }
 
     private static boolean requested(CommandLine.ParseResult parseResult, String option) {

@@ -68,7 +68,7 @@ public final class ConfigLoader {
         try {
             document = YamlDocument.parseYaml(text.text());
         } catch (TareException e) {
-            throw new TareException(file + ", " + e.getMessage() + "; fix the YAML syntax", e);
+            throw new TareException(file + ", " + e.getMessage(), e);
         }
         return read(absolute.getParent(), Optional.of(absolute), new ConfigReader(file.toString(), document), document.root());
     }
@@ -177,6 +177,11 @@ public final class ConfigLoader {
             }
             String tokenizer = in.text(target, "tokenizer", path + ".tokenizer")
                     .orElseThrow(() -> in.problem(path, "target '" + name + "' names no tokenizer"));
+            if (!TokenizerRegistry.namesFile(tokenizer) && !TokenizerRegistry.BUILT_IN.contains(tokenizer)) {
+                throw in.problem(path + ".tokenizer", "unknown tokenizer '" + tokenizer + "'"
+                        + Suggestion.didYouMean(tokenizer, TokenizerRegistry.BUILT_IN) + " (built in: "
+                        + String.join(", ", TokenizerRegistry.BUILT_IN) + "; or the path of a tokenizer.json)");
+            }
             if (TokenizerRegistry.namesFile(tokenizer) && !Files.isRegularFile(root.resolve(tokenizer))) {
                 throw in.problem(path + ".tokenizer", "no such file " + root.resolve(tokenizer).normalize()
                         + "; give the path of a tokenizer.json relative to tare.yaml, or one of "

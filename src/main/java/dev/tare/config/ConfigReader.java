@@ -34,7 +34,7 @@ final class ConfigReader {
             String key = it.next();
             if (!known.contains(key)) {
                 String child = path.isEmpty() ? key : path + "." + key;
-                throw problem(child, "unknown key" + nearest(key, known).map(k -> "; did you mean '" + k + "'?")
+                throw problem(child, "unknown key" + Suggestion.nearest(key, known).map(k -> "; did you mean '" + k + "'?")
                         .orElse("; known keys here: " + String.join(", ", new java.util.TreeSet<>(known))));
             }
         }
@@ -124,18 +124,5 @@ final class ConfigReader {
 
     private static String trim(double value) {
         return value == Math.rint(value) ? String.valueOf((long) value) : String.valueOf(value);
-    }
-
-    private static Optional<String> nearest(String key, Set<String> known) {
-        String best = null;
-        int bestDistance = Integer.MAX_VALUE;
-        for (String candidate : known) {
-            int distance = org.apache.commons.text.similarity.LevenshteinDistance.getDefaultInstance().apply(key, candidate);
-            if (distance < bestDistance) {
-                bestDistance = distance;
-                best = candidate;
-            }
-        }
-        return bestDistance <= Math.max(2, key.length() / 3) ? Optional.ofNullable(best) : Optional.empty();
     }
 }

@@ -38,7 +38,7 @@ public final class PackParser {
         try {
             document = YamlDocument.parseYaml(text);
         } catch (TareException e) {
-            throw new TareException(name + ", " + e.getMessage() + "; fix the YAML syntax", e);
+            throw new TareException(name + ", " + e.getMessage(), e);
         }
         JsonNode root = document.root();
         if (!root.isObject() || !root.path("rules").isArray()) {

@@ -2,6 +2,7 @@ package dev.tare.lint;
 
 import dev.tare.TareException;
 import dev.tare.config.RulesConfig;
+import dev.tare.config.Suggestion;
 import dev.tare.config.TareConfig;
 import dev.tare.lint.rules.BuiltInRules;
 import java.util.ArrayList;
@@ -74,18 +75,9 @@ public final class RuleCatalog {
 
     private static void requireKnown(TareConfig config, Map<String, Rule> byId, String id, String key) {
         if (!byId.containsKey(id)) {
-            throw new TareException(config.where(key) + "unknown rule '" + id + "'" + suggestion(id, byId.keySet())
+            throw new TareException(config.where(key) + "unknown rule '" + id + "'" + Suggestion.didYouMean(id, byId.keySet())
                     + "; 'tare rules' lists every rule");
         }
-    }
-
-    /** "; did you mean 'x'?" for the nearest id, or nothing when none is near. */
-    static String suggestion(String id, Set<String> known) {
-        org.apache.commons.text.similarity.LevenshteinDistance distance =
-                org.apache.commons.text.similarity.LevenshteinDistance.getDefaultInstance();
-        return known.stream().min(Comparator.comparingInt((String k) -> distance.apply(id, k)).thenComparing(k -> k))
-                .filter(k -> distance.apply(id, k) <= Math.max(2, id.length() / 3))
-                .map(k -> "; did you mean '" + k + "'?").orElse("");
     }
 
     /** Every rule, sorted by id. */
@@ -121,7 +113,7 @@ public final class RuleCatalog {
     public Rule rule(String id) {
         Rule rule = rules.get(id);
         if (rule == null) {
-            throw new TareException("unknown rule '" + id + "'" + suggestion(id, rules.keySet())
+            throw new TareException("unknown rule '" + id + "'" + Suggestion.didYouMean(id, rules.keySet())
                     + "; 'tare rules' lists every rule");
         }
         return rule;

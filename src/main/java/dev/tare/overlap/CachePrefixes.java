@@ -84,7 +84,7 @@ public final class CachePrefixes {
 
     /** The leading texts of {@code template}, rendered once and shared by every target. */
     public static Texts texts(Template template, Renderer renderer, Rendering samples) {
-        List<String> now = StaticPrefix.of(template, renderer, samples);
+        List<String> now = StaticPrefix.of(samples);
         List<String> reordered = samples.variables().isEmpty() ? now : StaticPrefix.reordered(template, renderer);
         return new Texts(now, reordered);
     }

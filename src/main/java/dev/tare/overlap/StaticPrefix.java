@@ -3,53 +3,26 @@ package dev.tare.overlap;
 import dev.tare.template.Renderer;
 import dev.tare.template.Rendering;
 import dev.tare.template.Template;
-import dev.tare.template.TemplateMeta;
-import dev.tare.template.VariableSpec;
-import java.util.ArrayList;
-import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Map;
-import java.util.Optional;
-import java.util.OptionalInt;
 
 /**
- * The text of a template before its first variable, message by message: the part that is the same
- * on every call, and so the only part a prefix cache can serve. Includes are pasted in as usual.
- * The scan's cached tokens and the {@code cache-order} rule both measure the leading text here, so
- * that they agree on where a template's per-call part starts.
+ * The text of a template before its first per-call part (a variable or function call, or a loop or
+ * branch that depends on one), message by message: the part that is the same on every call, and so
+ * the only part a prefix cache can serve. Includes are pasted in as usual. The scan's cached tokens
+ * and the {@code cache-order} rule both measure the leading text here, so that they agree on where a
+ * template's per-call part starts.
  */
 public final class StaticPrefix {
-    /** Marks where a variable stands; template files cannot contain it, as reading refuses NUL bytes. */
-    private static final String MARK = "\u0000";
-
     private StaticPrefix() {
     }
 
     /**
-     * The messages up to the first variable, the last one cut where that variable stands.
+     * The messages up to the first per-call part, the last one cut where it stands.
      *
-     * @param samples the template's rendering with samples, which lists every variable occurrence
+     * @param rendering the template's rendering (with samples or without: they agree up to that part)
      */
-    public static List<String> of(Template template, Renderer renderer, Rendering samples) {
-        // Rendering each variable as a mark finds the first one across messages and includes alike.
-        Map<String, VariableSpec> marks = new LinkedHashMap<>();
-        for (Rendering.Occurrence occurrence : samples.variables()) {
-            marks.put(occurrence.variable().name(), new VariableSpec(OptionalInt.empty(), Optional.of(MARK)));
-        }
-        TemplateMeta meta = template.meta();
-        Template marked = new Template(template.path(), template.kind(),
-                meta.withVariables(marks), template.messages(),
-                template.source(), template.bodyStart(), template.syntax());
-        List<String> leading = new ArrayList<>();
-        for (String message : renderer.renderWithSamples(marked).messages()) {
-            int mark = message.indexOf(MARK);
-            if (mark >= 0) {
-                leading.add(message.substring(0, mark));
-                break;
-            }
-            leading.add(message);
-        }
-        return leading;
+    public static List<String> of(Rendering rendering) {
+        return rendering.leading();
     }
 
     /**

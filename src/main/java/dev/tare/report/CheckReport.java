@@ -66,7 +66,8 @@ public final class CheckReport {
                 .append(plural(result.count(Severity.INFO), "info")).append(" in ")
                 .append(plural(result.filesWithFindings(), "file")).append(".\n");
         if (result.rewrites() > 0) {
-            out.append(plural(result.rewrites(), "finding")).append(" offer a rewrite; together they save about ")
+            out.append(plural(result.rewrites(), "finding")).append(result.rewrites() == 1
+                            ? " offers a rewrite; it saves about " : " offer a rewrite; together they save about ")
                     .append(tokens(result.savingTokens())).append(" per call. ").append(ESTIMATE_NOTE).append('\n');
         }
         out.append(result.failed() ? "Failed: findings at or above " + result.failOn().label() + ".\n"

@@ -91,7 +91,8 @@ public final class HtmlReport {
                 CheckReport.plural(check.count(Severity.ERROR), "error") + ", "
                         + CheckReport.plural(check.count(Severity.WARNING), "warning") + ", "
                         + CheckReport.plural(check.count(Severity.INFO), "info"));
-        tile(out, "Tokens saved by rewrites", number(check.savingTokens(), "check.saving_tokens", "tokens"),
+        tile(out, "Tokens saved by rewrites", number(overview.savingTokens(RewriteClass.SAFE)
+                        + overview.savingTokens(RewriteClass.REVIEW), "check.saving_tokens", "tokens"),
                 "per call: " + Figures.count(overview.savingTokens(RewriteClass.SAFE)) + " safe, "
                         + Figures.count(overview.savingTokens(RewriteClass.REVIEW)) + " to review");
         out.append("</dl></section>\n");
@@ -122,33 +123,46 @@ public final class HtmlReport {
             out.append("<p>No templates were measured.</p>\n</section>\n");
             return;
         }
-        out.append("<p>What each call sends, split into the template's own text (static), what its variables add")
-                .append(" with their samples and declared sizes, and the chat framing of the template's first target.")
+        out.append("<p>What each call sends on the first target (its input tokens, as in the table below), split into")
+                .append(" the template's own text (static), what its variables add with their samples and declared")
+                .append(" sizes, and the chat framing and tool definitions of that target.")
                 .append(" Static and variables are counted on <code>").append(Html.text(scan.tokenizer()))
                 .append("</code>. Partials are inside the templates that include them.</p>\n");
         SvgBarChart chart = new SvgBarChart("tokens", "Tokens per template: static, variables, framing",
                 List.of(new SvgBarChart.Series("static: the template's own text", SvgBarChart.Fill.SOLID),
                         new SvgBarChart.Series("variables: samples and declared sizes", SvgBarChart.Fill.HATCH),
-                        new SvgBarChart.Series("framing: chat format, per target", SvgBarChart.Fill.DOTS)),
+                        new SvgBarChart.Series("framing and tools: chat format and tool definitions", SvgBarChart.Fill.DOTS)),
                 tick -> Figures.count(Math.round(tick)));
         for (ScannedTemplate t : templates) {
-            int framing = framing(t);
-            int variables = t.estimatedTokens() - t.staticTokens();
-            String data = " data-template=\"" + Html.attr(t.path()) + "\" data-static=\"" + t.staticTokens()
+            long framing = framing(t);
+            long variables = t.estimatedTokens() - t.staticTokens();
+            long staticPart = chartTotal(t) - framing - variables;
+            String data = " data-template=\"" + Html.attr(t.path()) + "\" data-static=\"" + staticPart
                     + "\" data-variables=\"" + variables + "\" data-framing=\"" + framing + "\"";
-            chart.row(new SvgBarChart.Row(t.path(), List.of((double) t.staticTokens(), (double) variables,
+            chart.row(new SvgBarChart.Row(t.path(), List.of((double) staticPart, (double) variables,
                     (double) framing), Figures.count(chartTotal(t)), data));
         }
         out.append(chart.legend()).append("<div class=\"chart-frame\">").append(chart.render()).append("</div>\n</section>\n");
     }
 
-    /** Framing tokens on the template's first target, none without targets. */
-    private static int framing(ScannedTemplate template) {
-        return template.targets().values().stream().findFirst().map(Footprint::framingTokens).orElse(0);
+    /**
+     * What the first target adds to the template's text: its chat framing and the tool definitions
+     * sent with it (its input tokens less its estimate there); none without targets.
+     */
+    private static long framing(ScannedTemplate template) {
+        return template.targets().entrySet().stream().findFirst()
+                .map(e -> (long) e.getValue().inputTokens()
+                        - template.estimatedByTarget().getOrDefault(e.getKey(), template.estimatedTokens()))
+                .orElse(0L);
     }
 
+    /**
+     * A bar's length: the input tokens of one call on the first target, the figure of the template
+     * table's first target column; the estimated tokens without targets.
+     */
     private static long chartTotal(ScannedTemplate template) {
-        return (long) Math.max(template.staticTokens(), template.estimatedTokens()) + framing(template);
+        return template.targets().values().stream().findFirst().map(f -> (long) f.inputTokens())
+                .orElse((long) template.estimatedTokens());
     }
 
     private static void templateTable(StringBuilder out, Overview overview, ScanResult.Order order) {

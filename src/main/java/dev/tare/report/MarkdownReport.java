@@ -13,6 +13,7 @@ import dev.tare.lint.BaselineChange;
 import dev.tare.lint.RewriteClass;
 import dev.tare.lint.Severity;
 import dev.tare.workspace.SkippedFile;
+import dev.tare.template.TemplateKind;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.OptionalDouble;
@@ -58,8 +59,21 @@ public final class MarkdownReport {
         line.append(", ").append(Figures.count(totals.staticTokens())).append(" static and ")
                 .append(Figures.count(totals.estimatedTokens())).append(" estimated tokens on ")
                 .append(code(overview.scan().tokenizer())).append(". ");
-        line.append(CheckReport.plural(overview.check().templates(), "template")).append(" checked with ")
-                .append(CheckReport.plural(overview.check().rules().size(), "rule")).append('.');
+        long tools = overview.scan().templates().stream().filter(t -> t.kind() == TemplateKind.TOOLS).count();
+        long checked = overview.check().templates();
+        if (totals.partials() + tools == 0) {
+            line.append(CheckReport.plural(checked, "template")).append(" checked");
+        } else {
+            List<String> parts = new ArrayList<>(List.of(CheckReport.plural(checked - totals.partials() - tools, "template")));
+            if (totals.partials() > 0) {
+                parts.add(CheckReport.plural(totals.partials(), "partial"));
+            }
+            if (tools > 0) {
+                parts.add(CheckReport.plural(tools, "tool file"));
+            }
+            line.append(CheckReport.plural(checked, "file")).append(" checked (").append(String.join(", ", parts)).append(')');
+        }
+        line.append(" with ").append(CheckReport.plural(overview.check().rules().size(), "rule")).append('.');
         if (!overview.scan().skipped().isEmpty()) {
             line.append(' ').append(CheckReport.plural(overview.scan().skipped().size(), "file")).append(" skipped.");
         }
@@ -225,7 +239,8 @@ public final class MarkdownReport {
         table.row("review: a person decides", Figures.count(rewrites(overview, RewriteClass.REVIEW)), Figures.count(review));
         table.row("**all**", "**" + Figures.count(overview.check().rewrites()) + "**", "**" + Figures.count(safe + review) + "**");
         out.append(table.render()).append('\n');
-        out.append(CheckReport.ESTIMATE_NOTE).append(" Each rewrite is measured on its own and the savings summed.\n\n");
+        out.append(CheckReport.ESTIMATE_NOTE).append(" Savings are what `tare fix` saves applying the rewrites"
+                + " (safe ones first, then those to review), on each template's tokenizer.\n\n");
     }
 
     private static long rewrites(Overview overview, RewriteClass rewriteClass) {

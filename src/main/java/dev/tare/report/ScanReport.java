@@ -5,6 +5,7 @@ import dev.tare.app.ScanResult;
 import dev.tare.app.ScannedTemplate;
 import dev.tare.footprint.Footprint;
 import dev.tare.overlap.PrefixShare;
+import dev.tare.template.Rendering;
 import dev.tare.template.TemplateKind;
 import dev.tare.workspace.SkippedFile;
 import java.io.IOException;
@@ -44,7 +45,7 @@ public final class ScanReport {
         }
         ScanResult.Totals totals = result.totals();
         table.rule();
-        List<String> total = new ArrayList<>(List.of("total (" + totals.templates() + " templates)", "",
+        List<String> total = new ArrayList<>(List.of("total (" + CheckReport.plural(totals.templates(), "template") + ")", "",
                 TextTable.number(totals.staticTokens()), TextTable.number(totals.estimatedTokens())));
         result.targets().forEach(name -> total.add(TextTable.number(totals.inputTokensByTarget().get(name))));
         total.add("");
@@ -63,7 +64,11 @@ public final class ScanReport {
 
     private static String notes(ScanResult result, ScanResult.Totals totals) {
         StringBuilder out = new StringBuilder();
-        out.append("Static: every variable empty. Estimated: variables filled with declared samples or sizes.\n");
+        out.append("Static: every variable empty. Estimated: variables filled with declared samples or sizes.");
+        if (result.templates().stream().anyMatch(t -> !t.loops().isEmpty() || t.shortestEstimatedTokens() != t.estimatedTokens())) {
+            out.append(" Both follow the longest branch of each conditional and count a loop's body once per expected item.");
+        }
+        out.append('\n');
         if (totals.partials() > 0) {
             out.append(totals.partials()).append(totals.partials() == 1 ? " partial is" : " partials are")
                     .append(" listed but left out of the total; their tokens count inside each template that includes them.\n");
@@ -77,6 +82,17 @@ public final class ScanReport {
         if (unsized > 0) {
             out.append(unsized).append(unsized == 1 ? " template has" : " templates have")
                     .append(" variables with neither a sample nor a token size; their estimates leave those out.\n");
+        }
+        long assumed = result.templates().stream()
+                .filter(t -> t.countsInTotals() && t.loops().stream().anyMatch(loop -> !loop.declared())).count();
+        if (assumed > 0) {
+            out.append(assumed).append(assumed == 1 ? " template has" : " templates have")
+                    .append(" loops without declared items, counted once; declare variables: {NAME: {items: N}}.\n");
+        }
+        for (ScannedTemplate template : result.templates()) {
+            for (String note : template.notes()) {
+                out.append(template.path()).append(": ").append(note).append('\n');
+            }
         }
         if (!result.skipped().isEmpty()) {
             out.append("\nSkipped ").append(result.skipped().size()).append(result.skipped().size() == 1 ? " file:\n" : " files:\n");
@@ -148,9 +164,14 @@ public final class ScanReport {
         out.writeNumberField("chars", template.characters());
         out.writeNumberField("static_tokens", template.staticTokens());
         out.writeNumberField("estimated_tokens", template.estimatedTokens());
+        out.writeNumberField("estimated_tokens_shortest", template.shortestEstimatedTokens());
         strings(out, "variables", template.variables());
         strings(out, "unsized_variables", template.unsizedVariables());
         strings(out, "includes", template.includes());
+        loops(out, template);
+        if (!template.notes().isEmpty()) {
+            strings(out, "notes", template.notes());
+        }
         out.writeObjectFieldStart("targets");
         for (Map.Entry<String, Footprint> entry : template.targets().entrySet()) {
             Map<String, Object> footprint = Figures.fields(entry.getValue());
@@ -163,6 +184,24 @@ public final class ScanReport {
         }
         out.writeEndObject();
         out.writeEndObject();
+    }
+
+    /** The loops on the template's longest path: what each walks and how many items were assumed. */
+    private static void loops(JsonGenerator out, ScannedTemplate template) throws IOException {
+        out.writeArrayFieldStart("loops");
+        for (Rendering.Loop loop : template.loops()) {
+            out.writeStartObject();
+            out.writeStringField("variable", loop.variable());
+            out.writeStringField("iterable", loop.iterable());
+            out.writeNumberField("items", loop.items());
+            out.writeBooleanField("declared", loop.declared());
+            if (!loop.owner().equals(template.path())) {
+                out.writeStringField("in", loop.owner());
+            }
+            out.writeNumberField("line", loop.line());
+            out.writeEndObject();
+        }
+        out.writeEndArray();
     }
 
     private static void strings(JsonGenerator out, String name, List<String> values) throws IOException {
@@ -180,6 +219,7 @@ public final class ScanReport {
         out.writeNumberField("partials", totals.partials());
         out.writeNumberField("static_tokens", totals.staticTokens());
         out.writeNumberField("estimated_tokens", totals.estimatedTokens());
+        out.writeNumberField("estimated_tokens_shortest", totals.shortestEstimatedTokens());
         Map<String, Map<String, Object>> byTarget = new LinkedHashMap<>();
         totals.inputTokensByTarget().forEach((name, tokens) -> byTarget.computeIfAbsent(name, n -> new LinkedHashMap<>())
                 .put("input_tokens", tokens));

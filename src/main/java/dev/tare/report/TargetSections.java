@@ -105,7 +105,7 @@ final class TargetSections {
             }
         }
         table.rule();
-        table.row(List.of("total (" + totals.templates() + " templates)", "", Figures.count(totals.cachedTokens()),
+        table.row(List.of("total (" + CheckReport.plural(totals.templates(), "template") + ")", "", Figures.count(totals.cachedTokens()),
                 money(totals.savingPerMonth(), currency), "", Figures.count(totals.reorderedCachedTokens()),
                 money(totals.reorderedSavingPerMonth(), currency)));
         String breakEven = target.cacheBreakEvenCallsPerDay().stream()

@@ -10,6 +10,7 @@ import dev.tare.source.SafeReader;
 import dev.tare.source.SourceText;
 import dev.tare.template.Message;
 import dev.tare.template.Template;
+import dev.tare.template.TemplateKind;
 import dev.tare.tokenize.Tokenizer;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -183,10 +184,19 @@ public final class FilePlanner {
         return problems;
     }
 
-    /** Tokens of the prompt text the template itself holds: its messages as written, includes not expanded. */
+    /**
+     * Tokens of the prompt text the template itself holds: its messages as written, includes not
+     * expanded; a tool file's whole text as written, which is what re-laying it out changes (the
+     * scan counts the definitions minified, as a provider receives them when the application sends
+     * them as parsed JSON).
+     */
     public static int[] tokens(Template template, List<Tokenizer> counters) {
         int[] counts = new int[counters.size()];
         for (int k = 0; k < counters.size(); k++) {
+            if (template.kind() == TemplateKind.TOOLS) {
+                counts[k] = counters.get(k).count(template.source());
+                continue;
+            }
             for (Message message : template.messages()) {
                 counts[k] += counters.get(k).count(message.content());
             }

@@ -18,8 +18,8 @@ import java.util.TreeMap;
 /**
  * The checks a rewritten file must pass before it may be written, comparing the original text with
  * the final one (both parsed again by the template parser): the same messages, metadata and front
- * matter; the same multiset of variables, includes and tags; the same code spans and fenced code
- * (a fenced {@code json} block laid out anew must hold an equal JSON tree, and so
+ * matter; the same multiset of variables, function calls, includes and tags; the same code spans and
+ * fenced code (a fenced {@code json} block laid out anew must hold an equal JSON tree, and so
  * must a message that was all JSON); no non-whitespace character removed or written by a whitespace
  * rule, and the non-whitespace characters otherwise in the same order; no paragraph break removed or
  * added between the characters that stayed; the same final-newline state; no line-ending style the
@@ -83,6 +83,8 @@ final class Invariants {
             String key = null;
             if (segment instanceof Segment.Variable variable) {
                 key = "variable '" + variable.name() + "' (" + variable.source() + ")";
+            } else if (segment instanceof Segment.Call call) {
+                key = "call '" + call.name() + "' (" + call.source() + ")";
             } else if (segment instanceof Segment.Include include) {
                 key = "include '" + include.name() + "' (" + include.source() + ")";
             } else if (segment instanceof Segment.Tag tag) {

@@ -119,7 +119,7 @@ public final class SafeReader {
             System.arraycopy(rest, 0, all, bytes.length + 1, rest.length);
             return all;
         } catch (IOException e) {
-            throw new TareException("cannot be read (" + e.getClass().getSimpleName() + ": " + e.getMessage() + ")", e);
+            throw new TareException("cannot be read (" + IoProblem.describe(e) + ")", e);
         }
     }
 

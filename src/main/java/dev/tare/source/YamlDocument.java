@@ -17,6 +17,8 @@ import dev.tare.TareException;
 import java.io.IOException;
 import java.util.HashMap;
 import java.util.Map;
+import java.util.Optional;
+import java.util.regex.Pattern;
 import java.util.OptionalInt;
 import org.yaml.snakeyaml.LoaderOptions;
 
@@ -36,6 +38,10 @@ public final class YamlDocument {
     private static final JsonFactory JSON = JsonFactory.builder()
             .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
             .build();
+
+    /** Where the parser says an unclosed list or object began, naming its input by a placeholder. */
+    private static final Pattern JSON_OPENED = Pattern.compile(
+            "\\(for (Array|Object) starting at \\[Source: [^\\]]*; line: (\\d+), column: \\d+]\\)");
 
     private final JsonNode root;
     private final Map<String, JsonLocation> locations;
@@ -172,12 +178,22 @@ public final class YamlDocument {
     }
 
     private static String describe(JsonProcessingException e) {
-        JsonLocation location = e.getLocation();
-        String message = firstLine(e.getOriginalMessage());
-        if (location == null || location.getLineNr() < 1) {
-            return message;
+        Optional<String> yaml = YamlProblems.describe(e);
+        if (yaml.isPresent()) {
+            return yaml.get();
         }
-        return "line " + location.getLineNr() + ", column " + location.getColumnNr() + ": " + message;
+        if (e.getOriginalMessage() != null && e.getOriginalMessage().startsWith("Duplicate field '")) {
+            String name = e.getOriginalMessage().substring("Duplicate field '".length());
+            name = name.substring(0, Math.max(0, name.indexOf('\'')));
+            return at(e.getLocation()) + "the key '" + name + "' appears twice in one mapping; keep one";
+        }
+        return at(e.getLocation()) + JSON_OPENED.matcher(firstLine(e.getOriginalMessage())).replaceAll("(opened on line $2)")
+                + "; fix the syntax there";
+    }
+
+    private static String at(JsonLocation location) {
+        return location == null || location.getLineNr() < 1 ? ""
+                : "line " + location.getLineNr() + ", column " + location.getColumnNr() + ": ";
     }
 
     private static String firstLine(String message) {

@@ -1,26 +1,19 @@
 package dev.tare.structure;
 
+import dev.tare.template.Control;
 import dev.tare.template.Segment;
 import java.util.ArrayDeque;
 import java.util.Deque;
 import java.util.List;
-import java.util.Set;
-import java.util.regex.Matcher;
-import java.util.regex.Pattern;
 
 /**
- * The conditional branch each character of a message renders in, from its block tags: Jinja's
- * {@code {% if %}}/{@code {% elif %}}/{@code {% else %}}/{@code {% endif %}}, {@code {% for %}} and
- * the other paired statements, and Handlebars' <code>{{#if}}</code>/<code>{{else}}</code>/<code>{{/if}}</code>
- * and <code>{{^x}}</code>. Text in different branches may or may not be sent together, so a
+ * The conditional branch each character of a message renders in, from its block tags as the parser
+ * read them ({@link Control}): Jinja's {@code {% if %}}/{@code {% elif %}}/{@code {% else %}}/{@code {% endif %}},
+ * {@code {% for %}} and the other paired statements, and Handlebars' <code>{{#if}}</code>/<code>{{else}}</code>/<code>{{/if}}</code>,
+ * <code>{{#each}}</code> and Mustache's sections. Text in different branches may or may not be sent together, so a
  * sentence in one is not a repeat of the same sentence in another.
  */
 final class Branches {
-    private static final Pattern STATEMENT = Pattern.compile("\\{%[-+~]?\\s*([A-Za-z_]+)([^%]*)");
-    private static final Set<String> OPENERS = Set.of("if", "for", "macro", "call", "filter", "block", "with",
-            "autoescape", "trans", "set");
-    private static final Set<String> MIDDLES = Set.of("elif", "else", "pluralize");
-
     private Branches() {
     }
 
@@ -39,55 +32,22 @@ final class Branches {
             if (start < 0 || end > content.length()) {
                 continue;
             }
-            Kind kind = kind(tag.source());
-            if (kind == Kind.OTHER) {
+            Control control = tag.control();
+            if (!(control instanceof Control.Open || control instanceof Control.Middle || control instanceof Control.Close)) {
                 continue;
             }
             java.util.Arrays.fill(branches, at, start, current);
             at = start;
-            switch (kind) {
-                case OPEN -> {
-                    stack.push(current);
-                    current = start + 1;
-                }
-                case MIDDLE -> current = stack.isEmpty() ? current : start + 1;
-                case CLOSE -> current = stack.isEmpty() ? 0 : stack.pop();
-                default -> {
-                }
+            if (control instanceof Control.Open) {
+                stack.push(current);
+                current = start + 1;
+            } else if (control instanceof Control.Middle) {
+                current = stack.isEmpty() ? current : start + 1;
+            } else {
+                current = stack.isEmpty() ? 0 : stack.pop();
             }
         }
         java.util.Arrays.fill(branches, at, content.length(), current);
         return branches;
-    }
-
-    private enum Kind { OPEN, MIDDLE, CLOSE, OTHER }
-
-    private static Kind kind(String source) {
-        if (source.startsWith("{{")) {
-            String inner = source.replaceFirst("^\\{\\{\\{?[-~]?\\s*", "");
-            if (inner.startsWith("#") || inner.startsWith("^")) {
-                return Kind.OPEN;
-            }
-            if (inner.startsWith("/")) {
-                return Kind.CLOSE;
-            }
-            return inner.matches("else\\b[\\s\\S]*") ? Kind.MIDDLE : Kind.OTHER;
-        }
-        Matcher statement = STATEMENT.matcher(source);
-        if (!statement.lookingAt()) {
-            return Kind.OTHER;
-        }
-        String keyword = statement.group(1);
-        if (keyword.startsWith("end")) {
-            return OPENERS.contains(keyword.substring(3)) ? Kind.CLOSE : Kind.OTHER;
-        }
-        if (MIDDLES.contains(keyword)) {
-            return Kind.MIDDLE;
-        }
-        // "{% set x = 1 %}" assigns; only "{% set x %}...{% endset %}" opens a block.
-        if (keyword.equals("set") && statement.group(2).contains("=")) {
-            return Kind.OTHER;
-        }
-        return OPENERS.contains(keyword) ? Kind.OPEN : Kind.OTHER;
     }
 }

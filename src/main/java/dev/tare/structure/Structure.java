@@ -215,11 +215,11 @@ public final class Structure {
 
     /**
      * The text of every region a safe rewrite must keep byte for byte, in order, with runs of
-     * neighbouring such regions of one role joined, each led by its role's name: what the verifier
-     * compares before and after. Fenced blocks are left out: they are compared through
-     * {@link #fences()}, since a JSON block may be laid out anew.
+     * neighbouring such regions of one role joined: what the verifier looks for after a rewrite.
+     * Fenced blocks are left out: they are compared through {@link #fences()}, since a JSON block may
+     * be laid out anew.
      */
-    public List<String> verbatimTexts() {
+    public List<String> verbatimBlocks() {
         List<String> texts = new ArrayList<>();
         int i = 0;
         while (i < regions.size()) {
@@ -234,7 +234,7 @@ public final class Structure {
                 end = regions.get(k).end();
                 k++;
             }
-            texts.add(region.role().name().toLowerCase(java.util.Locale.ROOT) + ": " + content.substring(region.start(), end));
+            texts.add(content.substring(region.start(), end));
             i = k;
         }
         return texts;

@@ -17,6 +17,8 @@ import java.util.OptionalInt;
  * description, authors, ...) are metadata and never an error.
  */
 final class MetaReader {
+    /** The most loop items a declaration may expect: enough for any prompt, and a bound on rendering. */
+    static final int MAX_ITEMS = 10_000;
     private final YamlDocument document;
     private final String where;
     private final boolean toolsAreFiles;
@@ -165,7 +167,8 @@ final class MetaReader {
             return variables;
         }
         if (!node.isObject()) {
-            throw problem("variables", "variables must map each variable name to {tokens: N} or {sample: \"...\"}");
+            throw problem("variables", "variables must map each variable name to {tokens: N}, {sample: \"...\"}"
+                    + " or, for a list a loop walks, {items: N}");
         }
         for (Iterator<Map.Entry<String, JsonNode>> it = node.fields(); it.hasNext(); ) {
             Map.Entry<String, JsonNode> entry = it.next();
@@ -185,7 +188,7 @@ final class MetaReader {
             return new VariableSpec(OptionalInt.empty(), Optional.of(value.asText()));
         }
         if (!value.isObject()) {
-            throw problem(path, lastKey(path) + " must be {tokens: N} or {sample: \"...\"}");
+            throw problem(path, lastKey(path) + " must be {tokens: N}, {sample: \"...\"} or {items: N}");
         }
         OptionalInt tokens = value.has("tokens") && !value.get("tokens").isNull()
                 ? wholeNumberAt(path + ".tokens", value.get("tokens")) : OptionalInt.empty();
@@ -197,12 +200,23 @@ final class MetaReader {
             }
             sample = Optional.of(sampleNode.asText());
         }
-        return new VariableSpec(tokens, sample);
+        OptionalInt items = value.has("items") && !value.get("items").isNull()
+                ? items(path + ".items", value.get("items")) : OptionalInt.empty();
+        return new VariableSpec(tokens, sample, items);
     }
 
     private OptionalInt wholeNumberAt(String path, JsonNode node) {
         if (!node.isIntegralNumber() || !node.canConvertToInt() || node.asInt() < 0) {
             throw problem(path, "tokens must be a whole number, zero or more (got " + node + ")");
+        }
+        return OptionalInt.of(node.asInt());
+    }
+
+    /** How many items a loop over the variable is expected to walk: a whole number up to {@link #MAX_ITEMS}. */
+    private OptionalInt items(String path, JsonNode node) {
+        if (!node.isIntegralNumber() || !node.canConvertToInt() || node.asInt() < 0 || node.asInt() > MAX_ITEMS) {
+            throw problem(path, "items must be a whole number of loop iterations from 0 to " + MAX_ITEMS
+                    + " (got " + node + ")");
         }
         return OptionalInt.of(node.asInt());
     }

@@ -14,6 +14,11 @@ public enum PlaceholderSyntax {
     SINGLE_BRACE("single-brace", new SingleBraceParser(), false),
     /** {@code ${name}}, with {@code \$}{@code {} as a literal. */
     DOLLAR_BRACE("dollar-brace", new DollarBraceParser(), false),
+    /**
+     * {@code {{$name}}} for variables and {@code {{plugin.fn $arg}}} for function calls, with
+     * {@code {{ "{{" }}} as a literal.
+     */
+    DOLLAR_DOUBLE_BRACE("dollar-double-brace", new DollarDoubleBraceParser(), false),
     /** No placeholders: every character is literal text. */
     NONE("none", new LiteralParser(), false);
 

@@ -34,12 +34,15 @@ public record Template(String path, TemplateKind kind, TemplateMeta meta, List<M
         return all;
     }
 
-    /** Names of the variables used directly in this template (not in its includes), in order of first use. */
+    /**
+     * Names of the variables used directly in this template (not in its includes), in order of first
+     * use: its variables and the variables its function calls are passed.
+     */
     public Set<String> variableNames() {
         Set<String> names = new LinkedHashSet<>();
         for (Segment segment : segments()) {
-            if (segment instanceof Segment.Variable variable) {
-                names.add(variable.name());
+            if (segment instanceof Segment.PerCall part) {
+                names.addAll(part.variableNames());
             }
         }
         return names;

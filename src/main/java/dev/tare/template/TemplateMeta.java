@@ -38,10 +38,13 @@ public record TemplateMeta(Optional<String> target, OptionalInt budget, Optional
         return new TemplateMeta(target, budget, outputTokens, declared, tools, callsPerDay, inlineTools);
     }
 
-    /** The declaration for a variable, by its full dotted name or else by its first part. */
-    public Optional<VariableSpec> variable(Segment.Variable variable) {
-        VariableSpec spec = variables.get(variable.name());
-        if (spec == null) {
+    /**
+     * The declaration for a variable, by its full dotted name or else by its first part; for a
+     * function call, by the function's full name only, since its first part names a group of functions.
+     */
+    public Optional<VariableSpec> variable(Segment.PerCall part) {
+        VariableSpec spec = variables.get(part.name());
+        if (spec == null && part instanceof Segment.Variable variable) {
             spec = variables.get(variable.rootName());
         }
         return Optional.ofNullable(spec);

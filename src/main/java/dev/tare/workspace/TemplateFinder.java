@@ -15,6 +15,7 @@ import java.util.EnumSet;
 import java.util.List;
 import java.util.Set;
 import java.util.TreeSet;
+import java.util.function.BiPredicate;
 
 /**
  * Finds template files below a root: those matching an include glob and no exclude glob, not
@@ -48,7 +49,9 @@ public final class TemplateFinder {
 
     /**
      * Walks {@code starts} (files or folders inside the root; the root itself when empty). A file
-     * named directly is taken even if no include glob matches it, as a user who names a file means it.
+     * named directly is taken even if no include glob matches it, as a user who names a file means it;
+     * so is a named folder: where the globs select nothing in it, the files in it that look like
+     * prompts ({@link PromptLikeness}) are taken.
      */
     public FileSelection find(List<Path> starts) {
         Set<String> paths = new TreeSet<>();
@@ -74,14 +77,45 @@ public final class TemplateFinder {
                     throw new TareException(start + ": no such file or folder");
                 }
                 enterAncestors(ignores, absolute);
-                Files.walkFileTree(absolute, EnumSet.of(FileVisitOption.FOLLOW_LINKS), Integer.MAX_VALUE,
-                        new Walker(ignores, paths, skipped, absolute));
+                Set<String> found = new TreeSet<>();
+                walk(absolute, new Walker(ignores, found, skipped, absolute, this::selected));
+                if (found.isEmpty() && !starts.isEmpty()) {
+                    // The first walk reported the links it would not follow.
+                    walk(absolute, new Walker(ignores, found, new ArrayList<>(), absolute, this::promptLike));
+                }
+                paths.addAll(found);
             }
         } catch (IOException e) {
             throw new TareException(root + ": the folder walk failed (" + e.getMessage() + ")", e);
         }
         skipped.sort(null);
         return new FileSelection(new ArrayList<>(paths), skipped);
+    }
+
+    /**
+     * The files below the root that look like prompts ({@link PromptLikeness}), whatever the include
+     * globs say, outside excluded folders and what git ignores, sorted.
+     */
+    public List<String> promptLikeFiles() {
+        Set<String> paths = new TreeSet<>();
+        try {
+            walk(root, new Walker(GitIgnores.above(root), paths, new ArrayList<>(), root, this::promptLike));
+        } catch (IOException e) {
+            throw new TareException(root + ": the folder walk failed (" + e.getMessage() + ")", e);
+        }
+        return new ArrayList<>(paths);
+    }
+
+    private static void walk(Path start, Walker walker) throws IOException {
+        Files.walkFileTree(start, EnumSet.of(FileVisitOption.FOLLOW_LINKS), Integer.MAX_VALUE, walker);
+    }
+
+    private boolean selected(Path file, String relative) {
+        return Glob.anyMatches(include, relative) && !excluded(relative, false);
+    }
+
+    private boolean promptLike(Path file, String relative) {
+        return !excluded(relative, false) && PromptLikeness.test(file, relative);
     }
 
     /**
@@ -145,9 +179,12 @@ public final class TemplateFinder {
 
         /** Where this walk started, which the caller did not check: it may lie below a link. */
         private final Path start;
+        private final BiPredicate<Path, String> selects;
 
-        Walker(GitIgnores ignores, Set<String> paths, List<SkippedFile> skipped, Path start) {
+        Walker(GitIgnores ignores, Set<String> paths, List<SkippedFile> skipped, Path start,
+               BiPredicate<Path, String> selects) {
             this.start = start;
+            this.selects = selects;
             this.ignores = ignores;
             this.paths = paths;
             this.skipped = skipped;
@@ -186,7 +223,7 @@ public final class TemplateFinder {
             if (!attrs.isRegularFile() || OWN_FILES.contains(relative) || ignores.isIgnored(file, false)) {
                 return FileVisitResult.CONTINUE;
             }
-            if (!Glob.anyMatches(include, relative) || excluded(relative, false)) {
+            if (!selects.test(file, relative)) {
                 return FileVisitResult.CONTINUE;
             }
             if (Files.isSymbolicLink(file) && !isInsideRoot(file, relative, skipped)) {

@@ -7,6 +7,8 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import dev.tare.tokenize.Tokenizer;
+import dev.tare.tokenize.TokenizerRegistry;
 import dev.tare.workspace.FileSystemOps;
 import java.io.IOException;
 import java.io.PrintWriter;
@@ -249,6 +251,21 @@ class FixCommandTest {
         assertEquals(2, Cli.run("fix", dir.toString(), "--format", "sarif").exitCode());
         assertEquals(2, Cli.run("fix", dir.resolve("missing").toString()).exitCode());
         assertEquals("Fix  me.\n", Files.readString(dir.resolve("prompts/a.md")));
+    }
+
+    @Test
+    void aDollarDoubleBraceTemplateIsFixedAroundItsCallsAndCountedAsWritten() throws IOException {
+        Files.writeString(dir.resolve("tare.yaml"), CONFIG + "  placeholder: dollar-double-brace\n");
+        String before = "Check  the meter.   \nReading: {{meter.read  $account unit='m3'}} for {{$name}}.\n";
+        Path file = write("prompts/a.md", before);
+        Cli.Run run = Cli.run("fix", dir.toString(), "--format", "json");
+        assertEquals(0, run.exitCode(), run.out() + run.err());
+        String after = "Check the meter.\nReading: {{meter.read  $account unit='m3'}} for {{$name}}.\n";
+        assertEquals(after, Files.readString(file), "the white space inside a call is part of the call");
+        JsonNode tokens = new ObjectMapper().readTree(run.out()).get("files").get(0).get("tokens").get("o200k_base");
+        Tokenizer o200k = new TokenizerRegistry().get("o200k_base", Path.of("."));
+        assertEquals(o200k.count(before), tokens.get("before").asInt());
+        assertEquals(o200k.count(after), tokens.get("after").asInt());
     }
 
     @Test

@@ -75,10 +75,37 @@ class LauncherIT {
     }
 
     @Test
+    void aLinkToTheLauncherRunsFromAnyFolderAndTheHookItInstallsCallsTheLink(@TempDir Path dir) throws Exception {
+        Path bin = Files.createDirectories(dir.resolve("bin"));
+        // A chain of two links, the second relative, as a person's ~/bin might hold.
+        Files.createSymbolicLink(dir.resolve("tare-real"), Cli.projectDir().resolve("tare"));
+        Path link = Files.createSymbolicLink(bin.resolve("tare"), Path.of("../tare-real"));
+        Path elsewhere = Files.createDirectories(dir.resolve("work"));
+        Process version = new ProcessBuilder(link.toString(), "--version").directory(elsewhere.toFile()).start();
+        version.getOutputStream().close();
+        String out = new String(version.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+        String err = new String(version.getErrorStream().readAllBytes(), StandardCharsets.UTF_8);
+        assertTrue(version.waitFor(5, TimeUnit.MINUTES));
+        assertEquals(0, version.exitValue(), err);
+        assertTrue(out.startsWith("tare "), out);
+        Path repo = repositoryWithAStagedTemplate(Files.createDirectories(dir.resolve("repo")));
+        Process install = new ProcessBuilder(link.toString(), "hook", "install").directory(repo.toFile())
+                .redirectErrorStream(true).start();
+        install.getOutputStream().close();
+        String said = new String(install.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+        assertTrue(install.waitFor(5, TimeUnit.MINUTES));
+        assertEquals(0, install.exitValue(), said);
+        String hook = Files.readString(repo.resolve(".git/hooks/pre-commit"));
+        assertTrue(hook.endsWith("\nexec '" + link + "' hook run\n"), hook);
+        Result commit = commit(repo, Map.of());
+        assertEquals(0, commit.exitCode(), commit.err());
+    }
+
+    @Test
     void usageErrorsExitTwoThroughTheRealProcess() throws Exception {
         Result launched = launch("scan", "--no-such-flag");
         assertEquals(2, launched.exitCode());
-        assertTrue(launched.err().startsWith("tare: Unknown option: '--no-such-flag'"), launched.err());
+        assertTrue(launched.err().startsWith("tare: unknown option '--no-such-flag'"), launched.err());
         assertEquals("", launched.out());
     }
 

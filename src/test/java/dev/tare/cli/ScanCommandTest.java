@@ -173,6 +173,27 @@ class ScanCommandTest {
     }
 
     @Test
+    void aScanOrCheckThatFindsNoTemplateExitsTwoNamingTheGlobsAndWhatLooksLikeAPrompt(@TempDir Path repo)
+            throws IOException {
+        Files.createDirectories(repo.resolve("templates"));
+        Files.writeString(repo.resolve("templates/billing.md"), "You answer questions about water bills, {{ name }}.\n");
+        Files.writeString(repo.resolve("tare.yaml"), "templates: {include: [\"prompts/**/*.md\"]}\n");
+        for (String command : List.of("scan", "check")) {
+            Cli.Run run = Cli.run(command, repo.toString());
+            assertEquals(2, run.exitCode(), command);
+            assertEquals("", run.out(), command);
+            assertTrue(run.err().startsWith("tare: no template found in " + repo + ": no file matches the include"
+                    + " globs of tare.yaml (prompts/**/*.md), but templates/billing.md looks like a prompt; run"
+                    + " 'tare init'"), run.err());
+            assertEquals(1, run.err().lines().count(), run.err());
+        }
+        // Named on the command line, the folder is measured although no glob selects it.
+        Cli.Run named = Cli.run("scan", repo.resolve("templates").toString(), "--format", "json");
+        assertEquals(0, named.exitCode(), named.err());
+        assertTrue(named.out().contains("\"path\" : \"templates/billing.md\""), named.out());
+    }
+
+    @Test
     void usageAndConfigErrorsExitTwoWithOneLine() {
         Cli.Run unknownTarget = Cli.run("scan", DEMO.toString(), "--target", "nowhere");
         assertEquals(2, unknownTarget.exitCode());

@@ -1,6 +1,7 @@
 package dev.tare.cli;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.PrintWriter;
 import java.io.StringWriter;
@@ -75,5 +76,18 @@ class SubcommandsTest {
             }
         }
         assertEquals(List.of(), scanningForMethods);
+    }
+
+    /** A mistyped command or option gets the name it most likely meant. */
+    @Test
+    void mistypedCommandsAndOptionsGetDidYouMean() {
+        Cli.Run command = Cli.run("scna");
+        assertEquals(2, command.exitCode());
+        assertEquals("tare: unknown command 'scna'; did you mean 'scan'?\nRun 'tare --help' for usage.\n", command.err());
+        Cli.Run option = Cli.run("scan", "--fromat", "json");
+        assertEquals(2, option.exitCode());
+        assertTrue(option.err().startsWith("tare: unknown option '--fromat'; did you mean '--format'?\n"), option.err());
+        Cli.Run far = Cli.run("scan", "--zzz");
+        assertTrue(far.err().startsWith("tare: unknown option '--zzz'\n"), far.err());
     }
 }

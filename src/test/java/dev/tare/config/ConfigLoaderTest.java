@@ -100,13 +100,15 @@ class ConfigLoaderTest {
         assertTrue(problem("templates: {placeholder: curly}\n").contains("templates.placeholder: unknown placeholder syntax 'curly'"));
         assertTrue(problem("templates: {include: [\"a[b\"]}\n").contains("templates.include[0]"));
         assertTrue(problem("targets:\n  - name: a\n").contains("target 'a' names no tokenizer"));
-        assertTrue(problem("targets:\n  - {name: a, tokenizer: x}\n  - {name: a, tokenizer: y}\n")
+        assertTrue(problem("targets:\n  - {name: a, tokenizer: o200k_base}\n  - {name: a, tokenizer: cl100k_base}\n")
                 .contains("line 3: targets[1].name: target 'a' is configured twice"));
-        assertTrue(problem("targets:\n  - {name: a, tokenizer: x, price: {input: -1, output: 1}}\n")
+        assertTrue(problem("targets:\n  - {name: a, tokenizer: o200k_base, price: {input: -1, output: 1}}\n")
                 .contains("targets[0].price.input: must be a number of at least 0"));
         assertTrue(problem("budgets: {default: many}\n").contains("budgets.default: must be a whole number"));
         assertTrue(problem("templates: {partials: ../elsewhere}\n").contains("must be a folder inside the repository"));
         assertTrue(problem("hook: {fix: maybe}\n").contains("hook.fix: must be true or false"));
+        assertTrue(problem("targets:\n  - name: a\n    tokenizer: o200k\n").contains("line 3: targets[0].tokenizer:"
+                + " unknown tokenizer 'o200k'; did you mean 'o200k_base'?"));
         assertTrue(problem("targets:\n  - name: a\n    tokenizer: o200k_base\n"
                 + "    price: {input: 2.5, cached_input: 0.25, cache_write: 0.1, output: 10}\n")
                 .contains("line 4: targets[0].price.cache_write: must be at least the cached_input price (0.25)"));
@@ -153,8 +155,10 @@ class ConfigLoaderTest {
     void brokenYamlIsOneLineNamingTheFile() throws IOException {
         String message = problem("templates:\n  include: [\"a\"\n");
         assertTrue(message.startsWith(dir.resolve("tare.yaml").toString() + ", line "), message);
-        assertTrue(message.endsWith("fix the YAML syntax"), message);
-        assertTrue(problem("a: 1\na: 2\n").contains("Duplicate"), "duplicate keys refused");
+        assertTrue(message.endsWith("line 3, column 1: a list in [ ] is not closed (opened on line 2), or an item in it"
+                + " needs quotes; close it with ]"), message);
+        assertTrue(problem("a: 1\na: 2\n").endsWith("line 2, column 2: the key 'a' appears twice in one mapping; keep one"),
+                "duplicate keys refused");
     }
 
     @Test

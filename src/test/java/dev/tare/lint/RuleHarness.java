@@ -21,7 +21,12 @@ public final class RuleHarness {
 
     /** The template parsed from {@code text} as the file {@code path} (a chat file for .yaml/.json names). */
     public static Template template(String path, String text) {
-        return new TemplateParser(PlaceholderSyntax.DOUBLE_BRACE)
+        return template(PlaceholderSyntax.DOUBLE_BRACE, path, text);
+    }
+
+    /** The template parsed from {@code text} as the file {@code path}, with placeholders written in {@code syntax}. */
+    public static Template template(PlaceholderSyntax syntax, String path, String text) {
+        return new TemplateParser(syntax)
                 .parse(new SourceText(path, Path.of(path), text, false, text.length()), path.contains("partials/"));
     }
 
@@ -32,7 +37,18 @@ public final class RuleHarness {
 
     /** The findings of {@code rule} in {@code text}, read as {@code path}, with example settings. */
     public static List<Finding> findings(Rule rule, String path, String text, Map<String, Integer> settings) {
-        Template template = template(path, text);
+        return findings(rule, PlaceholderSyntax.DOUBLE_BRACE, path, text, settings);
+    }
+
+    /** The findings of {@code rule} in {@code text} with placeholders written in {@code syntax}, read as {@code example.md}. */
+    public static List<Finding> findings(Rule rule, PlaceholderSyntax syntax, String text) {
+        return findings(rule, syntax, "example.md", text, Map.of());
+    }
+
+    /** The findings of {@code rule} in {@code text} with placeholders written in {@code syntax}, read as {@code path}, with example settings. */
+    public static List<Finding> findings(Rule rule, PlaceholderSyntax syntax, String path, String text,
+                                         Map<String, Integer> settings) {
+        Template template = template(syntax, path, text);
         LintContext context = LintContext.forExample(Path.of("."), new Example(text, text, settings), java.util.Set.of());
         List<Finding> findings = new ArrayList<>(rule.check(template, context));
         findings.sort(Finding.ORDER);

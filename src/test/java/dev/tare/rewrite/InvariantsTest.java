@@ -26,12 +26,20 @@ class InvariantsTest {
     private static final Trace.Author JSON = new Trace.Author("a-json-rule", EditKind.JSON_LAYOUT);
 
     private static Template parse(String path, String text) {
-        return new TemplateParser(PlaceholderSyntax.DOUBLE_BRACE)
-                .parse(new SourceText(path, Path.of(path), text, false, text.length()), false);
+        return parse(PlaceholderSyntax.DOUBLE_BRACE, path, text);
+    }
+
+    private static Template parse(PlaceholderSyntax syntax, String path, String text) {
+        return new TemplateParser(syntax).parse(new SourceText(path, Path.of(path), text, false, text.length()), false);
     }
 
     /** The problems of applying {@code edits} (all by {@code author}) to {@code text} in one round. */
     private static List<String> problems(String path, String text, Trace.Author author, Edit... edits) {
+        return problems(PlaceholderSyntax.DOUBLE_BRACE, path, text, author, edits);
+    }
+
+    private static List<String> problems(PlaceholderSyntax syntax, String path, String text, Trace.Author author,
+                                         Edit... edits) {
         Trace trace = new Trace(text);
         List<Trace.AuthoredEdit> authored = new ArrayList<>();
         for (Edit edit : edits) {
@@ -39,7 +47,7 @@ class InvariantsTest {
         }
         authored.sort((a, b) -> a.edit().compareTo(b.edit()));
         String after = trace.apply(authored);
-        return Invariants.violations(parse(path, text), parse(path, after), trace);
+        return Invariants.violations(parse(syntax, path, text), parse(syntax, path, after), trace);
     }
 
     private static List<String> problems(String text, Trace.Author author, Edit... edits) {
@@ -70,10 +78,20 @@ class InvariantsTest {
     }
 
     @Test
+    void aLostOrChangedFunctionCallIsCaught() {
+        String text = "Weather: {{weather.forecast  $city}} for {{$city}}.\n";
+        PlaceholderSyntax syntax = PlaceholderSyntax.DOLLAR_DOUBLE_BRACE;
+        assertProblem(problems(syntax, "a.md", text, TEXT, replace(text, " {{weather.forecast  $city}}", "")),
+                "call 'weather.forecast'");
+        assertProblem(problems(syntax, "a.md", text, WHITESPACE, replace(text, "forecast  $city", "forecast $city")),
+                "call 'weather.forecast'");
+    }
+
+    @Test
     void aChangedFilterOrTagIsCaughtThoughTheNameStays() {
         String text = "Pay {{ amount | currency }} {% if late %}now{% endif %}.\n";
         assertProblem(problems(text, TEXT, replace(text, " | currency", "")), "variable 'amount'");
-        assertProblem(problems(text, TEXT, replace(text, "{% if late %}", "")), "tag {% if late %}");
+        assertProblem(problems(text, TEXT, replace(text, "{% if late %}", "{% if early %}")), "tag {% if late %}");
     }
 
     @Test

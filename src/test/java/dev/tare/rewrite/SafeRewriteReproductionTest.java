@@ -250,6 +250,16 @@ class SafeRewriteReproductionTest {
     }
 
     @Test
+    void aProseFixBesideAnAlignedLineIsWrittenEvenWhenItsGapsThenLineUp() throws IOException {
+        // Found by SafeRewritePropertiesTest: taking one space out of the prose line moves its second
+        // gap to the column where the aligned line's first gap ends, so the prose line would now be
+        // read as aligned too. The aligned line is byte for byte the same, so the fix is safe.
+        String text = "Answer  `a  b`\npressures  42 psi   ok\n";
+        Path file = prompt("prompts/zones.md", text);
+        assertEquals(visible("Answer `a  b`\npressures  42 psi   ok\n"), fixed(file));
+    }
+
+    @Test
     void indentationInsideAnExampleIsKept() throws IOException {
         String text = """
                 Answer in this shape:

@@ -121,4 +121,33 @@ class YamlDocumentTest {
         }
         return node.isContainerNode() ? deepest + 1 : 0;
     }
+
+    private static String problem(String yaml) {
+        return assertThrows(TareException.class, () -> YamlDocument.parseYaml(yaml)).getMessage();
+    }
+
+    /** Syntax errors name the line and column where the problem is, in plain words, with what to do. */
+    @Test
+    void syntaxErrorsArePlainWordsAtTheRightPlace() {
+        assertEquals("line 2, column 1: a tab character; YAML indents with spaces, so replace the tab with spaces",
+                problem("templates:\n\tinclude: [a]\n"));
+        assertEquals("line 3, column 1: a list in [ ] is not closed (opened on line 2), or an item in it needs"
+                + " quotes; close it with ]", problem("templates:\n  include: [a, b\n"));
+        assertEquals("line 2, column 1: a mapping in { } is not closed (opened on line 1), or a value in it needs"
+                + " quotes; close it with }", problem("a: {b: 1\n"));
+        assertEquals("line 3, column 1: a quoted text is never closed (opened on line 1); end it with the same quote",
+                problem("a: \"x\nb: 2\n"));
+        assertEquals("line 1, column 5: a ':' where no key can start; put text that holds ': ' in quotes",
+                problem("a: b: c\n"));
+        assertEquals("line 2, column 2: the key 'a' appears twice in one mapping; keep one", problem("a: 1\na: 2\n"));
+        assertTrue(problem("a: @x\n").startsWith("line 1, column 4: the character '@' cannot start a value"),
+                problem("a: @x\n"));
+    }
+
+    @Test
+    void jsonErrorsNameWhereTheUnclosedListBegan() {
+        String message = assertThrows(TareException.class, () -> YamlDocument.parseJson("{\"messages\": [}")).getMessage();
+        assertEquals("line 1, column 15: Unexpected close marker '}': expected ']' (opened on line 1); fix the syntax there",
+                message);
+    }
 }

@@ -152,6 +152,17 @@ class StructureTest {
     }
 
     @Test
+    void aMustacheElseStartsAnotherBranchAndClosesNothing() {
+        String text = "{{#if paperless}}\nEmail it.\n{{^}}\nPost it.\n{{/if}}\nDone.\n";
+        Structure structure = of(text);
+        int email = structure.branchAt(text.indexOf("Email"));
+        assertNotEquals(0, email);
+        assertNotEquals(email, structure.branchAt(text.indexOf("Post")));
+        assertNotEquals(0, structure.branchAt(text.indexOf("Post")));
+        assertEquals(0, structure.branchAt(text.indexOf("Done")));
+    }
+
+    @Test
     void anAssignmentIsNoBlock() {
         String text = "{% set tone = 'calm' %}\nBe calm.\n";
         assertEquals(0, of(text).branchAt(text.indexOf("Be calm")));
@@ -161,7 +172,7 @@ class StructureTest {
     void rawSectionsAreKeptAsWritten() {
         String text = "Show {% raw %}{{ literally }}  this{% endraw %} please.\n";
         assertEquals(Role.RAW, roleOf(text, "{{ literally"));
-        assertTrue(of(text).verbatimTexts().stream().anyMatch(t -> t.contains("{{ literally }}  this")));
+        assertTrue(of(text).verbatimBlocks().stream().anyMatch(t -> t.contains("{{ literally }}  this")));
     }
 
     @Test
@@ -196,9 +207,17 @@ class StructureTest {
                 "Input: a\n", "1   2\n", "<ex>\n", "</ex>\n", "{% if a %}", "{% endif %}"};
         for (int round = 0; round < 200; round++) {
             StringBuilder text = new StringBuilder();
+            // Blocks must balance to parse: a stray end is left out, and open blocks are closed at the end.
+            int open = 0;
             for (int i = 0; i < 30; i++) {
-                text.append(pieces[random.nextInt(pieces.length)]);
+                String piece = pieces[random.nextInt(pieces.length)];
+                if (piece.equals("{% endif %}") && open == 0) {
+                    continue;
+                }
+                open += piece.equals("{% if a %}") ? 1 : piece.equals("{% endif %}") ? -1 : 0;
+                text.append(piece);
             }
+            text.append("{% endif %}".repeat(open));
             Structure structure = of(text.toString());
             List<Region> regions = structure.regions();
             int at = 0;

@@ -1,6 +1,7 @@
 package dev.tare.template;
 
 import static dev.tare.template.PlaceholderSyntax.DOLLAR_BRACE;
+import static dev.tare.template.PlaceholderSyntax.DOLLAR_DOUBLE_BRACE;
 import static dev.tare.template.PlaceholderSyntax.DOUBLE_BRACE;
 import static dev.tare.template.PlaceholderSyntax.NONE;
 import static dev.tare.template.PlaceholderSyntax.SINGLE_BRACE;
@@ -80,6 +81,110 @@ class PlaceholderSyntaxTest {
         assertThrows(TemplateSyntaxException.class, () -> Templates.text(DOLLAR_BRACE, "${open"));
     }
 
+    private static List<Segment.Call> calls(String text) {
+        return Templates.text(DOLLAR_DOUBLE_BRACE, text).segments().stream()
+                .filter(segment -> segment instanceof Segment.Call).map(segment -> (Segment.Call) segment).toList();
+    }
+
+    private static TemplateSyntaxException dollarDoubleBraceError(String text) {
+        return assertThrows(TemplateSyntaxException.class, () -> Templates.text(DOLLAR_DOUBLE_BRACE, text));
+    }
+
+    @Test
+    void dollarDoubleBraceVariablesRenderEmptyAndLoseTheirDollar() {
+        String text = "Hi {{$customer_name}}, from {{ $city }} and {{\n  $district\n}}.";
+        assertEquals("Hi , from  and .", Templates.staticText(DOLLAR_DOUBLE_BRACE, text));
+        assertEquals(List.of("customer_name", "city", "district"), variables(DOLLAR_DOUBLE_BRACE, text));
+    }
+
+    @Test
+    void dollarDoubleBraceCallsAreNotVariablesButReadTheVariablesTheyArePassed() {
+        String text = "Now: {{time.now}}. Forecast: {{ weather.forecast $city }}. Notes: {{summarize input=$notes"
+                + " style='brief'}}. {{ quote \"tap water\" }} {{ meter.read $account unit = $unit }}";
+        assertEquals("Now: . Forecast: . Notes: .  ", Templates.staticText(DOLLAR_DOUBLE_BRACE, text));
+        assertEquals(List.of("time.now", "weather.forecast", "summarize", "quote", "meter.read"),
+                calls(text).stream().map(Segment.Call::name).toList());
+        assertEquals(List.of(List.of(), List.of("city"), List.of("notes"), List.of(), List.of("account", "unit")),
+                calls(text).stream().map(Segment.Call::arguments).toList());
+        assertEquals(List.of("city", "notes", "account", "unit"), variables(DOLLAR_DOUBLE_BRACE, text));
+    }
+
+    @Test
+    void dollarDoubleBraceQuotedValuesMayHoldClosingBracesAndEscapedQuotes() {
+        String text = "A{{ format template=\"}} {{ and \\\" \" $x }}B";
+        List<Segment.Call> calls = calls(text);
+        assertEquals(1, calls.size());
+        assertEquals("{{ format template=\"}} {{ and \\\" \" $x }}", calls.get(0).source());
+        assertEquals(List.of("x"), calls.get(0).arguments());
+        assertEquals("AB", Templates.staticText(DOLLAR_DOUBLE_BRACE, text));
+    }
+
+    @Test
+    void dollarDoubleBraceValueBlocksAreLiteralText() {
+        assertEquals("Write {{$name}} as is.",
+                Templates.staticText(DOLLAR_DOUBLE_BRACE, "Write {{ \"{{\" }}$name{{ '}}' }} as is."));
+        assertEquals("say \"hi\" and it's", Templates.staticText(DOLLAR_DOUBLE_BRACE, "{{ \"say \\\"hi\\\"\" }} and {{'it\\'s'}}"));
+        assertEquals(List.of(), variables(DOLLAR_DOUBLE_BRACE, "{{ '$not_a_variable' }}"));
+    }
+
+    @Test
+    void dollarDoubleBraceOuterBracesEmptyBlocksAndLoneClosersAreText() {
+        assertEquals("{} and {{ }} and }} and {", Templates.staticText(DOLLAR_DOUBLE_BRACE, "{{{$x}}} and {{ }} and }} and {"));
+        assertEquals(List.of("x"), variables(DOLLAR_DOUBLE_BRACE, "{{{$x}}} and {{ }}"));
+        String json = "{\"a\": {\"b\": 1}}";
+        assertEquals(json, Templates.staticText(DOLLAR_DOUBLE_BRACE, json));
+    }
+
+    @Test
+    void dollarDoubleBraceUnclosedBlocksNameLineAndColumn() {
+        TemplateSyntaxException unclosed = dollarDoubleBraceError("line one\nHello {{$name\nmore text");
+        assertEquals(2, unclosed.line());
+        assertEquals(7, unclosed.column());
+        assertTrue(unclosed.getMessage().contains("'{{' is never closed"), unclosed.getMessage());
+        assertTrue(unclosed.getMessage().contains("{{ \"{{\" }}"), unclosed.getMessage());
+        TemplateSyntaxException reopened = dollarDoubleBraceError("a {{$a and {{$b}}");
+        assertEquals(1, reopened.line());
+        assertEquals(3, reopened.column());
+        TemplateSyntaxException quote = dollarDoubleBraceError("x\n  {{ fn 'open }}");
+        assertEquals(2, quote.line());
+        assertEquals(9, quote.column());
+        assertTrue(quote.getMessage().contains("quoted value is never closed"), quote.getMessage());
+    }
+
+    @Test
+    void dollarDoubleBraceMalformedBlocksNameLineAndColumn() {
+        TemplateSyntaxException noName = dollarDoubleBraceError("x {{$}}");
+        assertEquals(5, noName.column());
+        assertTrue(noName.getMessage().contains("'$' is not a variable"), noName.getMessage());
+        TemplateSyntaxException twoVariables = dollarDoubleBraceError("{{$a $b}}");
+        assertEquals(6, twoVariables.column());
+        TemplateSyntaxException bareWord = dollarDoubleBraceError("ok\n{{ fn city }}");
+        assertEquals(2, bareWord.line());
+        assertEquals(7, bareWord.column());
+        assertTrue(bareWord.getMessage().contains("'city' in '{{ fn city }}' is not an argument"), bareWord.getMessage());
+        TemplateSyntaxException namedFirst = dollarDoubleBraceError("{{ style='brief' }}");
+        assertEquals(4, namedFirst.column());
+        assertThrows(TemplateSyntaxException.class, () -> Templates.text(DOLLAR_DOUBLE_BRACE, "{{ fn key= }}"));
+        assertThrows(TemplateSyntaxException.class, () -> Templates.text(DOLLAR_DOUBLE_BRACE, "{{ .fn }}"));
+        assertThrows(TemplateSyntaxException.class, () -> Templates.text(DOLLAR_DOUBLE_BRACE, "{{ a.b.c }}"));
+        assertThrows(TemplateSyntaxException.class, () -> Templates.text(DOLLAR_DOUBLE_BRACE, "{{ fn $a-b }}"));
+    }
+
+    @Test
+    void dollarDoubleBraceSegmentsCoverTheBody() {
+        Template template = Templates.text(DOLLAR_DOUBLE_BRACE,
+                "---\nbudget: 10\n---\nA {{$x}} {{ \"{{\" }} {{ fn $y }} {{{$z}}} {{ }}");
+        StringBuilder rebuilt = new StringBuilder();
+        for (Segment segment : template.segments()) {
+            rebuilt.append(template.source(), segment.span().start(), segment.span().end());
+        }
+        assertEquals(template.source().substring(template.bodyStart()), rebuilt.toString());
+        Segment.Call call = (Segment.Call) template.segments().stream().filter(s -> s instanceof Segment.Call)
+                .findFirst().orElseThrow();
+        assertEquals(4, call.span().line());
+        assertEquals(21, call.span().column());
+    }
+
     @Test
     void noneKeepsEveryCharacter() {
         String text = "{{ a }} {b} ${c} {% d %}";
@@ -105,6 +210,7 @@ class PlaceholderSyntaxTest {
     @Test
     void unknownSyntaxNamesTheChoices() {
         TareException e = assertThrows(TareException.class, () -> PlaceholderSyntax.fromLabel("curly"));
-        assertTrue(e.getMessage().contains("double-brace, single-brace, dollar-brace, none"), e.getMessage());
+        assertTrue(e.getMessage().contains("double-brace, single-brace, dollar-brace, dollar-double-brace, none"),
+                e.getMessage());
     }
 }

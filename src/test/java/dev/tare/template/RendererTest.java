@@ -1,5 +1,6 @@
 package dev.tare.template;
 
+import static dev.tare.template.PlaceholderSyntax.DOLLAR_DOUBLE_BRACE;
 import static dev.tare.template.PlaceholderSyntax.DOUBLE_BRACE;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
@@ -33,6 +34,20 @@ class RendererTest {
         Map<String, String> partials = Map.of("partials/p.md", "Hi {{ name }}");
         Template template = Templates.parse(DOUBLE_BRACE, "a.md", "---\nvariables: {name: {sample: Bo}}\n---\n{{> p }}!");
         assertEquals(List.of("Hi Bo!"), Templates.renderer(DOUBLE_BRACE, partials).renderWithSamples(template).messages());
+    }
+
+    @Test
+    void aCallsOutputTakesTheSampleDeclaredUnderTheFunctionsFullName() {
+        Template template = Templates.parse(DOLLAR_DOUBLE_BRACE, "a.md", "---\nvariables:\n  weather.forecast: {sample: sunny}"
+                + "\n  city: {sample: Springfield}\n  meter: {sample: never}\n---\n{{$city}}: {{weather.forecast $city}}."
+                + " {{meter.read}}");
+        Rendering rendering = Templates.renderer(DOLLAR_DOUBLE_BRACE, Map.of()).renderWithSamples(template);
+        assertEquals(List.of("Springfield: sunny. "), rendering.messages(),
+                "a call's argument is not pasted in, and a declaration of its first part does not size it");
+        assertEquals(List.of("city", "weather.forecast", "meter.read"),
+                rendering.variables().stream().map(occurrence -> occurrence.part().name()).toList());
+        assertTrue(rendering.variables().get(1).part() instanceof Segment.Call);
+        assertTrue(rendering.variables().get(2).spec().isEmpty());
     }
 
     @Test

@@ -28,6 +28,23 @@ class TemplateFinderTest {
     }
 
     @Test
+    void aNamedFolderTheGlobsMissIsSearchedForFilesThatLookLikePrompts() throws IOException {
+        write("templates/billing.md", "You answer questions about water bills, {{ name }}.");
+        write("templates/sub/outage.txt", "Explain the outage.");
+        write("templates/logo.png", "not text");
+        write("prompts/a.md", "a");
+        TemplateFinder finder = new TemplateFinder(root, Glob.all(List.of("prompts/**/*.md")), List.of());
+        assertEquals(List.of("templates/billing.md", "templates/sub/outage.txt"),
+                finder.find(List.of(root.resolve("templates"))).paths());
+        // A named folder the globs select from is taken as they say.
+        assertEquals(List.of("prompts/a.md"), finder.find(List.of(root.resolve("prompts"))).paths());
+        // The whole root keeps to the globs, and says what else looks like a prompt.
+        assertEquals(List.of("prompts/a.md"), finder.find(List.of()).paths());
+        assertEquals(List.of("prompts/a.md", "templates/billing.md", "templates/sub/outage.txt"),
+                finder.promptLikeFiles());
+    }
+
+    @Test
     void selectsByIncludeAndExcludeGlobsInPathOrder() throws IOException {
         write("prompts/b.md", "b");
         write("prompts/a.md", "a");

@@ -27,8 +27,8 @@ import java.util.Optional;
 import java.util.OptionalDouble;
 
 /**
- * Per-call text (a variable) ahead of a long static part. Providers cache a prompt's leading tokens
- * only when they are the same on every call and at least the target's
+ * Per-call text (a variable, or a function call's output) ahead of a long static part. Providers
+ * cache a prompt's leading tokens only when they are the same on every call and at least the target's
  * {@code prefix_cache.min_tokens} long; a variable before that point means no prefix is ever cached.
  * The rule fires when the static text before the first variable is shorter than the minimum but the
  * template's static text as a whole reaches it, and says how many tokens every call would start with
@@ -68,7 +68,7 @@ final class CacheOrder implements Rule {
         List<String> leading;
         List<String> reordered;
         try {
-            leading = StaticPrefix.of(template, context.renderer(), samples.get());
+            leading = StaticPrefix.of(samples.get());
             reordered = StaticPrefix.reordered(template, context.renderer());
         } catch (TareException e) {
             return List.of();
@@ -90,27 +90,35 @@ final class CacheOrder implements Rule {
             UnsizedVariable.Location place = UnsizedVariable.locate(text, template, other);
             related.add(text.related(place.message(), place.start(), "more per-call text: " + source(other)));
         }
-        int variables = samples.get().variables().size();
         String message = String.format(Locale.ROOT,
                 "'%s' %s after only %,d leading static tokens, below the %,d-token cache minimum, and %,d static"
-                        + " tokens follow; with the per-call parts (%d %s) moved after the static parts, every call"
+                        + " tokens follow; with the per-call parts (%s) moved after the static parts, every call"
                         + " would start with the same %,d tokens on %s, enough to be cached%s ('tare scan' shows the"
                         + " cache per template; planning estimate)",
                 source(first), first instanceof Segment.Include ? "brings in per-call text" : "comes", prefix, minimum,
-                total - prefix, variables, variables == 1 ? "variable" : "variables", total, tokenizer.name(),
+                total - prefix, perCallCount(samples.get()), total, tokenizer.name(),
                 savings(template, context, leading, reordered));
         return List.of(text.finding(DESCRIPTOR, at.message(), at.start(), at.end(), message, Optional.empty(), related));
     }
 
+    /** How many variables and function calls the rendering holds, in words: "2 variables", "1 variable and 1 call". */
+    private static String perCallCount(Rendering samples) {
+        long calls = samples.variables().stream().filter(occurrence -> occurrence.part() instanceof Segment.Call).count();
+        long variables = samples.variables().size() - calls;
+        String callWords = calls + (calls == 1 ? " call" : " calls");
+        String variableWords = variables + (variables == 1 ? " variable" : " variables");
+        return calls == 0 ? variableWords : variables == 0 ? callWords : variableWords + " and " + callWords;
+    }
+
     /**
-     * The template's own segments that make calls differ, in order: its variables, and its includes
-     * whose pasted text holds a variable.
+     * The template's own segments that make calls differ, in order: its variables and function calls,
+     * and its includes whose pasted text holds one.
      */
     private static List<Segment> perCallParts(Template template, LintContext context) {
         List<Segment> parts = new ArrayList<>();
         for (Message message : template.messages()) {
             for (Segment segment : message.segments()) {
-                if (segment instanceof Segment.Variable || segment instanceof Segment.Include include
+                if (segment instanceof Segment.PerCall || segment instanceof Segment.Include include
                         && bringsVariables(template, message, include, context)) {
                     parts.add(segment);
                 }
@@ -131,7 +139,7 @@ final class CacheOrder implements Rule {
     }
 
     private static String source(Segment segment) {
-        return segment instanceof Segment.Variable variable ? variable.source()
+        return segment instanceof Segment.PerCall part ? part.source()
                 : segment instanceof Segment.Include include ? include.source() : "";
     }
 

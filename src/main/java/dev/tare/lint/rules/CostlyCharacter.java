@@ -7,6 +7,7 @@ import dev.tare.lint.Finding;
 import dev.tare.lint.LintContext;
 import dev.tare.lint.MessageView;
 import dev.tare.lint.Rule;
+import dev.tare.lint.Rewrite;
 import dev.tare.lint.RuleDescriptor;
 import dev.tare.lint.Severity;
 import dev.tare.lint.TemplateView;
@@ -87,9 +88,17 @@ final class CostlyCharacter implements Rule {
                         if (tokenizers.isEmpty()) {
                             tokenizers.addAll(context.targetTokenizers(template));
                         }
-                        measure(content, edit.get(), tokenizers).ifPresent(cost -> findings.add(text.finding(DESCRIPTOR,
-                                message, start, end, describe(content.substring(start, end), edit.get(), cost),
-                                text.rewrite(message, edit.get(), context.tokenizer(template)), List.of())));
+                        // The saving is counted on the tokenizer the message names, where the character
+                        // costs most, so that the finding, check and fix agree on that tokenizer.
+                        Optional<Cost> cost = measure(content, edit.get(), tokenizers);
+                        if (cost.isPresent()) {
+                            Optional<Rewrite> rewrite = text.rewrite(message, edit.get(), cost.get().tokenizer());
+                            if (rewrite.isPresent() && rewrite.get().savingTokens() > 0) {
+                                findings.add(text.finding(DESCRIPTOR, message, start, end,
+                                        describe(content.substring(start, end), edit.get(), rewrite.get().savingTokens(),
+                                                cost.get().tokenizer().name()), rewrite, List.of()));
+                            }
+                        }
                     }
                     i = end;
                 }
@@ -122,21 +131,21 @@ final class CostlyCharacter implements Rule {
         for (Tokenizer tokenizer : tokenizers) {
             int extra = tokenizer.count(before) - tokenizer.count(after);
             if (extra > 0 && (best == null || extra > best.extra())) {
-                best = new Cost(extra, tokenizer.name());
+                best = new Cost(extra, tokenizer);
             }
         }
         return Optional.ofNullable(best);
     }
 
-    private record Cost(int extra, String tokenizer) {
+    private record Cost(int extra, Tokenizer tokenizer) {
     }
 
-    private static String describe(String character, Edit edit, Cost cost) {
+    private static String describe(String character, Edit edit, int extra, String tokenizer) {
         String codes = character.codePoints().mapToObj(c -> String.format(Locale.ROOT, "U+%04X", c))
                 .reduce((a, b) -> a + " " + b).orElse("");
         String plain = edit.replacement().strip();
-        return "'" + character + "' (" + codes + ") costs " + cost.extra() + (cost.extra() == 1 ? " token" : " tokens")
-                + " more here than " + (plain.isEmpty() ? "leaving it out" : "'" + plain + "'") + " on " + cost.tokenizer();
+        return "'" + character + "' (" + codes + ") costs " + extra + (extra == 1 ? " token" : " tokens")
+                + " more here than " + (plain.isEmpty() ? "leaving it out" : "'" + plain + "'") + " on " + tokenizer;
     }
 
     /** The edit to the plain form of the character at {@code [start, end)}, when it has one. */

@@ -1,5 +1,6 @@
 package dev.tare.lint.rules;
 
+import dev.tare.template.Control;
 import dev.tare.template.PlaceholderSyntax;
 import dev.tare.template.Segment;
 import dev.tare.template.Template;
@@ -13,14 +14,14 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 
 /**
- * The names a double-brace template reads, for the variable rules: every variable placeholder, and
- * the names tags read ({@code if}, {@code elif}, {@code unless} conditions, the list a {@code for}
- * walks, Mustache sections). Names bound inside the template (loop variables, {@code set} targets,
- * macro arguments) and names inside Mustache sections are local and reported apart.
+ * The names a template reads, for the variable rules: every variable placeholder, every function
+ * call (its output by the function's name, and the variables it is passed), and in double-brace
+ * templates the names tags read ({@code if}, {@code elif}, {@code unless} conditions, the list a
+ * {@code for} walks, Mustache sections). Names bound inside the template (loop variables,
+ * {@code set} targets, macro arguments) and names inside Mustache sections are local and reported apart.
  */
 final class TemplateNames {
     private static final Pattern STATEMENT = Pattern.compile("^\\{%[-+~]?\\s*(\\w+)(.*?)[-+~]?%}$", Pattern.DOTALL);
-    private static final Pattern SECTION = Pattern.compile("^\\{\\{[-~]?\\s*([#^/])\\s*([\\w.]+)");
     private static final Pattern NAME = Pattern.compile("[\\p{L}_][\\p{L}\\p{N}_]*(?:\\.[\\p{L}_][\\p{L}\\p{N}_]*)*");
     private static final Pattern FOR = Pattern.compile("^\\s*([\\w\\s,()]+?)\\s+in\\s+(.*)$", Pattern.DOTALL);
     private static final Pattern QUOTED = Pattern.compile("\"[^\"]*\"|'[^']*'");
@@ -37,12 +38,19 @@ final class TemplateNames {
      * @param name     the dotted name as written
      * @param segment  the segment it appears in
      * @param local    whether it is bound inside the template (a loop variable, a set target) or inside a section
-     * @param rendered whether it is a variable whose value is pasted into the text (not only a condition)
+     * @param rendered whether it is a variable whose value is pasted into the text, or a call's output
+     *                 (not only a condition or a call's argument)
      */
     record Use(String name, Segment segment, boolean local, boolean rendered) {
+        /** The name a declaration may go under instead: a variable's first part; a call's output has none but its own. */
         String root() {
             int dot = name.indexOf('.');
-            return dot < 0 ? name : name.substring(0, dot);
+            return dot < 0 || isCallOutput() ? name : name.substring(0, dot);
+        }
+
+        /** Whether this is what a function call returns, named after the function. */
+        boolean isCallOutput() {
+            return rendered && segment instanceof Segment.Call;
         }
     }
 
@@ -53,18 +61,30 @@ final class TemplateNames {
         Deque<Set<String>> scopes = new ArrayDeque<>();
         Set<String> bound = new HashSet<>();
         int sections = 0;
+        Deque<Boolean> blocks = new ArrayDeque<>();
         for (Segment segment : template.segments()) {
             if (segment instanceof Segment.Variable variable) {
                 uses.add(new Use(variable.name(), segment, sections > 0 || isLocal(variable.rootName(), scopes, bound), true));
+            } else if (segment instanceof Segment.Call call) {
+                uses.add(new Use(call.name(), segment, false, true));
+                for (String argument : call.arguments()) {
+                    uses.add(new Use(argument, segment, false, false));
+                }
             } else if (tags && segment instanceof Segment.Tag tag) {
                 String source = tag.source();
-                Matcher section = SECTION.matcher(source);
-                if (section.find()) {
-                    if (section.group(1).equals("/")) {
-                        sections = Math.max(0, sections - 1);
-                    } else {
-                        uses.add(new Use(section.group(2), segment, sections > 0 || isLocal(section.group(2), scopes, bound), false));
-                        sections++;
+                if (source.startsWith("{{")) {
+                    // A Handlebars or Mustache block reads its subject (each's list, if's condition) in the
+                    // context around it; inside a block that walks or opens a value, names are the item's.
+                    if (tag.control() instanceof Control.Open open) {
+                        reads(open.subject(), segment, scopes, bound, uses, sections > 0);
+                        boolean context = open.block() != Control.Block.CONDITION && open.block() != Control.Block.INVERTED;
+                        blocks.push(context);
+                        sections += context ? 1 : 0;
+                    } else if (tag.control() instanceof Control.Middle middle) {
+                        boolean inner = !blocks.isEmpty() && blocks.peek();
+                        reads(middle.condition(), segment, scopes, bound, uses, sections - (inner ? 1 : 0) > 0);
+                    } else if (tag.control() instanceof Control.Close && !blocks.isEmpty()) {
+                        sections -= blocks.pop() ? 1 : 0;
                     }
                     continue;
                 }

@@ -18,9 +18,10 @@ import java.util.Optional;
 import java.util.Set;
 
 /**
- * A variable the template reads that is declared with neither a token size nor a sample, so every
- * estimate leaves it out. Names used only in conditions are reported too when they are not declared
- * at all; loop variables and names inside sections are local and never reported.
+ * A variable the template reads (or a function call whose output it pastes in) that is declared with
+ * neither a token size nor a sample, so every estimate leaves it out. Names used only in conditions
+ * or passed to calls are reported too when they are not declared at all; loop variables and names
+ * inside sections are local and never reported.
  */
 final class UnsizedVariable implements Rule {
     static final RuleDescriptor DESCRIPTOR = RuleDescriptor.builtIn("unsized-variable", Severity.INFO,
@@ -45,11 +46,17 @@ final class UnsizedVariable implements Rule {
             if (use.local() || reported.contains(use.name())) {
                 continue;
             }
-            Optional<VariableSpec> spec = declaration(template, use.name());
+            Optional<VariableSpec> spec = declaration(template, use);
             String message;
-            if (use.rendered() && (spec.isEmpty() || !spec.get().isSized())) {
+            if (use.isCallOutput() && (spec.isEmpty() || !spec.get().isSized())) {
+                message = "the output of '" + use.name() + "' has neither a size nor a sample, so estimates leave it"
+                        + " out; declare variables: {\"" + use.name() + "\": {tokens: N}} or {sample: \"...\"}";
+            } else if (use.rendered() && (spec.isEmpty() || !spec.get().isSized())) {
                 message = "'" + use.name() + "' has neither a size nor a sample, so estimates leave it out; declare"
                         + " variables: {" + use.root() + ": {tokens: N}} or {sample: \"...\"}";
+            } else if (!use.rendered() && spec.isEmpty() && use.segment() instanceof Segment.Call call) {
+                message = "'" + use.name() + "' is passed to '" + call.name() + "' but is not declared; declare it"
+                        + " under variables (a sample or size documents the input)";
             } else if (!use.rendered() && spec.isEmpty()) {
                 message = "'" + use.name() + "' decides what is sent but is not declared; declare it under variables"
                         + " (a sample or size documents the input)";
@@ -63,13 +70,12 @@ final class UnsizedVariable implements Rule {
         return findings;
     }
 
-    private static Optional<VariableSpec> declaration(Template template, String name) {
+    private static Optional<VariableSpec> declaration(Template template, TemplateNames.Use use) {
         var declared = template.meta().variables();
-        if (declared.containsKey(name)) {
-            return Optional.of(declared.get(name));
+        if (declared.containsKey(use.name())) {
+            return Optional.of(declared.get(use.name()));
         }
-        int dot = name.indexOf('.');
-        return dot < 0 ? Optional.empty() : Optional.ofNullable(declared.get(name.substring(0, dot)));
+        return Optional.ofNullable(declared.get(use.root()));
     }
 
     /** Where a segment stands, as a message and content offsets. */

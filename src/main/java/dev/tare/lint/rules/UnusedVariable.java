@@ -47,8 +47,17 @@ final class UnusedVariable implements Rule {
         }
         if (rendering != null) {
             for (Rendering.Occurrence occurrence : rendering.variables()) {
-                used.add(occurrence.variable().name());
-                used.add(occurrence.variable().rootName());
+                Segment.PerCall part = occurrence.part();
+                used.add(part.name());
+                used.addAll(part.variableNames());
+                if (part instanceof Segment.Variable variable) {
+                    used.add(variable.rootName());
+                }
+                used.add(occurrence.input());
+                used.add(occurrence.input().split("\\.", 2)[0]);
+            }
+            for (Rendering.Loop loop : rendering.loops()) {
+                used.add(loop.iterable());
             }
         }
         TemplateView text = context.text(template);

@@ -12,6 +12,7 @@ import dev.tare.lint.LintContext;
 import dev.tare.lint.RewriteClass;
 import dev.tare.lint.RuleHarness;
 import dev.tare.template.IncludeResolver;
+import dev.tare.template.PlaceholderSyntax;
 import dev.tare.template.Renderer;
 import dev.tare.template.Template;
 import dev.tare.tokenize.Tokenizer;
@@ -100,6 +101,21 @@ class CacheOrderTest {
         double saving = (tool + total) * (1 - Math.exp(-300)) * 1.5 / 1e6 * 86_400 * 30;
         assertTrue(found.get(0).message().contains(String.format(java.util.Locale.ROOT,
                 "saving about hosted USD %,.2f a month", saving)), found.get(0).message());
+    }
+
+    @Test
+    void aFunctionCallAheadOfTheStaticPartBreaksThePrefixCacheToo() {
+        String text = "Today is {{time.today}}, in {{$city}}.\n" + STATIC;
+        List<Finding> found = findings(rule, PlaceholderSyntax.DOLLAR_DOUBLE_BRACE, "a.md", text, MINIMUM_32);
+        assertEquals(1, found.size());
+        assertEquals(10, found.get(0).column());
+        int total = o200k.count(text.replace("{{time.today}}", "").replace("{{$city}}", ""));
+        assertTrue(found.get(0).message().startsWith("'{{time.today}}' comes after only " + o200k.count("Today is ")
+                + " leading static tokens"), found.get(0).message());
+        assertTrue(found.get(0).message().contains("(1 variable and 1 call)"), found.get(0).message());
+        assertTrue(found.get(0).message().contains("every call would start with the same " + total + " tokens"),
+                found.get(0).message());
+        assertEquals("more per-call text: {{$city}}", found.get(0).related().get(0).message());
     }
 
     @Test

@@ -43,6 +43,11 @@ class CostlyCharacterTest {
         assertTrue(found.get(0).message().endsWith(" more here than leaving it out on o200k_base"), found.get(0).message());
         assertEquals(RewriteClass.REVIEW, found.get(0).rewriteClass());
         assertEquals("Report the leak and call back.\n", fixed(rule, text));
+        // The message, the rewrite's saving and what fix saves are one figure on the tokenizer named.
+        int saved = o200k.count(text) - o200k.count("Report the leak and call back.\n");
+        assertEquals(saved, found.get(0).savingTokens());
+        assertTrue(found.get(0).message().contains("costs " + saved + (saved == 1 ? " token" : " tokens") + " more here"),
+                found.get(0).message());
     }
 
     @Test

@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.tare.lint.Finding;
 import dev.tare.lint.RewriteClass;
+import dev.tare.template.PlaceholderSyntax;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 
@@ -51,6 +52,35 @@ class UnsizedVariableTest {
         assertEquals(2, found.size());
         assertTrue(found.stream().anyMatch(f -> f.message().startsWith("'hardship_flag' decides what is sent")));
         assertTrue(found.stream().anyMatch(f -> f.message().startsWith("'closed' decides what is sent")));
+    }
+
+    @Test
+    void aHandlebarsBlockReportsTheNameItReadsNotItsHelper() {
+        List<Finding> found = findings(rule, "{{#if overdue}}Offer a plan.{{else if paused}}Wait.{{/if}}"
+                + "{{#each readings}}- {{value}}\n{{/each}}\n");
+        assertEquals(List.of("'overdue'", "'paused'", "'readings'"),
+                found.stream().map(f -> f.message().split(" ")[0]).toList());
+    }
+
+    @Test
+    void aCallsOutputIsSizedOnlyUnderTheFunctionsFullNameAndItsArgumentsMustBeDeclared() {
+        String text = "---\nvariables:\n  city: {sample: Springfield}\n  weather: {tokens: 9}\n---\n"
+                + "{{$city}}: {{weather.forecast $city}} {{summarize input=$notes}}\n";
+        List<String> messages = findings(rule, PlaceholderSyntax.DOLLAR_DOUBLE_BRACE, text).stream()
+                .map(Finding::message).toList();
+        assertEquals(List.of(
+                "the output of 'weather.forecast' has neither a size nor a sample, so estimates leave it out; declare"
+                        + " variables: {\"weather.forecast\": {tokens: N}} or {sample: \"...\"}",
+                "'notes' is passed to 'summarize' but is not declared; declare it under variables (a sample or size"
+                        + " documents the input)",
+                "the output of 'summarize' has neither a size nor a sample, so estimates leave it out; declare"
+                        + " variables: {\"summarize\": {tokens: N}} or {sample: \"...\"}"), messages);
+    }
+
+    @Test
+    void aSizedCallWithDeclaredArgumentsIsNotReported() {
+        String text = "---\nvariables:\n  weather.forecast: {tokens: 40}\n  city: {}\n---\nToday: {{weather.forecast $city}}\n";
+        assertTrue(findings(rule, PlaceholderSyntax.DOLLAR_DOUBLE_BRACE, text).isEmpty());
     }
 
     @Test

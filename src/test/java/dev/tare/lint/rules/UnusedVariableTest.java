@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.tare.lint.Finding;
 import dev.tare.lint.RewriteClass;
+import dev.tare.template.PlaceholderSyntax;
 import java.util.List;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
@@ -50,9 +51,25 @@ class UnusedVariableTest {
     }
 
     @Test
+    void theListAHandlebarsEachWalksCountsAsUsed() {
+        String text = "---\nvariables:\n  history: {items: 6}\n  notes: {tokens: 9}\n---\n"
+                + "{{#each history}}\n- a turn\n{{/each}}\n{{#with account}}{{notes}}{{/with}}\n";
+        assertTrue(findings(rule, text).isEmpty());
+    }
+
+    @Test
     void aVariableReadOnlyInAConditionOrThroughAFieldIsUsed() {
         String text = "---\nvariables:\n  vip: {}\n  account: {tokens: 9}\n---\n{% if vip %}Number {{ account.id }}.{% endif %}\n";
         assertTrue(findings(rule, text).isEmpty());
+    }
+
+    @Test
+    void aCallsDeclaredOutputAndTheVariablesItIsPassedAreUsed() {
+        String text = "---\nvariables:\n  weather.forecast: {tokens: 40}\n  city: {}\n  unit: {}\n  spare: {tokens: 1}\n---\n"
+                + "Today: {{weather.forecast $city unit=$unit}}\n";
+        List<Finding> found = findings(rule, PlaceholderSyntax.DOLLAR_DOUBLE_BRACE, text);
+        assertEquals(List.of("'spare' is declared but never used; remove the declaration or use it"),
+                found.stream().map(Finding::message).toList());
     }
 
     @Test
