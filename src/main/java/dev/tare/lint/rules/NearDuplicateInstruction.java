@@ -334,12 +334,41 @@ final class NearDuplicateInstruction implements Rule {
     /** The content words of {@code sentence} with how often each occurs. */
     static Map<CharSequence, Integer> words(String sentence) {
         Map<CharSequence, Integer> counts = new HashMap<>();
-        for (String word : sentence.toLowerCase(Locale.ROOT).split("[^\\p{L}\\p{N}]+")) {
-            if (!word.isEmpty() && !FUNCTION_WORDS.contains(word)) {
-                counts.merge(NUMBERS.getOrDefault(word, word), 1, Integer::sum);
+        String lower = sentence.toLowerCase(Locale.ROOT);
+        // The runs of letters and numbers (\\p{L} and \\p{N}), as splitting at everything else gives them.
+        int i = 0;
+        while (i < lower.length()) {
+            int start = i;
+            while (i < lower.length() && isWordPoint(lower.codePointAt(i))) {
+                i += Character.charCount(lower.codePointAt(i));
+            }
+            if (i > start) {
+                String word = lower.substring(start, i);
+                if (!FUNCTION_WORDS.contains(word)) {
+                    counts.merge(NUMBERS.getOrDefault(word, word), 1, Integer::sum);
+                }
+            } else {
+                i += Character.charCount(lower.codePointAt(i));
             }
         }
         return counts;
+    }
+
+    static boolean isFunctionWord(String word) {
+        return FUNCTION_WORDS.contains(word);
+    }
+
+    /** The word with a number word read as digits. */
+    static String number(String word) {
+        return NUMBERS.getOrDefault(word, word);
+    }
+
+    private static boolean isWordPoint(int point) {
+        if (Character.isLetter(point)) {
+            return true;
+        }
+        int type = Character.getType(point);
+        return type == Character.DECIMAL_DIGIT_NUMBER || type == Character.LETTER_NUMBER || type == Character.OTHER_NUMBER;
     }
 
     private static Map<String, String> numbers() {
