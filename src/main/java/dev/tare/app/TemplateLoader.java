@@ -7,6 +7,7 @@ import dev.tare.source.SafeReader;
 import dev.tare.source.SourceText;
 import dev.tare.template.PartialDirectory;
 import dev.tare.template.Renderer;
+import dev.tare.template.RoleMarkers;
 import dev.tare.template.Template;
 import dev.tare.template.TemplateParser;
 import dev.tare.workspace.FileSelection;
@@ -31,8 +32,10 @@ public final class TemplateLoader {
         this.workspace = workspace;
         TareConfig config = workspace.config();
         this.reader = new SafeReader(config.templates().maxFileBytes());
-        this.parser = new TemplateParser(config.templates().placeholder());
-        this.partials = new PartialCache(workspace.root(), config.templates(), reader, parser);
+        this.parser = new TemplateParser(config.templates().placeholder(), config.templates().roles());
+        // An included file is pasted in as text, so its role marker lines are text there.
+        this.partials = new PartialCache(workspace.root(), config.templates(), reader,
+                new TemplateParser(config.templates().placeholder(), RoleMarkers.OFF));
         this.renderer = new Renderer(new PartialDirectory(config.templates().partials(), partials::load));
     }
 

@@ -291,8 +291,7 @@ public final class TemplateScan {
                 int input = estimated + framing;
                 int prefix = 0;
                 if (texts.isPresent() && target.prefixCache().isPresent()) {
-                    CachePrefixes.LeadingIds ids = CachePrefixes.leading(String.join("\n", template.meta().tools()),
-                            texts.get(), tokenizer);
+                    CachePrefixes.LeadingIds ids = CachePrefixes.leading(toolsHead(template), texts.get(), tokenizer);
                     leading.put(target.name(), ids);
                     // Without a per-call part every token of the call is the same each time.
                     prefix = samples.variables().isEmpty() ? input : toolPart
@@ -364,6 +363,16 @@ public final class TemplateScan {
                         + config.targets().stream().map(Target::name).collect(Collectors.joining(", ")) + ")"));
             }
             return targets.stream().filter(t -> t.name().equals(named.get())).toList();
+        }
+
+        /**
+         * What stands for the tools a template's prefix opens with, so that only templates sending
+         * the same tools share a prefix: the tool files' paths and the inline definitions' JSON.
+         */
+        private static String toolsHead(Template template) {
+            List<String> parts = new ArrayList<>(template.meta().tools());
+            template.meta().inlineTools().forEach(tool -> parts.add(tool.json()));
+            return String.join("\n", parts);
         }
 
         /** A tool file's counted tokens on one tokenizer, counted once per scan however many templates send it. */

@@ -11,8 +11,9 @@ import java.util.Optional;
 import java.util.concurrent.ConcurrentHashMap;
 
 /**
- * The tool files templates name in their front matter ({@code tools:}), each read and parsed once
- * per run however many templates send it; safe to share between threads.
+ * The tools sent with templates: the tool files they name in their front matter ({@code tools:}),
+ * each read and parsed once per run however many templates send it, and the definitions they write
+ * there in place; safe to share between threads.
  */
 final class ToolFiles {
     private final TemplateLoader loader;
@@ -23,7 +24,8 @@ final class ToolFiles {
     }
 
     /**
-     * The tool files sent with {@code template}, in the order its front matter names them.
+     * The tool files sent with {@code template}, in the order its front matter names them, then the
+     * tools it defines in place as one more ({@link Template#inlineToolFile()}).
      *
      * @throws TareException naming the file, when one is missing, unreadable or holds no list of tools
      */
@@ -32,6 +34,7 @@ final class ToolFiles {
         for (String path : template.meta().tools()) {
             tools.add(parsed.computeIfAbsent(path, this::load));
         }
+        template.inlineToolFile().ifPresent(tools::add);
         return tools;
     }
 

@@ -9,6 +9,7 @@ import dev.tare.source.SafeReader;
 import dev.tare.source.SourceText;
 import dev.tare.source.YamlDocument;
 import dev.tare.template.PlaceholderSyntax;
+import dev.tare.template.RoleMarkers;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -29,7 +30,8 @@ public final class ConfigLoader {
 
     private static final Set<String> TOP = Set.of("templates", "targets", "budgets", "baseline", "rules", "hook",
             "traffic");
-    private static final Set<String> TEMPLATES = Set.of("include", "exclude", "placeholder", "partials", "max_file_bytes");
+    private static final Set<String> TEMPLATES = Set.of("include", "exclude", "placeholder", "partials", "max_file_bytes",
+            "roles");
     private static final Set<String> TARGET = Set.of("name", "tokenizer", "price", "prefix_cache",
             "message_overhead_tokens", "reply_overhead_tokens", "calls_per_day", "output_tokens", "model", "weight_bits",
             "kv_bits", "device", "scale", "tool_overhead_tokens", "concurrency");
@@ -116,7 +118,24 @@ public final class ConfigLoader {
         }
         long maxBytes = in.wholeNumber(node, "max_file_bytes", "templates.max_file_bytes", 1)
                 .orElse((int) defaults.maxFileBytes());
-        return new TemplatesConfig(include, exclude, syntax, partials, maxBytes);
+        return new TemplatesConfig(include, exclude, syntax, partials, maxBytes, roles(in, node, defaults.roles()));
+    }
+
+    /** {@code templates.roles}: {@code auto} or {@code off}, which YAML 1.1 reads as false when unquoted. */
+    private static RoleMarkers roles(ConfigReader in, JsonNode templates, RoleMarkers fallback) {
+        JsonNode node = templates.get("roles");
+        if (node != null && node.isBoolean()) {
+            return node.asBoolean() ? RoleMarkers.AUTO : RoleMarkers.OFF;
+        }
+        Optional<String> label = in.text(templates, "roles", "templates.roles");
+        if (label.isEmpty()) {
+            return fallback;
+        }
+        try {
+            return RoleMarkers.fromLabel(label.get());
+        } catch (TareException e) {
+            throw in.problem("templates.roles", e.getMessage());
+        }
     }
 
     private static void checkGlobs(ConfigReader in, List<String> globs, String path) {

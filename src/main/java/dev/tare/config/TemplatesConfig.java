@@ -2,6 +2,7 @@ package dev.tare.config;
 
 import dev.tare.source.SafeReader;
 import dev.tare.template.PlaceholderSyntax;
+import dev.tare.template.RoleMarkers;
 import java.util.List;
 
 /**
@@ -12,9 +13,10 @@ import java.util.List;
  * @param placeholder  the placeholder syntax of every template
  * @param partials     the folder includes are looked up in, relative to the root; empty for none
  * @param maxFileBytes files larger than this are skipped
+ * @param roles        whether role marker lines split text templates into chat messages
  */
 public record TemplatesConfig(List<String> include, List<String> exclude, PlaceholderSyntax placeholder,
-                              String partials, long maxFileBytes) {
+                              String partials, long maxFileBytes, RoleMarkers roles) {
     /** Where prompt templates usually live when a repository has no {@code tare.yaml}. */
     public static final List<String> DEFAULT_INCLUDE = List.of(
             "**/prompts/**/*.{md,txt,prompt,j2,jinja,jinja2,mustache,hbs,yaml,yml,json}",
@@ -37,7 +39,7 @@ public record TemplatesConfig(List<String> include, List<String> exclude, Placeh
     /** The settings used when {@code tare.yaml} says nothing about templates. */
     public static TemplatesConfig defaults() {
         return new TemplatesConfig(DEFAULT_INCLUDE, DEFAULT_EXCLUDE, PlaceholderSyntax.DOUBLE_BRACE, DEFAULT_PARTIALS,
-                SafeReader.DEFAULT_MAX_BYTES);
+                SafeReader.DEFAULT_MAX_BYTES, RoleMarkers.AUTO);
     }
 
     /** Whether a root-relative path lies in the partials folder. */

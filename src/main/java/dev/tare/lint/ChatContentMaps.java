@@ -2,29 +2,32 @@ package dev.tare.lint;
 
 import dev.tare.source.YamlDocument;
 import dev.tare.template.Template;
-import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.List;
 import java.util.Locale;
 import java.util.OptionalInt;
 
 /**
- * Builds the {@link ContentMap} of each message of a chat file by reading the file's string values
- * again: JSON strings and YAML double-quoted, single-quoted, plain one-line and literal block
- * scalars are followed character by character; any other form (folded blocks, multi-line plain or
- * quoted scalars, content given as a list of parts) is placed at the value's start and left
+ * Builds the {@link ContentMap} of each message read from a string value of a YAML or JSON file (a
+ * chat file's {@code content}, a serialized prompt object's {@code template}) by reading the file's
+ * string values again: JSON strings and YAML double-quoted, single-quoted, plain one-line and literal
+ * block scalars are followed character by character; any other form (folded blocks, multi-line plain
+ * or quoted scalars, content given as a list of parts) is placed at the value's start and left
  * read-only. A map is only used when the characters it follows spell the parsed content exactly.
  */
 final class ChatContentMaps {
     private final String source;
     private final SourceLines lines;
+    /** The file read as YAML or JSON; null when it cannot be read again. */
+    private final YamlDocument document;
 
-    private ChatContentMaps(String source, SourceLines lines) {
+    private ChatContentMaps(String source, SourceLines lines, YamlDocument document) {
         this.source = source;
         this.lines = lines;
+        this.document = document;
     }
 
-    static List<ContentMap> of(Template template, SourceLines lines) {
+    /** The maps of {@code template}'s file, read as YAML or JSON once. */
+    static ChatContentMaps of(Template template, SourceLines lines) {
         boolean json = template.path().toLowerCase(Locale.ROOT).endsWith(".json");
         YamlDocument document;
         try {
@@ -32,37 +35,30 @@ final class ChatContentMaps {
         } catch (RuntimeException e) {
             document = null;
         }
-        ChatContentMaps maps = new ChatContentMaps(template.source(), lines);
-        List<ContentMap> result = new ArrayList<>();
-        for (int i = 0; i < template.messages().size(); i++) {
-            String content = template.messages().get(i).content();
-            result.add(document == null ? ContentMap.approximate(0, content.length())
-                    : maps.map(document, "messages[" + i + "]", content));
-        }
-        return result;
+        return new ChatContentMaps(template.source(), lines, document);
     }
 
-    private ContentMap map(YamlDocument document, String message, String content) {
-        String path = message + ".content";
-        OptionalInt line = document.line(path);
-        OptionalInt column = document.column(path);
+    /** The map of {@code content}, read from the value at {@code key} ({@code messages[0].content}). */
+    ContentMap map(String key, String content) {
+        if (document == null) {
+            return ContentMap.approximate(0, content.length());
+        }
+        OptionalInt line = document.line(key);
+        OptionalInt column = document.column(key);
         if (line.isEmpty() || column.isEmpty()) {
-            OptionalInt messageLine = document.line(message);
-            int at = messageLine.isPresent() ? lines.lineStart(messageLine.getAsInt()) : 0;
+            int dot = key.lastIndexOf('.');
+            OptionalInt ownerLine = document.line(dot < 0 ? "" : key.substring(0, dot));
+            int at = ownerLine.isPresent() ? lines.lineStart(ownerLine.getAsInt()) : 0;
             return ContentMap.approximate(at, content.length());
         }
         int at = lines.offset(line.getAsInt(), column.getAsInt());
-        if (document.root().path("messages").path(indexOf(message)).path("content").isTextual()) {
+        if (document.at(key).isTextual()) {
             ContentMap exact = exact(at, content);
             if (exact != null) {
                 return exact;
             }
         }
         return ContentMap.approximate(at, content.length());
-    }
-
-    private static int indexOf(String message) {
-        return Integer.parseInt(message.substring(message.indexOf('[') + 1, message.indexOf(']')));
     }
 
     /** The exact map when the value at {@code at} (or just before it) is a form this class follows. */

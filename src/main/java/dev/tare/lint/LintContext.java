@@ -18,6 +18,7 @@ import dev.tare.template.ToolFileParser;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
@@ -269,18 +270,20 @@ public final class LintContext {
 
     /**
      * The tokens the tool definitions sent with {@code template} add to a call on {@code target}, which
-     * a provider reads before the messages: each tool file's definitions counted (and scaled) as the
-     * scan counts them, and the target's framing around each tool. Tool files that cannot be read
-     * add nothing; the scan reports them.
+     * a provider reads before the messages: each tool file's definitions, and those the template
+     * defines in place, counted (and scaled) as the scan counts them, and the target's framing around
+     * each tool. Tool files that cannot be read add nothing; the scan reports them.
      */
     public int sentToolTokens(Template template, Target target) {
-        int total = 0;
+        List<Template> sent = new ArrayList<>();
         for (String path : template.meta().tools()) {
-            Optional<Template> tools = toolFiles.apply(path);
-            if (tools.isPresent()) {
-                total += target.scaled(Estimates.tokens(tokenizer(target), renderer.renderStatic(tools.get())))
-                        + Framing.toolTokens(target, tools.get().messages().size());
-            }
+            toolFiles.apply(path).ifPresent(sent::add);
+        }
+        template.inlineToolFile().ifPresent(sent::add);
+        int total = 0;
+        for (Template tools : sent) {
+            total += target.scaled(Estimates.tokens(tokenizer(target), renderer.renderStatic(tools)))
+                    + Framing.toolTokens(target, tools.messages().size());
         }
         return total;
     }

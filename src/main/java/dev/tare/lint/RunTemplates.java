@@ -26,7 +26,7 @@ public record RunTemplates(List<String> paths, Function<String, Template> loader
 
     /**
      * Templates parsed again when a rule asks for one. The words {@code gathered} while the run read
-     * them serve the first analysis that asks; a later one gathers them again, a template at a time.
+     * them serve the first analysis that asks; a later one gathers them again, on every core.
      *
      * @param paths every template's path, sorted
      */
@@ -39,8 +39,9 @@ public record RunTemplates(List<String> paths, Function<String, Template> loader
             if (first != null) {
                 return first;
             }
+            // The words are numbered in path order when laid out, so the order they are added in is free.
             RepositoryWords again = new RepositoryWords();
-            sorted.forEach(path -> again.add(loader.apply(path)));
+            sorted.parallelStream().forEach(path -> again.add(loader.apply(path)));
             return again;
         });
     }

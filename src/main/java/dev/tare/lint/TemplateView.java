@@ -2,6 +2,7 @@ package dev.tare.lint;
 
 import dev.tare.source.YamlDocument;
 import dev.tare.structure.Structure;
+import dev.tare.template.ContentOrigin;
 import dev.tare.template.Message;
 import dev.tare.template.Template;
 import dev.tare.tokenize.Tokenizer;
@@ -26,26 +27,27 @@ public final class TemplateView {
     TemplateView(Template template) {
         this.template = template;
         this.lines = new SourceLines(template.source());
-        List<ContentMap> maps = template.isChat() ? ChatContentMaps.of(template, lines) : List.of();
+        ChatContentMaps values = null;
         List<MessageView> built = new ArrayList<>();
         for (int i = 0; i < template.messages().size(); i++) {
             Message message = template.messages().get(i);
             int base = template.isChat() ? 0 : template.bodyStart();
             Structure structure = Structure.of(message.content(), message.segments(), base, i);
-            ContentMap map = switch (template.kind()) {
-                case CHAT -> maps.get(i);
+            int length = message.content().length();
+            ContentMap map;
+            if (message.origin() instanceof ContentOrigin.FileText text) {
+                map = ContentMap.shifted(text.offset(), length);
+            } else if (message.origin() instanceof ContentOrigin.DocumentValue value) {
+                values = values == null ? ChatContentMaps.of(template, lines) : values;
+                map = values.map(value.key(), message.content());
+            } else {
                 // A tool's text is its definition re-serialized as minified JSON, not the file's text:
                 // findings point at the tool's first line and no edit can be written back.
-                case TOOLS -> ContentMap.approximate(lines.lineStart(toolLine(message)), message.content().length());
-                default -> ContentMap.shifted(template.bodyStart(), message.content().length());
-            };
+                map = ContentMap.approximate(lines.lineStart(((ContentOrigin.Made) message.origin()).line()), length);
+            }
             built.add(new MessageView(i, message, structure, map));
         }
         this.messages = List.copyOf(built);
-    }
-
-    private static int toolLine(Message message) {
-        return message.segments().isEmpty() ? 1 : message.segments().get(0).span().line();
     }
 
     /** The template prepared as rules see it, outside any check (for verifying a rewrite's result). */
@@ -67,7 +69,7 @@ public final class TemplateView {
     private Optional<YamlDocument> readMeta() {
         String source = template.source();
         try {
-            if (template.isChat()) {
+            if (template.isDocument()) {
                 return Optional.of(template.path().toLowerCase(java.util.Locale.ROOT).endsWith(".json")
                         ? YamlDocument.parseJson(source) : YamlDocument.parseYaml(source));
             }

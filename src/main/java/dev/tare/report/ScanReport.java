@@ -81,7 +81,7 @@ public final class ScanReport {
         long unsized = result.templates().stream().filter(t -> !t.unsizedVariables().isEmpty()).count();
         if (unsized > 0) {
             out.append(unsized).append(unsized == 1 ? " template has" : " templates have")
-                    .append(" variables with neither a sample nor a token size; their estimates leave those out.\n");
+                    .append(" variables or function calls with neither a sample nor a token size; their estimates leave those out.\n");
         }
         long assumed = result.templates().stream()
                 .filter(t -> t.countsInTotals() && t.loops().stream().anyMatch(loop -> !loop.declared())).count();

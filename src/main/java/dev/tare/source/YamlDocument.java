@@ -66,6 +66,32 @@ public final class YamlDocument {
         return root;
     }
 
+    /** The value at {@code path} ({@code key.sub[2].name}); a missing node when there is none. */
+    public JsonNode at(String path) {
+        JsonNode node = root;
+        int i = 0;
+        while (i < path.length() && !node.isMissingNode()) {
+            char c = path.charAt(i);
+            if (c == '[') {
+                int close = path.indexOf(']', i);
+                if (close < 0) {
+                    return JsonNodeFactory.instance.missingNode();
+                }
+                node = node.path(Integer.parseInt(path.substring(i + 1, close)));
+                i = close + 1;
+            } else {
+                int from = c == '.' ? i + 1 : i;
+                int end = from;
+                while (end < path.length() && path.charAt(end) != '.' && path.charAt(end) != '[') {
+                    end++;
+                }
+                node = node.path(path.substring(from, end));
+                i = end;
+            }
+        }
+        return node;
+    }
+
     /** The 1-based line of the value at {@code path} in the parsed text, when known. */
     public OptionalInt line(String path) {
         JsonLocation location = locations.get(path);

@@ -441,7 +441,7 @@ final class DoubleBraceParser extends SegmentParser {
     /** Names the text defines with a pattern whose first group is the name, looked for only when {@code word} occurs. */
     private static Set<String> names(Pattern pattern, String text, int start, int end, String word) {
         Set<String> names = new HashSet<>();
-        if (text.indexOf(word, start) < 0) {
+        if (!hasStatement(text, start, end, word)) {
             return names;
         }
         Matcher matcher = pattern.matcher(text).region(start, end);
@@ -449,6 +449,23 @@ final class DoubleBraceParser extends SegmentParser {
             names.add(matcher.group(1));
         }
         return names;
+    }
+
+    /**
+     * Whether a statement tag in {@code text[start, end)} holds {@code word}: most templates have no
+     * macro or import, and their prose often has the word ("important"), so the tags are looked at
+     * before any pattern runs over the whole text.
+     */
+    private static boolean hasStatement(String text, int start, int end, String word) {
+        for (int open = text.indexOf("{%", start); open >= 0 && open < end; open = text.indexOf("{%", open + 2)) {
+            int close = text.indexOf("%}", open + 2);
+            int stop = close < 0 || close > end ? end : close;
+            int at = text.indexOf(word, open + 2);
+            if (at >= 0 && at < stop) {
+                return true;
+            }
+        }
+        return false;
     }
 
     /** The names {@code {% import ... as m %}} and {@code {% from ... import a, b as c %}} bind. */

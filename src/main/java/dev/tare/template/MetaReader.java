@@ -1,6 +1,7 @@
 package dev.tare.template;
 
 import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.TextNode;
 import dev.tare.TareException;
 import dev.tare.source.YamlDocument;
 import java.util.Iterator;
@@ -10,7 +11,11 @@ import java.util.Optional;
 import java.util.OptionalDouble;
 import java.util.OptionalInt;
 
-/** Reads the template keys of front matter or of a chat file into a {@link TemplateMeta}, located by line. */
+/**
+ * Reads the template keys of front matter, of a chat file or of a serialized prompt object into a
+ * {@link TemplateMeta}, located by line. Keys it does not read (a prompt format's model settings,
+ * description, authors, ...) are metadata and never an error.
+ */
 final class MetaReader {
     /** The most loop items a declaration may expect: enough for any prompt, and a bound on rendering. */
     static final int MAX_ITEMS = 10_000;
@@ -37,30 +42,90 @@ final class MetaReader {
         if (!root.isObject()) {
             throw problem("", "must be a mapping of keys such as budget, target and variables");
         }
+        java.util.List<String> toolFiles = new java.util.ArrayList<>();
+        java.util.List<ToolDefinition> inlineTools = new java.util.ArrayList<>();
+        if (toolsAreFiles) {
+            tools(root.get("tools"), toolFiles, inlineTools);
+        }
         return new TemplateMeta(
                 text(root, "target"),
                 wholeNumber(root, "budget", 1),
                 wholeNumber(root, "output_tokens", 0),
-                variables(root.get("variables")),
-                toolsAreFiles ? toolFiles(root.get("tools")) : java.util.List.of(),
-                callsPerDay(root.get("calls_per_day")));
+                withSamples(variables(root.get("variables")), root),
+                toolFiles,
+                callsPerDay(root.get("calls_per_day")),
+                inlineTools);
     }
 
-    private java.util.List<String> toolFiles(JsonNode node) {
-        java.util.List<String> files = new java.util.ArrayList<>();
+    /**
+     * The entries of {@code tools}: paths of tool files, and tool definitions written in place (as a
+     * tool file holds them: {@code {name, description, parameters}}, bare or as
+     * {@code {type: function, function: {...}}}), in any mix.
+     */
+    private void tools(JsonNode node, java.util.List<String> files, java.util.List<ToolDefinition> inline) {
         if (node == null || node.isNull()) {
-            return files;
+            return;
         }
         if (!node.isArray()) {
-            throw problem("tools", "tools must be a list of tool file paths, relative to the repository root");
+            throw problem("tools", "tools must be a list of tool file paths (relative to the repository root)"
+                    + " or tool definitions {name, description, parameters}");
         }
         for (int i = 0; i < node.size(); i++) {
-            if (!node.get(i).isTextual() || node.get(i).asText().isBlank()) {
-                throw problem("tools[" + i + "]", "tools[" + i + "] must be the path of a tool file");
+            JsonNode item = node.get(i);
+            String path = "tools[" + i + "]";
+            if (item.isTextual() && !item.asText().isBlank()) {
+                files.add(item.asText().strip());
+            } else if (item.isObject()) {
+                try {
+                    inline.add(ToolFileParser.definition(document, path, item, i + 1));
+                } catch (TareException e) {
+                    throw new TareException(where + (e.getMessage().startsWith("line ") ? ", " : ": ") + e.getMessage(), e);
+                }
+            } else {
+                throw problem(path, path + " must be the path of a tool file or a tool definition {name, description, parameters}");
             }
-            files.add(node.get(i).asText().strip());
         }
-        return files;
+    }
+
+    /**
+     * The declared variables, with a sample added for each other name that a single-file prompt
+     * format gives a value: under {@code sample} (name to value), else under {@code inputs} (name to a
+     * value, or to a mapping whose {@code sample}, {@code default} or {@code example} is one, in that
+     * order). A name under {@code variables} takes nothing from them. A value that is a list or
+     * mapping is sampled as its JSON. Either key in any other shape is the format's own metadata.
+     */
+    private Map<String, VariableSpec> withSamples(Map<String, VariableSpec> declared, JsonNode root) {
+        Map<String, VariableSpec> all = new LinkedHashMap<>(declared);
+        JsonNode sample = root.get("sample");
+        if (sample != null && sample.isObject()) {
+            for (Iterator<Map.Entry<String, JsonNode>> it = sample.fields(); it.hasNext(); ) {
+                Map.Entry<String, JsonNode> entry = it.next();
+                sampleText(entry.getValue()).ifPresent(text -> all.putIfAbsent(entry.getKey(),
+                        variable("sample." + entry.getKey(), TextNode.valueOf(text))));
+            }
+        }
+        JsonNode inputs = root.get("inputs");
+        if (inputs != null && inputs.isObject()) {
+            for (Iterator<Map.Entry<String, JsonNode>> it = inputs.fields(); it.hasNext(); ) {
+                Map.Entry<String, JsonNode> entry = it.next();
+                JsonNode value = entry.getValue();
+                if (value != null && value.isObject()) {
+                    value = java.util.stream.Stream.of("sample", "default", "example").map(value::get)
+                            .filter(v -> v != null && !v.isNull()).findFirst().orElse(null);
+                }
+                sampleText(value).ifPresent(text -> all.putIfAbsent(entry.getKey(),
+                        variable("inputs." + entry.getKey(), TextNode.valueOf(text))));
+            }
+        }
+        return all;
+    }
+
+    /** A value as sample text: a scalar as written, a list or mapping as its JSON; empty for null. */
+    private static Optional<String> sampleText(JsonNode value) {
+        if (value == null || value.isNull() || value.isMissingNode()) {
+            return Optional.empty();
+        }
+        return Optional.of(value.isValueNode() ? value.asText() : value.toString());
     }
 
     private Optional<String> text(JsonNode root, String key) {

@@ -10,12 +10,13 @@ import java.util.Set;
  * point at lines and rewrites can edit the file.
  *
  * @param path       the path relative to the scanned root, with {@code /} separators
- * @param kind       text, chat or partial
- * @param meta       front matter (or the keys beside {@code messages})
- * @param messages   one message for text templates; the chat messages in order otherwise
+ * @param kind       text, chat, partial or tools
+ * @param meta       front matter (or the keys beside {@code messages} or {@code template})
+ * @param messages   one message for a text template, or one per role marker; the chat messages in
+ *                   order otherwise
  * @param source     the file's full text, without a byte-order mark
  * @param bodyStart  the offset in {@code source} where the prompt text starts (after front matter);
- *                   0 for chat files
+ *                   0 for YAML and JSON files
  * @param syntax     the placeholder syntax the template was parsed with
  */
 public record Template(String path, TemplateKind kind, TemplateMeta meta, List<Message> messages, String source,
@@ -47,8 +48,37 @@ public record Template(String path, TemplateKind kind, TemplateMeta meta, List<M
         return names;
     }
 
-    /** Whether this is a chat file, whose messages each carry framing tokens on a chat target. */
+    /**
+     * Whether its messages each carry framing tokens on a chat target: a chat file, or a text
+     * template split into messages by role markers. Segment offsets count from the start of each
+     * message's content, except in a plain text template (neither a chat template nor a YAML or JSON
+     * document), where they count from the start of the file and its one message starts at
+     * {@link #bodyStart()}; a document's {@code bodyStart} is 0, so {@code isChat() ? 0 : bodyStart()}
+     * turns any segment offset into an offset in its message.
+     */
     public boolean isChat() {
-        return kind == TemplateKind.CHAT;
+        return kind == TemplateKind.CHAT
+                || kind == TemplateKind.TEXT && !messages.isEmpty() && !messages.get(0).role().equals(Message.TEXT_ROLE);
+    }
+
+    /**
+     * Whether the file is a YAML or JSON document (a chat file, a tool file or a serialized prompt
+     * object) whose keys beside the prompt are its metadata, rather than text with front matter.
+     */
+    public boolean isDocument() {
+        return TemplateParser.isDocumentFile(path);
+    }
+
+    /**
+     * The tools this template defines in place ({@link TemplateMeta#inlineTools()}) as the tool file
+     * they would make: kind tools, one message per definition, at this template's path. Empty when
+     * it defines none.
+     */
+    public java.util.Optional<Template> inlineToolFile() {
+        if (meta.inlineTools().isEmpty()) {
+            return java.util.Optional.empty();
+        }
+        return java.util.Optional.of(new Template(path, TemplateKind.TOOLS, TemplateMeta.EMPTY,
+                ToolFileParser.messages(meta.inlineTools()), source, 0, PlaceholderSyntax.NONE));
     }
 }

@@ -8,7 +8,7 @@ import java.util.OptionalInt;
 
 /**
  * What a template says about itself in front matter (text templates) or beside its messages (chat
- * files). Unknown keys are left to their owners and ignored here.
+ * files and serialized prompt objects). Unknown keys are left to their owners and ignored here.
  *
  * @param target       the name of the target it runs on, when it names one
  * @param budget       its token budget, overriding the configured ones
@@ -16,23 +16,26 @@ import java.util.OptionalInt;
  * @param variables    declared variables in declaration order
  * @param tools        root-relative paths of the tool files sent with every call of this template
  * @param callsPerDay  how often it is called, overriding the configured traffic
+ * @param inlineTools  the tool definitions written in the template itself (under {@code tools}, beside
+ *                     the paths), sent with every call as the tool files are
  */
 public record TemplateMeta(Optional<String> target, OptionalInt budget, OptionalInt outputTokens,
                            Map<String, VariableSpec> variables, java.util.List<String> tools,
-                           OptionalDouble callsPerDay) {
+                           OptionalDouble callsPerDay, java.util.List<ToolDefinition> inlineTools) {
     /** The meta of a template that declares nothing. */
     public static final TemplateMeta EMPTY =
             new TemplateMeta(Optional.empty(), OptionalInt.empty(), OptionalInt.empty(), Map.of(), java.util.List.of(),
-                    OptionalDouble.empty());
+                    OptionalDouble.empty(), java.util.List.of());
 
     public TemplateMeta {
         variables = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(variables));
         tools = java.util.List.copyOf(tools);
+        inlineTools = java.util.List.copyOf(inlineTools);
     }
 
     /** The same declarations with {@code declared} as the variables. */
     public TemplateMeta withVariables(Map<String, VariableSpec> declared) {
-        return new TemplateMeta(target, budget, outputTokens, declared, tools, callsPerDay);
+        return new TemplateMeta(target, budget, outputTokens, declared, tools, callsPerDay, inlineTools);
     }
 
     /**

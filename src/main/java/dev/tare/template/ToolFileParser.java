@@ -37,27 +37,45 @@ public final class ToolFileParser {
         }
         List<ToolDefinition> tools = new ArrayList<>();
         for (int i = 0; i < list.size(); i++) {
-            String path = base + "[" + i + "]";
-            JsonNode node = list.get(i);
-            if (!node.isObject()) {
-                throw located(document, path, "tool " + (i + 1) + " must be a mapping with name, description and parameters");
-            }
-            boolean wrapped = node.path("function").isObject();
-            JsonNode body = wrapped ? node.get("function") : node;
-            String bodyPath = wrapped ? path + ".function" : path;
-            JsonNode name = body.get("name");
-            if (name == null || !name.isTextual() || name.asText().isBlank()) {
-                throw located(document, path, "tool " + (i + 1) + " has no name");
-            }
-            List<ToolDefinition.Parameter> parameters = new ArrayList<>();
-            JsonNode schema = body.get("parameters");
-            if (schema != null && schema.isObject()) {
-                collect(document, schema, bodyPath + ".parameters", "", parameters);
-            }
-            tools.add(new ToolDefinition(name.asText(), text(body.get("description")), node.toString(), parameters,
-                    document.line(path).orElse(1)));
+            tools.add(definition(document, base + "[" + i + "]", list.get(i), i + 1));
         }
         return tools;
+    }
+
+    /**
+     * The definition {@code node}, at {@code path} of a document and the {@code number}th of its list.
+     *
+     * @throws TareException naming the line when it has no name or is not a mapping
+     */
+    static ToolDefinition definition(YamlDocument document, String path, JsonNode node, int number) {
+        if (!node.isObject()) {
+            throw located(document, path, "tool " + number + " must be a mapping with name, description and parameters");
+        }
+        boolean wrapped = node.path("function").isObject();
+        JsonNode body = wrapped ? node.get("function") : node;
+        String bodyPath = wrapped ? path + ".function" : path;
+        JsonNode name = body.get("name");
+        if (name == null || !name.isTextual() || name.asText().isBlank()) {
+            throw located(document, path, "tool " + number + " has no name");
+        }
+        List<ToolDefinition.Parameter> parameters = new ArrayList<>();
+        JsonNode schema = body.get("parameters");
+        if (schema != null && schema.isObject()) {
+            collect(document, schema, bodyPath + ".parameters", "", parameters);
+        }
+        return new ToolDefinition(name.asText(), text(body.get("description")), node.toString(), parameters,
+                document.line(path).orElse(1));
+    }
+
+    /** The messages of a tool template: one per definition, its minified JSON as literal text. */
+    static List<Message> messages(List<ToolDefinition> tools) {
+        List<Message> messages = new ArrayList<>();
+        for (ToolDefinition tool : tools) {
+            Span span = new Span(0, tool.json().length(), tool.line(), 1);
+            messages.add(new Message(Message.TOOL_ROLE, tool.json(), List.of(new Segment.Text(tool.json(), span)),
+                    new ContentOrigin.Made(tool.line())));
+        }
+        return messages;
     }
 
     private static void collect(YamlDocument document, JsonNode schema, String schemaPath, String prefix,

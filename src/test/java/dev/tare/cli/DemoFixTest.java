@@ -309,4 +309,31 @@ class DemoFixTest {
         }
         return count;
     }
+
+    /**
+     * One computation per number: where a file has a single safe finding, what fix saves on the file
+     * (on its first target's tokenizer) is the saving check gave that finding.
+     */
+    @Test
+    void aLoneSafeFindingSavesInFixWhatCheckSays() throws IOException {
+        ObjectMapper json = new ObjectMapper();
+        JsonNode check = json.readTree(Cli.run("check", DEMO.toString(), "--format", "json").out());
+        JsonNode fix = json.readTree(Cli.run("fix", DEMO.toString(), "--dry-run", "--format", "json").out());
+        int compared = 0;
+        for (JsonNode file : fix.get("files")) {
+            List<JsonNode> safe = new ArrayList<>();
+            for (JsonNode finding : check.get("findings")) {
+                if (finding.get("path").equals(file.get("path")) && finding.get("rewrite_class").asText().equals("safe")
+                        && finding.has("edits")) {
+                    safe.add(finding);
+                }
+            }
+            if (safe.size() == 1) {
+                JsonNode first = file.get("tokens").elements().next();
+                assertEquals(safe.get(0).get("saving_tokens").asInt(), first.get("saved").asInt(), file.get("path").asText());
+                compared++;
+            }
+        }
+        assertTrue(compared >= 2, "the demo has files with one safe finding, the tool file among them");
+    }
 }

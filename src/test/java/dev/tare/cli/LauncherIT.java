@@ -99,6 +99,17 @@ class LauncherIT {
         assertTrue(hook.endsWith("\nexec '" + link + "' hook run\n"), hook);
         Result commit = commit(repo, Map.of());
         assertEquals(0, commit.exitCode(), commit.err());
+        // The links go before JUnit cleans the folder, which would warn about a link leading out of it.
+        Files.delete(link);
+        Files.delete(dir.resolve("tare-real"));
+    }
+
+    @Test
+    void thePackageLeavesOneRunnableJarInTarget() throws Exception {
+        try (var jars = Files.list(Cli.projectDir().resolve("target"))) {
+            assertEquals(List.of("tare.jar"), jars.map(p -> p.getFileName().toString()).filter(n -> n.endsWith(".jar"))
+                    .toList());
+        }
     }
 
     @Test

@@ -8,6 +8,7 @@ import dev.tare.TareException;
 import dev.tare.footprint.PrefixCache;
 import dev.tare.footprint.Target;
 import dev.tare.template.PlaceholderSyntax;
+import dev.tare.template.RoleMarkers;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -28,6 +29,16 @@ class ConfigLoaderTest {
     private String problem(String yaml) throws IOException {
         Path file = Files.writeString(dir.resolve("tare.yaml"), yaml);
         return assertThrows(TareException.class, () -> ConfigLoader.load(file)).getMessage();
+    }
+
+    @Test
+    void roleMarkersAreOnUnlessTurnedOff() throws IOException {
+        assertEquals(RoleMarkers.AUTO, load("templates: {include: [\"*.md\"]}\n").templates().roles());
+        assertEquals(RoleMarkers.AUTO, load("templates: {roles: auto}\n").templates().roles());
+        assertEquals(RoleMarkers.OFF, load("templates: {roles: \"off\"}\n").templates().roles());
+        assertEquals(RoleMarkers.OFF, load("templates: {roles: off}\n").templates().roles(), "YAML 1.1 reads a bare off as false");
+        assertTrue(problem("templates: {roles: always}\n").endsWith(
+                "tare.yaml, line 1: templates.roles: unknown roles setting 'always': use one of auto, off"));
     }
 
     @Test

@@ -110,4 +110,26 @@ class HtmlReportTest {
         String table = html.substring(start, html.indexOf("</table>", start));
         assertTrue(table.contains("<th scope=\"row\">prompts/late.md</th>"), table);
     }
+
+    /** A bar is the input tokens the template table shows for the first target: tools and framing included. */
+    @Test
+    void eachBarAddsUpToTheFirstTargetsInputTokens() throws IOException {
+        write("tare.yaml", """
+                templates: {include: ["prompts/**/*.md", "tools/*.json"]}
+                targets:
+                  - {name: hosted, tokenizer: o200k_base, message_overhead_tokens: 3, tool_overhead_tokens: 7}
+                """);
+        write("tools/accounts.json", "[{\"name\": \"lookup_account\", \"description\": \"Find an account.\"}]\n");
+        write("prompts/a.md", "---\ntools: [tools/accounts.json]\nvariables: {name: {sample: Ada}}\n---\n"
+                + "Answer water billing questions for {{ name }}.\n");
+        Cli.Run json = Cli.run("scan", root.toString(), "--format", "json");
+        Matcher input = Pattern.compile("\"path\" : \"prompts/a.md\"(?s).*?\"input_tokens\" : (\\d+)").matcher(json.out());
+        assertTrue(input.find(), json.out());
+        Matcher bar = Pattern.compile("data-template=\"prompts/a.md\" data-static=\"(\\d+)\" data-variables=\"(\\d+)\""
+                + " data-framing=\"(\\d+)\"").matcher(html());
+        assertTrue(bar.find());
+        assertEquals(Integer.parseInt(input.group(1)), Integer.parseInt(bar.group(1)) + Integer.parseInt(bar.group(2))
+                + Integer.parseInt(bar.group(3)));
+        assertTrue(Integer.parseInt(bar.group(3)) > 7, "the tool definition is in the bar");
+    }
 }

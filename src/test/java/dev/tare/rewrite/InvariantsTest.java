@@ -182,4 +182,12 @@ class InvariantsTest {
         String text = "---\nbudget: 500\n---\nBody  text.\n";
         assertProblem(problems(text, TEXT, replace(text, "500", "600")), "front matter");
     }
+
+    @Test
+    void roleMarkedTextKeepsItsMessagesAndRoles() {
+        String text = "system:\nBe  brief.  \n\nuser:\n{{ question }}\n";
+        assertEquals(List.of(), problems(text, WHITESPACE, replace(text, "Be  brief.  ", "Be brief.")));
+        assertProblem(problems(text, TEXT, replace(text, "user:", "assistant:")), "the role of message 2 changed");
+        assertProblem(problems(text, TEXT, replace(text, "Be  brief.", "Be brief.\nuser:\nHi")), "the same number of messages");
+    }
 }

@@ -101,7 +101,7 @@ final class ContextLimit implements Rule {
         }
         JsonNode root;
         try {
-            if (template.isChat()) {
+            if (template.isDocument()) {
                 root = template.path().toLowerCase(Locale.ROOT).endsWith(".json") ? YamlDocument.parseJson(source).root()
                         : YamlDocument.parseYaml(source).root();
             } else {

@@ -83,7 +83,7 @@ final class OverBudget implements Rule {
 
     private static String source(Template template, LintContext context) {
         if (template.meta().budget().isPresent()) {
-            return template.isChat() ? "set in the file" : "set in front matter";
+            return template.isDocument() ? "set in the file" : "set in front matter";
         }
         for (Map.Entry<String, Integer> entry : context.config().budgets().byGlob().entrySet()) {
             if (Glob.of(entry.getKey()).matches(template.path())) {

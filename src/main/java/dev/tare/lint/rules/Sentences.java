@@ -23,7 +23,7 @@ final class Sentences {
     }
 
     /** Words that make a sentence point at its neighbours, so that a copy elsewhere says something else. */
-    private static final Pattern POINTS_AROUND = Pattern.compile(
+    static final Pattern POINTS_AROUND = Pattern.compile(
             "(?i)\\b(?:above|below|following|preceding|previous|foregoing|hereafter)\\b");
 
     /**
@@ -142,11 +142,53 @@ final class Sentences {
             end--;
         }
         if (end > start) {
-            String text = content.substring(start, end).replaceAll("\\s+", " ");
+            String text = singleSpaced(content, start, end);
             boolean instruction = message.structure().isInstruction(start, end) && !text.endsWith(":")
-                    && !POINTS_AROUND.matcher(text).find();
+                    && !pointsAround(text);
             out.add(new Sentence(start, end, text, unit, instruction, message.structure().branchAt(start)));
         }
+    }
+
+    /** The words of {@link #POINTS_AROUND}, each of which a match contains in lower case. */
+    private static final List<String> POINTING_WORDS = List.of("above", "below", "following", "preceding", "previous",
+            "foregoing", "hereafter");
+
+    /**
+     * Whether {@code text} points at its neighbours. The pattern matches ASCII letters only, so a
+     * text whose lower case holds none of its words cannot match, and most sentences skip it.
+     */
+    static boolean pointsAround(String text) {
+        String lower = text.toLowerCase(java.util.Locale.ROOT);
+        for (String word : POINTING_WORDS) {
+            if (lower.contains(word)) {
+                return POINTS_AROUND.matcher(text).find();
+            }
+        }
+        return false;
+    }
+
+    /** {@code content[start, end)} with each run of whitespace ({@code \\s}: space, tab, line breaks, form feeds) made one space. */
+    static String singleSpaced(String content, int start, int end) {
+        StringBuilder out = null;
+        for (int i = start; i < end; i++) {
+            char c = content.charAt(i);
+            if (isSpace(c) && (c != ' ' || i + 1 < end && isSpace(content.charAt(i + 1)))) {
+                if (out == null) {
+                    out = new StringBuilder(end - start).append(content, start, i);
+                }
+                out.append(' ');
+                while (i + 1 < end && isSpace(content.charAt(i + 1))) {
+                    i++;
+                }
+            } else if (out != null) {
+                out.append(c);
+            }
+        }
+        return out == null ? content.substring(start, end) : out.toString();
+    }
+
+    private static boolean isSpace(char c) {
+        return c == ' ' || c == '\t' || c == '\n' || c == '\u000B' || c == '\f' || c == '\r';
     }
 
     /**

@@ -171,6 +171,7 @@ final class SharedBlock implements CrossTemplateRule {
      */
     private static List<List<Place>> locate(List<RepeatedBlock> blocks, LintContext context) {
         Map<String, List<int[]>> byPath = new TreeMap<>();
+        Map<List<Object>, String> known = new HashMap<>();
         List<Place[]> found = new ArrayList<>();
         for (int b = 0; b < blocks.size(); b++) {
             List<RepeatedBlock.Place> at = blocks.get(b).places();
@@ -188,7 +189,7 @@ final class SharedBlock implements CrossTemplateRule {
                 MessageView message = text.messages().get(at.message());
                 int line = text.line(message, at.start());
                 if (!suppressions.silences(DESCRIPTOR.id(), line)) {
-                    found.get(item[0])[item[1]] = place(template, text, message, at, line, context);
+                    found.get(item[0])[item[1]] = place(template, text, message, at, line, context, known);
                 }
             }
         }
@@ -200,7 +201,7 @@ final class SharedBlock implements CrossTemplateRule {
     }
 
     private static Place place(Template template, TemplateView text, MessageView message,
-                               RepeatedBlock.Place at, int line, LintContext context) {
+                               RepeatedBlock.Place at, int line, LintContext context, Map<List<Object>, String> known) {
         String content = message.content();
         int start = at.start();
         int end = at.end();
@@ -215,7 +216,7 @@ final class SharedBlock implements CrossTemplateRule {
                 text.line(message, Math.max(start, end - 1)), copy,
                 content.substring(end, Math.min(content.length(), end + 4)), content.length() - end, replaceable,
                 text.finding(DESCRIPTOR, message, start, end, "", Optional.empty(), List.of()),
-                text.related(message, start, ""), costs(template, copy, context));
+                text.related(message, start, ""), costs(template, copy, context, known));
     }
 
     /** How the block would move into a partial, or why it cannot. */
@@ -394,8 +395,19 @@ final class SharedBlock implements CrossTemplateRule {
     }
 
     /** What a copy costs per call on each target of its template, tokens and (on priced targets) money. */
-    private static String costs(Template template, String copy, LintContext context) {
+    private static String costs(Template template, String copy, LintContext context, Map<List<Object>, String> known) {
         List<Target> targets = context.targets(template);
+        // Copies of one block are mostly the same text on the same targets: each is counted once.
+        List<Object> key = targets.isEmpty() ? List.of(context.tokenizer(template).name(), copy) : List.of(targets, copy);
+        String cost = known.get(key);
+        if (cost == null) {
+            cost = costs(template, copy, context, targets);
+            known.put(key, cost);
+        }
+        return cost;
+    }
+
+    private static String costs(Template template, String copy, LintContext context, List<Target> targets) {
         if (targets.isEmpty()) {
             Tokenizer tokenizer = context.tokenizer(template);
             return tokenizer.count(copy) + " tokens on " + tokenizer.name();

@@ -66,7 +66,11 @@ final class UnusedVariable implements Rule {
             if (used.contains(name)) {
                 continue;
             }
+            // A declaration may come from a prompt format's sample values rather than variables.
             OptionalInt line = text.metaLine("variables." + name);
+            for (String key : List.of("sample.", "inputs.")) {
+                line = line.isPresent() ? line : text.metaLine(key + name);
+            }
             int start = line.isPresent() ? firstVisible(template.source(), text.lineStart(line.getAsInt())) : 0;
             int end = Math.min(template.source().length(), start + name.length());
             findings.add(text.findingInSource(DESCRIPTOR, start, end,

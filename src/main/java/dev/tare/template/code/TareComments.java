@@ -219,6 +219,6 @@ final class TareComments {
                 }
             }
         }
-        return new TemplateMeta(target, budget, output, variables, tools, calls);
+        return new TemplateMeta(target, budget, output, variables, tools, calls, List.of());
     }
 }

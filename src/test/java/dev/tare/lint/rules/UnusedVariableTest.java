@@ -36,6 +36,15 @@ class UnusedVariableTest {
     }
 
     @Test
+    void anInputOrSampleNothingReadsIsReportedWhereItIsGiven() {
+        String text = "---\ninputs:\n  district: North Hill\n  meter: {type: string, sample: A-17}\nsample:\n  street: Elm\n"
+                + "---\nuser:\nIs {{ district }} affected?\n";
+        List<Finding> found = findings(rule, text);
+        assertEquals(List.of(4, 6), found.stream().map(Finding::line).toList(), "meter under inputs, street under sample");
+        assertTrue(found.get(1).message().startsWith("'street' is declared but never used"), found.get(1).message());
+    }
+
+    @Test
     void theWalkedListOfALoopCountsAsUsed() {
         String text = "---\nvariables:\n  readings: {tokens: 40}\n---\n{% for r in readings %}- {{ r.date }}\n{% endfor %}\n";
         assertTrue(findings(rule, text).isEmpty());
