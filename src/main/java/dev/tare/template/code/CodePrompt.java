@@ -17,7 +17,7 @@ import java.util.Set;
  * @param name     the variable, key or call it was found in ({@code SYSTEM_PROMPT}, {@code messages.content},
  *                 {@code client.chat}), or what its {@code tare:} comment names
  * @param role     the chat role it speaks in, when the code says one ({@code "role": "system"} beside it,
- *                 a {@code system} key or argument, a call such as {@code SystemMessage(...)})
+ *                 a {@code system} key or argument, a call such as {@code SystemMsg(...)})
  * @param line     1-based file line of its first literal (or of the expression joined before it)
  * @param column   1-based column (UTF-16 code units) there
  * @param start    file offset there: where the literals and what is joined to them start

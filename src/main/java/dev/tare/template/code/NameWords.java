@@ -89,7 +89,7 @@ final class NameWords {
         return prompt;
     }
 
-    /** The chat role a name speaks for ({@code SystemMessage}, {@code user_prompt}), if it says one. */
+    /** The chat role a name speaks for ({@code SystemMsg}, {@code user_prompt}), if it says one. */
     static String role(String name) {
         List<String> parts = of(name);
         if (parts.contains("system")) {

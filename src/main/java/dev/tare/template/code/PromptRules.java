@@ -87,7 +87,7 @@ final class PromptRules {
 
     /**
      * Whether a call's name says its argument is a prompt: an annotation or a setter, builder or
-     * constructor named by a strong word ({@code SystemMessage}, {@code withInstructions}); "system"
+     * constructor named by a strong word ({@code SystemMsg}, {@code withInstructions}); "system"
      * alone is a shell command's name, so it needs a second word.
      */
     static boolean callSaysPrompt(Callee callee) {

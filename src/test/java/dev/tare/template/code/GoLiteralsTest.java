@@ -81,7 +81,7 @@ class GoLiteralsTest {
 
                 func messages(userPrompt string) []Message {
                 	return []Message{
-                		{Role: openai.ChatMessageRoleSystem, Content: "Answer only about water quality results, briefly."},
+                		{Role: chat.RoleSystem, Content: "Answer only about water quality results, briefly."},
                 		{Role: "user", Content: userPrompt + " Please answer in two sentences."},
                 	}
                 }

@@ -114,10 +114,10 @@ class PromptRulesTest {
     void callsNamedForPromptsTakeThemButASystemCallIsAShellCommand() {
         String source = """
                 class Assistant {
-                    @SystemMessage("%1$s")
+                    @SystemText("%1$s")
                     String chat(String question);
                     void build() {
-                        var messages = List.of(new SystemMessage("%1$s"), UserMessage.from("%1$s"));
+                        var messages = List.of(new SystemMsg("%1$s"), UserTurnMessage.of("%1$s"));
                         builder.systemPrompt("%1$s").setInstructions("%1$s");
                         Runtime.system("%1$s");
                         notify.sendMessage("%1$s");
@@ -125,7 +125,7 @@ class PromptRulesTest {
                 }
                 """.formatted(LONG);
         CodePrompts found = find(Language.JAVA, source);
-        assertEquals(List.of("SystemMessage", "SystemMessage", "UserMessage.from", "builder.systemPrompt",
+        assertEquals(List.of("SystemText", "SystemMsg", "UserTurnMessage.of", "builder.systemPrompt",
                 "builder.systemPrompt.setInstructions"), names(found));
         assertEquals(Optional.of("system"), found.prompts().get(0).role());
         assertEquals(Optional.of("user"), found.prompts().get(2).role());
