@@ -70,29 +70,25 @@ final class DecodedText {
         return variables;
     }
 
-    /** Marks the characters appended from now on as coming from another literal or operand. */
-    void nextPiece() {
-        currentPiece++;
+    /** Marks the characters added from now on as coming from piece {@code piece}, such as the piece of the text they replace. */
+    void usePiece(int piece) {
+        currentPiece = piece;
     }
 
-    /** A character the file holds as itself at {@code at} (in the view's terms when it is not direct). */
+    /** Character {@code i} of the view, one to one when the file holds it as itself there. */
     void copied(SourceView view, int i) {
-        if (view.direct(i)) {
-            add(view.charAt(i), view.from(i), view.to(i), true, -1);
-        } else {
-            add(view.charAt(i), view.from(i), view.to(i), false, -1);
-        }
+        add(view.charAt(i), view.from(i), view.to(i), view.direct(i), -1, currentPiece);
     }
 
     /** Characters that stand for the file's {@code [from, to)} without being written there as such. */
     void decoded(CharSequence chars, int fromOffset, int toOffset) {
         for (int k = 0; k < chars.length(); k++) {
-            add(chars.charAt(k), fromOffset, toOffset, false, -1);
+            add(chars.charAt(k), fromOffset, toOffset, false, -1, currentPiece);
         }
     }
 
     void decoded(char c, int fromOffset, int toOffset) {
-        add(c, fromOffset, toOffset, false, -1);
+        add(c, fromOffset, toOffset, false, -1, currentPiece);
     }
 
     /** A variable named {@code name}, shown in the text as {@code shown}, written at the file's {@code [from, to)}. */
@@ -100,12 +96,16 @@ final class DecodedText {
         int index = variables.size();
         variables.add(new Variable(name, fromOffset, toOffset));
         for (int k = 0; k < shown.length(); k++) {
-            add(shown.charAt(k), fromOffset, toOffset, false, index);
+            add(shown.charAt(k), fromOffset, toOffset, false, index, currentPiece);
         }
     }
 
-    /** Character {@code i} of {@code other}, as it is (its variable carried over), in the current piece. */
+    /** Character {@code i} of {@code other}, as it is: its variable and its piece carried over. */
     void copy(DecodedText other, int i) {
+        copy(other, i, other.piece[i]);
+    }
+
+    private void copy(DecodedText other, int i, int pieceIndex) {
         int index = other.variable[i];
         if (index >= 0) {
             Variable carried = other.variables.get(index);
@@ -114,7 +114,8 @@ final class DecodedText {
             }
             index = variables.size() - 1;
         }
-        add(other.text.charAt(i), other.from[i], other.to[i], other.exact[i], index);
+        add(other.text.charAt(i), other.from[i], other.to[i], other.exact[i], index, pieceIndex);
+        currentPiece = pieceIndex;
     }
 
     /** Character {@code i} of {@code other} as it is, but no longer one to one. */
@@ -124,20 +125,18 @@ final class DecodedText {
         exact[before] = false;
     }
 
-    /** All of {@code other}, starting a new piece. */
+    /** All of {@code other} after what is here, its pieces kept apart from these. */
     void append(DecodedText other) {
-        nextPiece();
-        int lastPiece = -1;
+        int base = length() == 0 ? currentPiece : currentPiece + 1;
+        int last = base;
         for (int i = 0; i < other.length(); i++) {
-            if (other.piece[i] != lastPiece && i > 0) {
-                nextPiece();
-            }
-            lastPiece = other.piece[i];
-            copy(other, i);
+            last = Math.max(last, base + other.piece[i]);
+            copy(other, i, base + other.piece[i]);
         }
+        currentPiece = last;
     }
 
-    private void add(char c, int fromOffset, int toOffset, boolean isExact, int variableIndex) {
+    private void add(char c, int fromOffset, int toOffset, boolean isExact, int variableIndex, int pieceIndex) {
         int n = text.length();
         if (n == from.length) {
             int size = n * 2;
@@ -152,6 +151,6 @@ final class DecodedText {
         to[n] = toOffset;
         exact[n] = isExact;
         variable[n] = variableIndex;
-        piece[n] = currentPiece;
+        piece[n] = pieceIndex;
     }
 }

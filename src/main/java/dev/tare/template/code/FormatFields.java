@@ -29,6 +29,7 @@ final class FormatFields {
                 i++;
                 continue;
             }
+            out.usePiece(text.pieceAt(i));
             if (i + 1 < n && text.charAt(i + 1) == c && text.variableAt(i + 1) < 0) {
                 out.decoded(c, text.from(i), text.to(i + 1));
                 i += 2;
@@ -104,6 +105,7 @@ final class FormatFields {
                 continue;
             }
             int end = spec.end();
+            out.usePiece(text.pieceAt(i));
             if (spec.conversion() == '%') {
                 out.decoded('%', text.from(i), text.to(end - 1));
             } else if (spec.conversion() == 'n' && dialect == Dialect.JAVA) {

@@ -128,6 +128,7 @@ final class JavaLexer extends CodeLexer {
                 continue;
             }
             char e = raw.charAt(k + 1);
+            out.usePiece(raw.pieceAt(k));
             char simple = switch (e) {
                 case 'b' -> '\b';
                 case 't' -> '\t';

@@ -162,6 +162,7 @@ final class StringMethods {
             char c = text.charAt(k);
             if (c == '\t' && text.variableAt(k) < 0) {
                 int spaces = 8 - column % 8;
+                out.usePiece(text.pieceAt(k));
                 out.decoded(" ".repeat(spaces), text.from(k), text.to(k));
                 column += spaces;
                 continue;

@@ -136,6 +136,21 @@ class PythonLiteralsTest {
     }
 
     @Test
+    void textPartsStayInsideOneLiteralAfterFormatting() {
+        String source = """
+                REMINDER_PROMPT = ("Plan {} renews "
+                                   "for {customer} on {{day one}}.").format(plan, customer=name).strip()
+                """;
+        CodePrompt prompt = only(python(source));
+        assertEquals(List.of("Plan ", "{}", " renews ", "for ", "{customer}", " on {day one}."),
+                prompt.parts().stream().map(CodePart::text).toList());
+        for (CodePart part : prompt.parts()) {
+            String written = source.substring(part.sourceStart(), part.sourceEnd());
+            assertFalse(written.contains("\n"), () -> "part " + part.text() + " is written as " + written);
+        }
+    }
+
+    @Test
     void percentFormattingMakesItsSpecifiersVariables() {
         String source = "SUMMARY_PROMPT = \"Summarize the call about %s in %d lines for %(team)s, 100%% sure.\" % (account, 3)\n";
         CodePrompt prompt = only(python(source));
