@@ -1,5 +1,7 @@
 package dev.tare.template.code;
 
+import dev.tare.template.ContentOrigin;
+import dev.tare.template.Message;
 import dev.tare.template.Segment;
 import dev.tare.template.Span;
 import dev.tare.template.TemplateMeta;
@@ -48,6 +50,15 @@ public record CodePrompt(String name, Optional<String> role, int line, int colum
             part.variable().ifPresent(names::add);
         }
         return names;
+    }
+
+    /**
+     * The prompt as one message of a template: its role (or {@value Message#TEXT_ROLE}), its value as
+     * the content, and its {@link #segments(String) segments}. Its origin places findings at the
+     * prompt's line and lets no edit through; editing the file needs the {@link #map()}.
+     */
+    public Message message(String source) {
+        return new Message(role.orElse(Message.TEXT_ROLE), value, segments(source), new ContentOrigin.Made(line));
     }
 
     /**

@@ -7,6 +7,8 @@ import static dev.tare.template.code.CodeSamples.only;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import dev.tare.template.ContentOrigin;
+import dev.tare.template.Message;
 import dev.tare.template.Segment;
 import dev.tare.template.TemplateMeta;
 import dev.tare.template.VariableSpec;
@@ -300,5 +302,7 @@ class PromptRulesTest {
         int end = segments.get(segments.size() - 1).span().end();
         assertEquals(prompt.value().length(), end);
         assertTrue(segments.stream().allMatch(s -> s.span().end() <= prompt.value().length()));
+        Message message = prompt.message(source);
+        assertEquals(new Message("user", prompt.value(), segments, new ContentOrigin.Made(1)), message);
     }
 }
