@@ -66,7 +66,8 @@ public final class TestSummary {
                     } else if (test.getElementsByTagName("skipped").getLength() > 0) {
                         Element skip = (Element) test.getElementsByTagName("skipped").item(0);
                         skipped.add(simpleName(test.getAttribute("classname")) + "." + test.getAttribute("name")
-                                + ": " + reason(skip.getAttribute("message")));
+                                + ": " + reason(skip.getAttribute("message").isBlank() ? skip.getTextContent()
+                                : skip.getAttribute("message")));
                     }
                 }
             }

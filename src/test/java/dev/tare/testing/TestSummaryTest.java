@@ -23,15 +23,17 @@ class TestSummaryTest {
                 """);
         Files.writeString(target.resolve("failsafe-reports/TEST-dev.tare.BIT.xml"), """
                 <?xml version="1.0" encoding="UTF-8"?>
-                <testsuite name="dev.tare.BIT" tests="2" failures="0" errors="0" skipped="1">
+                <testsuite name="dev.tare.BIT" tests="3" failures="0" errors="0" skipped="2">
                   <testcase name="browser" classname="dev.tare.report.BIT">
                     <skipped message="Assumption failed: skipped: /usr/bin/chromium is not installed&#10;more"/>
                   </testcase>
                   <testcase name="launcher" classname="dev.tare.BIT"/>
+                  <testcase name="gofmt" classname="dev.tare.BIT"><skipped>gofmt is not installed</skipped></testcase>
                 </testsuite>
                 """);
         Files.writeString(target.resolve("failsafe-reports/failsafe-summary.xml"), "<failsafe-summary/>");
-        assertEquals("tests: 3 passed, 1 failed, 1 skipped (BIT.browser: /usr/bin/chromium is not installed)",
+        assertEquals("tests: 3 passed, 1 failed, 2 skipped (BIT.browser: /usr/bin/chromium is not installed;"
+                        + " BIT.gofmt: gofmt is not installed)",
                 TestSummary.of(target).line());
     }
 }
