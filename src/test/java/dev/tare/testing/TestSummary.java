@@ -86,7 +86,7 @@ public final class TestSummary {
 
     private static String reason(String message) {
         String first = message.lines().findFirst().orElse("no reason given").strip();
-        first = first.replaceFirst("^Assumption failed: ", "").replaceFirst("^skipped: ", "");
+        first = first.replaceFirst("^(\\S+Exception: )?Assumption failed: ", "").replaceFirst("^skipped: ", "");
         return first.length() > REASON_CHARS ? first.substring(0, REASON_CHARS - 3) + "..." : first;
     }
 }
