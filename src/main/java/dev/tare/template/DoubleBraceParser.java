@@ -439,9 +439,9 @@ final class DoubleBraceParser extends SegmentParser {
     }
 
     /** Names the text defines with a pattern whose first group is the name, looked for only when {@code word} occurs. */
-    private static Set<String> names(Pattern pattern, String text, int start, int end, String word) {
+    private static Set<String> names(Pattern pattern, String text, int start, int end, String... statements) {
         Set<String> names = new HashSet<>();
-        if (!hasStatement(text, start, end, word)) {
+        if (!hasStatement(text, start, end, statements)) {
             return names;
         }
         Matcher matcher = pattern.matcher(text).region(start, end);
@@ -452,17 +452,23 @@ final class DoubleBraceParser extends SegmentParser {
     }
 
     /**
-     * Whether a statement tag in {@code text[start, end)} holds {@code word}: most templates have no
-     * macro or import, and their prose often has the word ("important"), so the tags are looked at
-     * before any pattern runs over the whole text.
+     * Whether a statement tag in {@code text[start, end)} begins with one of {@code words} (its first
+     * word after {@code {%} and any whitespace control): most templates have no macro or import, so
+     * the tags are looked at, each once, before any pattern runs over the whole text.
      */
-    private static boolean hasStatement(String text, int start, int end, String word) {
+    private static boolean hasStatement(String text, int start, int end, String... words) {
         for (int open = text.indexOf("{%", start); open >= 0 && open < end; open = text.indexOf("{%", open + 2)) {
-            int close = text.indexOf("%}", open + 2);
-            int stop = close < 0 || close > end ? end : close;
-            int at = text.indexOf(word, open + 2);
-            if (at >= 0 && at < stop) {
-                return true;
+            int at = open + 2;
+            if (at < end && "-+".indexOf(text.charAt(at)) >= 0) {
+                at++;
+            }
+            while (at < end && Character.isWhitespace(text.charAt(at))) {
+                at++;
+            }
+            for (String word : words) {
+                if (text.startsWith(word, at)) {
+                    return true;
+                }
             }
         }
         return false;
@@ -471,7 +477,7 @@ final class DoubleBraceParser extends SegmentParser {
     /** The names {@code {% import ... as m %}} and {@code {% from ... import a, b as c %}} bind. */
     private static Set<String> importedNames(String text, int start, int end) {
         Set<String> names = names(IMPORT_AS, text, start, end, "import");
-        for (String list : names(FROM_IMPORT, text, start, end, "import")) {
+        for (String list : names(FROM_IMPORT, text, start, end, "from")) {
             for (String item : list.split(",")) {
                 String[] words = item.strip().split("\\s+");
                 names.add(words[words.length - 1]);

@@ -144,6 +144,31 @@ abstract class CodeLexer {
     }
 
     /** Ends the file's extraction at view offset {@code at}, saying where and what. */
+    /** The {@code //} or {@code /*} comment of the C family that starts at {@code i}: the offset past it. */
+    final int slashComment(int i) {
+        return at(i + 1, '/') ? lineComment(i, 2) : blockComment(i, "the comment");
+    }
+
+    /**
+     * Skips a quoted character (Java's character literal, Go's rune), never part of a prompt, to its
+     * closing quote on the same line; {@code what} names it in the reason when it is not closed.
+     */
+    final int oneCharacter(int i, String what) {
+        for (int j = i + 1; j < length; j++) {
+            char c = text.charAt(j);
+            if (c == '\\') {
+                j++;
+            } else if (c == '\'') {
+                tokens.add(CodeTokens.VALUE, i, j + 1);
+                return j + 1;
+            } else if (c == '\n' || c == '\r') {
+                break;
+            }
+        }
+        fail(i, "the " + what + " opened here is not closed before the end of its line; close it with '");
+        return length;
+    }
+
     final void fail(int at, String message) {
         int offset = view.from(Math.min(at, length));
         tokens.stop("line " + lines.line(offset) + ", column " + lines.column(offset) + ": " + message

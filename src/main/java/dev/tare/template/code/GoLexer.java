@@ -18,11 +18,8 @@ final class GoLexer extends CodeLexer {
     @Override
     int special(int i) {
         char c = text.charAt(i);
-        if (c == '/' && at(i + 1, '/')) {
-            return lineComment(i, 2);
-        }
-        if (c == '/' && at(i + 1, '*')) {
-            return blockComment(i, "the comment");
+        if (c == '/' && (at(i + 1, '/') || at(i + 1, '*'))) {
+            return slashComment(i);
         }
         if (c == '"') {
             return interpreted(i);
@@ -31,7 +28,7 @@ final class GoLexer extends CodeLexer {
             return raw(i);
         }
         if (c == '\'') {
-            return rune(i);
+            return oneCharacter(i, "rune literal");
         }
         return -1;
     }
@@ -50,22 +47,6 @@ final class GoLexer extends CodeLexer {
         }
         tokens.add(CodeTokens.STRING, i, close + 1, new CodeTokens.StringLiteral(out, false));
         return close + 1;
-    }
-
-    private int rune(int i) {
-        for (int j = i + 1; j < length; j++) {
-            char c = text.charAt(j);
-            if (c == '\\') {
-                j++;
-            } else if (c == '\'') {
-                tokens.add(CodeTokens.VALUE, i, j + 1);
-                return j + 1;
-            } else if (c == '\n' || c == '\r') {
-                break;
-            }
-        }
-        fail(i, "the rune literal opened here is not closed before the end of its line; close it with '");
-        return length;
     }
 
     private int interpreted(int i) {

@@ -16,11 +16,8 @@ final class JavaLexer extends CodeLexer {
     @Override
     int special(int i) {
         char c = text.charAt(i);
-        if (c == '/' && at(i + 1, '/')) {
-            return lineComment(i, 2);
-        }
-        if (c == '/' && at(i + 1, '*')) {
-            return blockComment(i, "the comment");
+        if (c == '/' && (at(i + 1, '/') || at(i + 1, '*'))) {
+            return slashComment(i);
         }
         if (c == '"' && text.startsWith("\"\"\"", i)) {
             return textBlock(i);
@@ -29,7 +26,7 @@ final class JavaLexer extends CodeLexer {
             return string(i);
         }
         if (c == '\'') {
-            return character(i);
+            return oneCharacter(i, "character literal");
         }
         return -1;
     }
@@ -93,22 +90,6 @@ final class JavaLexer extends CodeLexer {
     private int copy(DecodedText out, int j) {
         out.copied(view, j);
         return j + 1;
-    }
-
-    private int character(int i) {
-        for (int j = i + 1; j < length; j++) {
-            char c = text.charAt(j);
-            if (c == '\\') {
-                j++;
-            } else if (c == '\'') {
-                tokens.add(CodeTokens.VALUE, i, j + 1);
-                return j + 1;
-            } else if (c == '\n' || c == '\r') {
-                break;
-            }
-        }
-        fail(i, "the character literal opened here is not closed before the end of its line; close it with '");
-        return length;
     }
 
     /**

@@ -34,11 +34,8 @@ final class ScriptLexer extends CodeLexer {
     @Override
     int special(int i) {
         char c = text.charAt(i);
-        if (c == '/' && at(i + 1, '/')) {
-            return lineComment(i, 2);
-        }
-        if (c == '/' && at(i + 1, '*')) {
-            return blockComment(i, "the comment");
+        if (c == '/' && (at(i + 1, '/') || at(i + 1, '*'))) {
+            return slashComment(i);
         }
         if (c == '/' && i >= noRegexUntil && regexMayStart()) {
             return regex(i);
