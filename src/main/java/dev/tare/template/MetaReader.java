@@ -104,6 +104,16 @@ final class MetaReader {
                         variable("sample." + entry.getKey(), TextNode.valueOf(text))));
             }
         }
+        // A serialized prompt object's partial variables are filled in when it is built, the same on
+        // every call: their values are what those variables render to.
+        JsonNode partial = root.get("partial_variables");
+        if (partial != null && partial.isObject()) {
+            for (Iterator<Map.Entry<String, JsonNode>> it = partial.fields(); it.hasNext(); ) {
+                Map.Entry<String, JsonNode> entry = it.next();
+                sampleText(entry.getValue()).ifPresent(text -> all.putIfAbsent(entry.getKey(),
+                        variable("partial_variables." + entry.getKey(), TextNode.valueOf(text))));
+            }
+        }
         JsonNode inputs = root.get("inputs");
         if (inputs != null && inputs.isObject()) {
             for (Iterator<Map.Entry<String, JsonNode>> it = inputs.fields(); it.hasNext(); ) {

@@ -48,6 +48,19 @@ class PromptObjectTest {
     }
 
     @Test
+    void partialVariablesAreFilledInAsTheyAreWhenTheObjectIsBuilt() {
+        String yaml = """
+                input_variables: [customer]
+                partial_variables: {utility: Alder Creek Water}
+                template: "Dear {customer}, {utility} is working on the main."
+                """;
+        Template template = Templates.parse(DOUBLE_BRACE, "notice.yaml", yaml);
+        assertEquals(List.of("Dear , Alder Creek Water is working on the main."),
+                Templates.renderer(DOUBLE_BRACE, Map.of()).renderWithSamples(template).messages());
+        assertTrue(template.meta().variables().get("utility").sample().isPresent());
+    }
+
+    @Test
     void theFormatIsFStringUnlessItSaysJinjaOrMustache() {
         String json = "{\"input_variables\": [\"question\"], \"template\": \"Answer {{ question }} in {lang}.\","
                 + " \"template_format\": \"jinja2\"}";
