@@ -281,11 +281,11 @@ public final class TemplateScan {
                 // A provider reads the tool definitions first, so they open the static prefix.
                 int toolPart = 0;
                 for (Template toolFile : tools) {
-                    int definitions = target.scaled(toolTokens(toolFile, tokenizer));
-                    int around = Framing.toolTokens(target, toolFile.messages().size());
-                    estimated += definitions;
-                    framing += around;
-                    toolPart += definitions + around;
+                    Estimates.SentTools sent = Estimates.sentTools(target, toolTokens(toolFile, tokenizer),
+                            toolFile.messages().size());
+                    estimated += sent.definitions();
+                    framing += sent.framing();
+                    toolPart += sent.total();
                 }
                 int output = template.meta().outputTokens().orElse(target.outputTokens().orElse(0));
                 int input = estimated + framing;

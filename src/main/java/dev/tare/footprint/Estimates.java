@@ -30,6 +30,25 @@ public final class Estimates {
         return total;
     }
 
+    /**
+     * What a tool file adds to a call on {@code target}: its definitions as the provider counts them
+     * (the local count, scaled) and the target's framing around each of its tools.
+     *
+     * @param definitions the scaled tokens of the definitions
+     * @param framing     the per-tool framing tokens
+     */
+    public record SentTools(int definitions, int framing) {
+        /** Both parts: what the tools add to the call's input and to its static prefix. */
+        public int total() {
+            return definitions + framing;
+        }
+    }
+
+    /** The tokens {@code tools} definitions, {@code counted} locally, add to a call on {@code target}. */
+    public static SentTools sentTools(Target target, int counted, int tools) {
+        return new SentTools(target.scaled(counted), Framing.toolTokens(target, tools));
+    }
+
     /** Tokens declared for variables without samples, once per occurrence. */
     public static int declaredTokens(Rendering rendering) {
         int total = 0;

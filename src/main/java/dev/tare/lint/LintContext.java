@@ -3,7 +3,6 @@ package dev.tare.lint;
 import dev.tare.TareException;
 import dev.tare.config.TareConfig;
 import dev.tare.footprint.Estimates;
-import dev.tare.footprint.Framing;
 import dev.tare.footprint.PrefixCache;
 import dev.tare.footprint.Target;
 import dev.tare.overlap.RepositoryWords;
@@ -282,8 +281,8 @@ public final class LintContext {
         template.inlineToolFile().ifPresent(sent::add);
         int total = 0;
         for (Template tools : sent) {
-            total += target.scaled(Estimates.tokens(tokenizer(target), renderer.renderStatic(tools)))
-                    + Framing.toolTokens(target, tools.messages().size());
+            total += Estimates.sentTools(target, Estimates.tokens(tokenizer(target), renderer.renderStatic(tools)),
+                    tools.messages().size()).total();
         }
         return total;
     }
