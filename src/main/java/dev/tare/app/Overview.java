@@ -27,7 +27,7 @@ public record Overview(ScanResult scan, CheckResult check, List<RuleTally> rules
         lines = List.copyOf(lines);
     }
 
-    /** Tokens per call that the offered rewrites of one class would save, summed (a planning estimate). */
+    /** Tokens per call that fix saves applying the rewrites of one class (a planning estimate, from a dry run). */
     public long savingTokens(RewriteClass rewriteClass) {
         return RuleTally.sumSavings(rules, rewriteClass);
     }

@@ -12,8 +12,8 @@ import java.util.List;
 import java.util.Map;
 
 /**
- * One rule's findings in a check, summed: how many, in how many files, and the tokens its offered
- * rewrites would save per call (a planning estimate, summed over rewrites measured one by one).
+ * One rule's findings in a check, summed: how many, in how many files, and the tokens its rewrites
+ * save per call when fix applies them (a planning estimate, from a dry run of fix).
  *
  * @param rule         the rule's id
  * @param severity     the severity of its findings, as configured
@@ -21,7 +21,7 @@ import java.util.Map;
  * @param findings     how many findings it has
  * @param files        in how many distinct files
  * @param rewrites     how many of them offer a rewrite
- * @param savingTokens the tokens those rewrites save, summed
+ * @param savingTokens the tokens fix saves applying those rewrites, each file on its own tokenizer
  */
 public record RuleTally(String rule, Severity severity, RewriteClass rewriteClass, int findings, int files,
                         int rewrites, long savingTokens) {

@@ -92,7 +92,7 @@ public final class HtmlReport {
                         + CheckReport.plural(check.count(Severity.WARNING), "warning") + ", "
                         + CheckReport.plural(check.count(Severity.INFO), "info"));
         tile(out, "Tokens saved by rewrites", number(overview.savingTokens(RewriteClass.SAFE)
-                        + overview.savingTokens(RewriteClass.REVIEW), "check.saving_tokens", "tokens"),
+                        + overview.savingTokens(RewriteClass.REVIEW), "fix.saving_tokens", "tokens"),
                 "per call: " + Figures.count(overview.savingTokens(RewriteClass.SAFE)) + " safe, "
                         + Figures.count(overview.savingTokens(RewriteClass.REVIEW)) + " to review");
         out.append("</dl></section>\n");

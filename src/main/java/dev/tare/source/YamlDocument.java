@@ -185,13 +185,14 @@ public final class YamlDocument {
         if (e.getOriginalMessage() != null && e.getOriginalMessage().startsWith("Duplicate field '")) {
             String name = e.getOriginalMessage().substring("Duplicate field '".length());
             name = name.substring(0, Math.max(0, name.indexOf('\'')));
-            return at(e.getLocation()) + "the key '" + name + "' appears twice in one mapping; keep one";
+            return where(e.getLocation()) + "the key '" + name + "' appears twice in one mapping; keep one";
         }
-        return at(e.getLocation()) + JSON_OPENED.matcher(firstLine(e.getOriginalMessage())).replaceAll("(opened on line $2)")
+        return where(e.getLocation()) + JSON_OPENED.matcher(firstLine(e.getOriginalMessage())).replaceAll("(opened on line $2)")
                 + "; fix the syntax there";
     }
 
-    private static String at(JsonLocation location) {
+    /** "line L, column C: " for a parser's location, or nothing when it has none. */
+    private static String where(JsonLocation location) {
         return location == null || location.getLineNr() < 1 ? ""
                 : "line " + location.getLineNr() + ", column " + location.getColumnNr() + ": ";
     }

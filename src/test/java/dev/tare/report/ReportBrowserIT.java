@@ -176,7 +176,7 @@ class ReportBrowserIT {
         assertTotal("[data-total='totals.static_tokens']", totals.get("static_tokens").asDouble());
         assertTotal("[data-total='totals.estimated_tokens']", totals.get("estimated_tokens").asDouble());
         assertTotal("[data-total='check.findings']", check.get("findings").size());
-        assertTotal("[data-total='check.saving_tokens']", fixSavings().values().stream().mapToDouble(d -> d).sum());
+        assertTotal("[data-total='fix.saving_tokens']", fixSavings().values().stream().mapToDouble(d -> d).sum());
         for (String target : names(scan.get("targets_selected"))) {
             String at = "[data-target='" + target + "']";
             assertTotal(at + "[data-total='input_tokens']", totals.get("targets").get(target).get("input_tokens").asDouble());
