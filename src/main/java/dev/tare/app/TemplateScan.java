@@ -18,6 +18,7 @@ import dev.tare.template.Rendering;
 import dev.tare.template.Segment;
 import dev.tare.template.Template;
 import dev.tare.template.TemplateKind;
+import dev.tare.tokenize.LineCounts;
 import dev.tare.tokenize.Tokenizer;
 import dev.tare.tokenize.TokenizerRegistry;
 import dev.tare.workspace.FileSelection;
@@ -191,36 +192,33 @@ public final class TemplateScan {
      */
     private static final class Counts {
         /** A rendering's messages as counted on one tokenizer. */
-        private record MessageCounts(List<String> messages, int[] counts) {
+        private record MessageCounts(List<String> messages, LineCounts[] counts) {
         }
 
         private final Map<Tokenizer, List<MessageCounts>> byTokenizer = new java.util.IdentityHashMap<>();
 
         /**
-         * The rendering's count. A message is looked for only at its own place in the renderings
-         * counted before on the same tokenizer, where its twin stands (the static and the sample
-         * rendering hold the same messages in the same order): unlike a map of texts, that never
-         * hashes a message of thousands of characters, and stays linear in a chat of thousands of
-         * messages.
+         * The rendering's count. A message is compared only with its twin, the message at its own
+         * place in the first rendering counted on the same tokenizer (the static, sample and
+         * shortest-path renderings hold their messages in the same order): an equal twin gives its
+         * count, and a different one leaves to count only the lines where the two differ. Unlike a
+         * map of texts, that never hashes a message of thousands of characters, and stays linear in a
+         * chat of thousands of messages.
          */
         int of(Tokenizer tokenizer, Rendering rendering) {
             List<MessageCounts> before = byTokenizer.computeIfAbsent(tokenizer, t -> new ArrayList<>(3));
             List<String> messages = rendering.messages();
-            int[] counts = new int[messages.size()];
+            LineCounts[] counts = new LineCounts[messages.size()];
             int total = 0;
             for (int i = 0; i < counts.length; i++) {
-                counts[i] = -1;
                 String message = messages.get(i);
-                for (MessageCounts counted : before) {
-                    if (i < counted.messages().size() && counted.messages().get(i).equals(message)) {
-                        counts[i] = counted.counts()[i];
-                        break;
-                    }
+                if (before.isEmpty() || i >= before.get(0).messages().size()) {
+                    counts[i] = tokenizer.countLines(message);
+                } else {
+                    MessageCounts first = before.get(0);
+                    counts[i] = LineCounts.whole(first.counts()[i].countOf(message, first.messages().get(i), tokenizer));
                 }
-                if (counts[i] < 0) {
-                    counts[i] = tokenizer.count(message);
-                }
-                total += counts[i];
+                total += counts[i].total();
             }
             before.add(new MessageCounts(messages, counts));
             return total;

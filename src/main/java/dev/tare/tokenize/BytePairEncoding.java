@@ -57,6 +57,35 @@ final class BytePairEncoding implements Tokenizer {
     }
 
     @Override
+    public LineCounts countLines(String text) {
+        if (!pretokenizer.keepsLinesApart()) {
+            return LineCounts.whole(count(text));
+        }
+        Scratch own = scratch.get();
+        int length = text.length();
+        char[] chars = own.chars(text);
+        int[] starts = new int[16];
+        int[] before = new int[16];
+        int lines = 0;
+        int total = 0;
+        for (int start = 0; start < length; ) {
+            if (Pretokenizer.isSafeLineStart(chars, start, length)) {
+                if (lines == starts.length) {
+                    starts = Arrays.copyOf(starts, lines * 2);
+                    before = Arrays.copyOf(before, lines * 2);
+                }
+                starts[lines] = start;
+                before[lines++] = total;
+            }
+            int end = pretokenizer.pieceEnd(chars, start, length);
+            int ids = own.cache.count(chars, start, end);
+            total += ids >= 0 ? ids : piece(own.cache, chars, start, end).length;
+            start = end;
+        }
+        return new LineCounts(total, Arrays.copyOf(starts, lines), Arrays.copyOf(before, lines));
+    }
+
+    @Override
     public int[] encode(String text) {
         Scratch own = scratch.get();
         int length = text.length();

@@ -24,6 +24,11 @@ final class Cl100kPieces extends Pretokenizer {
     }
 
     @Override
+    boolean keepsLinesApart() {
+        return true;
+    }
+
+    @Override
     int pieceEnd(char[] text, int start, int length) {
         if (text[start] == '\'') {
             int end = contraction(text, start, length);

@@ -32,6 +32,11 @@ final class O200kPieces extends Pretokenizer {
     }
 
     @Override
+    boolean keepsLinesApart() {
+        return true;
+    }
+
+    @Override
     int pieceEnd(char[] text, int start, int length) {
         int word = asciiWord(text, start, length);
         if (word >= 0) {

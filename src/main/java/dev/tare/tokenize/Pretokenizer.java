@@ -19,6 +19,27 @@ abstract class Pretokenizer {
     /** The published pattern this splitter follows, for differential tests. */
     abstract String pattern();
 
+    /**
+     * Whether no piece runs into a line that starts with a visible ASCII char other than {@code /}
+     * (a safe line start): true of the patterns that end a run of whitespace at its last line break
+     * ({@code \s*[\r\n]+}) before they try runs that look ahead ({@code \s+(?!\S)}), and whose one
+     * piece that takes in line breaks after other chars takes nothing after them but {@code /}. The
+     * pieces before such a line start are then the same alone as within the text.
+     */
+    boolean keepsLinesApart() {
+        return false;
+    }
+
+    /** Whether {@code at} is a safe line start of {@code text[0, length)}, in the sense of {@link #keepsLinesApart}. */
+    static boolean isSafeLineStart(char[] text, int at, int length) {
+        return at > 0 && at < length && text[at - 1] == '\n' && isSafeLineStart(text[at]);
+    }
+
+    /** Whether a line that starts with {@code c} after a line break starts at a safe line start. */
+    static boolean isSafeLineStart(char c) {
+        return c > ' ' && c < 0x7f && c != '/';
+    }
+
     /** Shared steps of the patterns, on code points. */
     static final class Steps {
         private Steps() {

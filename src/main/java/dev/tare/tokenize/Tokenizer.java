@@ -22,6 +22,15 @@ public interface Tokenizer {
         return count(new String(text, 0, length));
     }
 
+    /**
+     * The count of {@code text} with the count before each of its safe line starts, from which
+     * {@link LineCounts#countOf} counts a text that differs from it in a few lines; without them for
+     * an encoding whose pieces may run from one line into the next.
+     */
+    default LineCounts countLines(String text) {
+        return LineCounts.whole(count(text));
+    }
+
     /** The token ids of {@code text}, in order. */
     int[] encode(String text);
 
