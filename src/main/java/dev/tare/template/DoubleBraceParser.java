@@ -62,8 +62,10 @@ final class DoubleBraceParser extends SegmentParser {
             this.end = end;
             this.locator = locator;
             this.out = new Builder(text, locator);
-            this.macros = names(MACRO, text, start, end, "macro");
-            this.imported = importedNames(text, start, end);
+            Set<String> statements = statementWords(text, start, end);
+            this.macros = statements.contains("macro") ? names(MACRO, text, start, end) : Set.of();
+            this.imported = statements.contains("import") || statements.contains("from")
+                    ? importedNames(text, start, end) : Set.of();
             this.textStart = start;
         }
 
@@ -438,12 +440,9 @@ final class DoubleBraceParser extends SegmentParser {
         }
     }
 
-    /** Names the text defines with a pattern whose first group is the name, looked for only when {@code word} occurs. */
-    private static Set<String> names(Pattern pattern, String text, int start, int end, String... statements) {
+    /** Names the text defines with a pattern whose first group is the name. */
+    private static Set<String> names(Pattern pattern, String text, int start, int end) {
         Set<String> names = new HashSet<>();
-        if (!hasStatement(text, start, end, statements)) {
-            return names;
-        }
         Matcher matcher = pattern.matcher(text).region(start, end);
         while (matcher.find()) {
             names.add(matcher.group(1));
@@ -452,11 +451,12 @@ final class DoubleBraceParser extends SegmentParser {
     }
 
     /**
-     * Whether a statement tag in {@code text[start, end)} begins with one of {@code words} (its first
-     * word after {@code {%} and any whitespace control): most templates have no macro or import, so
-     * the tags are looked at, each once, before any pattern runs over the whole text.
+     * The first word of each statement tag in {@code text[start, end)}, after {@code {%} and any
+     * whitespace control: most templates have no macro or import, so the tags are looked at, all in
+     * one pass, before any pattern runs over the whole text.
      */
-    private static boolean hasStatement(String text, int start, int end, String... words) {
+    private static Set<String> statementWords(String text, int start, int end) {
+        Set<String> words = new HashSet<>();
         for (int open = text.indexOf("{%", start); open >= 0 && open < end; open = text.indexOf("{%", open + 2)) {
             int at = open + 2;
             if (at < end && "-+".indexOf(text.charAt(at)) >= 0) {
@@ -465,19 +465,19 @@ final class DoubleBraceParser extends SegmentParser {
             while (at < end && Character.isWhitespace(text.charAt(at))) {
                 at++;
             }
-            for (String word : words) {
-                if (text.startsWith(word, at)) {
-                    return true;
-                }
+            int wordEnd = at;
+            while (wordEnd < end && Character.isLetter(text.charAt(wordEnd))) {
+                wordEnd++;
             }
+            words.add(text.substring(at, wordEnd));
         }
-        return false;
+        return words;
     }
 
     /** The names {@code {% import ... as m %}} and {@code {% from ... import a, b as c %}} bind. */
     private static Set<String> importedNames(String text, int start, int end) {
-        Set<String> names = names(IMPORT_AS, text, start, end, "import");
-        for (String list : names(FROM_IMPORT, text, start, end, "from")) {
+        Set<String> names = names(IMPORT_AS, text, start, end);
+        for (String list : names(FROM_IMPORT, text, start, end)) {
             for (String item : list.split(",")) {
                 String[] words = item.strip().split("\\s+");
                 names.add(words[words.length - 1]);
