@@ -19,6 +19,7 @@ import dev.tare.lint.ToolRule;
 import dev.tare.overlap.RepositoryWords;
 import dev.tare.source.SourceText;
 import dev.tare.template.Renderer;
+import dev.tare.template.Rendering;
 import dev.tare.template.Template;
 import dev.tare.template.TemplateKind;
 import dev.tare.template.TemplateSyntaxException;
@@ -225,30 +226,40 @@ public final class Check {
             return new FileVerdict(path, Optional.empty(), Optional.of(new SkippedFile(path, e.getMessage())), false);
         }
         List<Finding> findings = new ArrayList<>();
-        Suppressions suppressions;
-        Optional<List<String>> dependencies;
-        try {
-            suppressions = Suppressions.of(context.text(template));
-            for (Rule rule : rules) {
-                if (rule instanceof CrossTemplateRule
-                        || template.kind() == TemplateKind.TOOLS && !(rule instanceof ToolRule)) {
-                    continue;
-                }
-                for (Finding finding : rule.check(template, context)) {
-                    if (!suppressions.silences(finding)) {
-                        findings.add(configured.configure(finding));
-                    }
-                }
-            }
-            dependencies = cache.isDisabled() ? Optional.empty() : context.rendering(template).map(rendering -> {
-                List<String> paths = new ArrayList<>(new java.util.LinkedHashSet<>(rendering.includes()));
-                paths.addAll(template.meta().tools());
-                return paths;
-            });
-        } finally {
+        Suppressions suppressions = Suppressions.of(context.text(template));
+        if (template.kind() == TemplateKind.CODE) {
+            // A source file as a whole is read for its directives only; each prompt has a view of its own.
             context.forget(template);
         }
+        Optional<List<String>> dependencies = cache.isDisabled() ? Optional.empty() : Optional.of(new ArrayList<>());
+        for (Template prompt : template.prompts()) {
+            try {
+                for (Rule rule : rules) {
+                    if (rule instanceof CrossTemplateRule
+                            || prompt.kind() == TemplateKind.TOOLS && !(rule instanceof ToolRule)) {
+                        continue;
+                    }
+                    for (Finding finding : rule.check(prompt, context)) {
+                        if (!suppressions.silences(finding)) {
+                            findings.add(configured.configure(finding));
+                        }
+                    }
+                }
+                if (dependencies.isPresent()) {
+                    Optional<Rendering> rendering = context.rendering(prompt);
+                    if (rendering.isEmpty()) {
+                        dependencies = Optional.empty();
+                    } else {
+                        dependencies.get().addAll(new java.util.LinkedHashSet<>(rendering.get().includes()));
+                        dependencies.get().addAll(prompt.meta().tools());
+                    }
+                }
+            } finally {
+                context.forget(prompt);
+            }
+        }
         if (words != null) {
+            // The rules across templates read a source file as a whole, its prompts its messages.
             words.add(template);
         }
         CheckedFile checked = new CheckedFile(findings,

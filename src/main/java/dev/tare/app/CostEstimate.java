@@ -117,7 +117,7 @@ public final class CostEstimate {
         ScannedTemplate template = scan.templates().get(0);
         Footprint footprint = template.targets().get(target.name());
         if (footprint == null) {
-            throw new TareException(template.path() + " names another target in its front matter, not '"
+            throw new TareException(template.key() + " names another target in its front matter, not '"
                     + target.name() + "'");
         }
         return new CallSize(footprint.inputTokens(), footprint.framingTokens(), footprint.outputTokens(),

@@ -23,7 +23,7 @@ import java.util.OptionalDouble;
  *                    written and with its per-call parts last
  * @param callsPerDay the calls a day its front matter states
  */
-record Measurement(String path, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
+record Measurement(String path, String name, int line, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
                    int shortestEstimatedTokens, List<String> variables, List<String> unsizedVariables,
                    List<String> includes, List<Rendering.Loop> loops, Map<String, CallSize> callSizes,
                    Map<String, Integer> estimatedByTarget, Map<String, CachePrefixes.LeadingIds> leadingIds,
@@ -37,7 +37,7 @@ record Measurement(String path, TemplateKind kind, int characters, int staticTok
         Map<String, Footprint> footprints = new LinkedHashMap<>();
         callSizes.forEach((name, size) -> footprints.put(name,
                 Footprints.estimate(targets.get(name), size, traffic(targets.get(name), traffic))));
-        return new ScannedTemplate(path, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens,
+        return new ScannedTemplate(path, name, line, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens,
                 variables, unsizedVariables, includes, loops, footprints, estimatedByTarget, Map.of(), notes);
     }
 

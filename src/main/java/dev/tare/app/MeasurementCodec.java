@@ -15,10 +15,32 @@ import java.util.List;
 import java.util.Map;
 import java.util.OptionalDouble;
 
-/** How the scan keeps a template's {@link Measurement} in its {@link TemplateCache}. */
-final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
+/**
+ * How the scan keeps a file's {@link Measurement}s in its {@link TemplateCache}: one for a template
+ * file, one per prompt for a source file.
+ */
+final class MeasurementCodec implements TemplateCache.Codec<List<Measurement>> {
     @Override
-    public void write(DataOutputStream out, Measurement r) throws IOException {
+    public void write(DataOutputStream out, List<Measurement> measurements) throws IOException {
+        out.writeInt(measurements.size());
+        for (Measurement measurement : measurements) {
+            write(out, measurement);
+        }
+    }
+
+    @Override
+    public List<Measurement> read(DataInputStream in, String path) throws IOException {
+        int count = in.readInt();
+        List<Measurement> measurements = new ArrayList<>(count);
+        for (int i = 0; i < count; i++) {
+            measurements.add(read(in, path, in.readUTF(), in.readInt()));
+        }
+        return measurements;
+    }
+
+    private static void write(DataOutputStream out, Measurement r) throws IOException {
+        out.writeUTF(r.name());
+        out.writeInt(r.line());
         out.writeUTF(r.kind().name());
         out.writeBoolean(r.callsPerDay().isPresent());
         if (r.callsPerDay().isPresent()) {
@@ -65,8 +87,7 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
         }
     }
 
-    @Override
-    public Measurement read(DataInputStream in, String path) throws IOException {
+    private static Measurement read(DataInputStream in, String path, String prompt, int line) throws IOException {
         TemplateKind kind = TemplateKind.valueOf(in.readUTF());
         OptionalDouble callsPerDay = in.readBoolean() ? OptionalDouble.of(in.readDouble()) : OptionalDouble.empty();
         int characters = in.readInt();
@@ -99,7 +120,7 @@ final class MeasurementCodec implements TemplateCache.Codec<Measurement> {
             int[] now = readInts(in);
             leading.put(name, new CachePrefixes.LeadingIds(head, now, in.readBoolean() ? now : readInts(in)));
         }
-        return new Measurement(path, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens, variables,
+        return new Measurement(path, prompt, line, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens, variables,
                 unsized, includes, loops, sizes, byTarget, leading, callsPerDay, notes);
     }
 

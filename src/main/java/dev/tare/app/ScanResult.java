@@ -172,7 +172,7 @@ public record ScanResult(String root, String tokenizer, List<String> targets, Li
                 byTarget.put(tokenizer, template.estimatedTokens());
             }
             byTarget.putAll(template.estimatedByTarget());
-            tokens.put(template.path(), byTarget);
+            tokens.put(template.key(), byTarget);
         }
         return new Baseline(tokens);
     }

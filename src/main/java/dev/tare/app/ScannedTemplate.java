@@ -12,6 +12,10 @@ import java.util.Map;
  * One template's measurements.
  *
  * @param path             path relative to the root, with {@code /}
+ * @param name             for a prompt written in source code, the name it was found under (unique in
+ *                         its file); empty for a template file
+ * @param line             for a prompt written in source code, the 1-based line of its first literal; 0
+ *                         for a template file
  * @param kind             text, chat or partial
  * @param characters       characters of the file's text
  * @param staticTokens     tokens with every variable empty, on the scan's primary tokenizer
@@ -33,7 +37,7 @@ import java.util.Map;
  * @param notes            what a reader of the figures should know about how they were made (a target
  *                         the template names that the configuration lacks, say), one sentence each
  */
-public record ScannedTemplate(String path, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
+public record ScannedTemplate(String path, String name, int line, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
                               int shortestEstimatedTokens, List<String> variables, List<String> unsizedVariables,
                               List<String> includes, List<Rendering.Loop> loops, Map<String, Footprint> targets,
                               Map<String, Integer> estimatedByTarget, Map<String, PrefixShare> prefixes,
@@ -50,17 +54,22 @@ public record ScannedTemplate(String path, TemplateKind kind, int characters, in
     }
 
     /** A template measured before prefix sharing is known. */
-    public ScannedTemplate(String path, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
+    public ScannedTemplate(String path, String name, int line, TemplateKind kind, int characters, int staticTokens, int estimatedTokens,
                            int shortestEstimatedTokens, List<String> variables, List<String> unsizedVariables,
                            List<String> includes, List<Rendering.Loop> loops, Map<String, Footprint> targets,
                            Map<String, Integer> estimatedByTarget) {
-        this(path, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens, variables, unsizedVariables,
+        this(path, name, line, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens, variables, unsizedVariables,
                 includes, loops, targets, estimatedByTarget, Map.of(), List.of());
+    }
+
+    /** What reports and baselines know it by: its path, or for a prompt in source code its path and name. */
+    public String key() {
+        return name.isEmpty() ? path : path + "#" + name;
     }
 
     /** The same template with other footprints. */
     public ScannedTemplate withTargets(Map<String, Footprint> footprints) {
-        return new ScannedTemplate(path, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens,
+        return new ScannedTemplate(path, name, line, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens,
                 variables, unsizedVariables, includes, loops, footprints, estimatedByTarget, prefixes, notes);
     }
 
@@ -70,7 +79,7 @@ public record ScannedTemplate(String path, TemplateKind kind, int characters, in
         footprints.put(target, footprint);
         Map<String, PrefixShare> shares = new LinkedHashMap<>(prefixes);
         shares.put(target, share);
-        return new ScannedTemplate(path, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens,
+        return new ScannedTemplate(path, name, line, kind, characters, staticTokens, estimatedTokens, shortestEstimatedTokens,
                 variables, unsizedVariables, includes, loops, footprints, estimatedByTarget, shares, notes);
     }
 

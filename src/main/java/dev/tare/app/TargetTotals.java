@@ -68,7 +68,7 @@ public record TargetTotals(Target target, int templates, long inputTokens, Optio
         }
         Footprint worst = largest.targets().get(target.name());
         return new TargetTotals(target, templates, input, priced ? OptionalDouble.of(cost) : OptionalDouble.empty(),
-                currency, Optional.of(largest.path()), OptionalLong.of(largestBytes), worst.maxConcurrent(),
+                currency, Optional.of(largest.key()), OptionalLong.of(largestBytes), worst.maxConcurrent(),
                 worst.weightBytes());
     }
 }

@@ -10,6 +10,8 @@ import dev.tare.template.Renderer;
 import dev.tare.template.RoleMarkers;
 import dev.tare.template.Template;
 import dev.tare.template.TemplateParser;
+import dev.tare.template.code.CodePrompts;
+import dev.tare.template.code.Language;
 import dev.tare.workspace.FileSelection;
 import dev.tare.workspace.StagedTemplates;
 import dev.tare.workspace.TemplateFinder;
@@ -50,9 +52,17 @@ public final class TemplateLoader {
         TemplateFinder finder = finder();
         FileSelection selection = finder.find(workspace.starts());
         if (selection.paths().isEmpty()) {
-            throw new TareException(NoTemplates.message(workspace, finder.promptLikeFiles()));
+            throw noTemplates();
         }
         return selection;
+    }
+
+    /**
+     * The error of a run that found no template: the include globs tried, the files that look like
+     * prompts, and what to do. Also for a run whose files were all source files without prompts.
+     */
+    public TareException noTemplates() {
+        return new TareException(NoTemplates.message(workspace, finder().promptLikeFiles()));
     }
 
     /** The files staged for the next commit that the configuration selects, read from the git index. */
@@ -62,7 +72,7 @@ public final class TemplateLoader {
 
     private TemplateFinder finder() {
         TareConfig config = workspace.config();
-        return new TemplateFinder(workspace.root(), Glob.all(config.templates().include()),
+        return new TemplateFinder(workspace.root(), Glob.all(config.templates().allIncludes()),
                 Glob.all(config.templates().exclude()));
     }
 
@@ -80,9 +90,28 @@ public final class TemplateLoader {
         return parse(read(path));
     }
 
-    /** Parses already-read text (for example the staged version of a file). */
+    /**
+     * Parses already-read text (for example the staged version of a file). A source file becomes a
+     * template of kind code holding the prompts written in it, none when it holds none.
+     *
+     * @throws TareException when a {@code tare:} comment cannot be applied, or the file cannot be read
+     *                       as its language to the end, naming the line and what to write
+     */
     public Template parse(SourceText text) {
-        return parser.parse(text, workspace.config().templates().isPartial(text.path()));
+        Optional<Language> language = Language.of(text.path());
+        if (language.isEmpty()) {
+            return parser.parse(text, workspace.config().templates().isPartial(text.path()));
+        }
+        CodePrompts found = CodePrompts.find(text.path(), text.text(), language.get(),
+                workspace.config().templates().code().calls());
+        if (!found.problems().isEmpty()) {
+            throw new TareException(found.problems().get(0)
+                    + (found.problems().size() > 1 ? " (and " + (found.problems().size() - 1) + " more)" : ""));
+        }
+        if (found.stopped().isPresent()) {
+            throw new TareException(found.stopped().get());
+        }
+        return found.template(text.path(), text.text());
     }
 
     /** The renderer that resolves this workspace's includes. */

@@ -16,6 +16,7 @@ import dev.tare.template.RenderedPath;
 import dev.tare.template.Renderer;
 import dev.tare.template.Rendering;
 import dev.tare.template.Segment;
+import dev.tare.template.ContentOrigin;
 import dev.tare.template.Template;
 import dev.tare.template.TemplateKind;
 import dev.tare.tokenize.LineCounts;
@@ -87,21 +88,21 @@ public final class TemplateScan {
         // none (so every template will be counted), the vocabularies after them, one at a time.
         Set<Tokenizer> used = new LinkedHashSet<>(byTarget.values());
         used.add(primary);
-        CompletableFuture<TemplateCache<Measurement>> opening = CompletableFuture.supplyAsync(() -> options.cache()
+        CompletableFuture<TemplateCache<List<Measurement>>> opening = CompletableFuture.supplyAsync(() -> options.cache()
                 ? TemplateCache.open(workspace.root(), workspace.starts().isEmpty(), "scan", setup.cacheKey(), new MeasurementCodec())
                 : TemplateCache.disabled(workspace.root()));
         CompletableFuture<Void> loading = opening.thenCompose(opened -> opened.isEmpty()
                 ? TokenizerRegistry.prepare(used) : CompletableFuture.completedFuture(null));
         TemplateLoader loader = new TemplateLoader(workspace);
         FileSelection selection = loader.find();
-        TemplateCache<Measurement> cache = opening.join();
+        TemplateCache<List<Measurement>> cache = opening.join();
         Measurer measurer = new Measurer(config, targets, primary, byTarget, loader, cache);
 
         progress.started(selection.paths().size());
-        List<Outcome> outcomes = selection.paths().parallelStream().map(path -> {
-            Outcome outcome = measurer.measure(path);
+        List<Outcome> outcomes = selection.paths().parallelStream().flatMap(path -> {
+            List<Outcome> outcome = measurer.measure(path);
             progress.advanced();
-            return outcome;
+            return outcome.stream();
         }).toList();
         progress.finished();
         // Long done on a real repository; waited for so that no load outlives the command's timings.
@@ -113,6 +114,10 @@ public final class TemplateScan {
             outcome.skipped().ifPresent(skipped::add);
         }
         skipped.sort(null);
+        if (templates.isEmpty() && skipped.isEmpty()) {
+            // Every file selected was a source file without prompts: as empty as no file at all.
+            throw loader.noTemplates();
+        }
         for (Target target : targets) {
             if (target.prefixCache().isPresent()) {
                 applySharedPrefixes(target, templates, outcomes);
@@ -143,16 +148,16 @@ public final class TemplateScan {
         for (Outcome outcome : outcomes) {
             CachePrefixes.LeadingIds ids = outcome.leadingIds().get(target.name());
             if (ids != null) {
-                String path = outcome.template().orElseThrow().path();
-                byPath.put(path, ids);
-                calls.put(path, outcome.callSizes().get(target.name()));
-                traffic.put(path, outcome.traffic().get(target.name()));
+                String key = outcome.template().orElseThrow().key();
+                byPath.put(key, ids);
+                calls.put(key, outcome.callSizes().get(target.name()));
+                traffic.put(key, outcome.traffic().get(target.name()));
             }
         }
         List<Integer> indexes = new ArrayList<>();
         List<CachePrefixes.Prefix> prefixes = new ArrayList<>();
         for (int i = 0; i < templates.size(); i++) {
-            String path = templates.get(i).path();
+            String path = templates.get(i).key();
             CachePrefixes.LeadingIds ids = byPath.get(path);
             if (ids != null) {
                 indexes.add(i);
@@ -227,33 +232,38 @@ public final class TemplateScan {
 
     /** The per-file work, shared read-only by the scanning threads. */
     private record Measurer(TareConfig config, List<Target> targets, Map<String, Target> targetsByName,
-                            Tokenizer primary, Map<String, Tokenizer> byTarget, TemplateLoader loader, TemplateCache<Measurement> cache,
+                            Tokenizer primary, Map<String, Tokenizer> byTarget, TemplateLoader loader, TemplateCache<List<Measurement>> cache,
                             ToolFiles toolFiles, Map<String, Integer> toolTokens) {
 
         Measurer(TareConfig config, List<Target> targets, Tokenizer primary, Map<String, Tokenizer> byTarget,
-                 TemplateLoader loader, TemplateCache<Measurement> cache) {
+                 TemplateLoader loader, TemplateCache<List<Measurement>> cache) {
             this(config, targets, targets.stream().collect(Collectors.toMap(Target::name, t -> t, (a, b) -> a,
                     LinkedHashMap::new)), primary, byTarget, loader, cache, new ToolFiles(loader),
                     new ConcurrentHashMap<>());
         }
 
-        Outcome measure(String path) {
-            Optional<Measurement> remembered = cache.find(path);
+        /** The file's outcomes: one for a template file, one per prompt for a source file. */
+        List<Outcome> measure(String path) {
+            Optional<List<Measurement>> remembered = cache.find(path);
             if (remembered.isPresent()) {
-                return Outcome.of(remembered.get(), targetsByName, config.traffic());
+                return remembered.get().stream().map(m -> Outcome.of(m, targetsByName, config.traffic())).toList();
             }
             try {
                 SourceText text = loader.read(path);
-                Template template = loader.parse(text);
-                RenderedPath longest = loader.renderer().render(template, Renderer.Path.LONGEST);
-                Rendering samples = longest.samples();
-                Measurement measured = measure(template, longest, text.text().length());
-                List<String> dependencies = new ArrayList<>(new LinkedHashSet<>(samples.includes()));
-                dependencies.addAll(template.meta().tools());
-                cache.remember(path, text.text(), dependencies, measured);
-                return Outcome.of(measured, targetsByName, config.traffic());
+                List<Measurement> measured = new ArrayList<>();
+                Set<String> dependencies = new LinkedHashSet<>();
+                for (Template template : loader.parse(text).prompts()) {
+                    RenderedPath longest = loader.renderer().render(template, Renderer.Path.LONGEST);
+                    int characters = template.kind() == TemplateKind.CODE
+                            ? template.messages().get(0).content().length() : text.text().length();
+                    measured.add(measure(template, longest, characters));
+                    dependencies.addAll(longest.samples().includes());
+                    dependencies.addAll(template.meta().tools());
+                }
+                cache.remember(path, text.text(), List.copyOf(dependencies), measured);
+                return measured.stream().map(m -> Outcome.of(m, targetsByName, config.traffic())).toList();
             } catch (TareException e) {
-                return Outcome.of(new SkippedFile(path, e.getMessage()));
+                return List.of(Outcome.of(new SkippedFile(path, e.getMessage())));
             }
         }
 
@@ -313,10 +323,17 @@ public final class TemplateScan {
                 }
             }
             int estimated = counts.of(primary, samples) + declared;
-            return new Measurement(template.path(), template.kind(), characters, counts.of(primary, empty),
+            return new Measurement(template.path(), template.name(), line(template), template.kind(), characters,
+                    counts.of(primary, empty),
                     estimated, shortestEstimate(template, longest, estimated, counts), List.copyOf(variables),
                     List.copyOf(unsized), List.copyOf(new LinkedHashSet<>(samples.includes())), samples.loops(),
                     callSizes, estimatedByTarget, leading, template.meta().callsPerDay(), notes);
+        }
+
+        /** The line a prompt written in source code starts on; 0 for a template file. */
+        private static int line(Template template) {
+            return template.kind() == TemplateKind.CODE
+                    && template.messages().get(0).origin() instanceof ContentOrigin.Literal literal ? literal.line() : 0;
         }
 
         /** The estimated tokens on the template's shortest path: on its only path when it has no branches. */

@@ -31,7 +31,11 @@ public final class ConfigLoader {
     private static final Set<String> TOP = Set.of("templates", "targets", "budgets", "baseline", "rules", "hook",
             "traffic");
     private static final Set<String> TEMPLATES = Set.of("include", "exclude", "placeholder", "partials", "max_file_bytes",
-            "roles");
+            "roles", "code");
+    private static final Set<String> CODE = Set.of("include", "calls");
+    /** A call name as {@code templates.code.calls} takes it: identifiers joined by dots. */
+    private static final java.util.regex.Pattern CALL = java.util.regex.Pattern.compile(
+            "[A-Za-z_$][A-Za-z0-9_$]*(\\.[A-Za-z_$][A-Za-z0-9_$]*)*");
     private static final Set<String> TARGET = Set.of("name", "tokenizer", "price", "prefix_cache",
             "message_overhead_tokens", "reply_overhead_tokens", "calls_per_day", "output_tokens", "model", "weight_bits",
             "kv_bits", "device", "scale", "tool_overhead_tokens", "concurrency");
@@ -118,7 +122,28 @@ public final class ConfigLoader {
         }
         long maxBytes = in.wholeNumber(node, "max_file_bytes", "templates.max_file_bytes", 1)
                 .orElse((int) defaults.maxFileBytes());
-        return new TemplatesConfig(include, exclude, syntax, partials, maxBytes, roles(in, node, defaults.roles()));
+        return new TemplatesConfig(include, exclude, syntax, partials, maxBytes, roles(in, node, defaults.roles()),
+                code(in, node, defaults.code()));
+    }
+
+    /** {@code templates.code}: the source files read for prompts and the calls whose arguments are prompts. */
+    private static TemplatesConfig.Code code(ConfigReader in, JsonNode templates, TemplatesConfig.Code defaults) {
+        JsonNode node = in.object(templates, "code", "templates.code");
+        if (node == null) {
+            return defaults;
+        }
+        in.onlyKeys(node, "templates.code", CODE);
+        List<String> include = node.has("include") ? in.texts(node, "include", "templates.code.include")
+                : defaults.include();
+        checkGlobs(in, include, "templates.code.include");
+        List<String> calls = in.texts(node, "calls", "templates.code.calls");
+        for (int i = 0; i < calls.size(); i++) {
+            if (!CALL.matcher(calls.get(i)).matches()) {
+                throw in.problem("templates.code.calls[" + i + "]", "'" + calls.get(i)
+                        + "' is not a call name; write the name as the code calls it, such as client.chat or ask_model");
+            }
+        }
+        return new TemplatesConfig.Code(include, calls);
     }
 
     /** {@code templates.roles}: {@code auto} or {@code off}, which YAML 1.1 reads as false when unquoted. */

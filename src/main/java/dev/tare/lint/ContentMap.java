@@ -22,9 +22,18 @@ final class ContentMap {
         SINGLE_QUOTED,
         /** A YAML literal block: line breaks only where line breaks are removed. */
         LITERAL_BLOCK,
+        /**
+         * A string literal of source code: nothing a language gives a meaning inside some literal
+         * (quotes, backslashes, braces, {@code $}, {@code %}, line breaks, control characters), and
+         * only over characters the file holds as themselves, never across an escape or a variable.
+         */
+        CODE,
         /** Positions are known or approximate, but no edit can be written back. */
         READ_ONLY
     }
+
+    /** What some language's literal gives a meaning to: quotes, escapes, fields and format verbs. */
+    private static final String CODE_SPECIAL = "'\"`\\{}$%";
 
     private final int[] offsets;
     private final boolean[] verbatim;
@@ -45,6 +54,19 @@ final class ContentMap {
         }
         java.util.Arrays.fill(verbatim, true);
         return new ContentMap(offsets, verbatim, Style.TEXT);
+    }
+
+    /** A prompt's value written as string literals, placed and edited through {@code map}. */
+    static ContentMap ofLiteral(dev.tare.template.CharacterMap map) {
+        int length = map.length();
+        int[] offsets = new int[length + 1];
+        boolean[] verbatim = new boolean[length];
+        for (int i = 0; i < length; i++) {
+            offsets[i] = map.sourceOffset(i);
+            verbatim[i] = map.isOneToOne(i);
+        }
+        offsets[length] = length == 0 ? 0 : map.sourceEnd(length - 1);
+        return new ContentMap(offsets, verbatim, Style.CODE);
     }
 
     /** A content whose characters can only be placed at {@code at}, with nothing writable. */
@@ -91,6 +113,10 @@ final class ContentMap {
         if (style == Style.READ_ONLY || start >= end) {
             return Optional.empty();
         }
+        if (style == Style.CODE && !contiguous(start, end)) {
+            // An escape or a variable inside would be replaced as written, not as it reads.
+            return Optional.empty();
+        }
         int from = start < verbatim.length && verbatim[start] ? offsets[start] : -1;
         int to = end < verbatim.length && verbatim[end] ? offsets[end] : verbatim[end - 1] ? offsets[end - 1] + 1 : -1;
         if (from < 0 || to < from) {
@@ -128,6 +154,10 @@ final class ContentMap {
             case DOUBLE_QUOTED -> replacement.chars().noneMatch(c -> c == '"' || c == '\\' || c < 0x20);
             case SINGLE_QUOTED -> replacement.chars().noneMatch(c -> c == '\'' || c == '\n' || c == '\r');
             case LITERAL_BLOCK -> replacement.indexOf('\n') < 0 && replacement.indexOf('\r') < 0
+                    || onlyLineBreaks(removed) && onlyLineBreaks(replacement);
+            // A line break the file holds as itself stands in a literal that holds line breaks.
+            case CODE -> replacement.chars().noneMatch(c -> CODE_SPECIAL.indexOf(c) >= 0 || c < 0x20)
+                    && removed.chars().noneMatch(c -> CODE_SPECIAL.indexOf(c) >= 0)
                     || onlyLineBreaks(removed) && onlyLineBreaks(replacement);
             case READ_ONLY -> false;
         };

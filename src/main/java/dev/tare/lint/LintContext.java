@@ -146,9 +146,9 @@ public final class LintContext {
      * every per-template rule has run on it, so that a check of many templates holds none of it.
      */
     public void forget(Template template) {
-        texts.remove(template.path());
-        renderings.remove(template.path());
-        tools.remove(template.path());
+        texts.remove(template.key());
+        renderings.remove(template.key());
+        tools.remove(template.key());
     }
 
     /** The ids of every rule known to this run, enabled or not. */
@@ -158,7 +158,7 @@ public final class LintContext {
 
     /** The template prepared for rules. */
     public TemplateView text(Template template) {
-        return texts.computeIfAbsent(template.path(), path -> new TemplateView(template));
+        return texts.computeIfAbsent(template.key(), path -> new TemplateView(template));
     }
 
     /** The targets the template runs on: the one it names, else all configured targets. */
@@ -254,7 +254,7 @@ public final class LintContext {
         if (setting != null) {
             return Optional.of(Map.of(tokenizer(template).name(), setting));
         }
-        return baseline.get().map(b -> b.tokens().get(template.path()));
+        return baseline.get().map(b -> b.tokens().get(template.key()));
     }
 
     /** The definitions of a tool file, parsed once per run; empty for other templates. */
@@ -262,7 +262,7 @@ public final class LintContext {
         if (template.kind() != TemplateKind.TOOLS) {
             return List.of();
         }
-        return tools.computeIfAbsent(template.path(), path -> ToolFileParser.definitions(
+        return tools.computeIfAbsent(template.key(), path -> ToolFileParser.definitions(
                 path.toLowerCase(java.util.Locale.ROOT).endsWith(".json") ? YamlDocument.parseJson(template.source())
                         : YamlDocument.parseYaml(template.source())));
     }
@@ -300,7 +300,7 @@ public final class LintContext {
 
     /** The template rendered with samples, or empty when an include cannot be resolved. */
     public Optional<Rendering> rendering(Template template) {
-        return renderings.computeIfAbsent(template.path(), path -> {
+        return renderings.computeIfAbsent(template.key(), path -> {
             try {
                 return Optional.of(renderer.renderWithSamples(template));
             } catch (TareException e) {

@@ -40,6 +40,8 @@ public final class TemplateView {
             } else if (message.origin() instanceof ContentOrigin.DocumentValue value) {
                 values = values == null ? ChatContentMaps.of(template, lines) : values;
                 map = values.map(value.key(), message.content());
+            } else if (message.origin() instanceof ContentOrigin.Literal literal) {
+                map = ContentMap.ofLiteral(literal.map());
             } else {
                 // A tool's text is its definition re-serialized as minified JSON, not the file's text:
                 // findings point at the tool's first line and no edit can be written back.

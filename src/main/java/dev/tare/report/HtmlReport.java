@@ -137,9 +137,9 @@ public final class HtmlReport {
             long framing = framing(t);
             long variables = t.estimatedTokens() - t.staticTokens();
             long staticPart = chartTotal(t) - framing - variables;
-            String data = " data-template=\"" + Html.attr(t.path()) + "\" data-static=\"" + staticPart
+            String data = " data-template=\"" + Html.attr(t.key()) + "\" data-static=\"" + staticPart
                     + "\" data-variables=\"" + variables + "\" data-framing=\"" + framing + "\"";
-            chart.row(new SvgBarChart.Row(t.path(), List.of((double) staticPart, (double) variables,
+            chart.row(new SvgBarChart.Row(t.key(), List.of((double) staticPart, (double) variables,
                     (double) framing), Figures.count(chartTotal(t)), data));
         }
         out.append(chart.legend()).append("<div class=\"chart-frame\">").append(chart.render()).append("</div>\n</section>\n");
@@ -179,16 +179,16 @@ public final class HtmlReport {
             String path = Html.attr(t.path());
             out.append("<tr data-template=\"").append(path).append("\"").append(t.countsInTotals() ? "" : " class=\"partial\"")
                     .append("><th scope=\"row\"><a href=\"#").append(Html.id("t", t.path())).append("\">")
-                    .append(Html.text(t.path())).append("</a></th><td>").append(t.kind().label()).append("</td>");
-            cell(out, t.path(), "", "static_tokens", Html.value(t.staticTokens()), Figures.count(t.staticTokens()), "tokens");
-            cell(out, t.path(), "", "estimated_tokens", Html.value(t.estimatedTokens()), Figures.count(t.estimatedTokens()),
+                    .append(Html.text(t.key())).append("</a></th><td>").append(t.kind().label()).append("</td>");
+            cell(out, t.key(), "", "static_tokens", Html.value(t.staticTokens()), Figures.count(t.staticTokens()), "tokens");
+            cell(out, t.key(), "", "estimated_tokens", Html.value(t.estimatedTokens()), Figures.count(t.estimatedTokens()),
                     "tokens");
             for (String target : scan.targets()) {
                 Footprint f = t.targets().get(target);
                 if (f == null) {
                     out.append("<td class=\"num none\" title=\"does not run on ").append(Html.attr(target)).append("\">–</td>");
                 } else {
-                    cell(out, t.path(), target, "input_tokens", Html.value(f.inputTokens()), Figures.count(f.inputTokens()),
+                    cell(out, t.key(), target, "input_tokens", Html.value(f.inputTokens()), Figures.count(f.inputTokens()),
                             "tokens");
                 }
             }

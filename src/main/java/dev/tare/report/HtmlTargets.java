@@ -112,7 +112,7 @@ final class HtmlTargets {
             Footprint f = t.targets().get(target.name());
             Footprint.Caching c = f.caching().orElseThrow();
             String currency = f.currency().orElse("");
-            out.append("<tr><th scope=\"row\">").append(Html.text(t.path())).append("</th>");
+            out.append("<tr><th scope=\"row\">").append(Html.text(t.key())).append("</th>");
             for (String cell : List.of(Figures.count(c.staticPrefixTokens()), Figures.count(c.cacheablePrefixTokens()),
                     c.hitRateKnown() ? Figures.percent(c.hitRate()) : "–", amount(f.costPerMonth(), currency),
                     amount(f.costPerMonthUncached(), currency),
@@ -158,10 +158,10 @@ final class HtmlTargets {
         for (ScannedTemplate t : sorted) {
             Footprint f = t.targets().get(target.name());
             double value = measure.of(f);
-            String data = " data-template=\"" + Html.attr(t.path()) + "\" data-target=\"" + Html.attr(target.name())
+            String data = " data-template=\"" + Html.attr(t.key()) + "\" data-target=\"" + Html.attr(target.name())
                     + "\" data-field=\"" + field + "\" data-value=\"" + (unit.equals("bytes") ? Html.value((long) value)
                     : Html.value(value)) + "\" data-unit=\"" + unit + "\"";
-            chart.row(new SvgBarChart.Row(t.path(), List.of(value), label.apply(value), data));
+            chart.row(new SvgBarChart.Row(t.key(), List.of(value), label.apply(value), data));
         }
         out.append("<h4>").append(Html.text(title)).append("</h4>\n<div class=\"chart-frame\">").append(chart.render())
                 .append("</div>\n");

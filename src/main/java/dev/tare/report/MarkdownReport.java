@@ -126,7 +126,7 @@ public final class MarkdownReport {
             for (ScannedTemplate t : overview.cacheLeaders(name, COSTLIEST)) {
                 Footprint f = t.targets().get(name);
                 Footprint.Caching c = f.caching().orElseThrow();
-                rows.add(new String[] {code(t.path()), text(name), Figures.count(c.staticPrefixTokens()),
+                rows.add(new String[] {code(t.key()), text(name), Figures.count(c.staticPrefixTokens()),
                         Figures.count(c.cacheablePrefixTokens()), c.hitRateKnown() ? Figures.percent(c.hitRate()) : "–",
                         money(f.costPerMonth(), currency), money(f.costPerMonthUncached(), currency),
                         money(t.prefixes().get(name).reorderedSavingPerMonth(), currency)});
@@ -185,7 +185,7 @@ public final class MarkdownReport {
         Table table = new Table(headers.toArray(String[]::new));
         int rank = 1;
         for (ScannedTemplate template : costliest) {
-            List<String> row = new ArrayList<>(List.of(String.valueOf(rank++), code(template.path()),
+            List<String> row = new ArrayList<>(List.of(String.valueOf(rank++), code(template.key()),
                     template.kind().label(), Figures.count(template.staticTokens()),
                     Figures.count(template.estimatedTokens())));
             for (Target target : priced) {

@@ -34,7 +34,7 @@ public final class ScanReport {
         }
         TextTable table = new TextTable(headers, numeric);
         for (ScannedTemplate template : result.templatesIn(order)) {
-            List<String> row = new ArrayList<>(List.of(template.path(), template.kind().label(),
+            List<String> row = new ArrayList<>(List.of(template.key(), template.kind().label(),
                     TextTable.number(template.staticTokens()), TextTable.number(template.estimatedTokens())));
             for (String target : result.targets()) {
                 Footprint footprint = template.targets().get(target);
@@ -91,7 +91,7 @@ public final class ScanReport {
         }
         for (ScannedTemplate template : result.templates()) {
             for (String note : template.notes()) {
-                out.append(template.path()).append(": ").append(note).append('\n');
+                out.append(template.key()).append(": ").append(note).append('\n');
             }
         }
         if (!result.skipped().isEmpty()) {
@@ -161,6 +161,10 @@ public final class ScanReport {
         out.writeStartObject();
         out.writeStringField("path", template.path());
         out.writeStringField("kind", template.kind().label());
+        if (!template.name().isEmpty()) {
+            out.writeStringField("name", template.name());
+            out.writeNumberField("line", template.line());
+        }
         out.writeNumberField("chars", template.characters());
         out.writeNumberField("static_tokens", template.staticTokens());
         out.writeNumberField("estimated_tokens", template.estimatedTokens());

@@ -66,7 +66,7 @@ final class TargetSections {
             if (f == null) {
                 continue;
             }
-            List<String> row = new ArrayList<>(List.of(template.path(), Figures.count(f.inputTokens())));
+            List<String> row = new ArrayList<>(List.of(template.key(), Figures.count(f.inputTokens())));
             f.caching().ifPresent(c -> row.addAll(List.of(Figures.count(c.staticPrefixTokens()),
                     Figures.count(c.cacheablePrefixTokens()), c.hitRateKnown() ? Figures.percent(c.hitRate()) : "-")));
             row.addAll(List.of(Figures.count(f.outputTokens()), Figures.perCall(f), Figures.perMonth(f)));
@@ -97,7 +97,7 @@ final class TargetSections {
             Footprint f = template.targets().get(target.name());
             if (share != null && f != null && f.caching().isPresent()) {
                 Footprint.Caching now = f.caching().get();
-                table.row(List.of(template.path(), Figures.count(now.staticPrefixTokens()),
+                table.row(List.of(template.key(), Figures.count(now.staticPrefixTokens()),
                         Figures.count(now.cacheablePrefixTokens()), money(share.savingPerMonth(), currency),
                         Figures.count(share.reorderedStaticPrefixTokens()),
                         Figures.count(cache.cacheable(share.reorderedStaticPrefixTokens())),
@@ -144,7 +144,7 @@ final class TargetSections {
         for (ScannedTemplate template : templates) {
             Footprint f = template.targets().get(target.name());
             if (f != null) {
-                table.row(List.of(template.path(), Figures.count(f.inputTokens()), Figures.count(f.outputTokens()),
+                table.row(List.of(template.key(), Figures.count(f.inputTokens()), Figures.count(f.outputTokens()),
                         f.prefillFlops().isPresent() ? Figures.flops(f.prefillFlops().getAsDouble()) : "-",
                         f.prefillMillis().isPresent() ? Figures.significant(f.prefillMillis().getAsDouble()) : "-",
                         f.decodeMillisPerToken().isPresent() ? Figures.significant(f.decodeMillisPerToken().getAsDouble()) : "-",
@@ -179,7 +179,7 @@ final class TargetSections {
         for (ScannedTemplate template : templates) {
             Footprint f = template.targets().get(target.name());
             if (f != null) {
-                Cautions.contextLine(target, f, template.path()).ifPresent(lines::add);
+                Cautions.contextLine(target, f, template.key()).ifPresent(lines::add);
             }
         }
         return lines;

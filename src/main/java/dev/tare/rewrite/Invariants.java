@@ -8,6 +8,7 @@ import dev.tare.structure.Fence;
 import dev.tare.structure.Region;
 import dev.tare.structure.Role;
 import dev.tare.template.Segment;
+import dev.tare.template.ContentOrigin;
 import dev.tare.template.Template;
 import java.util.ArrayList;
 import java.util.List;
@@ -45,6 +46,12 @@ final class Invariants {
         for (int i = 0; i < before.messages().size(); i++) {
             if (!before.messages().get(i).role().equals(after.messages().get(i).role())) {
                 problems.add("the role of message " + (i + 1) + " changed");
+            }
+            if (before.messages().get(i).origin() instanceof ContentOrigin.Literal was
+                    && !(after.messages().get(i).origin() instanceof ContentOrigin.Literal is
+                    && is.name().equals(was.name()) && is.meta().equals(was.meta()))) {
+                problems.add("the prompt written at line " + was.line() + " (" + was.name()
+                        + ") is no longer found there under its name and settings");
             }
         }
         if (!before.meta().equals(after.meta())

@@ -23,4 +23,16 @@ public sealed interface ContentOrigin {
      */
     record Made(int line) implements ContentOrigin {
     }
+
+    /**
+     * The content is the value of a prompt written as string literals in source code.
+     *
+     * @param name   the name it was found under (its variable, key or call), unique in the file
+     * @param line   1-based line of its first literal
+     * @param column 1-based column there
+     * @param map    where each character of the content is written in the file
+     * @param meta   the settings of its {@code tare:} comment, as front matter would give them
+     */
+    record Literal(String name, int line, int column, CharacterMap map, TemplateMeta meta) implements ContentOrigin {
+    }
 }

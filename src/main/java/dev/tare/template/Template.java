@@ -18,11 +18,44 @@ import java.util.Set;
  * @param bodyStart  the offset in {@code source} where the prompt text starts (after front matter);
  *                   0 for YAML and JSON files
  * @param syntax     the placeholder syntax the template was parsed with
+ * @param name       for one prompt of a source file, the name it was found under (unique in the file);
+ *                   empty for a template file, and for a source file as a whole
  */
 public record Template(String path, TemplateKind kind, TemplateMeta meta, List<Message> messages, String source,
-                       int bodyStart, PlaceholderSyntax syntax) {
+                       int bodyStart, PlaceholderSyntax syntax, String name) {
     public Template {
         messages = List.copyOf(messages);
+    }
+
+    /** A template file, or a source file as a whole. */
+    public Template(String path, TemplateKind kind, TemplateMeta meta, List<Message> messages, String source,
+                    int bodyStart, PlaceholderSyntax syntax) {
+        this(path, kind, meta, messages, source, bodyStart, syntax, "");
+    }
+
+    /**
+     * What reports, baselines and caches know the template by: its path, or for a prompt of a source
+     * file its path and name ({@code app/agent.py#SYSTEM_PROMPT}).
+     */
+    public String key() {
+        return name.isEmpty() ? path : path + "#" + name;
+    }
+
+    /**
+     * The prompts this template holds, each a template of its own: the template itself, or for a
+     * source file as a whole one template per prompt written in it, with its own name, settings and
+     * message. Budgets, estimates and the rules that read a whole template apply to each.
+     */
+    public List<Template> prompts() {
+        if (kind != TemplateKind.CODE || !name.isEmpty()) {
+            return List.of(this);
+        }
+        List<Template> prompts = new ArrayList<>();
+        for (Message message : messages) {
+            ContentOrigin.Literal literal = (ContentOrigin.Literal) message.origin();
+            prompts.add(new Template(path, kind, literal.meta(), List.of(message), source, 0, syntax, literal.name()));
+        }
+        return prompts;
     }
 
     /** Every segment of every message, in order. */
@@ -58,7 +91,8 @@ public record Template(String path, TemplateKind kind, TemplateMeta meta, List<M
      */
     public boolean isChat() {
         return kind == TemplateKind.CHAT
-                || kind == TemplateKind.TEXT && !messages.isEmpty() && !messages.get(0).role().equals(Message.TEXT_ROLE);
+                || (kind == TemplateKind.TEXT || kind == TemplateKind.CODE) && !messages.isEmpty()
+                && !messages.get(0).role().equals(Message.TEXT_ROLE);
     }
 
     /**
@@ -79,6 +113,6 @@ public record Template(String path, TemplateKind kind, TemplateMeta meta, List<M
             return java.util.Optional.empty();
         }
         return java.util.Optional.of(new Template(path, TemplateKind.TOOLS, TemplateMeta.EMPTY,
-                ToolFileParser.messages(meta.inlineTools()), source, 0, PlaceholderSyntax.NONE));
+                ToolFileParser.messages(meta.inlineTools()), source, 0, PlaceholderSyntax.NONE, name));
     }
 }

@@ -11,7 +11,12 @@ public enum TemplateKind {
     /** A text template under the partials folder, pasted into others through includes. */
     PARTIAL,
     /** A YAML or JSON list of tool definitions sent with calls. */
-    TOOLS;
+    TOOLS,
+    /**
+     * Prompts written as string literals in a source file: the file as a whole has one message per
+     * prompt, and each prompt is a template of its own ({@link Template#prompts()}).
+     */
+    CODE;
 
     /** The lower-case name used in output. */
     public String label() {

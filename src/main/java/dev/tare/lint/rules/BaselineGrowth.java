@@ -67,8 +67,8 @@ final class BaselineGrowth implements Rule {
         for (Target target : targets) {
             now.put(target.name(), Estimates.estimatedTokens(target, context.tokenizer(target), rendering.get()));
         }
-        return new ArrayList<>(BaselineComparison.compare(new Baseline(Map.of(template.path(), recorded.get())),
-                new Baseline(Map.of(template.path(), now)),
+        return new ArrayList<>(BaselineComparison.compare(new Baseline(Map.of(template.key(), recorded.get())),
+                new Baseline(Map.of(template.key(), now)),
                 context.config().baseline().tolerancePercent()));
     }
 

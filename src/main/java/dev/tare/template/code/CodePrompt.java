@@ -54,11 +54,12 @@ public record CodePrompt(String name, Optional<String> role, int line, int colum
 
     /**
      * The prompt as one message of a template: its role (or {@value Message#TEXT_ROLE}), its value as
-     * the content, and its {@link #segments(String) segments}. Its origin places findings at the
-     * prompt's line and lets no edit through; editing the file needs the {@link #map()}.
+     * the content, and its {@link #segments(String) segments}, from a literal named {@code unique}
+     * (its name, made unique in the file) whose map places findings and edits in the file.
      */
-    public Message message(String source) {
-        return new Message(role.orElse(Message.TEXT_ROLE), value, segments(source), new ContentOrigin.Made(line));
+    public Message message(String source, String unique) {
+        return new Message(role.orElse(Message.TEXT_ROLE), value, segments(source),
+                new ContentOrigin.Literal(unique, line, column, map, meta));
     }
 
     /**

@@ -1,7 +1,15 @@
 package dev.tare.template.code;
 
 import dev.tare.template.LineIndex;
+import dev.tare.template.Message;
+import dev.tare.template.PlaceholderSyntax;
+import dev.tare.template.Template;
+import dev.tare.template.TemplateKind;
+import dev.tare.template.TemplateMeta;
+import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Optional;
 
 /**
@@ -41,5 +49,21 @@ public record CodePrompts(List<CodePrompt> prompts, List<String> problems, Optio
         PromptFinder finder = new PromptFinder(source, language, List.copyOf(calls), tokens, lines);
         List<CodePrompt> found = finder.find();
         return new CodePrompts(found, finder.problems(), Optional.ofNullable(tokens.stopReason()));
+    }
+
+    /**
+     * The source file as a template of kind {@link TemplateKind#CODE}: one message per prompt, each
+     * under its name, a name used twice in the file taking {@code @2}, {@code @3}, ... in file order.
+     * {@link Template#prompts()} splits it into one template per prompt.
+     */
+    public Template template(String path, String source) {
+        Map<String, Integer> seen = new HashMap<>();
+        List<Message> messages = new ArrayList<>();
+        for (CodePrompt prompt : prompts) {
+            int times = seen.merge(prompt.name(), 1, Integer::sum);
+            String unique = times == 1 ? prompt.name() : prompt.name() + "@" + times;
+            messages.add(prompt.message(source, unique));
+        }
+        return new Template(path, TemplateKind.CODE, TemplateMeta.EMPTY, messages, source, 0, PlaceholderSyntax.NONE);
     }
 }

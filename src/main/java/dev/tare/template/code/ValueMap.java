@@ -1,5 +1,6 @@
 package dev.tare.template.code;
 
+import dev.tare.template.CharacterMap;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -11,7 +12,7 @@ import java.util.List;
  * block or dedent removed is not, and maps to the start of what it came from. Edits may touch only
  * one-to-one runs, and a fix should decode the edited file again to check the value it meant.
  */
-public final class ValueMap {
+public final class ValueMap implements CharacterMap {
     /**
      * A run of one-to-one characters: value {@code [valueStart, valueEnd)} is written at file
      * {@code [sourceStart, sourceStart + length)}.
@@ -58,21 +59,25 @@ public final class ValueMap {
     }
 
     /** The length of the value. */
+    @Override
     public int length() {
         return from.length;
     }
 
     /** The file offset where value character {@code i} is written, or where what it came from starts. */
+    @Override
     public int sourceOffset(int i) {
         return from[i];
     }
 
     /** The file offset just past what value character {@code i} came from. */
+    @Override
     public int sourceEnd(int i) {
         return to[i];
     }
 
     /** Whether value character {@code i} is written in the file as itself. */
+    @Override
     public boolean isOneToOne(int i) {
         return exact[i];
     }

@@ -302,7 +302,8 @@ class PromptRulesTest {
         int end = segments.get(segments.size() - 1).span().end();
         assertEquals(prompt.value().length(), end);
         assertTrue(segments.stream().allMatch(s -> s.span().end() <= prompt.value().length()));
-        Message message = prompt.message(source);
-        assertEquals(new Message("user", prompt.value(), segments, new ContentOrigin.Made(1)), message);
+        Message message = prompt.message(source, "message");
+        assertEquals(new Message("user", prompt.value(), segments,
+                new ContentOrigin.Literal("message", 1, prompt.column(), prompt.map(), prompt.meta())), message);
     }
 }
