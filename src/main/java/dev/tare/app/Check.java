@@ -85,6 +85,10 @@ public final class Check {
         TemplateCache<CheckedFile> cache = opening.join();
         CheckResult result = run(options, loader, selection, loader::read, cache);
         cache.save();
+        if (result.templates() == 0 && result.findings().isEmpty() && result.skipped().isEmpty()) {
+            // Every file selected was a source file without prompts: as empty as no file at all.
+            throw loader.noTemplates();
+        }
         return result;
     }
 
@@ -264,7 +268,8 @@ public final class Check {
         }
         CheckedFile checked = new CheckedFile(findings,
                 suppressions.directives().isEmpty() ? Optional.empty() : Optional.of(suppressions),
-                Optional.of(template.source().hashCode()));
+                // A source file without prompts holds no template: nothing for the rules across templates.
+                template.prompts().isEmpty() ? Optional.empty() : Optional.of(template.source().hashCode()));
         String read = text.text();
         dependencies.ifPresent(paths -> cache.remember(path, read, paths, checked));
         return FileVerdict.of(path, checked);

@@ -238,6 +238,11 @@ public final class Fix {
         } catch (TareException e) {
             return new FileAttempt(path, Optional.empty(), identity, null, Optional.of(e.getMessage()), null);
         }
+        if (template.prompts().isEmpty()) {
+            // A source file without prompts: nothing to rewrite.
+            return new FileAttempt(path, Optional.empty(), identity, original, Optional.empty(),
+                    new FilePlanner.Plan(Optional.empty(), java.util.Map.of()));
+        }
         return new FileAttempt(path, Optional.empty(), identity, original, Optional.empty(),
                 planner.plan(original, template));
     }

@@ -23,8 +23,9 @@ final class NoTemplates {
                 : "the default include globs (") + String.join(", ", workspace.config().templates().include()) + ")";
         if (!workspace.starts().isEmpty() || promptLike.isEmpty()) {
             return "no template found in " + where + ": no file matches " + globs + " or looks like a prompt"
-                    + " (a template extension, a prompts folder, placeholders, role lines or chat messages);"
-                    + " name the files to measure, or set templates.include in tare.yaml";
+                    + " (a template extension, a prompts folder, placeholders, role lines or chat messages),"
+                    + " and no source file holds a prompt Tare recognises; name the files to measure, set"
+                    + " templates.include in tare.yaml, or mark a prompt in code with a 'tare: prompt' comment";
         }
         List<String> named = promptLike.subList(0, Math.min(NAMED, promptLike.size()));
         String more = promptLike.size() > NAMED ? " and " + (promptLike.size() - NAMED) + " more" : "";
