@@ -14,6 +14,10 @@ abstract class CodeLexer {
         ">>>=", "===", "!==", "**=", "//=", ">>=", "<<=", ">>>", "...", "??=", "&&=", "||=", "&^=",
         "==", "!=", "<=", ">=", "=>", ":=", "+=", "-=", "*=", "/=", "%=", "&=", "|=", "^=", "@=", "++", "--",
         "&&", "||", "??", "?.", "::", "->", "<-", "**", "<<", ">>", "&^"};
+    /** {@link Character#isJavaIdentifierPart} of each ASCII char, looked up once: the test of every char of every word. */
+    private static final boolean[] ASCII_WORD_PART = asciiWordPart();
+    /** The chars that stand second in some operator of {@link #OPERATORS}. */
+    private static final String SECOND_CHARS = secondChars();
 
     final SourceView view;
     final String text;
@@ -89,22 +93,49 @@ abstract class CodeLexer {
 
     final int wordEnd(int i) {
         int j = i + 1;
-        while (j < length && (Character.isJavaIdentifierPart(text.charAt(j))
-                || text.charAt(j) >= 0x80 && Character.isLetterOrDigit(text.charAt(j)))) {
+        while (j < length) {
+            char c = text.charAt(j);
+            if (c < 0x80 ? !ASCII_WORD_PART[c] : !Character.isJavaIdentifierPart(c) && !Character.isLetterOrDigit(c)) {
+                break;
+            }
             j++;
         }
         return j;
     }
 
     int operator(int i) {
+        // Most operators are one char: only a char that can continue one is worth the list.
+        if (i + 1 >= length || SECOND_CHARS.indexOf(text.charAt(i + 1)) < 0) {
+            tokens.add(CodeTokens.OP, i, i + 1);
+            return i + 1;
+        }
+        char first = text.charAt(i);
         for (String op : OPERATORS) {
-            if (text.startsWith(op, i) && allows(op)) {
+            if (op.charAt(0) == first && text.startsWith(op, i) && allows(op)) {
                 tokens.add(CodeTokens.OP, i, i + op.length());
                 return i + op.length();
             }
         }
         tokens.add(CodeTokens.OP, i, i + 1);
         return i + 1;
+    }
+
+    private static boolean[] asciiWordPart() {
+        boolean[] part = new boolean[0x80];
+        for (char c = 0; c < 0x80; c++) {
+            part[c] = Character.isJavaIdentifierPart(c);
+        }
+        return part;
+    }
+
+    private static String secondChars() {
+        StringBuilder chars = new StringBuilder();
+        for (String op : OPERATORS) {
+            if (chars.indexOf(op.substring(1, 2)) < 0) {
+                chars.append(op.charAt(1));
+            }
+        }
+        return chars.toString();
     }
 
     /** Whether the language has the operator {@code op}; all by default. */

@@ -26,7 +26,21 @@ final class NameWords {
     /** The keys whose value is a prompt in the chat formats and prompt-building calls. */
     private static final Set<String> KEYS = Set.of("content", "system", "prompt", "instructions", "template");
 
+    /**
+     * Every word that can make a name, key or call say it holds a prompt, lower case: a text that
+     * holds none of them, in any case and anywhere, has no place that names a prompt.
+     */
+    static final List<String> ANY_PROMPT_WORD = anyPromptWord();
+
     private NameWords() {
+    }
+
+    private static List<String> anyPromptWord() {
+        Set<String> all = new java.util.TreeSet<>(PROMPT);
+        all.addAll(STRONG);
+        all.addAll(KEYS);
+        all.add("few");
+        return List.copyOf(all);
     }
 
     /** The lower-case words of {@code name}: split at {@code _}, {@code -}, {@code .}, digits and case changes. */

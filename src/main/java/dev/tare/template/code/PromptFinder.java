@@ -88,8 +88,22 @@ final class PromptFinder {
         return lines.line(t.view.from(Math.min(viewOffset, t.view.length())));
     }
 
+    /** Whether {@code text} holds {@code tare:} in any case, as a {@code tare:} comment line begins. */
+    private static boolean mentionsTare(String text) {
+        for (int colon = text.indexOf(':'); colon >= 0; colon = text.indexOf(':', colon + 1)) {
+            if (colon >= 4 && text.regionMatches(true, colon - 4, "tare", 0, 4)) {
+                return true;
+            }
+        }
+        return false;
+    }
+
     /** Notes each comment that stands alone on its lines, by the line it ends on, and its {@code tare:} lines. */
     private void indexComments() {
+        if (t.comments.stream().noneMatch(comment -> mentionsTare(comment.text()))) {
+            // No tare: comment: nothing to find above any literal, and most files have none.
+            return;
+        }
         java.util.BitSet code = new java.util.BitSet();
         for (int k = 0; k < t.size(); k++) {
             if (t.kind(k) != CodeTokens.NEWLINE) {

@@ -147,6 +147,11 @@ final class PromptRules {
         if (!variables && (words.strip().length() < 20 || wordCount(words) < 3)) {
             return Optional.of("too short");
         }
+        if (variables && wordCount(words) < 2 && !NameWords.saysPromptStrongly(place.name())
+                && !NameWords.isPromptKey(place.name())) {
+            // "%s failed" in msg, a status line in message: the name alone does not make it a prompt.
+            return Optional.of("too short: a formatted line of one word besides its variables");
+        }
         if (isSql(plain.toString())) {
             return Optional.of("SQL");
         }

@@ -18,6 +18,8 @@ import org.junit.jupiter.api.Test;
  * here run for hours, so they also guard the linear bound without timing anything.
  */
 class CodePromptsPropertiesTest {
+    /** A first line that names prompts, so that the text after it is read literal by literal. */
+    private static final String READ_WHOLLY = "prompt = 0\n";
     private static final String[] COMMON = {
         "SYSTEM_PROMPT = ", "system_prompt = ", "messages = [", "{\"role\": \"system\", \"content\": ", "]", ")", "(",
         "{", "}", "[", ",", " + ", " ", "  ", "\t", "\n", "\r\n", "\r", "\"", "'", "`", "\\", "\\n", "\\t", "\\\"",
@@ -54,7 +56,8 @@ class CodePromptsPropertiesTest {
     }
 
     @Property(tries = 200)
-    void anyCharactersAtAllNeverThrow(@ForAll("anything") String text, @ForAll Language language) {
+    void anyCharactersAtAllNeverThrow(@ForAll("anything") String anything, @ForAll Language language) {
+        String text = READ_WHOLLY + anything;
         CodePrompts found = CodePrompts.find("any." + extension(language), text, language, List.of());
         for (CodePrompt prompt : found.prompts()) {
             CodeSamples.assertMapsBack(text, prompt);
@@ -103,7 +106,8 @@ class CodePromptsPropertiesTest {
         };
     }
 
-    private static CodePrompts everyLanguage(String text) {
+    private static CodePrompts everyLanguage(String hostile) {
+        String text = READ_WHOLLY + hostile;
         CodePrompts last = null;
         for (Language language : Language.values()) {
             last = CodePrompts.find("hostile." + extension(language), text, language, List.of("client.chat"));
@@ -119,9 +123,9 @@ class CodePromptsPropertiesTest {
         everyLanguage("x = " + "(".repeat(200_000) + "\"deep\"" + ")".repeat(200_000) + "\n");
         everyLanguage("x = " + "{[(".repeat(100_000) + "\n");
         everyLanguage("x = " + ")]}".repeat(100_000) + "\n");
-        CodePrompts python = CodePrompts.find("deep.py", "P = f\"" + "{f\"".repeat(5_000) + "\n", Language.PYTHON, List.of());
+        CodePrompts python = CodePrompts.find("deep.py", "PROMPT = f\"" + "{f\"".repeat(5_000) + "\n", Language.PYTHON, List.of());
         assertTrue(python.stopped().orElseThrow().contains("nest too deeply"), python.stopped().orElseThrow());
-        CodePrompts script = CodePrompts.find("deep.js", "P = `" + "${`".repeat(5_000), Language.JAVASCRIPT, List.of());
+        CodePrompts script = CodePrompts.find("deep.js", "PROMPT = `" + "${`".repeat(5_000), Language.JAVASCRIPT, List.of());
         assertTrue(script.stopped().orElseThrow().contains("nest too deeply"), script.stopped().orElseThrow());
     }
 

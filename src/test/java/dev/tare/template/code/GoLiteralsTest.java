@@ -116,7 +116,9 @@ class GoLiteralsTest {
         assertTrue(found.prompts().isEmpty());
         assertTrue(found.stopped().orElseThrow().startsWith("line 3, column 9: the string opened here is not closed"),
                 found.stopped().orElseThrow());
-        assertTrue(go("package readings\nvar p = `never closed\n").stopped().orElseThrow()
-                .startsWith("line 2, column 9: the raw string opened here is never closed"));
+        assertTrue(go("package readings\nvar prompt = `never closed\n").stopped().orElseThrow()
+                .startsWith("line 2, column 14: the raw string opened here is never closed"));
+        assertEquals(Optional.empty(), go("package readings\nvar p = `never closed\n").stopped(),
+                "a file without a word that names prompts is not read literal by literal");
     }
 }

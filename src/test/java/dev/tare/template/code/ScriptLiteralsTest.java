@@ -132,11 +132,11 @@ class ScriptLiteralsTest {
 
     @Test
     void unterminatedTemplatesAndFieldsSayWhereTheyOpened() {
-        assertTrue(script("const P = `never\nclosed").stopped().orElseThrow()
-                .startsWith("line 1, column 11: the template literal opened here is never closed; close it with `"));
-        assertTrue(script("const P = `a ${b + `c` \n").stopped().orElseThrow()
-                .startsWith("line 1, column 14: the template literal field opened here is never closed; close it with }"));
-        assertTrue(script("/* open\n").stopped().orElseThrow().startsWith("line 1, column 1: the comment opened here"));
+        assertTrue(script("const prompt = `never\nclosed").stopped().orElseThrow()
+                .startsWith("line 1, column 16: the template literal opened here is never closed; close it with `"));
+        assertTrue(script("const prompt = `a ${b + `c` \n").stopped().orElseThrow()
+                .startsWith("line 1, column 19: the template literal field opened here is never closed; close it with }"));
+        assertTrue(script("/* the prompt\n").stopped().orElseThrow().startsWith("line 1, column 1: the comment opened here"));
     }
 
     @Test
