@@ -1,5 +1,7 @@
 package dev.tare.app;
 
+import dev.tare.template.code.CodePrompts;
+import dev.tare.template.code.Language;
 import dev.tare.config.Glob;
 import dev.tare.config.TemplatesConfig;
 import dev.tare.source.SafeReader;
@@ -30,9 +32,13 @@ import java.util.regex.Pattern;
  * @param syntaxSeen  how many of the files show that syntax
  * @param partials    the partials folder: a folder named {@code partials} among them, else the default
  * @param templates   the files the globs select, sorted; empty when nothing looks like a prompt
+ * @param codeInclude globs of the source files read for prompts: per folder and extension of the
+ *                    source files that hold prompts, {@code folder/**}{@code /*.ext}; empty when
+ *                    none does (the configuration then keeps the default)
+ * @param codeFiles   the source files that hold prompts, sorted
  */
 public record InitPlan(List<String> include, List<String> exclude, PlaceholderSyntax placeholder, int syntaxSeen,
-                       String partials, List<String> templates) {
+                       String partials, List<String> templates, List<String> codeInclude, List<String> codeFiles) {
     private static final Pattern DOLLAR_DOUBLE_BRACE = Pattern.compile("\\{\\{\\s*\\$[A-Za-z_]");
     private static final Pattern DOUBLE_BRACE = Pattern.compile("\\{\\{\\s*[A-Za-z_#/>^!&]|\\{%-?\\s*\\w");
     private static final Pattern DOLLAR_BRACE = Pattern.compile("\\$\\{[A-Za-z_][\\w.]*}");
@@ -43,6 +49,8 @@ public record InitPlan(List<String> include, List<String> exclude, PlaceholderSy
         include = List.copyOf(include);
         exclude = List.copyOf(exclude);
         templates = List.copyOf(templates);
+        codeInclude = List.copyOf(codeInclude);
+        codeFiles = List.copyOf(codeFiles);
     }
 
     /** Looks at the repository at {@code root}. */
@@ -50,17 +58,61 @@ public record InitPlan(List<String> include, List<String> exclude, PlaceholderSy
         List<String> exclude = new ArrayList<>(TemplatesConfig.DEFAULT_EXCLUDE);
         exclude.addAll(DRAFTS);
         List<Glob> excluded = Glob.all(exclude);
+        List<String> codeFiles = codeFiles(root, excluded);
+        List<String> codeInclude = codeGlobs(codeFiles);
         List<String> found = new TemplateFinder(root, List.of(), excluded).promptLikeFiles();
+        found.removeAll(codeFiles);
         if (found.isEmpty()) {
             return new InitPlan(TemplatesConfig.DEFAULT_INCLUDE, exclude, PlaceholderSyntax.DOUBLE_BRACE, 0,
-                    TemplatesConfig.DEFAULT_PARTIALS, List.of());
+                    TemplatesConfig.DEFAULT_PARTIALS, List.of(), codeInclude, codeFiles);
         }
         List<String> include = globs(root, found, excluded);
         List<String> selected = new TemplateFinder(root, Glob.all(include), excluded).find(List.of()).paths();
         Map<PlaceholderSyntax, Integer> seen = syntaxes(root, selected);
         PlaceholderSyntax syntax = seen.entrySet().stream().max(Map.Entry.comparingByValue())
                 .map(Map.Entry::getKey).orElse(PlaceholderSyntax.DOUBLE_BRACE);
-        return new InitPlan(include, exclude, syntax, seen.getOrDefault(syntax, 0), partials(selected), selected);
+        return new InitPlan(include, exclude, syntax, seen.getOrDefault(syntax, 0), partials(selected), selected,
+                codeInclude, codeFiles);
+    }
+
+    /** The source files of the languages Tare reads that hold at least one prompt, sorted. */
+    private static List<String> codeFiles(Path root, List<Glob> excluded) {
+        SafeReader reader = new SafeReader(SafeReader.DEFAULT_MAX_BYTES);
+        List<String> sources = new TemplateFinder(root, Glob.all(TemplatesConfig.Code.DEFAULT_INCLUDE), excluded)
+                .find(List.of()).paths();
+        List<String> holding = new ArrayList<>();
+        for (String path : sources) {
+            try {
+                String text = reader.read(path, root.resolve(path)).text();
+                if (!CodePrompts.find(path, text, Language.of(path).orElseThrow(), List.of()).prompts().isEmpty()) {
+                    holding.add(path);
+                }
+            } catch (RuntimeException e) {
+                // A file that cannot be read holds no prompt init can show; the scan will say why.
+            }
+        }
+        return holding;
+    }
+
+    /** Per folder and extension of {@code files}, {@code folder/**}{@code /*.ext}, a folder inside one already covered adding nothing. */
+    private static List<String> codeGlobs(List<String> files) {
+        Map<String, TreeSet<String>> byFolder = new TreeMap<>();
+        for (String path : files) {
+            int slash = path.lastIndexOf('/');
+            byFolder.computeIfAbsent(slash < 0 ? "" : path.substring(0, slash), f -> new TreeSet<>()).add(extension(path));
+        }
+        List<String> globs = new ArrayList<>();
+        for (String path : files) {
+            if (Glob.anyMatches(Glob.all(globs), path)) {
+                continue;
+            }
+            int slash = path.lastIndexOf('/');
+            String folder = slash < 0 ? "" : path.substring(0, slash);
+            TreeSet<String> extensions = byFolder.get(folder);
+            String ext = extensions.size() == 1 ? extensions.first() : "{" + String.join(",", extensions) + "}";
+            globs.add(folder.isEmpty() ? "*." + ext : folder + "/**/*." + ext);
+        }
+        return globs;
     }
 
     /**

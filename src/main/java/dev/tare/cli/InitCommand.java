@@ -43,7 +43,8 @@ final class InitCommand implements Callable<Integer> {
             throw new TareException(file + " already exists; edit it, or remove it first to start again");
         }
         InitPlan plan = InitPlan.of(folder.toAbsolutePath().normalize());
-        String text = StarterConfig.text(plan.include(), plan.exclude(), plan.placeholder().label(), plan.partials());
+        String text = StarterConfig.text(plan.include(), plan.exclude(), plan.placeholder().label(), plan.partials(),
+                plan.codeInclude());
         try {
             Files.writeString(file, text, StandardCharsets.UTF_8, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE);
         } catch (FileAlreadyExistsException e) {
@@ -53,8 +54,17 @@ final class InitCommand implements Callable<Integer> {
         }
         PrintWriter out = spec.commandLine().getOut();
         out.println("Wrote " + file + ".");
+        if (!plan.codeFiles().isEmpty()) {
+            int files = plan.codeFiles().size();
+            out.println("Found prompts written in " + files + (files == 1 ? " source file" : " source files")
+                    + ", read through " + String.join(", ", plan.codeInclude()) + ":");
+            plan.codeFiles().stream().limit(LISTED).forEach(path -> out.println("  " + path));
+            if (files > LISTED) {
+                out.println("  and " + (files - LISTED) + " more");
+            }
+        }
         if (plan.templates().isEmpty()) {
-            out.println("Found no file that looks like a prompt (a template extension, a prompts or templates folder,"
+            out.println("Found no template file that looks like a prompt (a template extension, a prompts or templates folder,"
                     + " placeholders, role lines, chat messages); the include globs are the usual places. Edit them to"
                     + " where your prompts are, then run 'tare scan'.");
             return ExitCodes.OK;

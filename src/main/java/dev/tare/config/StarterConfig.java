@@ -15,7 +15,8 @@ public final class StarterConfig {
     }
 
     /** The starter file's text; it loads with {@link ConfigLoader} as it is. */
-    public static String text(List<String> include, List<String> exclude, String placeholder, String partials) {
+    public static String text(List<String> include, List<String> exclude, String placeholder, String partials,
+                              List<String> codeInclude) {
         StringBuilder out = new StringBuilder();
         out.append("# Tare configuration. Every key is optional; see the README for what each one does.\n");
         out.append("templates:\n");
@@ -28,7 +29,13 @@ public final class StarterConfig {
         out.append("  # dollar-double-brace {{$x}} (with function calls {{plugin.fn $x}}), or none.\n");
         out.append("  placeholder: ").append(placeholder).append('\n');
         out.append("  # Where {{> name }} and {% include \"name\" %} look first.\n");
-        out.append("  partials: ").append(quoted(partials)).append("\n\n");
+        out.append("  partials: ").append(quoted(partials)).append('\n');
+        if (!codeInclude.isEmpty()) {
+            out.append("  # Source files whose string literals are read for prompts (by default every source file).\n");
+            out.append("  code:\n    include:\n");
+            codeInclude.forEach(glob -> out.append("      - ").append(quoted(glob)).append('\n'));
+        }
+        out.append('\n');
         out.append(resource());
         return out.toString();
     }

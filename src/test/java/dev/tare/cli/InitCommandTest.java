@@ -40,7 +40,7 @@ class InitCommandTest {
     void writesAStarterThatLoadsAndNeverOverwrites() throws Exception {
         Cli.Run first = Cli.run("init", dir.toString());
         assertEquals(0, first.exitCode(), first.err());
-        assertTrue(first.out().contains("Found no file that looks like a prompt"), first.out());
+        assertTrue(first.out().contains("Found no template file that looks like a prompt"), first.out());
         TareConfig config = ConfigLoader.load(dir.resolve("tare.yaml"));
         assertEquals("o200k_base", config.target("hosted").tokenizer());
         Files.writeString(dir.resolve("tare.yaml"), "# mine\n");
@@ -48,6 +48,21 @@ class InitCommandTest {
         assertEquals(2, second.exitCode());
         assertTrue(second.err().contains("already exists"), second.err());
         assertEquals("# mine\n", Files.readString(dir.resolve("tare.yaml")));
+    }
+
+    @Test
+    void initNamesTheSourceFilesThatHoldPromptsAndReadsTheirFolders() throws Exception {
+        write("prompts/triage.md", "Sort the ticket {{ ticket }} into one of the crew's queues.\n");
+        write("app/agent.py", "SYSTEM_PROMPT = \"You route ferry tickets to the right crew, briefly.\"\n");
+        write("app/util.py", "import os\nDATA = os.path.join('var', 'data')\n");
+        write("tools/build.go", "package main\nconst usage = \"build the release\"\n");
+        Cli.Run init = Cli.run("init", dir.toString());
+        assertEquals(0, init.exitCode(), init.err());
+        assertTrue(init.out().contains("Found prompts written in 1 source file, read through app/**/*.py:\n  app/agent.py"),
+                init.out());
+        TareConfig config = ConfigLoader.load(dir.resolve("tare.yaml"));
+        assertEquals(List.of("app/**/*.py"), config.templates().code().include());
+        assertEquals(List.of("app/agent.py", "prompts/triage.md"), scanned());
     }
 
     @Test
