@@ -23,14 +23,8 @@ final class TextBlock {
         int outdent = optOut ? 0 : outdent(content);
         int start = 0;
         while (start < n) {
-            int end = start;
-            while (end < n && content.charAt(end) != '\n') {
-                end++;
-            }
-            int first = start;
-            while (first < end && Character.isWhitespace(content.charAt(first))) {
-                first++;
-            }
+            int end = lineEnd(content, start);
+            int first = indentEnd(content, start, end);
             int last = end;
             while (last > first && Character.isWhitespace(content.charAt(last - 1))) {
                 last--;
@@ -52,6 +46,24 @@ final class TextBlock {
         return out;
     }
 
+    /** Where the line that starts at {@code start} ends: at its line break, or at the end. */
+    private static int lineEnd(DecodedText content, int start) {
+        int end = start;
+        while (end < content.length() && content.charAt(end) != '\n') {
+            end++;
+        }
+        return end;
+    }
+
+    /** Where the white space that starts the line {@code [start, end)} ends. */
+    private static int indentEnd(DecodedText content, int start, int end) {
+        int first = start;
+        while (first < end && Character.isWhitespace(content.charAt(first))) {
+            first++;
+        }
+        return first;
+    }
+
     /** The indentation that is incidental: the least of the non-blank lines and of a blank last line. */
     private static int outdent(DecodedText content) {
         int n = content.length();
@@ -59,14 +71,8 @@ final class TextBlock {
         int start = 0;
         int lastLineStart = 0;
         while (start <= n) {
-            int end = start;
-            while (end < n && content.charAt(end) != '\n') {
-                end++;
-            }
-            int first = start;
-            while (first < end && Character.isWhitespace(content.charAt(first))) {
-                first++;
-            }
+            int end = lineEnd(content, start);
+            int first = indentEnd(content, start, end);
             if (first < end) {
                 outdent = Math.min(outdent, first - start);
             }
