@@ -200,7 +200,8 @@ public final class TemplateScan {
         private record MessageCounts(List<String> messages, LineCounts[] counts) {
         }
 
-        private final Map<Tokenizer, List<MessageCounts>> byTokenizer = new java.util.IdentityHashMap<>();
+        /** The first rendering counted on each tokenizer, which later ones are counted against. */
+        private final Map<Tokenizer, MessageCounts> firstByTokenizer = new java.util.IdentityHashMap<>();
 
         /**
          * The rendering's count. A message is compared only with its twin, the message at its own
@@ -211,21 +212,17 @@ public final class TemplateScan {
          * chat of thousands of messages.
          */
         int of(Tokenizer tokenizer, Rendering rendering) {
-            List<MessageCounts> before = byTokenizer.computeIfAbsent(tokenizer, t -> new ArrayList<>(3));
+            MessageCounts first = firstByTokenizer.get(tokenizer);
             List<String> messages = rendering.messages();
             LineCounts[] counts = new LineCounts[messages.size()];
             int total = 0;
             for (int i = 0; i < counts.length; i++) {
                 String message = messages.get(i);
-                if (before.isEmpty() || i >= before.get(0).messages().size()) {
-                    counts[i] = tokenizer.countLines(message);
-                } else {
-                    MessageCounts first = before.get(0);
-                    counts[i] = LineCounts.whole(first.counts()[i].countOf(message, first.messages().get(i), tokenizer));
-                }
+                counts[i] = first == null || i >= first.messages().size() ? tokenizer.countLines(message)
+                        : LineCounts.whole(first.counts()[i].countOf(message, first.messages().get(i), tokenizer));
                 total += counts[i].total();
             }
-            before.add(new MessageCounts(messages, counts));
+            firstByTokenizer.putIfAbsent(tokenizer, new MessageCounts(messages, counts));
             return total;
         }
     }
