@@ -47,9 +47,6 @@ line() {
   awk -v run="$1" -v wall="$bench_wall" -v rss="$bench_rss_mib" -v cpu="$bench_cpu" -v other="$bench_other_cpu" \
     'BEGIN { printf "%-18s %8.2f %13.0f %7.2f %12.1f\n", run, wall, rss, cpu, other }'
 }
-median() {
-  sort -g | awk '{ w[NR] = $1 } END { print (NR % 2) ? w[(NR + 1) / 2] : (w[NR / 2] + w[NR / 2 + 1]) / 2 }'
-}
 # findings FILE: the findings of a JSON check report without the run's own fields, for comparing.
 findings() {
   awk '/"findings"/ { on = 1 } on { print }' "$1"
@@ -83,9 +80,9 @@ for run in $(seq 1 "$runs"); do
   edited=""
 done
 
-scan="$(printf '%s\n' "${scans[@]}" | median)"
-check="$(printf '%s\n' "${checks[@]}" | median)"
-edit="$(printf '%s\n' "${edits[@]}" | median)"
+scan="$(printf '%s\n' "${scans[@]}" | bench_median)"
+check="$(printf '%s\n' "${checks[@]}" | bench_median)"
+edit="$(printf '%s\n' "${edits[@]}" | bench_median)"
 awk -v scan="$scan" -v check="$check" -v edit="$edit" \
   'BEGIN { printf "\nmedian wall: cold scan %.2f s, cold check %.2f s, check after one edit %.2f s\n", scan, check, edit
            printf "cold check / cold scan %.2f (issue #26: at most 2.5); edited check / cold check %.2f (at most 0.15)\n", check / scan, edit / check }'

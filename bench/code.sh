@@ -45,9 +45,6 @@ line() {
   awk -v run="$1" -v wall="$bench_wall" -v rss="$bench_rss_mib" -v cpu="$bench_cpu" -v other="$bench_other_cpu" \
     'BEGIN { printf "%-22s %8.2f %13.0f %7.2f %12.1f\n", run, wall, rss, cpu, other }'
 }
-median() {
-  sort -g | awk '{ w[NR] = $1 } END { print (NR % 2) ? w[(NR + 1) / 2] : (w[NR / 2] + w[NR / 2 + 1]) / 2 }'
-}
 # measured FILE: the number of templates a JSON scan report measured.
 measured() {
   grep -c '"static_tokens"' "$1" || true
@@ -70,8 +67,8 @@ if [ "$(measured "$work/alone")" != "$(measured "$work/both")" ]; then
   echo "code.sh: the scan with source files measured $(measured "$work/both") templates, without them $(measured "$work/alone"); a generated source file was taken for a prompt" >&2
   exit 1
 fi
-a="$(printf '%s\n' "${alone[@]}" | median)"
-b="$(printf '%s\n' "${both[@]}" | median)"
+a="$(printf '%s\n' "${alone[@]}" | bench_median)"
+b="$(printf '%s\n' "${both[@]}" | bench_median)"
 echo
 awk -v a="$a" -v b="$b" -v n="$sources" 'BEGIN { printf "median wall: templates only %.2f s, with %d source files %.2f s; the source files add %.2f s (issue #25: at most 1 s)\n", a, n, b, b - a }'
 echo "both scans measured $(measured "$work/alone") templates"

@@ -116,3 +116,8 @@ bench_time() {
   bench_other_cpu="$(awk -v busy="$(( after - before ))" -v hz="$(getconf CLK_TCK)" -v cpu="$bench_cpu" \
     'BEGIN { other = busy / hz - cpu; printf "%.1f", other < 0 ? 0 : other }')"
 }
+
+# bench_median: the median of the numbers on standard input, one a line; "-" when there is none.
+bench_median() {
+  sort -g | awk '{ v[NR] = $1 } END { if (NR == 0) print "-"; else print (NR % 2) ? v[(NR + 1) / 2] : (v[NR / 2] + v[NR / 2 + 1]) / 2 }'
+}

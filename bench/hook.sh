@@ -89,9 +89,6 @@ busy_ticks() {
   awk '/^cpu / { print $2 + $3 + $4 + $7 + $8 + $9 }' /proc/stat
 }
 ticks_per_second="$(getconf CLK_TCK)"
-median() {
-  sort -g | awk '{ v[NR] = $1 } END { if (NR == 0) print "-"; else print (NR % 2) ? v[(NR + 1) / 2] : (v[NR / 2] + v[NR / 2 + 1]) / 2 }'
-}
 
 echo "repository: 10 staged templates ($(cd "$repo" && cat "${staged[@]}" | wc -c) bytes), 3 targets (two built-in encodings, one tokenizer.json)"
 echo "small file: $small ($(wc -c <"$repo/$small") bytes)"
@@ -135,11 +132,11 @@ done
 
 printf '%-20s %8s %7s %9s %15s %9s  %s\n' command wall_s cpu_s start_ms tokenizer_ms work_ms class-data-archive
 for i in "${!labels[@]}"; do
-  wall="$(median <"$results/$i.wall")"
-  printf '%-20s %8.2f %7.2f' "${labels[$i]}" "$wall" "$(median <"$results/$i.cpu")"
+  wall="$(bench_median <"$results/$i.wall")"
+  printf '%-20s %8.2f %7.2f' "${labels[$i]}" "$wall" "$(bench_median <"$results/$i.cpu")"
   if [ -f "$results/$i.start" ]; then
-    printf ' %9s %15s %9s  %s\n' "$(median <"$results/$i.start")" "$(median <"$results/$i.tokenizer load")" \
-      "$(median <"$results/$i.work")" "$(cat "$results/$i.archive")"
+    printf ' %9s %15s %9s  %s\n' "$(bench_median <"$results/$i.start")" "$(bench_median <"$results/$i.tokenizer load")" \
+      "$(bench_median <"$results/$i.work")" "$(cat "$results/$i.archive")"
   else
     printf ' %9s %15s %9s  %s\n' - - - "as installed"
   fi

@@ -40,9 +40,6 @@ line() {
     'BEGIN { rate = bytes > 0 ? sprintf("%8.1f", bytes / 1e6 / wall) : sprintf("%8s", "-")
              printf "%-9s %8.2f %s %13.0f %7.2f %12.1f\n", run, wall, rate, rss, cpu, other }'
 }
-median() {
-  sort -g | awk '{ w[NR] = $1 } END { print (NR % 2) ? w[(NR + 1) / 2] : (w[NR / 2] + w[NR / 2 + 1]) / 2 }'
-}
 
 walls=()
 warm_walls=()
@@ -67,9 +64,9 @@ for run in $(seq 1 "$runs"); do
   line "$run help" 0
 done
 
-cold="$(printf '%s\n' "${walls[@]}" | median)"
-warm="$(printf '%s\n' "${warm_walls[@]}" | median)"
-help="$(printf '%s\n' "${help_walls[@]}" | median)"
+cold="$(printf '%s\n' "${walls[@]}" | bench_median)"
+warm="$(printf '%s\n' "${warm_walls[@]}" | bench_median)"
+help="$(printf '%s\n' "${help_walls[@]}" | bench_median)"
 awk -v wall="$cold" -v warm="$warm" -v help="$help" -v bytes="$bytes" \
   'BEGIN { printf "\nmedian wall cold %.2f s, %.1f MB/s; warm %.2f s; cold/warm %.1f (MB = 10^6 bytes of template files; RSS in MiB, as reported by GNU time)\n", wall, bytes / 1e6 / wall, warm, wall / warm
            printf "for scale, ./tare scan --help (JVM start and the command line, no work): %.2f s\n", help }'
